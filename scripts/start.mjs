@@ -1,0 +1,94 @@
+// `npm start`: installs what is missing, starts a private PostgreSQL under .data/, migrates,
+// seeds the demo, builds the web app and serves app + API (and the mail capture) on 127.0.0.1.
+// `npm run dev` does the same but serves the web app from Vite with hot reload.
+import path from 'node:path';
+import {
+  PrivateCluster, ROOT, buildWeb, ensureNodeModules, ensurePostgres, freePort, loadDotEnv, log,
+  portIsFree, runTs, secretFile, startChild, startMaildev, startTs, stopChild, waitForHttp,
+} from './lib.mjs';
+
+const dev = process.argv.includes('--dev');
+const children = [];
+let cluster;
+let stopping = false;
+
+async function shutdown(code = 0) {
+  if (stopping) return;
+  stopping = true;
+  log('stopping…');
+  for (const c of children.reverse()) await stopChild(c);
+  cluster?.stop();
+  process.exit(code);
+}
+process.on('SIGINT', () => void shutdown(0));
+process.on('SIGTERM', () => void shutdown(0));
+
+async function pickPort(preferred) {
+  return (await portIsFree(preferred)) ? preferred : freePort();
+}
+
+async function main() {
+  loadDotEnv();
+  const port = Number(process.env.PORT ?? 8080);
+  const pgPort = Number(process.env.PGPORT ?? 54329);
+  const dataDir = path.join(ROOT, '.data');
+
+  ensureNodeModules();
+  const bin = ensurePostgres();
+
+  cluster = new PrivateCluster({ dir: path.join(dataDir, 'pg'), port: pgPort, bin });
+  await cluster.start();
+  cluster.ensureDatabase('basinwright');
+
+  const smtpPort = await pickPort(Number(process.env.SMTP_PORT ?? 1025));
+  const mailWebPort = await pickPort(Number(process.env.MAIL_WEB_PORT ?? 1080));
+  const env = {
+    NODE_ENV: dev ? 'development' : 'production',
+    HOST: '127.0.0.1',
+    PORT: String(port),
+    DATABASE_URL: process.env.DATABASE_URL ?? cluster.url('basinwright'),
+    ...(process.env.JWT_SECRET ? {} : { JWT_SECRET_FILE: path.join(dataDir, 'jwt-secret') }),
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(smtpPort),
+    MAIL_FROM: process.env.MAIL_FROM ?? 'Basinwright <no-reply@basinwright.invalid>',
+    APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${dev ? 5173 : port}`,
+    ...(dev ? {} : { WEB_DIST: path.join(ROOT, 'web', 'dist') }),
+  };
+  if (!process.env.JWT_SECRET) secretFile(env.JWT_SECRET_FILE);
+
+  log('migrating the database…');
+  runTs('api/src/db/migrate.ts', env);
+  log('loading the demo data…');
+  runTs('seed/run.ts', env);
+
+  if (!dev) buildWeb();
+
+  children.push(startMaildev({ smtpPort, webPort: mailWebPort, mailDir: path.join(dataDir, 'mail') }));
+  const api = startTs('api', 'api/src/server.ts', env);
+  children.push(api);
+  api.on('exit', () => void shutdown(1));
+  await waitForHttp(`http://127.0.0.1:${port}/api/v1/health`, 60000);
+
+  let url = `http://127.0.0.1:${port}/`;
+  if (dev) {
+    const vite = startChild('vite', 'npm', ['run', 'dev', '-w', 'web', '--', '--port', '5173', '--strictPort'], {
+      API_PORT: String(port),
+    });
+    children.push(vite);
+    url = 'http://127.0.0.1:5173/';
+  }
+
+  log('');
+  log(`Basinwright is running at ${url}`);
+  log(`Sent e-mail (password resets, invitations): http://127.0.0.1:${mailWebPort}/`);
+  log('Demo sign-ins (password for all: basinwright-demo):');
+  for (const role of ['owner', 'admin', 'engineer', 'estimator', 'viewer']) {
+    log(`  ${role.padEnd(9)} ${role}@harrow-lune.example`);
+  }
+  log('Press Ctrl-C to stop (PostgreSQL included). Data is kept in .data/.');
+}
+
+main().catch(async (err) => {
+  process.stderr.write(`[basinwright] start failed: ${err instanceof Error ? err.message : String(err)}\n`);
+  await shutdown(1);
+});
