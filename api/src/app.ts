@@ -1,0 +1,83 @@
+import express from 'express';
+import helmet from 'helmet';
+import type { Sequelize } from 'sequelize';
+import { getConfig } from './config/env';
+import { sequelize as defaultSequelize } from './models';
+import { httpLogger } from './logger';
+import { errorHandler } from './middlewares/error-handler';
+import { notFoundHandler, spaRouter } from './middlewares/not-found';
+import { createRateLimits } from './middlewares/rate-limit';
+import { authRouter } from './modules/auth/auth.routes';
+import { healthRouter } from './modules/health/health.routes';
+import { invitationsRouter } from './modules/invitations/invitations.routes';
+import { membersRouter } from './modules/members/members.routes';
+import { projectsRouter } from './modules/projects/projects.routes';
+import { calcRouter } from './modules/calc/calc.routes';
+import openapi from './openapi.json' with { type: 'json' };
+
+export interface AppOptions {
+  /** Database the health check probes (tests point it at a closed port to see a 503). */
+  healthDatabase?: Sequelize;
+  /** Folder of the built SPA; defaults to WEB_DIST. */
+  webDist?: string | null;
+}
+
+/** Builds the Express app without listening; server.ts listens and tests drive it with supertest. */
+export function createApp(options: AppOptions = {}): express.Express {
+  const config = getConfig();
+  const app = express();
+  app.set('trust proxy', config.trustProxy);
+  app.disable('x-powered-by');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // A Vite build loads only its own module scripts; ant-design-vue injects <style>
+          // elements at run time (CSS-in-JS), hence inline styles; fonts ship with the app.
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          frameSrc: ["'self'", 'blob:'],
+          workerSrc: ["'self'", 'blob:'],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          // Served over plain HTTP on loopback locally; TLS is the proxy's job.
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+  app.use(httpLogger());
+
+  const limits = createRateLimits(defaultSequelize);
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.get('/openapi.json', (_req, res) => {
+    res.json(openapi);
+  });
+  api.use('/health', healthRouter(options.healthDatabase ?? defaultSequelize));
+  api.use('/auth', authRouter(limits));
+  api.use('/invitations', invitationsRouter(limits));
+  api.use('/members', membersRouter());
+  api.use('/projects', projectsRouter());
+
+  // engine routes
+  // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))
+  api.use('/calc', calcRouter());
+
+  api.use(notFoundHandler);
+  app.use('/api/v1', api);
+  app.use('/api', notFoundHandler);
+
+  const webDist = options.webDist === undefined ? config.webDist : options.webDist;
+  if (webDist !== null) app.use(spaRouter(webDist));
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,17 @@
+import { Sequelize } from 'sequelize';
+import { getDatabaseUrl } from '../config/env';
+
+/** A Sequelize instance for a PostgreSQL URL; underscored columns, no SQL logging. */
+export function createSequelize(databaseUrl: string): Sequelize {
+  return new Sequelize(databaseUrl, {
+    dialect: 'postgres',
+    logging: false,
+    define: { underscored: true },
+    pool: { max: 10, min: 0, idle: 10_000, acquire: 10_000 },
+    // A refused connection should fail the request quickly, not hang it.
+    dialectOptions: { connectionTimeoutMillis: 5_000 },
+  });
+}
+
+/** The process-wide connection pool; models are bound to it. It connects on first query. */
+export const sequelize = createSequelize(getDatabaseUrl());

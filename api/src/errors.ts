@@ -1,0 +1,55 @@
+/** Every error the API answers with: `{ code, message, details? }` and an HTTP status. */
+export type ErrorCode =
+  | 'validation_error'
+  | 'bad_json'
+  | 'unauthorized'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'plan_limit'
+  | 'rate_limited'
+  | 'payload_too_large'
+  | 'invalid_token'
+  | 'unsupported_media_type'
+  | 'bad_request'
+  | 'service_unavailable'
+  | 'internal_error';
+
+export type ErrorDetails = Record<string, string>;
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly details?: ErrorDetails,
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+
+  toJSON(): { code: ErrorCode; message: string; details?: ErrorDetails } {
+    return this.details === undefined
+      ? { code: this.code, message: this.message }
+      : { code: this.code, message: this.message, details: this.details };
+  }
+}
+
+export const validationError = (details: ErrorDetails, message = 'Some fields need attention.') =>
+  new ApiError(422, 'validation_error', message, details);
+export const badJson = (message = 'The request body is not valid JSON.') => new ApiError(400, 'bad_json', message);
+export const badRequest = (message: string) => new ApiError(400, 'bad_request', message);
+export const unauthorized = (message = 'Sign in to continue.') => new ApiError(401, 'unauthorized', message);
+export const forbidden = (message = 'Your role does not allow this.') => new ApiError(403, 'forbidden', message);
+export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
+export const conflict = (message: string) => new ApiError(409, 'conflict', message);
+export const planLimit = (message: string) => new ApiError(403, 'plan_limit', message);
+export const rateLimited = (message = 'Too many attempts. Wait a little and try again.') =>
+  new ApiError(429, 'rate_limited', message);
+export const payloadTooLarge = (message = 'The request body is too large.') =>
+  new ApiError(413, 'payload_too_large', message);
+export const invalidToken = (message = 'This link is invalid or has expired. Ask for a new one.') =>
+  new ApiError(400, 'invalid_token', message);
+export const unsupportedMediaType = (message = 'Send the request body as JSON.') =>
+  new ApiError(415, 'unsupported_media_type', message);
+export const serviceUnavailable = (message: string) => new ApiError(503, 'service_unavailable', message);

@@ -1,0 +1,75 @@
+import nodemailer, { type Transporter } from 'nodemailer';
+import { getConfig } from './config/env';
+
+export interface MailMessage {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+let transport: Transporter | undefined;
+
+function transporter(): Transporter {
+  const config = getConfig();
+  // Local SMTP (capture server or maildev): plain, no TLS upgrade.
+  transport ??= nodemailer.createTransport({
+    host: config.smtpHost,
+    port: config.smtpPort,
+    secure: false,
+    ignoreTLS: true,
+  });
+  return transport;
+}
+
+export async function sendMail(message: MailMessage): Promise<void> {
+  await transporter().sendMail({ from: getConfig().mailFrom, ...message });
+}
+
+/** Closes pooled SMTP connections (shutdown, tests). */
+export function closeMail(): void {
+  transport?.close();
+  transport = undefined;
+}
+
+function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (ch) => `&#${ch.charCodeAt(0)};`);
+}
+
+function link(path: string, token: string): string {
+  const url = new URL(path, `${getConfig().appUrl}/`);
+  url.searchParams.set('token', token);
+  return url.toString();
+}
+
+export function passwordResetMail(to: string, name: string, token: string): MailMessage {
+  const url = link('reset-password', token);
+  return {
+    to,
+    subject: 'Reset your Basinwright password',
+    text:
+      `Hello ${name},\n\n` +
+      `Someone asked to reset the password of your Basinwright account. To choose a new password, open:\n\n` +
+      `${url}\n\nThe link works once and expires in 1 hour. If you did not ask for this, ignore this e-mail.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>Someone asked to reset the password of your Basinwright account.</p>` +
+      `<p><a href="${escapeHtml(url)}">Choose a new password</a></p>` +
+      `<p>The link works once and expires in 1 hour. If you did not ask for this, ignore this e-mail.</p>`,
+  };
+}
+
+export function invitationMail(to: string, firmName: string, inviterName: string, role: string, token: string): MailMessage {
+  const url = link('accept-invitation', token);
+  return {
+    to,
+    subject: `${firmName} invited you to Basinwright`,
+    text:
+      `${inviterName} invited you to join ${firmName} on Basinwright as ${role}.\n\n` +
+      `To accept, open:\n\n${url}\n\nThe invitation expires in 7 days.\n`,
+    html:
+      `<p>${escapeHtml(inviterName)} invited you to join <strong>${escapeHtml(firmName)}</strong> on Basinwright as ${escapeHtml(role)}.</p>` +
+      `<p><a href="${escapeHtml(url)}">Accept the invitation</a></p>` +
+      `<p>The invitation expires in 7 days.</p>`,
+  };
+}

@@ -1,0 +1,52 @@
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import { can, type Action } from '@basinwright/common';
+import { forbidden, unauthorized } from '../errors';
+import { Firm, User } from '../models';
+import { verifyToken } from '../modules/auth/auth.tokens';
+
+export interface AuthContext {
+  user: User;
+  firm: Firm;
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      /** Set by authenticate(): the signed-in member and their firm. */
+      auth?: AuthContext;
+    }
+  }
+}
+
+/**
+ * Requires `Authorization: Bearer <jwt>`. The user is loaded on every request so that a
+ * deactivated member, a changed role or a bumped token version takes effect at once.
+ */
+export const authenticate: RequestHandler = async (req: Request, _res: Response, next: NextFunction) => {
+  const header = req.get('authorization');
+  const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
+  if (match?.[1] === undefined) throw unauthorized();
+  const claims = verifyToken(match[1]);
+  const user = await User.findByPk(claims.sub, { include: [{ model: Firm, as: 'firm' }] });
+  if (user === null || user.firm === undefined || !user.active || user.tokenVersion !== claims.tv || user.firmId !== claims.fid) {
+    throw unauthorized('Your session has ended. Sign in again.');
+  }
+  req.auth = { user, firm: user.firm };
+  next();
+};
+
+/** The signed-in context; only valid after authenticate(). */
+export function authOf(req: Request): AuthContext {
+  if (req.auth === undefined) throw unauthorized();
+  return req.auth;
+}
+
+/** Allows the request only when the member's role may perform `action` (see POLICY). */
+export function authorize(action: Action): RequestHandler {
+  return (req, _res, next) => {
+    const { user } = authOf(req);
+    if (!can(user.role, action)) throw forbidden();
+    next();
+  };
+}

@@ -1,0 +1,56 @@
+import type { NextFunction, Request, Response } from 'express';
+import { ConnectionError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import {
+  ApiError,
+  badJson,
+  badRequest,
+  conflict,
+  payloadTooLarge,
+  serviceUnavailable,
+  unsupportedMediaType,
+  validationError,
+} from '../errors';
+import { getConfig } from '../config/env';
+import type {} from 'pino-http'; // req.log
+
+/** body-parser marks its errors with a `type` string and an HTTP status. */
+function bodyParserError(error: unknown): { type: string; status: number } | null {
+  if (typeof error !== 'object' || error === null) return null;
+  const { type, status } = error as { type?: unknown; status?: unknown };
+  return typeof type === 'string' && typeof status === 'number' ? { type, status } : null;
+}
+
+/** Maps anything thrown to the one error shape; unknown errors become a 500. */
+export function toApiError(error: unknown): ApiError {
+  if (error instanceof ApiError) return error;
+  const parser = bodyParserError(error);
+  if (parser !== null) {
+    if (parser.type === 'entity.parse.failed') return badJson();
+    if (parser.type === 'entity.too.large') return payloadTooLarge('The request body is larger than 1 MB.');
+    if (parser.type === 'encoding.unsupported' || parser.type === 'charset.unsupported') return unsupportedMediaType();
+    if (parser.status >= 400 && parser.status < 500) return badRequest('The request body could not be read.');
+  }
+  // A race that slipped past a service check (two sign-ups with one e-mail at the same time).
+  if (error instanceof UniqueConstraintError) return conflict('That already exists.');
+  if (error instanceof SequelizeValidationError) {
+    const details: Record<string, string> = {};
+    for (const item of error.errors) details[item.path ?? 'body'] ??= item.message;
+    return validationError(details);
+  }
+  if (error instanceof ConnectionError) return serviceUnavailable('The database is not reachable. Try again shortly.');
+  const message =
+    getConfig().nodeEnv === 'production' || !(error instanceof Error)
+      ? 'Something went wrong on our side.'
+      : error.message;
+  return new ApiError(500, 'internal_error', message);
+}
+
+export function errorHandler(error: unknown, req: Request, res: Response, next: NextFunction): void {
+  if (res.headersSent) {
+    next(error);
+    return;
+  }
+  const apiError = toApiError(error);
+  if (apiError.status >= 500) req.log.error({ err: error }, 'request failed');
+  res.status(apiError.status).json(apiError.toJSON());
+}

@@ -1,0 +1,25 @@
+import { sequelize } from '../db/sequelize';
+import { Firm } from './Firm';
+import { Invitation } from './Invitation';
+import { PasswordReset } from './PasswordReset';
+import { Project } from './Project';
+import { User } from './User';
+
+// Init every model on the process pool first, then wire the associations.
+Firm.initModel(sequelize);
+User.initModel(sequelize);
+Project.initModel(sequelize);
+Invitation.initModel(sequelize);
+PasswordReset.initModel(sequelize);
+
+Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
+User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
+Firm.hasMany(Project, { as: 'projects', foreignKey: 'firmId' });
+Project.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
+Project.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+Firm.hasMany(Invitation, { as: 'invitations', foreignKey: 'firmId' });
+Invitation.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
+Invitation.belongsTo(User, { as: 'invitedBy', foreignKey: 'invitedById' });
+PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+
+export { sequelize, Firm, Invitation, PasswordReset, Project, User };

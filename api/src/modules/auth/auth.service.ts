@@ -1,0 +1,100 @@
+import {
+  PLAN_LIMITS,
+  TOKEN_TTL_MS,
+  type ForgotPasswordInput,
+  type LoginInput,
+  type ResetPasswordInput,
+  type SignupInput,
+} from '@basinwright/common';
+import { Op, UniqueConstraintError } from 'sequelize';
+import { conflict, invalidToken, unauthorized } from '../../errors';
+import { passwordResetMail, sendMail } from '../../mail';
+import { Firm, PasswordReset, sequelize, User } from '../../models';
+import { hashEmailToken, hashPassword, newEmailToken, verifyPassword } from '../../security';
+import { logger } from '../../logger';
+import { issueToken } from './auth.tokens';
+
+export interface Session {
+  token: string;
+  user: User;
+  firm: Firm;
+}
+
+const WRONG_CREDENTIALS = 'Incorrect e-mail or password.';
+export const EMAIL_TAKEN = 'An account with this e-mail already exists. Sign in, or reset the password.';
+
+/** Creates a firm on the Concept plan and its owner in one transaction, then signs the owner in. */
+export async function signup(input: SignupInput): Promise<Session> {
+  const passwordHash = await hashPassword(input.password);
+  try {
+    const { user, firm } = await sequelize.transaction(async (transaction) => {
+      if ((await User.count({ where: { email: input.email }, transaction })) > 0) throw conflict(EMAIL_TAKEN);
+      const firm = await Firm.create(
+        { name: input.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
+        { transaction },
+      );
+      const user = await User.create(
+        { firmId: firm.id, name: input.name, email: input.email, passwordHash, role: 'owner', lastLoginAt: new Date() },
+        { transaction },
+      );
+      return { user, firm };
+    });
+    return { token: issueToken(user), user, firm };
+  } catch (error) {
+    if (error instanceof UniqueConstraintError) throw conflict(EMAIL_TAKEN);
+    throw error;
+  }
+}
+
+/** Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated member. */
+export async function login(input: LoginInput): Promise<Session> {
+  const user = await User.findOne({ where: { email: input.email }, include: [{ model: Firm, as: 'firm' }] });
+  const ok = await verifyPassword(input.password, user?.passwordHash ?? null);
+  if (user === null || !ok || !user.active || user.firm === undefined) throw unauthorized(WRONG_CREDENTIALS);
+  await user.update({ lastLoginAt: new Date() });
+  return { token: issueToken(user), user, firm: user.firm };
+}
+
+/** Revokes every token of the member (all devices) by bumping the token version. */
+export async function logout(user: User): Promise<void> {
+  await User.increment({ tokenVersion: 1 }, { where: { id: user.id } });
+}
+
+export const FORGOT_PASSWORD_MESSAGE =
+  'If an account exists for that e-mail, we have sent a link to choose a new password. It expires in 1 hour.';
+
+/**
+ * Records a reset request and e-mails its link when the member exists and is active. The
+ * reply never says which: the mail goes out after the response so timing does not tell either.
+ */
+export async function forgotPassword(input: ForgotPasswordInput): Promise<void> {
+  const user = await User.findOne({ where: { email: input.email, active: true } });
+  if (user === null) return;
+  const { token, tokenHash } = newEmailToken();
+  await PasswordReset.create({ userId: user.id, tokenHash, expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset) });
+  sendMail(passwordResetMail(user.email, user.name, token)).catch((error: unknown) => {
+    logger().error({ err: error }, 'password reset e-mail failed');
+  });
+}
+
+/** Sets a new password from a single-use, unexpired token; ends every other session. */
+export async function resetPassword(input: ResetPasswordInput): Promise<Session> {
+  const passwordHash = await hashPassword(input.password);
+  const tokenHash = hashEmailToken(input.token);
+  const user = await sequelize.transaction(async (transaction) => {
+    const reset = await PasswordReset.findOne({ where: { tokenHash }, lock: transaction.LOCK.UPDATE, transaction });
+    const now = new Date();
+    if (reset === null || reset.usedAt !== null || reset.expiresAt <= now) throw invalidToken();
+    const user = await User.findByPk(reset.userId, { lock: transaction.LOCK.UPDATE, transaction });
+    if (user === null || !user.active) throw invalidToken();
+    await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 }, { transaction });
+    // This and every other open link of the member stop working.
+    await PasswordReset.update(
+      { usedAt: now },
+      { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction },
+    );
+    return user;
+  });
+  const firm = await Firm.findByPk(user.firmId, { rejectOnEmpty: true });
+  return { token: issueToken(user), user, firm };
+}

@@ -1,0 +1,23 @@
+import { Router } from 'express';
+import { acceptInvitationSchema, invitationCreateSchema } from '@basinwright/common';
+import { authorize } from '../../middlewares/auth';
+import type { RateLimits } from '../../middlewares/rate-limit';
+import { validate } from '../../middlewares/validate';
+import * as controller from './invitations.controller';
+
+/** /members/invitations: the firm's side (mounted behind authenticate by membersRouter). */
+export function memberInvitationsRouter(): Router {
+  const router = Router();
+  router.get('/', authorize('invitations.list'), controller.list);
+  router.post('/', authorize('invitations.create'), validate(invitationCreateSchema), controller.create);
+  router.delete('/:id', authorize('invitations.revoke'), controller.revoke);
+  return router;
+}
+
+/** /invitations: the invitee's side, reached from the e-mailed link (no sign-in). */
+export function invitationsRouter(limits: RateLimits): Router {
+  const router = Router();
+  router.post('/accept', limits.tokenByIp, validate(acceptInvitationSchema), controller.accept);
+  router.get('/:token', limits.tokenByIp, controller.preview);
+  return router;
+}

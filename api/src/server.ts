@@ -1,0 +1,65 @@
+// Entry point: connect, optionally migrate, listen; shut down cleanly on SIGTERM/SIGINT.
+//   node --import tsx --conditions=@basinwright/source api/src/server.ts
+import type { AddressInfo } from 'node:net';
+import { ConfigError, getConfig } from './config/env';
+
+async function main(): Promise<void> {
+  let config;
+  try {
+    config = getConfig();
+  } catch (error) {
+    console.error(error instanceof ConfigError ? error.message : error);
+    process.exit(1);
+  }
+
+  const { sequelize } = await import('./models');
+  const { createApp } = await import('./app');
+  const { createMigrator } = await import('./db/umzug');
+  const { closeMail } = await import('./mail');
+  const { logger } = await import('./logger');
+  const log = logger();
+
+  try {
+    await sequelize.authenticate();
+  } catch (error) {
+    console.error(`server: cannot reach the database — ${error instanceof Error ? error.message : String(error)}`);
+    process.exit(1);
+  }
+  if (config.migrateOnStart) {
+    const applied = await createMigrator(sequelize).up();
+    for (const migration of applied) log.info({ migration: migration.name }, 'migration applied');
+  }
+
+  const app = createApp();
+  const server = app.listen(config.port, config.host);
+  server.on('error', (error) => {
+    console.error(`server: cannot listen on ${config.host}:${config.port} — ${error.message}`);
+    process.exit(1);
+  });
+  server.on('listening', () => {
+    const { port } = server.address() as AddressInfo;
+    console.log(`Basinwright API listening on http://${config.host}:${port}/ (API at /api/v1)`);
+  });
+
+  let stopping = false;
+  const shutdown = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    log.info({ signal }, 'shutting down');
+    // Give in-flight requests a moment; then stop regardless.
+    const force = setTimeout(() => process.exit(1), 10_000);
+    force.unref();
+    server.close(() => {
+      closeMail();
+      sequelize
+        .close()
+        .then(() => process.exit(0))
+        .catch(() => process.exit(1));
+    });
+    server.closeIdleConnections();
+  };
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGINT', () => shutdown('SIGINT'));
+}
+
+await main();

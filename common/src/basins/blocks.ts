@@ -1,0 +1,68 @@
+// Rows of blocks across a basin: a whole number of blocks with half a space at each wall.
+import { reqPositive } from './guards';
+
+/** A row of blocks as built across the basin width (m). */
+export interface BlockRow {
+  count: number;
+  /** block width across the flow, m */
+  width: number;
+  /** as-built clear space between blocks, m (the rule's spacing enlarged to fit the width) */
+  spacing: number;
+  /** the spacing the rule asked for, m */
+  nominalSpacing: number;
+  /** clear space between each wall and the nearest block, m (half the as-built spacing) */
+  wallSpace: number;
+  /** block centres measured across the basin from its centre line, m */
+  centres: number[];
+  /** share of the basin width the blocks occupy (0–1) */
+  widthFraction: number;
+}
+
+/**
+ * Fits n blocks of width w with clear spacing ≥ s across a basin of width W, half a space at
+ * each wall: n·(w + s′) = W, n = ⌊W/(w + s)⌋, s′ = W/n − w. [USBR EM-25 layout rule: "half
+ * space at the walls"]
+ * @example fitBlockRow(12, 0.5, 0.5).count // 12
+ */
+export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: number): BlockRow {
+  const W = reqPositive('basinWidth', basinWidth);
+  const w = reqPositive('blockWidth', blockWidth);
+  const s = reqPositive('spacing', spacing);
+  if (w > W) throw new RangeError(`blockWidth ${w} m does not fit in basinWidth ${W} m`);
+  const count = Math.max(1, Math.floor(W / (w + s) + 1e-9));
+  const asBuilt = W / count - w;
+  const centres: number[] = [];
+  for (let k = 0; k < count; k++) centres.push(-W / 2 + asBuilt / 2 + w / 2 + k * (w + asBuilt));
+  return { count, width: w, spacing: asBuilt, nominalSpacing: s, wallSpace: asBuilt / 2, centres, widthFraction: (count * w) / W };
+}
+
+/**
+ * A row staggered with `reference`: one block behind each opening between its blocks (SAF
+ * floor blocks, Type III baffle piers placed "staggered" with the chute blocks). Blocks that
+ * would overlap a neighbour or a wall are dropped.
+ */
+export function staggeredRow(basinWidth: number, reference: BlockRow, blockWidth: number): BlockRow {
+  const W = reqPositive('basinWidth', basinWidth);
+  const w = reqPositive('blockWidth', blockWidth);
+  const centres: number[] = [];
+  for (let k = 0; k + 1 < reference.centres.length; k++) {
+    const c = (reference.centres[k]! + reference.centres[k + 1]!) / 2;
+    const prev = centres[centres.length - 1];
+    if (Math.abs(c) + w / 2 > W / 2 + 1e-12) continue;
+    if (prev !== undefined && c - prev < w) continue;
+    centres.push(c);
+  }
+  if (centres.length === 0) return fitBlockRow(W, w, w);
+  const pitch = centres.length > 1 ? centres[1]! - centres[0]! : W;
+  const spacing = centres.length > 1 ? pitch - w : W - w;
+  const wallSpace = W / 2 + centres[0]! - w / 2;
+  return {
+    count: centres.length,
+    width: w,
+    spacing,
+    nominalSpacing: reference.spacing,
+    wallSpace,
+    centres,
+    widthFraction: (centres.length * w) / W,
+  };
+}

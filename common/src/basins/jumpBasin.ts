@@ -1,0 +1,118 @@
+// Sizing of the jump basins (USBR I–IV, SAF) for one discharge: hydraulics.md §4.
+import { belangerRatio, jumpLengthUSBR } from '../hydraulics';
+import { G } from '../units/constants';
+import { getDissipator, isJumpBasinType } from './catalogue';
+import { resolveDefaults, type BasinDefaults } from './defaults';
+import { freeboard as usbrFreeboard } from './freeboard';
+import { reqNonNegative, reqPositive } from './guards';
+import type { JumpBasinSizing, JumpBasinType, JumpRules } from './types';
+import { n3 } from './types/shared';
+
+export interface SizeJumpBasinOptions {
+  /** overrides of the from-memory defaults */
+  defaults?: Partial<BasinDefaults>;
+  /** largest tailwater depth above the floor, m (walls are raised to clear it) */
+  maxTailwaterDepth?: number;
+}
+
+export function jumpRules(type: JumpBasinType): JumpRules {
+  const rules = getDissipator(type).jump;
+  if (!rules) throw new RangeError(`type "${type}" is not a jump basin`);
+  return rules;
+}
+
+/**
+ * Sizes a jump basin of rectangular section for one discharge (hydraulics.md §4):
+ * Fr1 = V1/√(g·y1), V1 = Q/(width·y1); y2 by Bélanger [src: Chow 1959]; required tailwater
+ * C·y2 with the type's factor; length, blocks, sill by the type's rules; freeboard 0.1·(V1 +
+ * y2) in ft units [mem: Design of Small Dams] (SAF: y2/3 above tailwater [mem: Blaisdell]);
+ * wall height = max(y2, tailwater) + freeboard. SI in and out.
+ * @example sizeJumpBasin('usbr-3', { width: 10, Q: 40, y1: 0.4 }).length
+ */
+export function sizeJumpBasin(
+  type: JumpBasinType,
+  c: { width: number; Q: number; y1: number },
+  options: SizeJumpBasinOptions = {},
+): JumpBasinSizing {
+  if (!isJumpBasinType(type)) throw new RangeError(`type "${String(type)}" is not a jump basin (usbr-1, usbr-2, usbr-3, usbr-4, saf)`);
+  if (c === null || typeof c !== 'object') throw new RangeError('sizing input must be an object { width, Q, y1 }');
+  const width = reqPositive('width', c.width);
+  const Q = reqPositive('Q (discharge)', c.Q);
+  const y1 = reqPositive('y1', c.y1);
+  const d = resolveDefaults(options.defaults);
+  const rules = jumpRules(type);
+  const q = Q / width;
+  const v1 = q / y1;
+  const fr1 = v1 / Math.sqrt(G * y1);
+  if (fr1 <= 1) throw new RangeError(`y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`);
+  const y2 = y1 * belangerRatio(fr1);
+  const factor = rules.tailwaterFactor(fr1, d);
+  const requiredTailwaterDepth = factor * y2;
+  const length = rules.length(fr1, y1, y2, d);
+  const app = rules.appurtenances({ fr1, y1, y2, width, length, d });
+  const tw = Math.max(requiredTailwaterDepth, options.maxTailwaterDepth !== undefined ? reqNonNegative('maxTailwaterDepth', options.maxTailwaterDepth) : 0);
+  const fb = rules.freeboardRule === 'saf' ? y2 / 3 : usbrFreeboard(v1, y2, d.freeboardCoefficient);
+  const wallHeight = rules.freeboardRule === 'saf' ? tw + fb : Math.max(y2, tw) + fb;
+  const warnings = jumpWarnings(type, { fr1, v1, q, y2, length }, rules, d);
+  const sizing: JumpBasinSizing = {
+    type,
+    fr1,
+    y2,
+    requiredTailwaterDepth,
+    length,
+    endSill: app.endSill,
+    freeboard: fb,
+    wallHeight,
+    warnings,
+    v1,
+    y1,
+    q,
+    tailwaterFactor: factor,
+    sources: [
+      'Fr1 = V1/√(g·y1); y2/y1 = ½(√(1 + 8·Fr1²) − 1) [src: Chow 1959]',
+      `tailwater factor ${rules.tailwaterFactorTag}`,
+      `length ${rules.lengthTag}`,
+      ...rules.appurtenanceTags,
+      rules.freeboardRule === 'saf'
+        ? 'wall top y2/3 above the largest tailwater [mem: Blaisdell 1948]'
+        : 'freeboard 0.1·(V1 + y2), ft and ft/s [mem: Design of Small Dams]',
+    ],
+  };
+  if (app.chuteBlocks) sizing.chuteBlocks = app.chuteBlocks;
+  if (app.baffleBlocks) sizing.baffleBlocks = app.baffleBlocks;
+  return sizing;
+}
+
+/** The cautions of a type at one discharge, in plain words. */
+export function jumpWarnings(
+  type: JumpBasinType,
+  r: { fr1: number; v1: number; q: number; y2: number; length: number },
+  rules: JumpRules,
+  d: BasinDefaults,
+): string[] {
+  const w: string[] = [];
+  const [lo, hi] = rules.froudeRange;
+  if (r.fr1 < lo || r.fr1 > hi) {
+    w.push(`Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`);
+  }
+  if (r.fr1 >= 2.5 && r.fr1 < 4.5 && (type === 'usbr-1' || type === 'usbr-4' || type === 'saf')) {
+    w.push(`Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`);
+  }
+  const hasBlocks = type !== 'usbr-1';
+  if (hasBlocks && r.v1 > d.cavitationVelocity) {
+    w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.cavitationVelocity)} m/s: cavitation risk on the blocks; model study advised`);
+  }
+  if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.type3VelocityFail)} m/s: baffle piers not advised; use Type II`);
+  if (type === 'saf' && r.v1 > d.safVelocityFail) w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.safVelocityFail)} m/s: chute blocks not advised (SAF)`);
+  if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge) w.push(`q ${n3(r.q)} m²/s above the ${n3(d.type3MaxUnitDischarge)} m²/s of Type III`);
+  if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge) w.push(`q ${n3(r.q)} m²/s above the ${n3(d.type2MaxUnitDischarge)} m²/s tested for Type II`);
+  if (type === 'usbr-1' && r.fr1 > 9) {
+    w.push(`Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${n3(r.length)} m); a basin with blocks is shorter`);
+  }
+  return w;
+}
+
+/** Free-jump length on the USBR curve (re-exported for the drawing of the water surface). */
+export function freeJumpLength(fr1: number, y2: number): number {
+  return jumpLengthUSBR(fr1, y2);
+}

@@ -1,0 +1,86 @@
+// USBR Type III: chute blocks, baffle piers and a solid end sill — a short basin for moderate
+// velocities.
+import { fitBlockRow } from '../blocks';
+import { interpolate } from '../guards';
+import type { DissipatorModule } from '../types';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit } from './shared';
+
+const TAG = '[src: USBR EM-25]';
+
+/** Baffle pier height h3 = y1·(0.168·Fr1 + 0.63) [mem: USBR EM-25, Type III]. */
+export function type3BaffleHeight(y1: number, fr1: number): number {
+  return y1 * (0.168 * fr1 + 0.63);
+}
+
+/** Solid end sill height h4 = y1·(0.0556·Fr1 + 1.0) [mem: USBR EM-25, Type III]. */
+export function type3SillHeight(y1: number, fr1: number): number {
+  return y1 * (0.0556 * fr1 + 1.0);
+}
+
+export const usbr3: DissipatorModule = {
+  id: 'usbr-3',
+  name: 'USBR Type III basin',
+  source: 'USBR EM-25 (Peterka 1958); Design of Small Dams',
+  family: 'jump-basin',
+  description: 'Chute blocks, baffle piers and a solid end sill: the shortest USBR jump basin, for moderate inflow velocity and no heavy debris.',
+  limits: [
+    { criterion: 'froude', text: 'Fr1 4.5–17', tag: TAG },
+    { criterion: 'velocity', text: 'V1 ≤ 15 m/s; 15–18 m/s with care; above 18 m/s baffle piers cavitate', tag: '[src/mem: EM-25]' },
+    { criterion: 'unitDischarge', text: 'q ≤ ≈ 18.6 m²/s', tag: '[mem: EM-25]' },
+    { criterion: 'debris', text: 'no heavy debris (piers catch it)', tag: TAG },
+  ],
+  jump: {
+    froudeRange: [4.5, 17],
+    tailwaterFactor: (_fr, d) => d.tailwaterFactorType3,
+    tailwaterFactorTag: '[mem: EM-25] C = 1.0',
+    length: (fr1, _y1, y2, d) =>
+      interpolate([[4.5, d.type3LengthRatioAtFr4_5], [10, d.type3LengthRatioAtFr10]], fr1) * y2,
+    lengthTag: '[mem: EM-25] L ≈ 2.3·y2 at Fr1 4.5 rising to 2.8·y2 at Fr1 ≥ 10',
+    appurtenances: ({ fr1, y1, y2, width, d }) => {
+      const chute = fitBlockRow(width, y1, y1);
+      const h3 = type3BaffleHeight(y1, fr1);
+      const piers = fitBlockRow(width, 0.75 * h3, 0.75 * h3);
+      const h4 = type3SillHeight(y1, fr1);
+      return {
+        chuteBlocks: { ...chute, height: y1, length: d.chuteBlockLengthRatio * y1 },
+        baffleBlocks: {
+          ...piers,
+          height: h3,
+          // top 0.2·h3 and a 1:1 downstream face [mem: EM-25]
+          topLength: 0.2 * h3,
+          length: 1.2 * h3,
+          distanceFromUpstream: 0.8 * y2,
+          kind: 'baffle-piers',
+        },
+        endSill: { kind: 'solid', height: h4, upstreamSlope: 2, length: 2 * h4 },
+      };
+    },
+    freeboardRule: 'usbr',
+    appurtenanceTags: [
+      '[mem: EM-25] chute blocks h = w = s = y1',
+      '[mem: EM-25] baffle piers h3 = y1·(0.168·Fr1 + 0.63), width and spacing 0.75·h3, top 0.2·h3, upstream face 0.8·y2 from the chute blocks',
+      '[mem: EM-25] solid end sill h4 = y1·(0.0556·Fr1 + 1.0), 2:1 upstream slope',
+    ],
+  },
+  screenRow(row, _ctx, d, rows) {
+    const v = row.v1;
+    const velocity =
+      v <= d.type3VelocityWarn
+        ? crit('velocity', 'pass', `V1 ${n3(v)} m/s ≤ ${n3(d.type3VelocityWarn)} m/s ${TAG}`, row.Q)
+        : v <= d.type3VelocityFail
+          ? crit('velocity', 'warn', `V1 ${n3(v)} m/s is above ${n3(d.type3VelocityWarn)} m/s: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
+          : crit('velocity', 'fail', `V1 ${n3(v)} m/s is above ${n3(d.type3VelocityFail)} m/s: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
+    return [
+      froudeInRange(row, 4.5, 17, TAG),
+      velocity,
+      row.q <= d.type3MaxUnitDischarge
+        ? crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s ≤ ${n3(d.type3MaxUnitDischarge)} m²/s [mem: EM-25]`, row.Q)
+        : crit('unitDischarge', 'fail', `q ${n3(row.q)} m²/s is above the ${n3(d.type3MaxUnitDischarge)} m²/s of the tests [mem: EM-25]`, row.Q),
+      noDischargeLimit(row),
+      jumpTailwater(row, d.tailwaterFactorType3, d, rows),
+    ];
+  },
+  screenFixed(ctx) {
+    return [debrisCriterion(ctx, 'fail', 'warn', 'baffle piers catch floating debris and ice')];
+  },
+};

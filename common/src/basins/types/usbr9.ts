@@ -1,0 +1,120 @@
+// USBR Type IX baffled apron (baffled chute drop): rows of baffles on a 2:1 slope; no tailwater.
+import { G } from '../../units/constants';
+import { fitBlockRow, staggeredRow, type BlockRow } from '../blocks';
+import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
+import { reqPositive } from '../guards';
+import type { DissipatorModule } from '../types';
+import { crit, debrisCriterion, n3 } from './shared';
+
+const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
+
+export interface BaffledApronSizing {
+  type: 'usbr-9';
+  width: number;
+  q: number;
+  /** critical depth at the crest, m */
+  criticalDepth: number;
+  /** critical velocity (g·q)^(1/3), the upper bound of a "near critical" entry, m/s [calc] */
+  criticalVelocity: number;
+  baffleHeight: number;
+  baffleWidth: number;
+  /** distance between rows along the slope, m */
+  rowSpacing: number;
+  rows: number;
+  /** horizontal per 1 vertical */
+  slope: number;
+  /** length of the sloping apron, along the slope, m */
+  slopeLength: number;
+  /** horizontal length, m */
+  length: number;
+  /** wall height normal to the slope, m */
+  wallHeight: number;
+  /** full rows and the staggered rows between them */
+  rowA: BlockRow;
+  rowB: BlockRow;
+  warnings: string[];
+  sources: string[];
+}
+
+/**
+ * Sizes a Type IX baffled apron [mem: Design of Small Dams, Basin IX; q limit src]: yc =
+ * (q²/g)^(1/3); baffle height 0.8·yc; baffle width and space 1.5·h; rows 2·h apart along a 2:1
+ * slope; walls 3·h high normal to the slope; at least 4 rows, with the lowest row buried
+ * below the channel bed.
+ * @example sizeBaffledApron({ Q: 20, width: 5, drop: 3 }).rows
+ */
+export function sizeBaffledApron(
+  c: { Q: number; width: number; drop: number },
+  d: BasinDefaults = { ...BASIN_DEFAULTS },
+): BaffledApronSizing {
+  const Q = reqPositive('Q (discharge)', c.Q);
+  const W = reqPositive('width', c.width);
+  const drop = reqPositive('drop (crest to channel bed)', c.drop);
+  const q = Q / W;
+  const yc = Math.cbrt((q * q) / G);
+  const h = d.type9BaffleHeightRatio * yc;
+  const bw = d.type9BaffleWidthRatio * h;
+  const spacing = d.type9RowSpacingRatio * h;
+  const slope = d.type9ChuteSlope;
+  const above = drop * Math.sqrt(1 + slope * slope);
+  // One row buried below the bed keeps the bed from scouring under the last row [mem: DSD].
+  const rows = Math.max(d.type9MinRows, Math.ceil(above / spacing) + 2);
+  const slopeLength = (rows - 1) * spacing + spacing / 2;
+  const warnings: string[] = [];
+  if (q > d.type9MaxUnitDischarge) warnings.push(`q ${n3(q)} m²/s exceeds the ${n3(d.type9MaxUnitDischarge)} m²/s of the type ${TAG}`);
+  const rowA = fitBlockRow(W, Math.min(bw, W), bw);
+  const rowB = staggeredRow(W, rowA, Math.min(bw, W));
+  return {
+    type: 'usbr-9',
+    width: W,
+    q,
+    criticalDepth: yc,
+    criticalVelocity: Math.cbrt(G * q),
+    baffleHeight: h,
+    baffleWidth: bw,
+    rowSpacing: spacing,
+    rows,
+    slope,
+    slopeLength,
+    length: slopeLength * (slope / Math.sqrt(1 + slope * slope)),
+    wallHeight: d.type9WallHeightRatio * h,
+    rowA,
+    rowB,
+    warnings,
+    sources: [
+      'q ≤ 5.6 m²/s [src: Design of Small Dams]',
+      'baffle height 0.8·yc, width and space 1.5·h, rows 2·h apart on a 2:1 slope, walls 3·h, ≥ 4 rows [mem: Design of Small Dams]',
+    ],
+  };
+}
+
+export const usbr9: DissipatorModule = {
+  id: 'usbr-9',
+  name: 'USBR Type IX baffled apron',
+  source: 'USBR, Design of Small Dams; EM-25 (Peterka 1958) Basin IX',
+  family: 'baffled-apron',
+  description: 'Rows of baffle piers on a 2:1 apron that carries the flow down a drop; entry near critical, no tailwater needed.',
+  limits: [
+    { criterion: 'unitDischarge', text: 'q ≤ 5.6 m²/s', tag: TAG },
+    { criterion: 'froude', text: 'flow enters near critical depth (upstream of the drop)', tag: TAG },
+    { criterion: 'tailwater', text: 'needs no tailwater; rows continue below the channel bed', tag: TAG },
+  ],
+  screenRow(row, ctx, d) {
+    const approach =
+      ctx.inflow === 'chute' || ctx.inflow === 'drop'
+        ? crit('froude', 'pass', 'the flow would enter the baffled apron over the crest near critical depth (the apron replaces the smooth chute)', row.Q)
+        : row.fr1 <= d.type9MaxApproachFroude
+          ? crit('froude', 'pass', `entry Fr ${n3(row.fr1)} is near critical`, row.Q)
+          : crit('froude', 'fail', `entry Fr ${n3(row.fr1)} is well above critical: the type needs a near-critical approach ${TAG}`, row.Q);
+    return [
+      approach,
+      row.q <= d.type9MaxUnitDischarge
+        ? crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s ≤ ${n3(d.type9MaxUnitDischarge)} m²/s ${TAG}`, row.Q)
+        : crit('unitDischarge', 'fail', `q ${n3(row.q)} m²/s exceeds ${n3(d.type9MaxUnitDischarge)} m²/s ${TAG}`, row.Q),
+      crit('tailwater', 'pass', 'needs no tailwater', row.Q),
+    ];
+  },
+  screenFixed(ctx) {
+    return [debrisCriterion(ctx, 'warn', 'pass', 'rows of baffles catch floating debris')];
+  },
+};

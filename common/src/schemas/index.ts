@@ -1,0 +1,6 @@
+// Shared yup schemas: the same schema validates the web form and the API request.
+export * from './limits';
+export * from './auth';
+export * from './member';
+export * from './project';
+export * from './study';

@@ -1,0 +1,247 @@
+// Shared yup schemas for the engine's requests: the jump calculator and the whole study.
+// Numbers are in the units named by `units` (the engine converts with toSI); limits here
+// only reject what can never be a valid problem — the engine's RangeErrors cover physics.
+import { array, lazy, number, object, string, type ObjectSchema, type Schema } from 'yup';
+import type { Section } from '../hydraulics/sections';
+import type { StudyInput } from '../study';
+
+export const MAX_STUDY_DISCHARGES = 5000;
+
+const cap = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
+const num = (label: string) =>
+  number()
+    .typeError(`${cap(label)} must be a number.`)
+    .test(
+      'finite',
+      `${cap(label)} must be a finite number.`,
+      (v) => v === undefined || Number.isFinite(v),
+    );
+const positive = (label: string) =>
+  num(label)
+    .positive(`${cap(label)} must be greater than zero.`)
+    .required(`Enter ${label}.`);
+const nonNegative = (label: string) =>
+  num(label)
+    .min(0, `${cap(label)} must not be negative.`)
+    .required(`Enter ${label}.`);
+const elevation = (label: string) => num(label).required(`Enter ${label}.`);
+
+function byKind<T extends string>(field: string, label: string, schemas: Record<T, Schema>) {
+  const kinds = Object.keys(schemas) as T[];
+  return lazy((value: unknown) => {
+    const kind =
+      value !== null && typeof value === 'object'
+        ? (value as Record<string, unknown>)[field]
+        : undefined;
+    if (typeof kind === 'string' && (kinds as string[]).includes(kind)) return schemas[kind as T];
+    return object({
+      [field]: string()
+        .required(`Choose ${label}.`)
+
+        .oneOf(kinds, `${cap(label)} must be one of: ${kinds.join(', ')}.`),
+    })
+      .required(`Enter ${label}.`)
+      .typeError(`Enter ${label}.`);
+  });
+}
+
+export const sectionSchema = byKind<Section['shape']>('shape', 'the section shape', {
+  rectangular: object({ shape: string().required(), width: positive('the width') }),
+  trapezoidal: object({
+    shape: string().required(),
+    bottomWidth: nonNegative('the bottom width'),
+    sideSlope: nonNegative('the side slope'),
+  }).test(
+    'not-degenerate',
+    'A trapezoid needs a bottom width or a side slope greater than zero.',
+    (v) => !v || v.bottomWidth > 0 || v.sideSlope > 0,
+  ),
+  circular: object({ shape: string().required(), diameter: positive('the diameter') }),
+});
+
+/** POST /calc/jump: section, Q and y1, SI. */
+export const jumpRequestSchema = object({
+  section: sectionSchema,
+  Q: positive('the discharge Q'),
+  y1: positive('the depth y1'),
+  lengthMethod: string().oneOf(['usbr', 'hager'], 'lengthMethod must be usbr or hager.').optional(),
+});
+
+const lossModelSchema = byKind('kind', 'the loss allowance', {
+  none: object({ kind: string().required() }),
+  fraction: object({
+    kind: string().required(),
+    value: num('the loss fraction')
+      .min(0, 'The loss fraction must not be negative.')
+      .max(0.95, 'The loss fraction must be below 0.95.')
+      .required('Enter the loss fraction.'),
+  }),
+  velocityCoefficient: object({
+    kind: string().required(),
+    Cv: num('Cv')
+      .min(0.1, 'Cv must be at least 0.1.')
+      .max(1, 'Cv must not exceed 1.')
+      .required('Enter Cv.'),
+  }),
+  lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
+});
+
+const qElevationRows = (label: string) =>
+  array(object({ Q: positive('Q'), elevation: elevation('the elevation') }))
+    .min(2, `The ${label} needs at least two rows.`)
+    .max(MAX_STUDY_DISCHARGES, `The ${label} has at most ${MAX_STUDY_DISCHARGES} rows.`)
+    .test(
+      'increasing',
+      `Discharges in the ${label} must increase from row to row.`,
+      (rows) => !rows || rows.every((r, i) => i === 0 || r.Q > rows[i - 1]!.Q),
+    )
+    .required(`Enter the ${label}.`);
+
+const manningChannel = {
+  section: sectionSchema,
+  slope: positive('the channel slope'),
+  manningN: num("Manning's n")
+    .min(0.005, "Manning's n must be at least 0.005.")
+    .max(0.2, "Manning's n must not exceed 0.2.")
+    .required("Enter Manning's n."),
+};
+
+const inflowSchema = byKind('kind', 'the inflow type', {
+  chute: object({
+    kind: string().required(),
+    crestElevation: elevation('the crest elevation'),
+    headwater: byKind('kind', 'the headwater rating', {
+      weir: object({
+        kind: string().required(),
+        C: positive('the weir coefficient C'),
+        L: positive('the crest length L'),
+      }),
+      table: object({ kind: string().required(), rows: qElevationRows('headwater table') }),
+    }),
+    lossModel: lossModelSchema,
+    approachVelocityHead: num('the approach velocity head')
+      .min(0, 'The approach velocity head must not be negative.')
+      .optional(),
+  }),
+  gate: object({
+    kind: string().required(),
+    Cc: num('Cc')
+      .min(0.3, 'Cc must be at least 0.3.')
+      .max(1, 'Cc must not exceed 1.')
+      .required('Enter the contraction coefficient Cc.'),
+    opening: num('the gate opening')
+      .positive('The gate opening must be greater than zero.')
+      .optional(),
+    upstreamDepth: num('the upstream depth')
+      .positive('The upstream depth must be greater than zero.')
+      .optional(),
+    upstreamElevation: num('the upstream water elevation').optional(),
+  }).test(
+    'one-setting',
+    'Give exactly one of: gate opening, upstream depth, upstream water elevation.',
+    (v) =>
+      !v ||
+      [v.opening, v.upstreamDepth, v.upstreamElevation].filter((x) => x !== undefined).length === 1,
+  ),
+  pipe: object({
+    kind: string().required(),
+    invertElevation: elevation('the outlet invert elevation'),
+    outlet: byKind('kind', 'the outlet flow', {
+      table: object({
+        kind: string().required(),
+        rows: array(
+          object({
+            Q: positive('Q'),
+            depth: positive('the outlet depth'),
+            velocity: positive('the outlet velocity'),
+          }),
+        )
+          .min(2, 'The outlet table needs at least two rows.')
+          .max(MAX_STUDY_DISCHARGES, `The outlet table has at most ${MAX_STUDY_DISCHARGES} rows.`)
+          .required('Enter the outlet table.'),
+      }),
+      barrel: object({ kind: string().required(), ...manningChannel }),
+    }),
+    lossModel: lossModelSchema.optional(),
+  }),
+  known: object({
+    kind: string().required(),
+    toe: object({
+      y1: num('y1').positive('y1 must be greater than zero.').optional(),
+      v1: num('V1').positive('V1 must be greater than zero.').optional(),
+      fr1: num('Fr1').moreThan(1, 'Fr1 must exceed 1 (supercritical inflow).').optional(),
+      q: num('q').positive('q must be greater than zero.').optional(),
+    })
+      .test(
+        'pair',
+        'Give y1 and V1, or Fr1 and q, or Fr1 and y1.',
+        (t) =>
+          !t ||
+          (t.y1 !== undefined && t.v1 !== undefined && t.fr1 === undefined && t.q === undefined) ||
+          (t.fr1 !== undefined && t.q !== undefined && t.y1 === undefined && t.v1 === undefined) ||
+          (t.fr1 !== undefined && t.y1 !== undefined && t.q === undefined && t.v1 === undefined),
+      )
+      .required('Enter the toe conditions.'),
+  }),
+});
+
+const tailwaterSchema = byKind('kind', 'the tailwater rating', {
+  table: object({ kind: string().required(), rows: qElevationRows('tailwater table') }),
+  manning: object({ kind: string().required(), ...manningChannel }),
+});
+
+const dischargesSchema = byKind('kind', 'the discharges to check', {
+  list: object({
+    kind: string().required(),
+    values: array(positive('each discharge'))
+      .min(1, 'List at least one discharge.')
+      .max(MAX_STUDY_DISCHARGES, `At most ${MAX_STUDY_DISCHARGES} discharges.`)
+      .required('List the discharges.'),
+  }),
+  range: object({
+    kind: string().required(),
+    min: positive('the smallest discharge'),
+    max: positive('the largest discharge'),
+    count: num('the number of discharges')
+      .integer('The number of discharges must be a whole number.')
+      .min(1, 'Check at least one discharge.')
+      .max(MAX_STUDY_DISCHARGES, `At most ${MAX_STUDY_DISCHARGES} discharges.`)
+      .required('Enter the number of discharges.'),
+  }).test(
+    'order',
+    'The largest discharge must not be below the smallest.',
+    (v) => !v || v.max >= v.min,
+  ),
+});
+
+/** The whole study request (POST /calc/study), in the units named by `units`. */
+export const studyInputSchema = object({
+  units: string()
+    .oneOf(['SI', 'US'], 'Choose SI or US customary units.')
+    .required('Choose the units.'),
+  channelBedElevation: elevation('the channel bed elevation'),
+  basinWidth: positive('the basin width'),
+  designDischarge: positive('the design discharge'),
+  discharges: dischargesSchema,
+  tailwater: tailwaterSchema,
+  inflow: inflowSchema,
+  tailwaterFactor: num('the tailwater factor')
+    .min(0.5, 'The tailwater factor must be at least 0.5.')
+    .max(2, 'The tailwater factor must not exceed 2.')
+    .optional(),
+  floorElevation: num('the floor elevation').optional(),
+  submergenceTolerance: num('the submergence tolerance')
+    .min(0, 'The submergence tolerance must not be negative.')
+    .max(1, 'The submergence tolerance must not exceed 1.')
+    .optional(),
+  floorManningN: num("the floor's Manning's n")
+    .min(0.005, "Manning's n must be at least 0.005.")
+    .max(0.2, "Manning's n must not exceed 0.2.")
+    .optional(),
+  jumpLengthMethod: string()
+    .oneOf(['usbr', 'hager'], 'The jump length method must be usbr or hager.')
+    .optional(),
+}) as unknown as ObjectSchema<StudyInput>;
+
+/** Narrow type guard for code that validated with studyInputSchema. */
+export const isStudyUnits = (u: unknown): u is StudyInput['units'] => u === 'SI' || u === 'US';

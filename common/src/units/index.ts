@@ -1,0 +1,217 @@
+// Units at the edges of the engine: user input and results between SI and US customary.
+// A private mathjs instance (create(all)) holds the extra unit cfs, so the global mathjs
+// stays untouched. Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
+import { all, create, type MathJsInstance } from 'mathjs';
+import type { StudyInput, StudyResult, UnitSystem } from '../study';
+
+export * from './constants';
+
+// `all` is typed optional only because of mathjs's lite builds; the full build always has it.
+if (!all) throw new Error('mathjs: the full build (all factories) is required');
+const math: MathJsInstance = create(all, {});
+// mathjs has no cfs; ft³/s is the trade's unit of discharge in US practice.
+math.createUnit('cfs', '1 ft^3/s');
+
+/** Kinds of quantity the app shows; each has an SI and a US customary unit. */
+export type QuantityKind =
+  | 'length'
+  | 'area'
+  | 'volume'
+  | 'earthwork'
+  | 'discharge'
+  | 'unitDischarge'
+  | 'velocity'
+  | 'force'
+  | 'pressure'
+  | 'power'
+  | 'mass'
+  | 'weirCoefficient';
+
+/** mathjs unit strings per kind and system. */
+export const UNITS: Record<QuantityKind, Record<UnitSystem, string>> = {
+  length: { SI: 'm', US: 'ft' },
+  area: { SI: 'm^2', US: 'ft^2' },
+  volume: { SI: 'm^3', US: 'ft^3' },
+  earthwork: { SI: 'm^3', US: 'yd^3' },
+  discharge: { SI: 'm^3/s', US: 'cfs' },
+  unitDischarge: { SI: 'm^2/s', US: 'ft^2/s' },
+  velocity: { SI: 'm/s', US: 'ft/s' },
+  force: { SI: 'N', US: 'lbf' },
+  pressure: { SI: 'Pa', US: 'psi' },
+  power: { SI: 'W', US: 'hp' },
+  mass: { SI: 'kg', US: 'lb' },
+  // Q = C·L·H^1.5 → C has units length^0.5/time.
+  weirCoefficient: { SI: 'm^0.5/s', US: 'ft^0.5/s' },
+};
+
+/** Labels for column headers. */
+export const UNIT_LABELS: Record<QuantityKind, Record<UnitSystem, string>> = {
+  length: { SI: 'm', US: 'ft' },
+  area: { SI: 'm²', US: 'ft²' },
+  volume: { SI: 'm³', US: 'ft³' },
+  earthwork: { SI: 'm³', US: 'yd³' },
+  discharge: { SI: 'm³/s', US: 'cfs' },
+  unitDischarge: { SI: 'm²/s', US: 'ft²/s' },
+  velocity: { SI: 'm/s', US: 'ft/s' },
+  force: { SI: 'N', US: 'lb' },
+  pressure: { SI: 'Pa', US: 'psi' },
+  power: { SI: 'W', US: 'hp' },
+  mass: { SI: 'kg', US: 'lb' },
+  weirCoefficient: { SI: 'm^½/s', US: 'ft^½/s' },
+};
+
+/**
+ * Converts a value between any two mathjs unit strings (with cfs added).
+ * @example convert(1, 'cfs', 'm^3/s') // 0.028316846592
+ */
+export function convert(value: number, from: string, to: string): number {
+  if (!Number.isFinite(value)) throw new RangeError(`value must be a finite number (got ${value})`);
+  try {
+    return math.unit(value, from).toNumber(to);
+  } catch (e) {
+    throw new RangeError(
+      `cannot convert ${from} to ${to}: ${e instanceof Error ? e.message : String(e)}`,
+    );
+  }
+}
+
+// SI value = US value × factor, computed once through mathjs.
+const FACTOR: Record<QuantityKind, number> = Object.fromEntries(
+  (Object.keys(UNITS) as QuantityKind[]).map((k) => [k, convert(1, UNITS[k].US, UNITS[k].SI)]),
+) as Record<QuantityKind, number>;
+
+/** A quantity from `system` into SI. @example toSIValue(1, 'length', 'US') // 0.3048 */
+export function toSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {
+  return system === 'SI' ? value : value * FACTOR[kind];
+}
+
+/** A quantity from SI into `system`. @example fromSIValue(0.3048, 'length', 'US') // 1 */
+export function fromSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {
+  return system === 'SI' ? value : value / FACTOR[kind];
+}
+
+// Which quantity each field holds, by key; context overrides for keys that mean different
+// things in different places. Keys not listed are dimensionless (Fr, n, slopes, ratios).
+const LENGTH_KEYS = new Set([
+  'y',
+  'y1',
+  'y2',
+  'yc',
+  'x',
+  'depth',
+  'elevation',
+  'channelBedElevation',
+  'crestElevation',
+  'floorElevation',
+  'invertElevation',
+  'upstreamElevation',
+  'upstreamDepth',
+  'opening',
+  'width',
+  'basinWidth',
+  'bottomWidth',
+  'diameter',
+  'L',
+  'H0',
+  'headLoss',
+  'height',
+  'length',
+  'rollerLength',
+  'requiredDepth',
+  'margin',
+  'tailwaterElevation',
+  'tailwaterDepth',
+  'approachVelocityHead',
+  'E1',
+  'E2',
+  'deltaE',
+  'criticalDepth',
+  'requiredElevation',
+  'depthBelowBed',
+  'sweepOutDistance',
+  'distance',
+  'yToe',
+  'ySequent',
+]);
+const KEY_KIND: Record<string, QuantityKind> = {
+  Q: 'discharge',
+  designDischarge: 'discharge',
+  governingQ: 'discharge',
+  q: 'unitDischarge',
+  v1: 'velocity',
+  v2: 'velocity',
+  velocity: 'velocity',
+  power: 'power',
+  volume: 'earthwork',
+  M1: 'volume',
+  M2: 'volume',
+};
+
+function kindOf(key: string, path: readonly string[]): QuantityKind | null {
+  const parent = path[path.length - 1];
+  const grand = path[path.length - 2];
+  if (parent === 'discharges' && (key === 'min' || key === 'max' || key === 'values'))
+    return 'discharge';
+  if (parent === 'lossModel') return null; // fraction, Cv, K: dimensionless
+  if (parent === 'headwater' && key === 'C') return 'weirCoefficient';
+  if (parent === 'momentum' && key === 'minimum') return 'volume';
+  if (parent === 'specificEnergy' && key === 'minimum') return 'length';
+  if (key === 'value' && grand === 'momentum') return 'volume'; // points[i].value
+  if (key === 'value' && grand === 'specificEnergy') return 'length';
+  if (key === 'value') return null;
+  if (LENGTH_KEYS.has(key)) return 'length';
+  return KEY_KIND[key] ?? null;
+}
+
+function walk(node: unknown, path: string[], f: (v: number, k: QuantityKind) => number): unknown {
+  if (Array.isArray(node)) {
+    const key = path[path.length - 1] ?? '';
+    const parentPath = path.slice(0, -1);
+    return node.map((item) => {
+      if (typeof item === 'number') {
+        const kind = kindOf(key, parentPath);
+        return kind ? f(item, kind) : item;
+      }
+      // Array items inherit the array's key as context (e.g. points[] under momentum).
+      return walk(item, path, f);
+    });
+  }
+  if (node !== null && typeof node === 'object') {
+    const out: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(node as Record<string, unknown>)) {
+      if (typeof v === 'number') {
+        const kind = kindOf(k, path);
+        out[k] = kind ? f(v, kind) : v;
+      } else if (typeof v === 'function') {
+        out[k] = v;
+      } else out[k] = walk(v, [...path, k], f);
+    }
+    return out;
+  }
+  return node;
+}
+
+/**
+ * The whole StudyInput in SI (what the engine takes). US input: ft, cfs, ft/s, ft²/s, weir
+ * C in ft^0.5/s; Manning's n, slopes, Cc, Cv, K unchanged (n is the same number in both
+ * systems once k = 1.486 is used in US units).
+ */
+export function toSI(input: StudyInput): StudyInput {
+  if (input.units !== 'US') return input;
+  return walk(input, [], (v, k) => toSIValue(v, k, 'US')) as StudyInput;
+}
+
+/** An SI StudyInput shown in `system` units (the inverse of toSI). */
+export function inputFromSI(input: StudyInput, system: UnitSystem): StudyInput {
+  if (system === 'SI') return input;
+  return walk(input, [], (v, k) => fromSIValue(v, k, 'US')) as StudyInput;
+}
+
+/**
+ * A StudyResult (SI) in the units the user works in: lengths ft, Q cfs, q ft²/s, V ft/s,
+ * excavation yd³, power hp, momentum ft³. Text (warnings, cautions) is left as computed.
+ */
+export function fromSI(result: StudyResult, system: UnitSystem): StudyResult {
+  if (system === 'SI') return result;
+  return walk(result, [], (v, k) => fromSIValue(v, k, 'US')) as StudyResult;
+}

@@ -1,0 +1,64 @@
+// CLI: load the demo firm, its members and projects. Idempotent: rows that exist are kept
+// as they are (nothing is duplicated or overwritten), missing ones are added.
+//   node --import tsx --conditions=@basinwright/source seed/run.ts
+import { ConfigError, getConfig } from '../api/src/config/env';
+import { DEMO_PASSWORD, demoFirm, demoProjects, demoUsers } from './demo';
+
+async function main(): Promise<number> {
+  try {
+    getConfig();
+  } catch (error) {
+    console.error(`seed: ${error instanceof ConfigError ? error.message : String(error)}`);
+    return 1;
+  }
+  const { Firm, Project, sequelize, User } = await import('../api/src/models');
+  const { hashPassword } = await import('../api/src/security');
+  const added: string[] = [];
+  try {
+    // Hash outside the transaction (bcrypt is slow), only for members that are missing.
+    const existing = new Set(
+      (await User.findAll({ where: { email: demoUsers.map((u) => u.email) }, attributes: ['email'] })).map((u) => u.email),
+    );
+    const hashes = new Map<string, string>();
+    for (const user of demoUsers) {
+      if (!existing.has(user.email)) hashes.set(user.email, await hashPassword(DEMO_PASSWORD));
+    }
+
+    await sequelize.transaction(async (transaction) => {
+      let firm = await Firm.findOne({ where: { name: demoFirm.name }, order: [['createdAt', 'ASC']], transaction });
+      if (firm === null) {
+        firm = await Firm.create({ ...demoFirm }, { transaction });
+        added.push(`firm "${firm.name}"`);
+      }
+      const users = new Map<string, InstanceType<typeof User>>();
+      for (const demo of demoUsers) {
+        let user = await User.findOne({ where: { email: demo.email }, transaction });
+        if (user === null) {
+          const passwordHash = hashes.get(demo.email);
+          if (passwordHash === undefined) throw new Error(`no password hash prepared for ${demo.email}`);
+          user = await User.create({ ...demo, firmId: firm.id, passwordHash }, { transaction });
+          added.push(`${demo.role} ${demo.email}`);
+        }
+        users.set(demo.email, user);
+      }
+      for (const demo of demoProjects) {
+        const found = await Project.findOne({ where: { firmId: firm.id, name: demo.name }, transaction });
+        if (found !== null) continue;
+        const { createdByEmail, ...fields } = demo;
+        await Project.create({ ...fields, firmId: firm.id, createdById: users.get(createdByEmail)?.id ?? null }, { transaction });
+        added.push(`project "${demo.name}"`);
+      }
+    });
+    if (added.length === 0) console.log('seed: demo data already present, nothing to add');
+    for (const line of added) console.log(`seed: added ${line}`);
+    console.log(`seed: sign in as ${demoUsers.map((u) => u.email).join(', ')} with password "${DEMO_PASSWORD}"`);
+    return 0;
+  } catch (error) {
+    console.error(`seed: failed — ${error instanceof Error ? error.message : String(error)}`);
+    return 1;
+  } finally {
+    await sequelize.close();
+  }
+}
+
+process.exitCode = await main();

@@ -1,0 +1,11 @@
+import { locateJump, normalDepth, criticalDepth, sequentDepth } from './common/src';
+const s = { shape: 'rectangular' as const, width: 3 };
+const Q = 6;
+console.log('yc', criticalDepth(s,Q), 'yn .02', normalDepth(s,Q,0.02,0.014), 'yn .0005', normalDepth(s,Q,0.0005,0.014), 'yn .05', normalDepth(s,Q,0.05,0.014),'yn .0002 n.02', normalDepth(s,Q,0.0002,0.02));
+const show = (r:any)=>console.log(r.kind, r.position, r.distance, r.yToe, r.ySequent, r.notes, r.supercriticalProfile.length, r.subcriticalProfile.length);
+show(locateJump({kind:'slopeBreak', section:s, Q, upstream:{slope:0.02,manningN:0.014}, downstream:{slope:0.0005,manningN:0.014}}));
+show(locateJump({kind:'slopeBreak', section:s, Q, upstream:{slope:0.08,manningN:0.014}, downstream:{slope:0.001,manningN:0.014}}));
+show(locateJump({kind:'gateMildSlope', section:s, Q, opening:0.3, Cc:0.61, slope:0.0005, manningN:0.014}));
+show(locateJump({kind:'gateSteepSlope', section:s, Q, opening:0.3, Cc:0.61, slope:0.02, manningN:0.014}));
+show(locateJump({kind:'weirToMildSlope', section:s, Q, crestHeight:2, slope:0.0005, manningN:0.014}));
+show(locateJump({kind:'gateMildSlope', section:s, Q, opening:0.6, Cc:0.61, slope:0.0005, manningN:0.014}));

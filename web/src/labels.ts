@@ -1,0 +1,61 @@
+// The words the UI shows for enum values, in one place.
+import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
+
+const roles: Record<Role, string> = {
+  owner: 'Owner',
+  admin: 'Admin',
+  engineer: 'Engineer',
+  estimator: 'Estimator',
+  viewer: 'Viewer',
+};
+
+const plans: Record<Plan, string> = {
+  concept: 'Concept',
+  professional: 'Professional',
+  firm: 'Firm',
+};
+
+const statuses: Record<ProjectStatus, { label: string; color: string }> = {
+  draft: { label: 'Draft', color: 'default' },
+  'in review': { label: 'In review', color: 'gold' },
+  issued: { label: 'Issued', color: 'cyan' },
+  archived: { label: 'Archived', color: 'purple' },
+};
+
+export const roleLabel = (role: Role): string => roles[role];
+export const planLabel = (plan: Plan): string => plans[plan];
+export const statusLabel = (status: ProjectStatus): string => statuses[status].label;
+export const statusColor = (status: ProjectStatus): string => statuses[status].color;
+export const unitsLabel = (units: Units): string => (units === 'SI' ? 'SI (metric)' : 'US customary');
+
+export const roleDescriptions: Record<Role, string> = {
+  owner: 'Everything, including billing and closing the firm account',
+  admin: 'Manages members, seats, firm profile and price books',
+  engineer: 'Creates and edits projects and designs; issues proposals',
+  estimator: 'Reads designs; edits quantities, price books and estimates',
+  viewer: 'Reads projects, designs and proposals',
+};
+
+export const projectStatuses: ProjectStatus[] = ['draft', 'in review', 'issued', 'archived'];
+export const invitableRoles: Role[] = ['admin', 'engineer', 'estimator', 'viewer'];
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+});
+
+export function formatDate(iso: string | null | undefined): string {
+  if (!iso) return '—';
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '—' : dateFormat.format(d);
+}
+
+export function formatDateTime(iso: string | null | undefined): string {
+  if (!iso) return '—';
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '—' : dateTimeFormat.format(d);
+}

@@ -1,0 +1,17 @@
+import { createApp } from 'vue';
+import { createPinia } from 'pinia';
+import '@fontsource/lato/400.css';
+import '@fontsource/lato/700.css';
+import '@fontsource/lato/900.css';
+import 'ant-design-vue/dist/reset.css';
+import './styles/base.css';
+import App from './App.vue';
+import { createAppRouter, installUnauthorizedHandler } from './router';
+
+const app = createApp(App);
+const pinia = createPinia();
+app.use(pinia);
+const router = createAppRouter();
+installUnauthorizedHandler(router);
+app.use(router);
+app.mount('#app');

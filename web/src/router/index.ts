@@ -1,0 +1,152 @@
+import {
+  createRouter,
+  createWebHistory,
+  type RouteLocationNormalized,
+  type RouteLocationRaw,
+  type RouteRecordRaw,
+  type Router,
+  type RouterHistory,
+} from 'vue-router';
+import { setUnauthorizedHandler } from '@/api/client';
+import { useAuthStore } from '@/stores/auth';
+import type { Action } from '@/policy';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Only for signed-in people. */
+    requiresAuth?: boolean;
+    /** Only for people who are signed out (sign-in, sign-up…). */
+    guestOnly?: boolean;
+    /** The policy action the route needs, as the server checks it. */
+    can?: Action;
+    /** Which frame the view sits in. */
+    layout?: 'app' | 'plain';
+    title?: string;
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/', redirect: { name: 'projects' } },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('@/views/SignInView.vue'),
+    meta: { guestOnly: true, layout: 'plain', title: 'Sign in' },
+  },
+  {
+    path: '/sign-up',
+    name: 'sign-up',
+    component: () => import('@/views/SignUpView.vue'),
+    meta: { guestOnly: true, layout: 'plain', title: 'Create a firm account' },
+  },
+  {
+    path: '/forgot-password',
+    name: 'forgot-password',
+    component: () => import('@/views/ForgotPasswordView.vue'),
+    meta: { guestOnly: true, layout: 'plain', title: 'Forgot password' },
+  },
+  {
+    path: '/reset-password',
+    name: 'reset-password',
+    component: () => import('@/views/ResetPasswordView.vue'),
+    meta: { layout: 'plain', title: 'Choose a new password' },
+  },
+  {
+    path: '/accept-invitation',
+    name: 'accept-invitation',
+    component: () => import('@/views/AcceptInvitationView.vue'),
+    meta: { layout: 'plain', title: 'Join your team' },
+  },
+  {
+    path: '/projects',
+    name: 'projects',
+    component: () => import('@/views/ProjectListView.vue'),
+    meta: { requiresAuth: true, can: 'projects.read', title: 'Projects' },
+  },
+  {
+    path: '/projects/new',
+    name: 'project-new',
+    component: () => import('@/views/ProjectFormView.vue'),
+    meta: { requiresAuth: true, can: 'projects.create', title: 'New project' },
+  },
+  {
+    path: '/projects/:id',
+    name: 'project',
+    component: () => import('@/views/ProjectDetailView.vue'),
+    props: true,
+    meta: { requiresAuth: true, can: 'projects.read', title: 'Project' },
+  },
+  {
+    path: '/team',
+    name: 'team',
+    component: () => import('@/views/TeamView.vue'),
+    meta: { requiresAuth: true, can: 'members.list', title: 'Team' },
+  },
+  {
+    path: '/account',
+    name: 'account',
+    component: () => import('@/views/AccountView.vue'),
+    meta: { requiresAuth: true, title: 'Account' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('@/views/NotFoundView.vue'),
+    meta: { layout: 'plain', title: 'Page not found' },
+  },
+];
+
+/** Where a sign-in page should send someone afterwards: only paths inside the app. */
+export function safeRedirect(value: unknown): string {
+  return typeof value === 'string' && value.startsWith('/') && !value.startsWith('//')
+    ? value
+    : '/projects';
+}
+
+/** The navigation guard: sign-in, guest-only and role checks live here, not in views. */
+export async function guard(to: RouteLocationNormalized): Promise<true | RouteLocationRaw> {
+  const auth = useAuthStore();
+  if (auth.isSignedIn && !auth.isLoaded) {
+    try {
+      await auth.ensureLoaded();
+    } catch {
+      // 401 already cleared the session; another failure (server down) keeps the token
+      // and lets the page show its own error.
+    }
+  }
+  if (to.meta.requiresAuth && !auth.isSignedIn) {
+    return { name: 'sign-in', query: { redirect: to.fullPath } };
+  }
+  if (to.meta.guestOnly && auth.isSignedIn) {
+    return { path: safeRedirect(to.query.redirect) };
+  }
+  if (to.meta.can && auth.isLoaded && !auth.can(to.meta.can)) {
+    return { name: 'projects' };
+  }
+  return true;
+}
+
+export function createAppRouter(history: RouterHistory = createWebHistory()): Router {
+  const router = createRouter({
+    history,
+    routes,
+    scrollBehavior: () => ({ top: 0 }),
+  });
+  router.beforeEach(guard);
+  router.afterEach((to) => {
+    document.title = to.meta.title ? `${to.meta.title} · Basinwright` : 'Basinwright';
+  });
+  return router;
+}
+
+/** The central 401 handler: the session has ended, so clear it and ask to sign in again. */
+export function installUnauthorizedHandler(router: Router): void {
+  setUnauthorizedHandler(() => {
+    const auth = useAuthStore();
+    auth.clearSession();
+    const current = router.currentRoute.value;
+    if (current.meta.requiresAuth) {
+      void router.replace({ name: 'sign-in', query: { redirect: current.fullPath } });
+    }
+  });
+}

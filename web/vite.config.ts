@@ -1,0 +1,41 @@
+import { fileURLToPath, URL } from 'node:url';
+import { defineConfig, defaultClientConditions } from 'vite';
+import vue from '@vitejs/plugin-vue';
+import Components from 'unplugin-vue-components/vite';
+import { AntDesignVueResolver } from 'unplugin-vue-components/resolvers';
+
+const apiPort = process.env.API_PORT ?? '8080';
+
+export default defineConfig({
+  plugins: [
+    vue(),
+    // On-demand ant-design-vue components. importStyle: false because antd 4 styles are
+    // CSS-in-JS; importing its CSS files breaks the build.
+    Components({
+      resolvers: [AntDesignVueResolver({ importStyle: false })],
+      dirs: [],
+      dts: 'components.d.ts',
+    }),
+  ],
+  resolve: {
+    conditions: ['@basinwright/source', ...defaultClientConditions],
+    alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) },
+  },
+  server: {
+    host: '127.0.0.1',
+    proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
+  },
+  preview: { host: '127.0.0.1' },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    rolldownOptions: {
+      // common/src is pure (no work at import time except building its private mathjs
+      // instance), so modules whose exports go unused may be dropped: the sign-in page must
+      // not carry the units engine.
+      treeshake: {
+        moduleSideEffects: (id: string) => !id.replaceAll('\\', '/').includes('/common/src/'),
+      },
+    },
+  },
+});
