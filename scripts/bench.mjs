@@ -8,6 +8,7 @@ import { PrivateCluster, ensureNodeModules, ensurePostgres, freePort, log, runTs
 ensureNodeModules();
 const bin = ensurePostgres();
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-bench-'));
+fs.chmodSync(tmp, 0o755); // the postgres user must reach its folders
 const cluster = new PrivateCluster({ dir: path.join(tmp, 'pg'), port: await freePort(), bin });
 let code = 0;
 try {

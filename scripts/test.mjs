@@ -74,6 +74,7 @@ async function main() {
   }
 
   tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-test-'));
+  fs.chmodSync(tmp, 0o755); // the postgres user must reach its folders
   cluster = new PrivateCluster({ dir: path.join(tmp, 'pg'), port: await freePort(), bin });
   await cluster.start();
   cluster.ensureDatabase('bw_api');
