@@ -1,11 +1,12 @@
-import { locateJump, normalDepth, criticalDepth, sequentDepth } from './common/src';
-const s = { shape: 'rectangular' as const, width: 3 };
-const Q = 6;
-console.log('yc', criticalDepth(s,Q), 'yn .02', normalDepth(s,Q,0.02,0.014), 'yn .0005', normalDepth(s,Q,0.0005,0.014), 'yn .05', normalDepth(s,Q,0.05,0.014),'yn .0002 n.02', normalDepth(s,Q,0.0002,0.02));
-const show = (r:any)=>console.log(r.kind, r.position, r.distance, r.yToe, r.ySequent, r.notes, r.supercriticalProfile.length, r.subcriticalProfile.length);
-show(locateJump({kind:'slopeBreak', section:s, Q, upstream:{slope:0.02,manningN:0.014}, downstream:{slope:0.0005,manningN:0.014}}));
-show(locateJump({kind:'slopeBreak', section:s, Q, upstream:{slope:0.08,manningN:0.014}, downstream:{slope:0.001,manningN:0.014}}));
-show(locateJump({kind:'gateMildSlope', section:s, Q, opening:0.3, Cc:0.61, slope:0.0005, manningN:0.014}));
-show(locateJump({kind:'gateSteepSlope', section:s, Q, opening:0.3, Cc:0.61, slope:0.02, manningN:0.014}));
-show(locateJump({kind:'weirToMildSlope', section:s, Q, crestHeight:2, slope:0.0005, manningN:0.014}));
-show(locateJump({kind:'gateMildSlope', section:s, Q, opening:0.6, Cc:0.61, slope:0.0005, manningN:0.014}));
+import { runStudy, solveFloorElevation, analyseRange, type StudyInput } from './common/src';
+const demo = (count: number): StudyInput => ({
+  units: 'SI', channelBedElevation: 90, basinWidth: 12, designDischarge: 85,
+  discharges: { kind: 'range', min: 5, max: 85, count },
+  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
+  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
+});
+function t(f: () => void, n = 20) { for (let i=0;i<3;i++) f(); const t0 = performance.now(); for (let i=0;i<n;i++) f(); return (performance.now()-t0)/n; }
+for (const c of [200, 800]) {
+  const inp = demo(c);
+  console.log(c, 'solve', t(() => solveFloorElevation(inp, 1)).toFixed(2), 'rows', t(() => analyseRange(inp, 87.6, 1)).toFixed(2), 'all', t(() => runStudy(inp)).toFixed(2));
+}

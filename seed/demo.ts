@@ -47,7 +47,8 @@ export const demoProjects: {
     location: 'Caldwell Run crossing under Old Quarry Lane, Lunefield',
     units: 'US',
     status: 'draft',
-    notes: 'Single 6 ft × 6 ft concrete box culvert; design discharge 420 cfs. Outlet basin to protect the run below the lane.',
+    notes:
+      'Single 6 ft × 6 ft concrete box culvert; design discharge 420 cfs. Outlet basin to protect the run below the lane.',
     createdByEmail: 'engineer@harrow-lune.example',
   },
 ];

@@ -17,7 +17,12 @@ async function main(): Promise<number> {
   try {
     // Hash outside the transaction (bcrypt is slow), only for members that are missing.
     const existing = new Set(
-      (await User.findAll({ where: { email: demoUsers.map((u) => u.email) }, attributes: ['email'] })).map((u) => u.email),
+      (
+        await User.findAll({
+          where: { email: demoUsers.map((u) => u.email) },
+          attributes: ['email'],
+        })
+      ).map((u) => u.email),
     );
     const hashes = new Map<string, string>();
     for (const user of demoUsers) {
@@ -25,7 +30,11 @@ async function main(): Promise<number> {
     }
 
     await sequelize.transaction(async (transaction) => {
-      let firm = await Firm.findOne({ where: { name: demoFirm.name }, order: [['createdAt', 'ASC']], transaction });
+      let firm = await Firm.findOne({
+        where: { name: demoFirm.name },
+        order: [['createdAt', 'ASC']],
+        transaction,
+      });
       if (firm === null) {
         firm = await Firm.create({ ...demoFirm }, { transaction });
         added.push(`firm "${firm.name}"`);
@@ -35,23 +44,32 @@ async function main(): Promise<number> {
         let user = await User.findOne({ where: { email: demo.email }, transaction });
         if (user === null) {
           const passwordHash = hashes.get(demo.email);
-          if (passwordHash === undefined) throw new Error(`no password hash prepared for ${demo.email}`);
+          if (passwordHash === undefined)
+            throw new Error(`no password hash prepared for ${demo.email}`);
           user = await User.create({ ...demo, firmId: firm.id, passwordHash }, { transaction });
           added.push(`${demo.role} ${demo.email}`);
         }
         users.set(demo.email, user);
       }
       for (const demo of demoProjects) {
-        const found = await Project.findOne({ where: { firmId: firm.id, name: demo.name }, transaction });
+        const found = await Project.findOne({
+          where: { firmId: firm.id, name: demo.name },
+          transaction,
+        });
         if (found !== null) continue;
         const { createdByEmail, ...fields } = demo;
-        await Project.create({ ...fields, firmId: firm.id, createdById: users.get(createdByEmail)?.id ?? null }, { transaction });
+        await Project.create(
+          { ...fields, firmId: firm.id, createdById: users.get(createdByEmail)?.id ?? null },
+          { transaction },
+        );
         added.push(`project "${demo.name}"`);
       }
     });
     if (added.length === 0) console.log('seed: demo data already present, nothing to add');
     for (const line of added) console.log(`seed: added ${line}`);
-    console.log(`seed: sign in as ${demoUsers.map((u) => u.email).join(', ')} with password "${DEMO_PASSWORD}"`);
+    console.log(
+      `seed: sign in as ${demoUsers.map((u) => u.email).join(', ')} with password "${DEMO_PASSWORD}"`,
+    );
     return 0;
   } catch (error) {
     console.error(`seed: failed — ${error instanceof Error ? error.message : String(error)}`);

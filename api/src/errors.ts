@@ -37,10 +37,13 @@ export class ApiError extends Error {
 
 export const validationError = (details: ErrorDetails, message = 'Some fields need attention.') =>
   new ApiError(422, 'validation_error', message, details);
-export const badJson = (message = 'The request body is not valid JSON.') => new ApiError(400, 'bad_json', message);
+export const badJson = (message = 'The request body is not valid JSON.') =>
+  new ApiError(400, 'bad_json', message);
 export const badRequest = (message: string) => new ApiError(400, 'bad_request', message);
-export const unauthorized = (message = 'Sign in to continue.') => new ApiError(401, 'unauthorized', message);
-export const forbidden = (message = 'Your role does not allow this.') => new ApiError(403, 'forbidden', message);
+export const unauthorized = (message = 'Sign in to continue.') =>
+  new ApiError(401, 'unauthorized', message);
+export const forbidden = (message = 'Your role does not allow this.') =>
+  new ApiError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
 export const conflict = (message: string) => new ApiError(409, 'conflict', message);
 export const planLimit = (message: string) => new ApiError(403, 'plan_limit', message);
@@ -52,4 +55,5 @@ export const invalidToken = (message = 'This link is invalid or has expired. Ask
   new ApiError(400, 'invalid_token', message);
 export const unsupportedMediaType = (message = 'Send the request body as JSON.') =>
   new ApiError(415, 'unsupported_media_type', message);
-export const serviceUnavailable = (message: string) => new ApiError(503, 'service_unavailable', message);
+export const serviceUnavailable = (message: string) =>
+  new ApiError(503, 'service_unavailable', message);

@@ -59,7 +59,13 @@ export function passwordResetMail(to: string, name: string, token: string): Mail
   };
 }
 
-export function invitationMail(to: string, firmName: string, inviterName: string, role: string, token: string): MailMessage {
+export function invitationMail(
+  to: string,
+  firmName: string,
+  inviterName: string,
+  role: string,
+  token: string,
+): MailMessage {
   const url = link('accept-invitation', token);
   return {
     to,

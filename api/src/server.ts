@@ -22,7 +22,9 @@ async function main(): Promise<void> {
   try {
     await sequelize.authenticate();
   } catch (error) {
-    console.error(`server: cannot reach the database — ${error instanceof Error ? error.message : String(error)}`);
+    console.error(
+      `server: cannot reach the database — ${error instanceof Error ? error.message : String(error)}`,
+    );
     process.exit(1);
   }
   if (config.migrateOnStart) {

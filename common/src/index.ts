@@ -10,3 +10,6 @@ export * from './units';
 
 // The whole study: runStudy and its pieces (analyseRange, solveFloorElevation)
 export * from './study';
+
+// Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation, drawing (drawingToSvg)
+export * from './basins';

@@ -4,9 +4,8 @@
 // project datum. Conversion to and from US customary is in units/ (toSI / fromSI).
 import { G } from './units/constants';
 import { requireFinite, requireInRange, requirePositive } from './hydraulics/guards';
-import { _criticalDepth, _froude } from './hydraulics/depths';
+import { _froude } from './hydraulics/depths';
 import {
-  _conjugate,
   hydraulicJump,
   jumpFromDepths,
   type JumpLengthMethod,
@@ -30,6 +29,14 @@ import { jumpToeDistance } from './hydraulics/profiles';
 import { validateSection, type Section } from './hydraulics/sections';
 import { makeTailwaterRating, type TailwaterAt, type TailwaterSpec } from './hydraulics/tailwater';
 import { jumpDiagrams, type JumpDiagrams } from './hydraulics/diagrams';
+import {
+  designDissipators,
+  type DesignEntry,
+  type DissipatorStudyOptions,
+  type DissipatorStudyResult,
+} from './basins/study';
+import type { TypeScreening } from './basins/screening';
+import type { DissipatorTypeId } from './basins/types';
 
 export type UnitSystem = 'SI' | 'US';
 
@@ -104,6 +111,8 @@ export interface StudyInput {
   /** Manning's n of the basin floor for the sweep-out distance (default 0.014, concrete) */
   floorManningN?: number;
   jumpLengthMethod?: JumpLengthMethod;
+  /** dissipator screening and sizing options (debris, culvert, chosen type, defaults overrides) */
+  dissipators?: DissipatorStudyOptions;
 }
 
 export type JumpPosition = 'at-toe' | 'swept-out' | 'drowned';
@@ -168,6 +177,16 @@ export interface StudyResult {
   diagrams: JumpDiagrams;
   warnings: string[];
   cautions: string[];
+  /** every dissipator type screened at every discharge, in rank order (basins/screening.ts) */
+  screening: TypeScreening[];
+  /** the best-ranked usable type, or null (see the specialist types) */
+  recommendedType: DissipatorTypeId | null;
+  /** the chosen type's design with its drawing (the recommended one unless the user chose) */
+  design: DesignEntry | null;
+  /** the other usable types, designed */
+  alternatives: DesignEntry[];
+  /** the rest of the dissipator result: floors per type, context, assumptions, notes */
+  dissipators: Omit<DissipatorStudyResult, 'screening' | 'design' | 'alternatives' | 'recommended'> | null;
 }
 
 /** The cautions carried by every result (product.md; hydraulics.md §7). */
@@ -234,7 +253,7 @@ function withField<T>(field: string, f: () => T): T {
     return f();
   } catch (e) {
     if (e instanceof RangeError && !e.message.startsWith(field))
-      throw new RangeError(`${field}: ${e.message}`);
+      throw new RangeError(`${field}: ${e.message}`, { cause: e });
     throw e;
   }
 }
@@ -473,9 +492,9 @@ function prepare(input: StudyInput): Prepared {
 
 function factorFor(
   C: TailwaterFactor,
-  row: { Q: number; fr1: number; y1: number; y2: number; v1: number; q: number },
+  row: () => { Q: number; fr1: number; y1: number; y2: number; v1: number; q: number },
 ): number {
-  const c = typeof C === 'number' ? C : C(row);
+  const c = typeof C === 'number' ? C : C(row());
   return requireInRange('tailwaterFactor', c, 0.5, 2);
 }
 
@@ -492,8 +511,12 @@ function jumpCore(
       `at Q = ${Q} m³/s the inflow is not supercritical (Fr1 = ${toe.fr1.toPrecision(3)}): no jump forms`,
     );
   }
-  const yc = _criticalDepth(p.basin, Q);
-  return { toe, y2: _conjugate(p.basin, Q, toe.y1, yc), yc };
+  // The basin is rectangular: critical depth and the momentum balance have closed forms
+  // there (yc = (q²/g)^(1/3); Bélanger), which keeps the whole-range solve fast.
+  const q = toe.q;
+  const yc = Math.cbrt((q * q) / G);
+  const fr1 = q / (toe.y1 * Math.sqrt(G * toe.y1));
+  return { toe, y2: 0.5 * toe.y1 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1), yc };
 }
 
 function minMargin(p: Prepared, z: number, C: TailwaterFactor): { margin: number; index: number } {
@@ -504,7 +527,7 @@ function minMargin(p: Prepared, z: number, C: TailwaterFactor): { margin: number
     let m: number;
     try {
       const { toe, y2 } = jumpCore(p, Q, i, z);
-      const c = factorFor(C, { Q, fr1: toe.fr1, y1: toe.y1, y2, v1: toe.v1, q: toe.q });
+      const c = factorFor(C, () => ({ Q, fr1: toe.fr1, y1: toe.y1, y2, v1: toe.v1, q: toe.q }));
       m = p.tw[i]!.elevation - z - c * y2;
     } catch (e) {
       // A floor too high for the head to drive supercritical flow is simply infeasible.
@@ -566,7 +589,7 @@ function rowsAt(p: Prepared, z: number, C: TailwaterFactor): StudyRow[] {
     const jump = jumpFromDepths(p.basin, Q, toe.y1, y2, _froude(p.basin, Q, toe.y1), {
       lengthMethod: method,
     });
-    const c = factorFor(C, { Q, fr1: jump.fr1, y1: toe.y1, y2, v1: jump.v1, q: toe.q });
+    const c = factorFor(C, () => ({ Q, fr1: jump.fr1, y1: toe.y1, y2, v1: jump.v1, q: toe.q }));
     const tw = p.tw[i]!;
     const twDepth = tw.elevation - z;
     const ratio = (twDepth - y2) / y2;
@@ -721,6 +744,15 @@ export function runStudy(input: StudyInput): StudyResult {
       'The gate runs submerged at some discharges: the free-flow gate equation used for the toe does not apply there.',
     );
 
+  // Dissipators: each type on its own floor, screened, the chosen one and the alternatives designed.
+  let dissipators: DissipatorStudyResult | null = null;
+  try {
+    dissipators = designDissipators(input, input.dissipators ?? {});
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    warnings.push(`Dissipator screening and sizing could not run: ${e.message}`);
+  }
+
   return {
     input: {
       ...input,
@@ -757,5 +789,12 @@ export function runStudy(input: StudyInput): StudyResult {
     diagrams: jumpDiagrams(p.basin, Qd, jump.y1, jump.y2, twDepth > 0 ? twDepth : null),
     warnings,
     cautions: [...STUDY_CAUTIONS],
+    screening: dissipators?.screening ?? [],
+    recommendedType: dissipators?.recommended ?? null,
+    design: dissipators?.design ?? null,
+    alternatives: dissipators?.alternatives ?? [],
+    dissipators: dissipators
+      ? { chosen: dissipators.chosen, floors: dissipators.floors, context: dissipators.context, assumptions: dissipators.assumptions, notes: dissipators.notes }
+      : null,
   };
 }

@@ -1,6 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import jwt from 'jsonwebtoken';
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   TEST_JWT_SECRET,
@@ -31,11 +32,27 @@ describe('POST /auth/signup', () => {
     const res = await h
       .http()
       .post('/api/v1/auth/signup')
-      .send({ firmName: 'Brackwater Consulting', name: 'Ada Brack', email: email.toUpperCase(), password: TEST_PASSWORD });
+      .send({
+        firmName: 'Brackwater Consulting',
+        name: 'Ada Brack',
+        email: email.toUpperCase(),
+        password: TEST_PASSWORD,
+      });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ name: 'Ada Brack', email, role: 'owner', active: true });
-    expect(res.body.firm).toMatchObject({ name: 'Brackwater Consulting', plan: 'concept', seats: 1 });
-    expect(Object.keys(res.body.user).sort()).toEqual(['active', 'createdAt', 'email', 'id', 'name', 'role']);
+    expect(res.body.firm).toMatchObject({
+      name: 'Brackwater Consulting',
+      plan: 'concept',
+      seats: 1,
+    });
+    expect(Object.keys(res.body.user).sort()).toEqual([
+      'active',
+      'createdAt',
+      'email',
+      'id',
+      'name',
+      'role',
+    ]);
     const stored = await h.models.User.findByPk(res.body.user.id);
     expect(stored?.passwordHash).toMatch(/^\$2[aby]\$10\$/); // bcrypt at BCRYPT_COST=10, never the password
     expect(stored?.firmId).toBe(res.body.firm.id);
@@ -50,14 +67,22 @@ describe('POST /auth/signup', () => {
     const res = await h
       .http()
       .post('/api/v1/auth/signup')
-      .send({ firmName: 'Second', name: 'Other', email: first.email.toUpperCase(), password: TEST_PASSWORD });
+      .send({
+        firmName: 'Second',
+        name: 'Other',
+        email: first.email.toUpperCase(),
+        password: TEST_PASSWORD,
+      });
     expect(res.status).toBe(409);
     expect(res.body.code).toBe('conflict');
     expect(await h.models.Firm.count()).toBe(firmsBefore);
   });
 
   it('answers 422 with a message per field', async () => {
-    const res = await h.http().post('/api/v1/auth/signup').send({ email: 'nope', password: 'é'.repeat(37) });
+    const res = await h
+      .http()
+      .post('/api/v1/auth/signup')
+      .send({ email: 'nope', password: 'é'.repeat(37) });
     expect(res.status).toBe(422);
     expect(res.body.code).toBe('validation_error');
     expect(Object.keys(res.body.details).sort()).toEqual(['email', 'firmName', 'name', 'password']);
@@ -68,7 +93,10 @@ describe('POST /auth/signup', () => {
 describe('POST /auth/login', () => {
   it('signs in with the right password and records the time', async () => {
     const firm = await signUpFirm(h, 'login');
-    const res = await h.http().post('/api/v1/auth/login').send({ email: ` ${firm.email.toUpperCase()} `, password: TEST_PASSWORD });
+    const res = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: ` ${firm.email.toUpperCase()} `, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
     expect(res.body.user.id).toBe(firm.user.id);
     expect(res.body.firm.id).toBe(firm.firm.id);
@@ -80,10 +108,19 @@ describe('POST /auth/login', () => {
 
   it('gives the same 401 message for a wrong password, an unknown e-mail and a deactivated member', async () => {
     const firm = await signUpFirm(h, 'wrongpw');
-    const wrong = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: 'not the password' });
-    const unknown = await h.http().post('/api/v1/auth/login').send({ email: uniqueEmail('ghost'), password: TEST_PASSWORD });
+    const wrong = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: firm.email, password: 'not the password' });
+    const unknown = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: uniqueEmail('ghost'), password: TEST_PASSWORD });
     const inactive = await addMember(h, firm.firm.id, 'viewer', { active: false });
-    const deactivated = await h.http().post('/api/v1/auth/login').send({ email: inactive.email, password: TEST_PASSWORD });
+    const deactivated = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: inactive.email, password: TEST_PASSWORD });
     for (const res of [wrong, unknown, deactivated]) {
       expect(res.status).toBe(401);
       expect(res.body).toEqual({ code: 'unauthorized', message: 'Incorrect e-mail or password.' });
@@ -98,19 +135,32 @@ describe('tokens', () => {
   });
   const me = (token: string) => h.http().get('/api/v1/auth/me').set(bearer(token));
   const sign = (payload: object, options: jwt.SignOptions = {}) =>
-    jwt.sign(payload, TEST_JWT_SECRET, { algorithm: 'HS256', issuer: 'basinwright', audience: 'basinwright-app', ...options });
+    jwt.sign(payload, TEST_JWT_SECRET, {
+      algorithm: 'HS256',
+      issuer: 'basinwright',
+      audience: 'basinwright-app',
+      ...options,
+    });
 
   it('refuses a missing or malformed Authorization header', async () => {
     expect((await h.http().get('/api/v1/auth/me')).status).toBe(401);
-    expect((await h.http().get('/api/v1/auth/me').set('Authorization', `Token ${firm.token}`)).status).toBe(401);
+    expect(
+      (await h.http().get('/api/v1/auth/me').set('Authorization', `Token ${firm.token}`)).status,
+    ).toBe(401);
     expect((await me('not.a.jwt')).status).toBe(401);
   });
 
   it('refuses an expired token', async () => {
-    const expired = sign({ fid: firm.firm.id, tv: 0, exp: Math.floor(Date.now() / 1000) - 10 }, { subject: firm.user.id });
+    const expired = sign(
+      { fid: firm.firm.id, tv: 0, exp: Math.floor(Date.now() / 1000) - 10 },
+      { subject: firm.user.id },
+    );
     const res = await me(expired);
     expect(res.status).toBe(401);
-    expect(res.body).toEqual({ code: 'unauthorized', message: 'Your session has expired. Sign in again.' });
+    expect(res.body).toEqual({
+      code: 'unauthorized',
+      message: 'Your session has expired. Sign in again.',
+    });
   });
 
   it('refuses a tampered token (payload changed, signature kept)', async () => {
@@ -126,21 +176,34 @@ describe('tokens', () => {
     const claims = claimsOf(firm.token);
     const none = `${b64({ alg: 'none', typ: 'JWT' })}.${b64(claims)}.`;
     const hs512 = sign({ fid: firm.firm.id, tv: 0 }, { subject: firm.user.id, algorithm: 'HS512' });
-    const otherSecret = jwt.sign({ fid: firm.firm.id, tv: 0 }, 'another-secret-0123456789abcdef0123456789', {
-      algorithm: 'HS256',
-      subject: firm.user.id,
-      issuer: 'basinwright',
-      audience: 'basinwright-app',
-    });
-    const otherIssuer = sign({ fid: firm.firm.id, tv: 0 }, { subject: firm.user.id, issuer: 'someone-else' });
-    const otherAudience = sign({ fid: firm.firm.id, tv: 0 }, { subject: firm.user.id, audience: 'other-app' });
+    const otherSecret = jwt.sign(
+      { fid: firm.firm.id, tv: 0 },
+      'another-secret-0123456789abcdef0123456789',
+      {
+        algorithm: 'HS256',
+        subject: firm.user.id,
+        issuer: 'basinwright',
+        audience: 'basinwright-app',
+      },
+    );
+    const otherIssuer = sign(
+      { fid: firm.firm.id, tv: 0 },
+      { subject: firm.user.id, issuer: 'someone-else' },
+    );
+    const otherAudience = sign(
+      { fid: firm.firm.id, tv: 0 },
+      { subject: firm.user.id, audience: 'other-app' },
+    );
     for (const token of [none, hs512, otherSecret, otherIssuer, otherAudience]) {
       const res = await me(token);
       expect(res.status).toBe(401);
       expect(res.body.code).toBe('unauthorized');
     }
     // The same claims properly signed are accepted, so the refusals above are about the flaw only.
-    expect((await me(sign({ fid: firm.firm.id, tv: claims.tv as number }, { subject: firm.user.id }))).status).toBe(200);
+    expect(
+      (await me(sign({ fid: firm.firm.id, tv: claims.tv as number }, { subject: firm.user.id })))
+        .status,
+    ).toBe(200);
   });
 
   it('refuses a token whose firm claim does not match the member', async () => {
@@ -153,7 +216,10 @@ describe('tokens', () => {
 describe('POST /auth/logout', () => {
   it('revokes the token (and every other token of the member)', async () => {
     const firm = await signUpFirm(h, 'logout');
-    const second = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: TEST_PASSWORD });
+    const second = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: firm.email, password: TEST_PASSWORD });
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(200);
     const out = await h.http().post('/api/v1/auth/logout').set(bearer(firm.token));
     expect(out.status).toBe(204);
@@ -164,7 +230,10 @@ describe('POST /auth/logout', () => {
       expect(res.body.code).toBe('unauthorized');
     }
     // Signing in again works and gives a fresh, valid token.
-    const again = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: TEST_PASSWORD });
+    const again = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: firm.email, password: TEST_PASSWORD });
     expect((await h.http().get('/api/v1/auth/me').set(bearer(again.body.token))).status).toBe(200);
   });
 });
@@ -173,10 +242,14 @@ describe('login rate limits (counters in PostgreSQL)', () => {
   it('per client address: the 31st attempt in 15 minutes gets 429 with Retry-After', async () => {
     const agent = h.http(); // one address for every request
     for (let i = 0; i < 30; i += 1) {
-      const res = await agent.post('/api/v1/auth/login').send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
+      const res = await agent
+        .post('/api/v1/auth/login')
+        .send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
       expect(res.status).toBe(401);
     }
-    const blocked = await agent.post('/api/v1/auth/login').send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
+    const blocked = await agent
+      .post('/api/v1/auth/login')
+      .send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
     expect(blocked.status).toBe(429);
     expect(blocked.body.code).toBe('rate_limited');
     const retryAfter = Number(blocked.headers['retry-after']);
@@ -184,30 +257,45 @@ describe('login rate limits (counters in PostgreSQL)', () => {
     expect(retryAfter).toBeGreaterThan(0);
     expect(retryAfter).toBeLessThanOrEqual(15 * 60);
     // Another address is not affected.
-    const fresh = await h.http().post('/api/v1/auth/login').send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
+    const fresh = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
     expect(fresh.status).toBe(401);
   });
 
   it('per account: 10 failures from many addresses lock the account, even for the right password', async () => {
     const firm = await signUpFirm(h, 'acctlimit');
     for (let i = 0; i < 10; i += 1) {
-      const res = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: `wrong ${i}` });
+      const res = await h
+        .http()
+        .post('/api/v1/auth/login')
+        .send({ email: firm.email, password: `wrong ${i}` });
       expect(res.status).toBe(401);
     }
-    const blocked = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: TEST_PASSWORD });
+    const blocked = await h
+      .http()
+      .post('/api/v1/auth/login')
+      .send({ email: firm.email, password: TEST_PASSWORD });
     expect(blocked.status).toBe(429);
     expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
-    const row = await h.models.sequelize.query<{ hits: number }>('SELECT hits FROM rate_limits WHERE key = :key', {
-      replacements: { key: `login-account:${firm.email}` },
-      type: 'SELECT',
-    });
+    const row = await h.models.sequelize.query<{ hits: number }>(
+      'SELECT hits FROM rate_limits WHERE key = :key',
+      {
+        replacements: { key: `login-account:${firm.email}` },
+        type: QueryTypes.SELECT,
+      },
+    );
     expect(row[0]?.hits).toBeGreaterThanOrEqual(11);
   });
 
   it('successful sign-ins do not count against the account', async () => {
     const firm = await signUpFirm(h, 'acctok');
     for (let i = 0; i < 12; i += 1) {
-      const res = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: TEST_PASSWORD });
+      const res = await h
+        .http()
+        .post('/api/v1/auth/login')
+        .send({ email: firm.email, password: TEST_PASSWORD });
       expect(res.status).toBe(200);
     }
   });
@@ -217,14 +305,21 @@ describe('login rate limits (counters in PostgreSQL)', () => {
     let base = '';
     beforeAll(async () => {
       const root = fileURLToPath(new URL('../..', import.meta.url));
-      child = spawn(process.execPath, ['--import', 'tsx', '--conditions=@basinwright/source', 'api/src/server.ts'], {
-        cwd: root,
-        env: { ...process.env, ...h.env, HOST: '127.0.0.1', PORT: '0' },
-        stdio: ['ignore', 'pipe', 'pipe'],
-      });
+      child = spawn(
+        process.execPath,
+        ['--import', 'tsx', '--conditions=@basinwright/source', 'api/src/server.ts'],
+        {
+          cwd: root,
+          env: { ...process.env, ...h.env, HOST: '127.0.0.1', PORT: '0' },
+          stdio: ['ignore', 'pipe', 'pipe'],
+        },
+      );
       base = await new Promise<string>((resolve, reject) => {
         let out = '';
-        const timer = setTimeout(() => reject(new Error(`second API did not start:\n${out}`)), 20_000);
+        const timer = setTimeout(
+          () => reject(new Error(`second API did not start:\n${out}`)),
+          20_000,
+        );
         const onData = (chunk: Buffer) => {
           out += chunk.toString();
           const match = /listening on (http:\/\/[\d.]+:\d+)/.exec(out);
@@ -254,10 +349,20 @@ describe('login rate limits (counters in PostgreSQL)', () => {
           body: JSON.stringify({ email: firm.email, password }),
         });
       for (let i = 0; i < 5; i += 1) {
-        expect((await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: `bad ${i}` })).status).toBe(401);
+        expect(
+          (
+            await h
+              .http()
+              .post('/api/v1/auth/login')
+              .send({ email: firm.email, password: `bad ${i}` })
+          ).status,
+        ).toBe(401);
         expect((await viaOther(`bad other ${i}`)).status).toBe(401);
       }
-      const blockedHere = await h.http().post('/api/v1/auth/login').send({ email: firm.email, password: TEST_PASSWORD });
+      const blockedHere = await h
+        .http()
+        .post('/api/v1/auth/login')
+        .send({ email: firm.email, password: TEST_PASSWORD });
       expect(blockedHere.status).toBe(429);
       const blockedThere = await viaOther(TEST_PASSWORD);
       expect(blockedThere.status).toBe(429);
@@ -267,7 +372,9 @@ describe('login rate limits (counters in PostgreSQL)', () => {
 
     it('the other process stops cleanly on SIGTERM', async () => {
       expect(child?.exitCode).toBeNull();
-      const exited = new Promise<number | null>((resolve) => child?.once('exit', (code) => resolve(code)));
+      const exited = new Promise<number | null>((resolve) =>
+        child?.once('exit', (code) => resolve(code)),
+      );
       child?.kill('SIGTERM');
       expect(await exited).toBe(0);
     });

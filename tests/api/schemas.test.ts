@@ -20,14 +20,18 @@ import {
   utf8ByteLength,
 } from '@basinwright/common';
 
-async function errorsOf(schema: { validate(v: unknown, o: object): Promise<unknown> }, value: unknown): Promise<Record<string, string>> {
+async function errorsOf(
+  schema: { validate(v: unknown, o: object): Promise<unknown> },
+  value: unknown,
+): Promise<Record<string, string>> {
   try {
     await schema.validate(value, { abortEarly: false, stripUnknown: true });
     return {};
   } catch (error) {
     if (!(error instanceof ValidationError)) throw error;
     const out: Record<string, string> = {};
-    for (const item of error.inner.length > 0 ? error.inner : [error]) out[item.path ?? ''] ??= item.message;
+    for (const item of error.inner.length > 0 ? error.inner : [error])
+      out[item.path ?? ''] ??= item.message;
     return out;
   }
 }
@@ -36,11 +40,17 @@ describe('utf8ByteLength', () => {
   it('agrees with Node’s own UTF-8 encoder on any string, lone surrogates included', () => {
     // Reference: Buffer.byteLength(s, 'utf8') (WHATWG encoding: a lone surrogate becomes U+FFFD, 3 bytes).
     fc.assert(
-      fc.property(fc.string({ unit: 'binary', maxLength: 80 }), (s) => utf8ByteLength(s) === Buffer.byteLength(s, 'utf8')),
+      fc.property(
+        fc.string({ unit: 'binary', maxLength: 80 }),
+        (s) => utf8ByteLength(s) === Buffer.byteLength(s, 'utf8'),
+      ),
     );
     fc.assert(
       fc.property(
-        fc.string({ unit: fc.integer({ min: 0xd7f0, max: 0xe010 }).map((c) => String.fromCharCode(c)), maxLength: 20 }),
+        fc.string({
+          unit: fc.integer({ min: 0xd7f0, max: 0xe010 }).map((c) => String.fromCharCode(c)),
+          maxLength: 20,
+        }),
         (s) => utf8ByteLength(s) === Buffer.byteLength(s, 'utf8'),
       ),
     );
@@ -66,7 +76,9 @@ describe('new password rule (bcrypt reads 72 bytes at most)', () => {
     await expect(newPasswordSchema.validate('é'.repeat(36))).resolves.toBe('é'.repeat(36)); // 72 bytes
     await expect(newPasswordSchema.validate('€'.repeat(24))).resolves.toBe('€'.repeat(24)); // 72 bytes
     await expect(newPasswordSchema.validate('𝄞'.repeat(18))).resolves.toBe('𝄞'.repeat(18)); // 72 bytes
-    await expect(newPasswordSchema.validate(`${'é'.repeat(36)}x`)).rejects.toThrow(/at most 72 bytes/); // 73
+    await expect(newPasswordSchema.validate(`${'é'.repeat(36)}x`)).rejects.toThrow(
+      /at most 72 bytes/,
+    ); // 73
     await expect(newPasswordSchema.validate('€'.repeat(25))).rejects.toThrow(/at most 72 bytes/); // 75 bytes, 25 chars
     await expect(newPasswordSchema.validate('a'.repeat(72))).resolves.toHaveLength(72);
     await expect(newPasswordSchema.validate('a'.repeat(73))).rejects.toThrow(/at most 72 bytes/);
@@ -81,19 +93,32 @@ describe('new password rule (bcrypt reads 72 bytes at most)', () => {
   });
 
   it('login refuses a password bcrypt would cut, with the sign-in message', async () => {
-    expect(await errorsOf(loginSchema, { email: 'a@b.example', password: 'é'.repeat(37) })).toEqual({
-      password: 'Incorrect e-mail or password.',
-    });
+    expect(await errorsOf(loginSchema, { email: 'a@b.example', password: 'é'.repeat(37) })).toEqual(
+      {
+        password: 'Incorrect e-mail or password.',
+      },
+    );
   });
 });
 
 describe('signup schema', () => {
   it('normalises the e-mail and drops unknown keys', async () => {
     const value = await signupSchema.validate(
-      { firmName: '  Acme  ', name: ' Ann ', email: '  Ann@Example.COM ', password: 'longenough', role: 'owner' },
+      {
+        firmName: '  Acme  ',
+        name: ' Ann ',
+        email: '  Ann@Example.COM ',
+        password: 'longenough',
+        role: 'owner',
+      },
       { stripUnknown: true },
     );
-    expect(value).toEqual({ firmName: 'Acme', name: 'Ann', email: 'ann@example.com', password: 'longenough' });
+    expect(value).toEqual({
+      firmName: 'Acme',
+      name: 'Ann',
+      email: 'ann@example.com',
+      password: 'longenough',
+    });
   });
 
   it('reports every bad field at once', async () => {
@@ -108,9 +133,21 @@ describe('signup schema', () => {
 
 describe('project schemas', () => {
   it('create: fills defaults, turns null text into empty, rejects bad units/status', async () => {
-    const value = await projectCreateSchema.validate({ name: ' Weir ', units: 'SI', client: null }, { stripUnknown: true });
-    expect(value).toEqual({ name: 'Weir', units: 'SI', client: '', location: '', status: 'draft', notes: '' });
-    expect(await errorsOf(projectCreateSchema, { name: '', units: 'metric', status: 'done' })).toEqual({
+    const value = await projectCreateSchema.validate(
+      { name: ' Weir ', units: 'SI', client: null },
+      { stripUnknown: true },
+    );
+    expect(value).toEqual({
+      name: 'Weir',
+      units: 'SI',
+      client: '',
+      location: '',
+      status: 'draft',
+      notes: '',
+    });
+    expect(
+      await errorsOf(projectCreateSchema, { name: '', units: 'metric', status: 'done' }),
+    ).toEqual({
       name: 'Enter a project name.',
       units: 'Choose SI or US customary units.',
       status: 'Choose one of: draft, in review, issued, archived.',
@@ -121,43 +158,76 @@ describe('project schemas', () => {
   });
 
   it('update: partial, but not empty, and a name cannot be blanked', async () => {
-    await expect(projectUpdateSchema.validate({ status: 'issued' }, { stripUnknown: true })).resolves.toMatchObject({ status: 'issued' });
+    await expect(
+      projectUpdateSchema.validate({ status: 'issued' }, { stripUnknown: true }),
+    ).resolves.toMatchObject({ status: 'issued' });
     expect(await errorsOf(projectUpdateSchema, {})).toEqual({ '': 'Change at least one field.' });
-    expect(await errorsOf(projectUpdateSchema, { name: '   ' })).toEqual({ name: 'Enter a project name.' });
+    expect(await errorsOf(projectUpdateSchema, { name: '   ' })).toEqual({
+      name: 'Enter a project name.',
+    });
   });
 
   it('list query: casts query-string text, defaults, bounds', async () => {
-    expect(await projectListQuerySchema.validate({ page: '2', pageSize: '5', sort: 'name', order: 'asc' })).toEqual({
+    expect(
+      await projectListQuerySchema.validate({
+        page: '2',
+        pageSize: '5',
+        sort: 'name',
+        order: 'asc',
+      }),
+    ).toEqual({
       search: '',
       page: 2,
       pageSize: 5,
       sort: 'name',
       order: 'asc',
     });
-    expect(await projectListQuerySchema.validate({ sort: '', page: '' })).toMatchObject({ sort: 'updatedAt', page: 1, pageSize: 20, order: 'desc' });
-    expect(await errorsOf(projectListQuerySchema, { page: '0', pageSize: '101', sort: 'id', order: 'up' })).toEqual({
+    expect(await projectListQuerySchema.validate({ sort: '', page: '' })).toMatchObject({
+      sort: 'updatedAt',
+      page: 1,
+      pageSize: 20,
+      order: 'desc',
+    });
+    expect(
+      await errorsOf(projectListQuerySchema, {
+        page: '0',
+        pageSize: '101',
+        sort: 'id',
+        order: 'up',
+      }),
+    ).toEqual({
       page: 'Page starts at 1.',
       pageSize: 'Page size is at most 100.',
       sort: 'Sort by one of: updatedAt, createdAt, name, client, status.',
       order: 'Order is asc or desc.',
     });
-    expect(await errorsOf(projectListQuerySchema, { page: 'two' })).toEqual({ page: 'Page must be a whole number.' });
+    expect(await errorsOf(projectListQuerySchema, { page: 'two' })).toEqual({
+      page: 'Page must be a whole number.',
+    });
   });
 });
 
 describe('member schemas', () => {
   it('invitation: any role but owner', async () => {
     for (const role of INVITABLE_ROLES) {
-      await expect(invitationCreateSchema.validate({ email: 'x@y.example', role })).resolves.toMatchObject({ role });
+      await expect(
+        invitationCreateSchema.validate({ email: 'x@y.example', role }),
+      ).resolves.toMatchObject({ role });
     }
-    expect(await errorsOf(invitationCreateSchema, { email: 'x@y.example', role: 'owner' })).toEqual({
-      role: 'Choose one of: admin, engineer, estimator, viewer.',
-    });
+    expect(await errorsOf(invitationCreateSchema, { email: 'x@y.example', role: 'owner' })).toEqual(
+      {
+        role: 'Choose one of: admin, engineer, estimator, viewer.',
+      },
+    );
   });
 
   it('member update: role or active, not nothing', async () => {
-    await expect(memberUpdateSchema.validate({ active: false })).resolves.toEqual({ active: false });
-    expect(await errorsOf(memberUpdateSchema, {})).toEqual({ '': 'Change the role or the active flag.' });
+    await expect(memberUpdateSchema.validate({ active: false })).resolves.toEqual({
+      active: false,
+    });
+    expect(await errorsOf(memberUpdateSchema, {})).toEqual({
+      '': 'Change the role or the active flag.',
+    });
     expect(await errorsOf(memberUpdateSchema, { role: 'boss' })).toHaveProperty('role');
   });
 });

@@ -28,7 +28,11 @@ function decodeQuotedPrintable(raw: string): string {
 }
 
 /** An SMTP server on a free loopback port that keeps every message it receives. */
-export async function startMailCapture(): Promise<{ port: number; messages: CapturedMail[]; close(): Promise<void> }> {
+export async function startMailCapture(): Promise<{
+  port: number;
+  messages: CapturedMail[];
+  close(): Promise<void>;
+}> {
   const messages: CapturedMail[] = [];
   const server = new SMTPServer({
     authOptional: true,
@@ -39,14 +43,22 @@ export async function startMailCapture(): Promise<{ port: number; messages: Capt
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('end', () => {
         const raw = Buffer.concat(chunks).toString('utf8');
-        messages.push({ to: session.envelope.rcptTo.map((a) => a.address.toLowerCase()), raw, text: decodeQuotedPrintable(raw) });
+        messages.push({
+          to: session.envelope.rcptTo.map((a) => a.address.toLowerCase()),
+          raw,
+          text: decodeQuotedPrintable(raw),
+        });
         callback();
       });
     },
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.server.address() as AddressInfo;
-  return { port, messages, close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+  return {
+    port,
+    messages,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
 }
 
 export interface ApiHarness {
@@ -75,7 +87,8 @@ export function randomClientIp(): string {
  */
 export async function startApi(): Promise<ApiHarness> {
   const databaseUrl = process.env.DATABASE_URL;
-  if (databaseUrl === undefined || databaseUrl === '') throw new Error('DATABASE_URL must be set for the API tests.');
+  if (databaseUrl === undefined || databaseUrl === '')
+    throw new Error('DATABASE_URL must be set for the API tests.');
   const capture = await startMailCapture();
   const env: Record<string, string> = {
     NODE_ENV: 'test',
@@ -127,8 +140,13 @@ export async function startApi(): Promise<ApiHarness> {
 }
 
 /** The token of the first `/path?token=` link in a captured e-mail. */
-export function tokenFromMail(mail: CapturedMail, path: '/reset-password' | '/accept-invitation'): string {
-  const match = new RegExp(`${TEST_APP_URL.replace(/[.]/g, '\\.')}${path}\\?token=([A-Za-z0-9_-]+)`).exec(mail.text);
+export function tokenFromMail(
+  mail: CapturedMail,
+  path: '/reset-password' | '/accept-invitation',
+): string {
+  const match = new RegExp(
+    `${TEST_APP_URL.replace(/[.]/g, '\\.')}${path}\\?token=([A-Za-z0-9_-]+)`,
+  ).exec(mail.text);
   if (match?.[1] === undefined) throw new Error(`no ${path} link in the e-mail:\n${mail.text}`);
   return match[1];
 }
@@ -151,14 +169,25 @@ export async function signUpFirm(h: ApiHarness, label = 'firm'): Promise<SignedU
   const res = await h
     .http()
     .post('/api/v1/auth/signup')
-    .send({ firmName: `${label} ${randomUUID().slice(0, 6)} Ltd`, name: `Owner of ${label}`, email, password: TEST_PASSWORD });
-  if (res.status !== 201) throw new Error(`signup failed: ${res.status} ${JSON.stringify(res.body)}`);
+    .send({
+      firmName: `${label} ${randomUUID().slice(0, 6)} Ltd`,
+      name: `Owner of ${label}`,
+      email,
+      password: TEST_PASSWORD,
+    });
+  if (res.status !== 201)
+    throw new Error(`signup failed: ${res.status} ${JSON.stringify(res.body)}`);
   const body = res.body as Omit<SignedUp, 'email' | 'password'>;
   return { ...body, email, password: TEST_PASSWORD };
 }
 
 /** Moves a firm to another plan (billing is not part of the foundation). */
-export async function setPlan(h: ApiHarness, firmId: string, plan: Plan, seats: number): Promise<void> {
+export async function setPlan(
+  h: ApiHarness,
+  firmId: string,
+  plan: Plan,
+  seats: number,
+): Promise<void> {
   await h.models.Firm.update({ plan, seats }, { where: { id: firmId } });
 }
 

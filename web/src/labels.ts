@@ -1,4 +1,5 @@
 // The words the UI shows for enum values, in one place.
+import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -36,8 +37,8 @@ export const roleDescriptions: Record<Role, string> = {
   viewer: 'Reads projects, designs and proposals',
 };
 
-export const projectStatuses: ProjectStatus[] = ['draft', 'in review', 'issued', 'archived'];
-export const invitableRoles: Role[] = ['admin', 'engineer', 'estimator', 'viewer'];
+export const projectStatuses: readonly ProjectStatus[] = PROJECT_STATUSES;
+export const invitableRoles: readonly Role[] = INVITABLE_ROLES;
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {

@@ -25,13 +25,15 @@ export function createMigrator(sequelize: Sequelize) {
       glob: ['*.{ts,js}', { cwd: migrationsDir, ignore: ['*.d.ts'] }],
       resolve: ({ name, path: filePath, context }) => {
         if (filePath === undefined) throw new Error(`Migration ${name} has no file.`);
-        const load = async (): Promise<MigrationModule> => (await import(pathToFileURL(filePath).href)) as MigrationModule;
+        const load = async (): Promise<MigrationModule> =>
+          (await import(pathToFileURL(filePath).href)) as MigrationModule;
         return {
           name: name.replace(/\.(ts|js)$/, ''),
           up: async () => (await load()).up({ context }),
           down: async () => {
             const migration = await load();
-            if (migration.down === undefined) throw new Error(`Migration ${name} cannot be undone.`);
+            if (migration.down === undefined)
+              throw new Error(`Migration ${name} cannot be undone.`);
             await migration.down({ context });
           },
         };

@@ -23,13 +23,23 @@ declare global {
  * Requires `Authorization: Bearer <jwt>`. The user is loaded on every request so that a
  * deactivated member, a changed role or a bumped token version takes effect at once.
  */
-export const authenticate: RequestHandler = async (req: Request, _res: Response, next: NextFunction) => {
+export const authenticate: RequestHandler = async (
+  req: Request,
+  _res: Response,
+  next: NextFunction,
+) => {
   const header = req.get('authorization');
   const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
   if (match?.[1] === undefined) throw unauthorized();
   const claims = verifyToken(match[1]);
   const user = await User.findByPk(claims.sub, { include: [{ model: Firm, as: 'firm' }] });
-  if (user === null || user.firm === undefined || !user.active || user.tokenVersion !== claims.tv || user.firmId !== claims.fid) {
+  if (
+    user === null ||
+    user.firm === undefined ||
+    !user.active ||
+    user.tokenVersion !== claims.tv ||
+    user.firmId !== claims.fid
+  ) {
     throw unauthorized('Your session has ended. Sign in again.');
   }
   req.auth = { user, firm: user.firm };
@@ -49,4 +59,9 @@ export function authorize(action: Action): RequestHandler {
     if (!can(user.role, action)) throw forbidden();
     next();
   };
+}
+
+/** authenticate + authorize(action), for a route's handler list. */
+export function guard(action: Action): RequestHandler[] {
+  return [authenticate, authorize(action)];
 }

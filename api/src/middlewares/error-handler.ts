@@ -1,5 +1,9 @@
 import type { NextFunction, Request, Response } from 'express';
-import { ConnectionError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import {
+  ConnectionError,
+  UniqueConstraintError,
+  ValidationError as SequelizeValidationError,
+} from 'sequelize';
 import {
   ApiError,
   badJson,
@@ -26,9 +30,12 @@ export function toApiError(error: unknown): ApiError {
   const parser = bodyParserError(error);
   if (parser !== null) {
     if (parser.type === 'entity.parse.failed') return badJson();
-    if (parser.type === 'entity.too.large') return payloadTooLarge('The request body is larger than 1 MB.');
-    if (parser.type === 'encoding.unsupported' || parser.type === 'charset.unsupported') return unsupportedMediaType();
-    if (parser.status >= 400 && parser.status < 500) return badRequest('The request body could not be read.');
+    if (parser.type === 'entity.too.large')
+      return payloadTooLarge('The request body is larger than 1 MB.');
+    if (parser.type === 'encoding.unsupported' || parser.type === 'charset.unsupported')
+      return unsupportedMediaType();
+    if (parser.status >= 400 && parser.status < 500)
+      return badRequest('The request body could not be read.');
   }
   // A race that slipped past a service check (two sign-ups with one e-mail at the same time).
   if (error instanceof UniqueConstraintError) return conflict('That already exists.');
@@ -37,7 +44,8 @@ export function toApiError(error: unknown): ApiError {
     for (const item of error.errors) details[item.path ?? 'body'] ??= item.message;
     return validationError(details);
   }
-  if (error instanceof ConnectionError) return serviceUnavailable('The database is not reachable. Try again shortly.');
+  if (error instanceof ConnectionError)
+    return serviceUnavailable('The database is not reachable. Try again shortly.');
   const message =
     getConfig().nodeEnv === 'production' || !(error instanceof Error)
       ? 'Something went wrong on our side.'
@@ -45,7 +53,12 @@ export function toApiError(error: unknown): ApiError {
   return new ApiError(500, 'internal_error', message);
 }
 
-export function errorHandler(error: unknown, req: Request, res: Response, next: NextFunction): void {
+export function errorHandler(
+  error: unknown,
+  req: Request,
+  res: Response,
+  next: NextFunction,
+): void {
   if (res.headersSent) {
     next(error);
     return;

@@ -1,4 +1,10 @@
-import { rateLimit, type IncrementResponse, type Options, type RateLimitRequestHandler, type Store } from 'express-rate-limit';
+import {
+  rateLimit,
+  type IncrementResponse,
+  type Options,
+  type RateLimitRequestHandler,
+  type Store,
+} from 'express-rate-limit';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { rateLimited } from '../errors';
 
@@ -29,7 +35,9 @@ export class PostgresRateLimitStore implements Store {
       { replacements: { key: this.key(key) }, type: QueryTypes.SELECT },
     );
     const row = rows[0];
-    return row === undefined ? undefined : { totalHits: row.hits, resetTime: new Date(row.reset_at) };
+    return row === undefined
+      ? undefined
+      : { totalHits: row.hits, resetTime: new Date(row.reset_at) };
   }
 
   async increment(key: string): Promise<IncrementResponse> {
@@ -40,13 +48,18 @@ export class PostgresRateLimitStore implements Store {
          hits = CASE WHEN rate_limits.reset_at <= now() THEN 1 ELSE rate_limits.hits + 1 END,
          reset_at = CASE WHEN rate_limits.reset_at <= now() THEN EXCLUDED.reset_at ELSE rate_limits.reset_at END
        RETURNING hits, reset_at`,
-      { replacements: { key: this.key(key), seconds: this.windowMs / 1000 }, type: QueryTypes.SELECT },
+      {
+        replacements: { key: this.key(key), seconds: this.windowMs / 1000 },
+        type: QueryTypes.SELECT,
+      },
     );
     const row = rows[0];
     if (row === undefined) throw new Error('rate limit upsert returned no row');
     // Now and then, clear windows that ended long ago so the table stays small.
     if (Math.random() < 0.01) {
-      await this.sequelize.query("DELETE FROM rate_limits WHERE reset_at < now() - interval '1 day'");
+      await this.sequelize.query(
+        "DELETE FROM rate_limits WHERE reset_at < now() - interval '1 day'",
+      );
     }
     return { totalHits: row.hits, resetTime: new Date(row.reset_at) };
   }
@@ -59,13 +72,21 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.sequelize.query('DELETE FROM rate_limits WHERE key = :key', { replacements: { key: this.key(key) } });
+    await this.sequelize.query('DELETE FROM rate_limits WHERE key = :key', {
+      replacements: { key: this.key(key) },
+    });
   }
 }
 
 /** E-mail from a body already validated (and lowercased) by the shared schema. */
 function bodyEmail(body: unknown): string {
-  if (typeof body === 'object' && body !== null && 'email' in body && typeof body.email === 'string') return body.email;
+  if (
+    typeof body === 'object' &&
+    body !== null &&
+    'email' in body &&
+    typeof body.email === 'string'
+  )
+    return body.email;
   return '';
 }
 
@@ -101,7 +122,9 @@ export function createRateLimits(sequelize: Sequelize): RateLimits {
     }),
     signupByIp: limiter('signup-ip:', 60 * MINUTE, 20),
     forgotByIp: limiter('forgot-ip:', 60 * MINUTE, 20),
-    forgotByAccount: limiter('forgot-account:', 60 * MINUTE, 5, { keyGenerator: (req) => bodyEmail(req.body) }),
+    forgotByAccount: limiter('forgot-account:', 60 * MINUTE, 5, {
+      keyGenerator: (req) => bodyEmail(req.body),
+    }),
     tokenByIp: limiter('token-ip:', 15 * MINUTE, 30),
   };
 }

@@ -24,7 +24,10 @@ export function detailsOf(error: ValidationError, source: ValidationSource): Err
  * unknown keys dropped. The cast body replaces req.body; a cast query goes to
  * res.locals.query (Express 5's req.query cannot be reassigned).
  */
-export function validate(schema: AnyObjectSchema, source: ValidationSource = 'body'): RequestHandler {
+export function validate(
+  schema: AnyObjectSchema,
+  source: ValidationSource = 'body',
+): RequestHandler {
   return async (req, res, next) => {
     const input: unknown = source === 'body' ? (req.body ?? {}) : req.query;
     if (!isPlainObject(input)) throw validationError({ [source]: 'Send a JSON object.' });

@@ -24,7 +24,12 @@ export class Firm extends Model<InferAttributes<Firm>, InferCreationAttributes<F
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         name: { type: DataTypes.STRING(160), allowNull: false },
-        plan: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'concept', validate: { isIn: [[...PLANS]] } },
+        plan: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          defaultValue: 'concept',
+          validate: { isIn: [[...PLANS]] },
+        },
         seats: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1, validate: { min: 1 } },
         brandColor: { type: DataTypes.STRING(7), allowNull: true, defaultValue: null },
         logo: { type: DataTypes.BLOB, allowNull: true, defaultValue: null },

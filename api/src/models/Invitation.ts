@@ -12,7 +12,10 @@ import type { Firm } from './Firm';
 import type { User } from './User';
 
 /** An e-mailed invitation to join a firm; only the sha256 of its token is stored. */
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
+export class Invitation extends Model<
+  InferAttributes<Invitation>,
+  InferCreationAttributes<Invitation>
+> {
   declare id: CreationOptional<string>;
   declare firmId: string;
   declare email: string;
@@ -33,7 +36,11 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         firmId: { type: DataTypes.UUID, allowNull: false },
         email: { type: DataTypes.STRING(254), allowNull: false },
-        role: { type: DataTypes.STRING(20), allowNull: false, validate: { isIn: [[...INVITABLE_ROLES]] } },
+        role: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: { isIn: [[...INVITABLE_ROLES]] },
+        },
         tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         acceptedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },

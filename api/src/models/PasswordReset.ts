@@ -10,7 +10,10 @@ import {
 import type { User } from './User';
 
 /** A single-use password-reset request; only the sha256 of its token is stored. */
-export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
+export class PasswordReset extends Model<
+  InferAttributes<PasswordReset>,
+  InferCreationAttributes<PasswordReset>
+> {
   declare id: CreationOptional<string>;
   declare userId: string;
   declare tokenHash: string;

@@ -7,7 +7,12 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { PROJECT_STATUSES, PROJECT_UNITS, type ProjectStatus, type ProjectUnits } from '@basinwright/common';
+import {
+  PROJECT_STATUSES,
+  PROJECT_UNITS,
+  type ProjectStatus,
+  type ProjectUnits,
+} from '@basinwright/common';
 import type { User } from './User';
 
 /** A firm's project (tenant-owned: every query is scoped by firmId). */
@@ -34,7 +39,11 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
         name: { type: DataTypes.STRING(200), allowNull: false },
         client: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
         location: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
-        units: { type: DataTypes.STRING(2), allowNull: false, validate: { isIn: [[...PROJECT_UNITS]] } },
+        units: {
+          type: DataTypes.STRING(2),
+          allowNull: false,
+          validate: { isIn: [[...PROJECT_UNITS]] },
+        },
         status: {
           type: DataTypes.STRING(20),
           allowNull: false,

@@ -16,6 +16,8 @@ export interface BlockRow {
   centres: number[];
   /** share of the basin width the blocks occupy (0–1) */
   widthFraction: number;
+  /** true when the basin is too narrow for one block and its space: one block of at most W/2 is used */
+  narrow?: boolean;
 }
 
 /**
@@ -28,7 +30,10 @@ export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: num
   const W = reqPositive('basinWidth', basinWidth);
   const w = reqPositive('blockWidth', blockWidth);
   const s = reqPositive('spacing', spacing);
-  if (w > W) throw new RangeError(`blockWidth ${w} m does not fit in basinWidth ${W} m`);
+  if (w + s > W * (1 + 1e-9)) {
+    const bw = Math.min(w, W / 2);
+    return { count: 1, width: bw, spacing: W - bw, nominalSpacing: s, wallSpace: (W - bw) / 2, centres: [0], widthFraction: bw / W, narrow: true };
+  }
   const count = Math.max(1, Math.floor(W / (w + s) + 1e-9));
   const asBuilt = W / count - w;
   const centres: number[] = [];

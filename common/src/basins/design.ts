@@ -174,8 +174,9 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
   const riprap = riprapBelowSill({ velocity: vExit > 0 ? vExit : 0.5, y2: sizing.y2, width: W + 2 * wallT, lengthRatio: d.riprapLengthRatio, minThickness: d.riprapMinThickness, specificGravity: d.stoneSpecificGravity, coefficient: d.isbashCoefficient });
 
   const wingLen = d.wingwallLengthRatio * wallHeight;
-  const cutUp = { depth: d.upstreamCutoffDepth, thickness: Math.max(d.minWallThickness, slab.thickness) };
-  const cutDown = { depth: Math.max(d.downstreamCutoffDepth, riprap.thickness + 0.5), thickness: Math.max(d.minWallThickness, slab.thickness) };
+  // Cutoffs below the slab (common practice): the downstream one reaches below the riprap.
+  const cutUp = { depth: d.upstreamCutoffDepth, thickness: wallT };
+  const cutDown = { depth: Math.max(d.downstreamCutoffDepth, riprap.thickness + 0.5), thickness: wallT };
 
   // Concrete by element (m³).
   const blockVol = (b: BlockSet | undefined, shape: number): number => (b ? b.count * b.height * b.width * b.length * shape : 0);

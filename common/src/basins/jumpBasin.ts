@@ -54,6 +54,9 @@ export function sizeJumpBasin(
   const fb = rules.freeboardRule === 'saf' ? y2 / 3 : usbrFreeboard(v1, y2, d.freeboardCoefficient);
   const wallHeight = rules.freeboardRule === 'saf' ? tw + fb : Math.max(y2, tw) + fb;
   const warnings = jumpWarnings(type, { fr1, v1, q, y2, length }, rules, d);
+  for (const [what, row] of [['chute or deflector blocks', app.chuteBlocks], ['baffle or floor blocks', app.baffleBlocks], ['sill teeth', app.endSill.teeth]] as const) {
+    if (row && 'narrow' in row && row.narrow) warnings.push(`the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin`);
+  }
   const sizing: JumpBasinSizing = {
     type,
     fr1,

@@ -122,7 +122,7 @@ export interface EndSill {
   upstreamSlope: number;
   /** length of the sill along the flow, m */
   length: number;
-  teeth?: { count: number; width: number; spacing: number; wallSpace: number; centres: number[] };
+  teeth?: { count: number; width: number; spacing: number; wallSpace: number; centres: number[]; narrow?: boolean };
 }
 
 /** What sizeJumpBasin returns (hydraulics.md public API); extra fields are additive. */

@@ -50,7 +50,12 @@ function criticalResidual(s: Section, Q: number, y: number): number {
 export function _criticalDepth(s: Section, Q: number): number {
   let hi: number;
   if (s.shape === 'circular') {
-    hi = s.diameter * (1 - 1e-12);
+    hi = s.diameter * (1 - 1e-9);
+    if (criticalResidual(s, Q, hi) > 0) {
+      throw new RangeError(
+        `Q (discharge) ${Q} m³/s is too large for a ${s.diameter} m conduit: critical depth would reach the crown (the conduit would run full)`,
+      );
+    }
   } else {
     // Upper bounds: the rectangle of the bottom width and the triangle of the side slopes each
     // hold less area than the trapezoid at a depth, so each needs a deeper critical depth.

@@ -86,7 +86,7 @@ export function toeFromHead(
     case 'none':
     case 'fraction': {
       const E = loss.kind === 'none' ? H0 : H0 * (1 - loss.value);
-      const yc = _criticalDepth(unitRect, q);
+      const yc = Math.cbrt((q * q) / G); // rectangle: yc = (q²/g)^(1/3) [Chow 1959, §3-2]
       const y1 = _supercriticalRoot(unitRect, q, E, yc);
       return toe(q, y1, H0);
     }
@@ -241,7 +241,7 @@ export function outletFlow(
   try {
     yn = _normalDepth(barrel, Q, slope, manningN, 1);
   } catch (e) {
-    if (e instanceof RangeError) throw new RangeError(`pipe: ${e.message}`);
+    if (e instanceof RangeError) throw new RangeError(`pipe: ${e.message}`, { cause: e });
     throw e;
   }
   const depth = yn < yc ? yn : yc;

@@ -51,7 +51,10 @@ export const signupSchema = object({
   firmName: string()
     .trim()
     .required('Enter the name of your firm.')
-    .max(LIMITS.firmNameMaxLength, `A firm name has at most ${LIMITS.firmNameMaxLength} characters.`),
+    .max(
+      LIMITS.firmNameMaxLength,
+      `A firm name has at most ${LIMITS.firmNameMaxLength} characters.`,
+    ),
   name: personNameSchema,
   email: emailSchema,
   password: newPasswordSchema,

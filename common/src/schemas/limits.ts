@@ -4,7 +4,12 @@ export const ROLES = ['owner', 'admin', 'engineer', 'estimator', 'viewer'] as co
 export type Role = (typeof ROLES)[number];
 
 /** Roles an invitation may carry: ownership is granted by an owner, never by invitation. */
-export const INVITABLE_ROLES = ['admin', 'engineer', 'estimator', 'viewer'] as const satisfies readonly Role[];
+export const INVITABLE_ROLES = [
+  'admin',
+  'engineer',
+  'estimator',
+  'viewer',
+] as const satisfies readonly Role[];
 export type InvitableRole = (typeof INVITABLE_ROLES)[number];
 
 export const PLANS = ['concept', 'professional', 'firm'] as const;

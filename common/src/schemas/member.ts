@@ -11,7 +11,9 @@ export const invitationCreateSchema = object({
 export type InvitationCreateInput = InferType<typeof invitationCreateSchema>;
 
 export const memberUpdateSchema = object({
-  role: string<Role>().oneOf(ROLES, 'Choose one of: owner, admin, engineer, estimator, viewer.').optional(),
+  role: string<Role>()
+    .oneOf(ROLES, 'Choose one of: owner, admin, engineer, estimator, viewer.')
+    .optional(),
   active: boolean().typeError('Active must be true or false.').optional(),
 }).test('member-update-not-empty', 'Change the role or the active flag.', (value) => {
   return value.role !== undefined || value.active !== undefined;

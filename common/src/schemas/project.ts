@@ -21,7 +21,10 @@ const text = (max: number, label: string) =>
 const projectName = string()
   .trim()
   .min(1, 'Enter a project name.')
-  .max(LIMITS.projectNameMaxLength, `A project name has at most ${LIMITS.projectNameMaxLength} characters.`);
+  .max(
+    LIMITS.projectNameMaxLength,
+    `A project name has at most ${LIMITS.projectNameMaxLength} characters.`,
+  );
 const units = string<ProjectUnits>().oneOf(PROJECT_UNITS, 'Choose SI or US customary units.');
 const status = string<ProjectStatus>().oneOf(
   PROJECT_STATUSES,
@@ -51,15 +54,22 @@ export const projectUpdateSchema = object({
 export type ProjectUpdateInput = InferType<typeof projectUpdateSchema>;
 
 // Query strings: an empty parameter (`?sort=`) means "not given".
-const blankToUndefined = (value: unknown, original: unknown) => (original === '' ? undefined : value);
+const blankToUndefined = (value: unknown, original: unknown) =>
+  original === '' ? undefined : value;
 
 export const projectListQuerySchema = object({
-  search: string().trim().max(LIMITS.searchMaxLength, `Search has at most ${LIMITS.searchMaxLength} characters.`).default(''),
+  search: string()
+    .trim()
+    .max(LIMITS.searchMaxLength, `Search has at most ${LIMITS.searchMaxLength} characters.`)
+    .default(''),
   sort: string<ProjectSort>()
     .transform(blankToUndefined)
     .oneOf(PROJECT_SORTS, `Sort by one of: ${PROJECT_SORTS.join(', ')}.`)
     .default('updatedAt'),
-  order: string<SortOrder>().transform(blankToUndefined).oneOf(SORT_ORDERS, 'Order is asc or desc.').default('desc'),
+  order: string<SortOrder>()
+    .transform(blankToUndefined)
+    .oneOf(SORT_ORDERS, 'Order is asc or desc.')
+    .default('desc'),
   page: number()
     .transform(blankToUndefined)
     .typeError('Page must be a whole number.')

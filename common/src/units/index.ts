@@ -71,6 +71,7 @@ export function convert(value: number, from: string, to: string): number {
   } catch (e) {
     throw new RangeError(
       `cannot convert ${from} to ${to}: ${e instanceof Error ? e.message : String(e)}`,
+      { cause: e },
     );
   }
 }

@@ -4,7 +4,12 @@ import type { MigrationParams } from '../umzug';
 // Foundation schema: firms, members, projects, invitations, password resets and the
 // rate-limit counters. Enumerations are text + CHECK (easier to extend than PG enum types).
 
-const id = { type: DataTypes.UUID, primaryKey: true, allowNull: false, defaultValue: Sequelize.literal('gen_random_uuid()') };
+const id = {
+  type: DataTypes.UUID,
+  primaryKey: true,
+  allowNull: false,
+  defaultValue: Sequelize.literal('gen_random_uuid()'),
+};
 const timestamps = {
   created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.literal('now()') },
   updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.literal('now()') },
@@ -34,9 +39,13 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
       },
       { transaction },
     );
-    await q(`ALTER TABLE firms ADD CONSTRAINT firms_plan_check CHECK (plan IN ('concept', 'professional', 'firm'))`);
+    await q(
+      `ALTER TABLE firms ADD CONSTRAINT firms_plan_check CHECK (plan IN ('concept', 'professional', 'firm'))`,
+    );
     await q(`ALTER TABLE firms ADD CONSTRAINT firms_seats_check CHECK (seats >= 1)`);
-    await q(`ALTER TABLE firms ADD CONSTRAINT firms_brand_color_check CHECK (brand_color ~ '^#[0-9a-fA-F]{6}$')`);
+    await q(
+      `ALTER TABLE firms ADD CONSTRAINT firms_brand_color_check CHECK (brand_color ~ '^#[0-9a-fA-F]{6}$')`,
+    );
 
     await qi.createTable(
       'users',
@@ -54,9 +63,13 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
       },
       { transaction },
     );
-    await q(`ALTER TABLE users ADD CONSTRAINT users_role_check CHECK (role IN ('owner', 'admin', 'engineer', 'estimator', 'viewer'))`);
+    await q(
+      `ALTER TABLE users ADD CONSTRAINT users_role_check CHECK (role IN ('owner', 'admin', 'engineer', 'estimator', 'viewer'))`,
+    );
     // E-mails are stored lowercased; the check keeps it that way whatever writes the row.
-    await q(`ALTER TABLE users ADD CONSTRAINT users_email_lower_check CHECK (email = lower(email))`);
+    await q(
+      `ALTER TABLE users ADD CONSTRAINT users_email_lower_check CHECK (email = lower(email))`,
+    );
     await q(`CREATE UNIQUE INDEX users_email_unique ON users (email)`);
     await q(`CREATE INDEX users_firm_idx ON users (firm_id)`);
 
@@ -76,10 +89,16 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
       },
       { transaction },
     );
-    await q(`ALTER TABLE projects ADD CONSTRAINT projects_units_check CHECK (units IN ('SI', 'US'))`);
-    await q(`ALTER TABLE projects ADD CONSTRAINT projects_status_check CHECK (status IN ('draft', 'in review', 'issued', 'archived'))`);
+    await q(
+      `ALTER TABLE projects ADD CONSTRAINT projects_units_check CHECK (units IN ('SI', 'US'))`,
+    );
+    await q(
+      `ALTER TABLE projects ADD CONSTRAINT projects_status_check CHECK (status IN ('draft', 'in review', 'issued', 'archived'))`,
+    );
     // The default list: a firm's projects, most recently changed first (keyset-friendly).
-    await q(`CREATE INDEX projects_firm_updated_idx ON projects (firm_id, updated_at DESC, id DESC)`);
+    await q(
+      `CREATE INDEX projects_firm_updated_idx ON projects (firm_id, updated_at DESC, id DESC)`,
+    );
 
     await qi.createTable(
       'invitations',
@@ -96,10 +115,14 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
       },
       { transaction },
     );
-    await q(`ALTER TABLE invitations ADD CONSTRAINT invitations_role_check CHECK (role IN ('admin', 'engineer', 'estimator', 'viewer'))`);
+    await q(
+      `ALTER TABLE invitations ADD CONSTRAINT invitations_role_check CHECK (role IN ('admin', 'engineer', 'estimator', 'viewer'))`,
+    );
     await q(`CREATE UNIQUE INDEX invitations_token_hash_unique ON invitations (token_hash)`);
     // At most one open invitation per address and firm.
-    await q(`CREATE UNIQUE INDEX invitations_open_email_unique ON invitations (firm_id, email) WHERE accepted_at IS NULL`);
+    await q(
+      `CREATE UNIQUE INDEX invitations_open_email_unique ON invitations (firm_id, email) WHERE accepted_at IS NULL`,
+    );
 
     await qi.createTable(
       'password_resets',
@@ -113,7 +136,9 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
       },
       { transaction },
     );
-    await q(`CREATE UNIQUE INDEX password_resets_token_hash_unique ON password_resets (token_hash)`);
+    await q(
+      `CREATE UNIQUE INDEX password_resets_token_hash_unique ON password_resets (token_hash)`,
+    );
     await q(`CREATE INDEX password_resets_user_idx ON password_resets (user_id)`);
 
     // Fixed-window counters shared by every API process (no rate-limit state in memory).
@@ -132,7 +157,14 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
   await qi.sequelize.transaction(async (transaction) => {
-    for (const table of ['rate_limits', 'password_resets', 'invitations', 'projects', 'users', 'firms']) {
+    for (const table of [
+      'rate_limits',
+      'password_resets',
+      'invitations',
+      'projects',
+      'users',
+      'firms',
+    ]) {
       await qi.dropTable(table, { transaction });
     }
   });

@@ -1,5 +1,10 @@
 import type { Request, Response } from 'express';
-import type { ForgotPasswordInput, LoginInput, ResetPasswordInput, SignupInput } from '@basinwright/common';
+import type {
+  ForgotPasswordInput,
+  LoginInput,
+  ResetPasswordInput,
+  SignupInput,
+} from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
 import { presentFirm, presentSession, presentUser } from './auth.presenter';
 import * as auth from './auth.service';

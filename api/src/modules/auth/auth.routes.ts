@@ -1,6 +1,11 @@
 import { Router } from 'express';
-import { forgotPasswordSchema, loginSchema, resetPasswordSchema, signupSchema } from '@basinwright/common';
-import { authenticate, authorize } from '../../middlewares/auth';
+import {
+  forgotPasswordSchema,
+  loginSchema,
+  resetPasswordSchema,
+  signupSchema,
+} from '@basinwright/common';
+import { guard } from '../../middlewares/auth';
 import type { RateLimits } from '../../middlewares/rate-limit';
 import { validate } from '../../middlewares/validate';
 import * as controller from './auth.controller';
@@ -9,9 +14,15 @@ export function authRouter(limits: RateLimits): Router {
   const router = Router();
   router.post('/signup', limits.signupByIp, validate(signupSchema), controller.signup);
   // Per IP before validation (counts every try); per account after, on the normalised e-mail.
-  router.post('/login', limits.loginByIp, validate(loginSchema), limits.loginByAccount, controller.login);
-  router.post('/logout', authenticate, authorize('session.end'), controller.logout);
-  router.get('/me', authenticate, authorize('session.read'), controller.me);
+  router.post(
+    '/login',
+    limits.loginByIp,
+    validate(loginSchema),
+    limits.loginByAccount,
+    controller.login,
+  );
+  router.post('/logout', guard('session.end'), controller.logout);
+  router.get('/me', guard('session.read'), controller.me);
   router.post(
     '/forgot-password',
     limits.forgotByIp,
@@ -19,6 +30,11 @@ export function authRouter(limits: RateLimits): Router {
     limits.forgotByAccount,
     controller.forgotPassword,
   );
-  router.post('/reset-password', limits.tokenByIp, validate(resetPasswordSchema), controller.resetPassword);
+  router.post(
+    '/reset-password',
+    limits.tokenByIp,
+    validate(resetPasswordSchema),
+    controller.resetPassword,
+  );
   return router;
 }

@@ -21,20 +21,29 @@ export interface Session {
 }
 
 const WRONG_CREDENTIALS = 'Incorrect e-mail or password.';
-export const EMAIL_TAKEN = 'An account with this e-mail already exists. Sign in, or reset the password.';
+export const EMAIL_TAKEN =
+  'An account with this e-mail already exists. Sign in, or reset the password.';
 
 /** Creates a firm on the Concept plan and its owner in one transaction, then signs the owner in. */
 export async function signup(input: SignupInput): Promise<Session> {
   const passwordHash = await hashPassword(input.password);
   try {
     const { user, firm } = await sequelize.transaction(async (transaction) => {
-      if ((await User.count({ where: { email: input.email }, transaction })) > 0) throw conflict(EMAIL_TAKEN);
+      if ((await User.count({ where: { email: input.email }, transaction })) > 0)
+        throw conflict(EMAIL_TAKEN);
       const firm = await Firm.create(
         { name: input.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
         { transaction },
       );
       const user = await User.create(
-        { firmId: firm.id, name: input.name, email: input.email, passwordHash, role: 'owner', lastLoginAt: new Date() },
+        {
+          firmId: firm.id,
+          name: input.name,
+          email: input.email,
+          passwordHash,
+          role: 'owner',
+          lastLoginAt: new Date(),
+        },
         { transaction },
       );
       return { user, firm };
@@ -48,9 +57,13 @@ export async function signup(input: SignupInput): Promise<Session> {
 
 /** Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated member. */
 export async function login(input: LoginInput): Promise<Session> {
-  const user = await User.findOne({ where: { email: input.email }, include: [{ model: Firm, as: 'firm' }] });
+  const user = await User.findOne({
+    where: { email: input.email },
+    include: [{ model: Firm, as: 'firm' }],
+  });
   const ok = await verifyPassword(input.password, user?.passwordHash ?? null);
-  if (user === null || !ok || !user.active || user.firm === undefined) throw unauthorized(WRONG_CREDENTIALS);
+  if (user === null || !ok || !user.active || user.firm === undefined)
+    throw unauthorized(WRONG_CREDENTIALS);
   await user.update({ lastLoginAt: new Date() });
   return { token: issueToken(user), user, firm: user.firm };
 }
@@ -71,7 +84,11 @@ export async function forgotPassword(input: ForgotPasswordInput): Promise<void> 
   const user = await User.findOne({ where: { email: input.email, active: true } });
   if (user === null) return;
   const { token, tokenHash } = newEmailToken();
-  await PasswordReset.create({ userId: user.id, tokenHash, expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset) });
+  await PasswordReset.create({
+    userId: user.id,
+    tokenHash,
+    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
+  });
   sendMail(passwordResetMail(user.email, user.name, token)).catch((error: unknown) => {
     logger().error({ err: error }, 'password reset e-mail failed');
   });
@@ -82,7 +99,11 @@ export async function resetPassword(input: ResetPasswordInput): Promise<Session>
   const passwordHash = await hashPassword(input.password);
   const tokenHash = hashEmailToken(input.token);
   const user = await sequelize.transaction(async (transaction) => {
-    const reset = await PasswordReset.findOne({ where: { tokenHash }, lock: transaction.LOCK.UPDATE, transaction });
+    const reset = await PasswordReset.findOne({
+      where: { tokenHash },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
     const now = new Date();
     if (reset === null || reset.usedAt !== null || reset.expiresAt <= now) throw invalidToken();
     const user = await User.findByPk(reset.userId, { lock: transaction.LOCK.UPDATE, transaction });

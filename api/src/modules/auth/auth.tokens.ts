@@ -46,10 +46,16 @@ export function verifyToken(token: string): TokenClaims {
       audience: JWT_AUDIENCE,
     });
   } catch (error) {
-    if (error instanceof jwt.TokenExpiredError) throw unauthorized('Your session has expired. Sign in again.');
+    if (error instanceof jwt.TokenExpiredError)
+      throw unauthorized('Your session has expired. Sign in again.');
     throw unauthorized('Your session is not valid. Sign in again.');
   }
-  if (typeof payload === 'string' || !isUuid(payload.sub) || !isUuid(payload.fid) || !Number.isInteger(payload.tv)) {
+  if (
+    typeof payload === 'string' ||
+    !isUuid(payload.sub) ||
+    !isUuid(payload.fid) ||
+    !Number.isInteger(payload.tv)
+  ) {
     throw unauthorized('Your session is not valid. Sign in again.');
   }
   return { sub: payload.sub, fid: payload.fid, tv: payload.tv as number };

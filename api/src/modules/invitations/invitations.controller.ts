@@ -11,7 +11,10 @@ export async function list(req: Request, res: Response): Promise<void> {
 }
 
 export async function create(req: Request, res: Response): Promise<void> {
-  const invitation = await invitations.createInvitation(authOf(req).user, req.body as InvitationCreateInput);
+  const invitation = await invitations.createInvitation(
+    authOf(req).user,
+    req.body as InvitationCreateInput,
+  );
   res.status(201).json(presentInvitation(invitation));
 }
 

@@ -1,16 +1,21 @@
 import { Router } from 'express';
 import { acceptInvitationSchema, invitationCreateSchema } from '@basinwright/common';
-import { authorize } from '../../middlewares/auth';
+import { guard } from '../../middlewares/auth';
 import type { RateLimits } from '../../middlewares/rate-limit';
 import { validate } from '../../middlewares/validate';
 import * as controller from './invitations.controller';
 
-/** /members/invitations: the firm's side (mounted behind authenticate by membersRouter). */
+/** /members/invitations: the firm's side (each route authenticates itself). */
 export function memberInvitationsRouter(): Router {
   const router = Router();
-  router.get('/', authorize('invitations.list'), controller.list);
-  router.post('/', authorize('invitations.create'), validate(invitationCreateSchema), controller.create);
-  router.delete('/:id', authorize('invitations.revoke'), controller.revoke);
+  router.get('/', guard('invitations.list'), controller.list);
+  router.post(
+    '/',
+    guard('invitations.create'),
+    validate(invitationCreateSchema),
+    controller.create,
+  );
+  router.delete('/:id', guard('invitations.revoke'), controller.revoke);
   return router;
 }
 

@@ -1,4 +1,9 @@
-import { seatLimit, TOKEN_TTL_MS, type AcceptInvitationInput, type InvitationCreateInput } from '@basinwright/common';
+import {
+  seatLimit,
+  TOKEN_TTL_MS,
+  type AcceptInvitationInput,
+  type InvitationCreateInput,
+} from '@basinwright/common';
 import { Op } from 'sequelize';
 import { conflict, invalidToken, notFound, planLimit } from '../../errors';
 import { invitationMail, sendMail } from '../../mail';
@@ -15,7 +20,10 @@ export async function listInvitations(firmId: string): Promise<Invitation[]> {
   return Invitation.findAll({
     where: { firmId, acceptedAt: { [Op.is]: null } },
     include: [invitedBy],
-    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
   });
 }
 
@@ -24,7 +32,10 @@ export async function listInvitations(firmId: string): Promise<Invitation[]> {
  * belong to an account or to another open invitation of the firm. The e-mail is sent inside
  * the transaction: if it cannot be sent, nothing is saved.
  */
-export async function createInvitation(actor: User, input: InvitationCreateInput): Promise<Invitation> {
+export async function createInvitation(
+  actor: User,
+  input: InvitationCreateInput,
+): Promise<Invitation> {
   const { token, tokenHash } = newEmailToken();
   const id = await sequelize.transaction(async (transaction) => {
     const firm = await lockFirm(actor.firmId, transaction);
@@ -36,7 +47,8 @@ export async function createInvitation(actor: User, input: InvitationCreateInput
       transaction,
     });
     if (previous !== null) {
-      if (previous.expiresAt > new Date()) throw conflict('This address already has an open invitation.');
+      if (previous.expiresAt > new Date())
+        throw conflict('This address already has an open invitation.');
       await previous.destroy({ transaction });
     }
     if ((await seatsInUse(firm.id, transaction)) >= seatLimit(firm.plan, firm.seats)) {
@@ -62,18 +74,23 @@ export async function createInvitation(actor: User, input: InvitationCreateInput
 /** Withdraws an invitation not yet accepted. */
 export async function revokeInvitation(firmId: string, invitationId: string): Promise<void> {
   if (!isUuid(invitationId)) throw notFound('No such invitation.');
-  const removed = await Invitation.destroy({ where: { id: invitationId, firmId, acceptedAt: { [Op.is]: null } } });
+  const removed = await Invitation.destroy({
+    where: { id: invitationId, firmId, acceptedAt: { [Op.is]: null } },
+  });
   if (removed === 0) throw notFound('No such invitation.');
 }
 
 async function openInvitation(token: string): Promise<Invitation | null> {
   const invitation = await Invitation.findOne({ where: { tokenHash: hashEmailToken(token) } });
-  if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date()) return null;
+  if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date())
+    return null;
   return invitation;
 }
 
 /** What an open invitation offers; 404 when the token is unknown, used or expired. */
-export async function previewInvitation(token: string): Promise<{ invitation: Invitation; firmName: string }> {
+export async function previewInvitation(
+  token: string,
+): Promise<{ invitation: Invitation; firmName: string }> {
   const invitation = token.length <= 128 ? await openInvitation(token) : null;
   if (invitation === null) throw notFound('This invitation is invalid or has expired.');
   const firm = await Firm.findByPk(invitation.firmId, { rejectOnEmpty: true });
@@ -84,17 +101,24 @@ export async function previewInvitation(token: string): Promise<{ invitation: In
 export async function acceptInvitation(input: AcceptInvitationInput): Promise<Session> {
   const passwordHash = await hashPassword(input.password);
   const tokenHash = hashEmailToken(input.token);
-  const invalid = () => invalidToken('This invitation is invalid or has expired. Ask for a new one.');
+  const invalid = () =>
+    invalidToken('This invitation is invalid or has expired. Ask for a new one.');
   const ids = await sequelize.transaction(async (transaction) => {
     const found = await Invitation.findOne({ where: { tokenHash }, transaction });
     if (found === null) throw invalid();
     // Lock order firm → invitation, as in createInvitation, so the two cannot deadlock.
     const firm = await lockFirm(found.firmId, transaction);
-    const invitation = await Invitation.findByPk(found.id, { lock: transaction.LOCK.UPDATE, transaction });
-    if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date()) throw invalid();
-    if ((await User.count({ where: { email: invitation.email }, transaction })) > 0) throw conflict(EMAIL_TAKEN);
+    const invitation = await Invitation.findByPk(found.id, {
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
+    if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date())
+      throw invalid();
+    if ((await User.count({ where: { email: invitation.email }, transaction })) > 0)
+      throw conflict(EMAIL_TAKEN);
     // The invitation already holds a seat; the plan may have shrunk since it was sent.
-    if ((await seatsInUse(firm.id, transaction)) > seatLimit(firm.plan, firm.seats)) throw planLimit(seatLimitMessage(firm));
+    if ((await seatsInUse(firm.id, transaction)) > seatLimit(firm.plan, firm.seats))
+      throw planLimit(seatLimitMessage(firm));
     const user = await User.create(
       {
         firmId: firm.id,

@@ -9,6 +9,10 @@ export async function list(req: Request, res: Response): Promise<void> {
 }
 
 export async function update(req: Request<{ id: string }>, res: Response): Promise<void> {
-  const member = await members.updateMember(authOf(req).user, req.params.id, req.body as MemberUpdateInput);
+  const member = await members.updateMember(
+    authOf(req).user,
+    req.params.id,
+    req.body as MemberUpdateInput,
+  );
   res.json(presentMember(member));
 }

@@ -34,7 +34,13 @@ export async function lockFirm(firmId: string, transaction: Transaction): Promis
 }
 
 export async function listMembers(firmId: string): Promise<User[]> {
-  return User.findAll({ where: { firmId }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
+  return User.findAll({
+    where: { firmId },
+    order: [
+      ['createdAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+  });
 }
 
 /**
@@ -42,22 +48,38 @@ export async function listMembers(firmId: string): Promise<User[]> {
  * can demote or deactivate the last active owner; nobody can deactivate themselves;
  * reactivating needs a free seat.
  */
-export async function updateMember(actor: User, memberId: string, input: MemberUpdateInput): Promise<User> {
+export async function updateMember(
+  actor: User,
+  memberId: string,
+  input: MemberUpdateInput,
+): Promise<User> {
   if (!isUuid(memberId)) throw notFound('No such member.');
   return sequelize.transaction(async (transaction) => {
     const firm = await lockFirm(actor.firmId, transaction);
-    const member = await User.findOne({ where: { id: memberId, firmId: actor.firmId }, transaction });
+    const member = await User.findOne({
+      where: { id: memberId, firmId: actor.firmId },
+      transaction,
+    });
     if (member === null) throw notFound('No such member.');
 
-    if (actor.role !== 'owner' && member.role === 'owner') throw forbidden('Only an owner can change an owner.');
-    if (actor.role !== 'owner' && input.role === 'owner') throw forbidden('Only an owner can make someone an owner.');
-    if (input.active === false && member.id === actor.id) throw forbidden('You cannot deactivate yourself.');
+    if (actor.role !== 'owner' && member.role === 'owner')
+      throw forbidden('Only an owner can change an owner.');
+    if (actor.role !== 'owner' && input.role === 'owner')
+      throw forbidden('Only an owner can make someone an owner.');
+    if (input.active === false && member.id === actor.id)
+      throw forbidden('You cannot deactivate yourself.');
 
     const losesOwnership =
-      member.role === 'owner' && member.active && ((input.role !== undefined && input.role !== 'owner') || input.active === false);
+      member.role === 'owner' &&
+      member.active &&
+      ((input.role !== undefined && input.role !== 'owner') || input.active === false);
     if (losesOwnership) {
-      const owners = await User.count({ where: { firmId: firm.id, role: 'owner', active: true }, transaction });
-      if (owners <= 1) throw conflict('A firm needs at least one active owner. Make someone else an owner first.');
+      const owners = await User.count({
+        where: { firmId: firm.id, role: 'owner', active: true },
+        transaction,
+      });
+      if (owners <= 1)
+        throw conflict('A firm needs at least one active owner. Make someone else an owner first.');
     }
 
     if (input.active === true && !member.active) {

@@ -6,7 +6,10 @@ import * as projects from './projects.service';
 
 export async function list(req: Request, res: Response): Promise<void> {
   // Cast by validate(projectListQuerySchema, 'query').
-  const page = await projects.listProjects(authOf(req).firm.id, res.locals.query as ProjectListQuery);
+  const page = await projects.listProjects(
+    authOf(req).firm.id,
+    res.locals.query as ProjectListQuery,
+  );
   res.json({ ...page, items: page.items.map(presentProject) });
 }
 
@@ -20,7 +23,11 @@ export async function read(req: Request<{ id: string }>, res: Response): Promise
 }
 
 export async function update(req: Request<{ id: string }>, res: Response): Promise<void> {
-  const project = await projects.updateProject(authOf(req).firm.id, req.params.id, req.body as ProjectUpdateInput);
+  const project = await projects.updateProject(
+    authOf(req).firm.id,
+    req.params.id,
+    req.body as ProjectUpdateInput,
+  );
   res.json(presentProject(project));
 }
 

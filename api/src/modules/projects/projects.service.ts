@@ -52,7 +52,11 @@ export async function listProjects(firmId: string, query: ProjectListQuery): Pro
   if (query.search !== '') {
     const pattern = containsPattern(query.search);
     Object.assign(where, {
-      [Op.or]: [{ name: { [Op.iLike]: pattern } }, { client: { [Op.iLike]: pattern } }, { location: { [Op.iLike]: pattern } }],
+      [Op.or]: [
+        { name: { [Op.iLike]: pattern } },
+        { client: { [Op.iLike]: pattern } },
+        { location: { [Op.iLike]: pattern } },
+      ],
     });
   }
   const { rows, count } = await Project.findAndCountAll({
@@ -79,17 +83,28 @@ export async function createProject(actor: User, input: ProjectCreateInput): Pro
     const firm = await lockFirm(actor.firmId, transaction);
     const max = PLAN_LIMITS[firm.plan as Plan].maxProjects;
     if (max !== null && (await Project.count({ where: { firmId: firm.id }, transaction })) >= max) {
-      throw planLimit(`The Concept plan holds up to ${max} projects. Upgrade, or delete a project first.`);
+      throw planLimit(
+        `The Concept plan holds up to ${max} projects. Upgrade, or delete a project first.`,
+      );
     }
-    const project = await Project.create({ ...input, firmId: firm.id, createdById: actor.id }, { transaction });
+    const project = await Project.create(
+      { ...input, firmId: firm.id, createdById: actor.id },
+      { transaction },
+    );
     return project.id;
   });
   return getProject(actor.firmId, id);
 }
 
-export async function updateProject(firmId: string, id: string, input: ProjectUpdateInput): Promise<Project> {
+export async function updateProject(
+  firmId: string,
+  id: string,
+  input: ProjectUpdateInput,
+): Promise<Project> {
   const project = await getProject(firmId, id);
-  const changes = Object.fromEntries(Object.entries(input).filter(([, value]) => value !== undefined));
+  const changes = Object.fromEntries(
+    Object.entries(input).filter(([, value]) => value !== undefined),
+  );
   await project.update(changes);
   return project;
 }

@@ -40,15 +40,16 @@ export const saf: DissipatorModule = {
     tailwaterFactorTag: '[mem: Blaisdell 1948] C(Fr1) piecewise',
     length: (fr1, _y1, y2, d) => safLength(fr1, y2, d),
     lengthTag: '[mem: Blaisdell 1948] L = 4.5·y2/Fr1^0.76',
-    appurtenances: ({ y1, y2, width, length }) => {
+    appurtenances: ({ y1, y2, width, length, d }) => {
       // [mem: Blaisdell 1948] chute and floor blocks h = y1, width = spacing = 0.75·y1; floor
       // blocks staggered behind the openings, upstream face at L/3; end sill 0.07·y2.
-      const chute = fitBlockRow(width, 0.75 * y1, 0.75 * y1);
-      const floor = staggeredRow(width, chute, 0.75 * y1);
-      const sill = 0.07 * y2;
+      const b = d.safBlockRatio * y1;
+      const chute = fitBlockRow(width, b, b);
+      const floor = staggeredRow(width, chute, b);
+      const sill = d.safSillRatio * y2;
       return {
         chuteBlocks: { ...chute, height: y1, length: 2 * y1 },
-        baffleBlocks: { ...floor, height: y1, length: 0.75 * y1, distanceFromUpstream: length / 3, kind: 'floor-blocks' },
+        baffleBlocks: { ...floor, height: y1, length: b, distanceFromUpstream: d.safFloorBlockPosition * length, kind: 'floor-blocks' },
         endSill: { kind: 'solid', height: sill, upstreamSlope: 1, length: sill },
       };
     },

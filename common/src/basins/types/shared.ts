@@ -12,6 +12,17 @@ export function n3(x: number): string {
   return x.toFixed(2);
 }
 
+/** Two numbers compared in a reason, with enough digits to tell them apart. */
+export function pair(x: number, limit: number): [string, string] {
+  let a = n3(x);
+  let b = n3(limit);
+  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
+    a = x.toFixed(k);
+    b = limit.toFixed(k);
+  }
+  return [a, b];
+}
+
 export function crit(
   criterion: CriterionResult['criterion'],
   status: CriterionResult['status'],
@@ -24,8 +35,8 @@ export function crit(
 /** Froude number inside an inclusive published range: pass; outside: fail. */
 export function froudeInRange(row: DischargeRow, lo: number, hi: number, tag: string): CriterionResult {
   const f = row.fr1;
-  if (f < lo) return crit('froude', 'fail', `Fr1 ${n3(f)} is below the tested range ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
-  if (f > hi) return crit('froude', 'fail', `Fr1 ${n3(f)} is above the tested range ${lo}–${hi} ${tag}`, row.Q);
+  if (f < lo) return crit('froude', 'fail', `Fr1 ${pair(f, lo)[0]} is below the tested range ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
+  if (f > hi) return crit('froude', 'fail', `Fr1 ${pair(f, hi)[0]} is above the tested range ${lo}–${hi} ${tag}`, row.Q);
   return crit('froude', 'pass', `Fr1 ${n3(f)} is within ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
 }
 

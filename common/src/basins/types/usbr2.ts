@@ -28,8 +28,8 @@ export const usbr2: DissipatorModule = {
       // [mem: EM-25] chute blocks h = w = s = y1, half space at walls; dentated sill h = 0.2·y2,
       // teeth and gaps 0.15·y2, upstream slope 2:1.
       const row = fitBlockRow(width, y1, y1);
-      const sillH = 0.2 * y2;
-      const teeth = fitBlockRow(width, 0.15 * y2, 0.15 * y2);
+      const sillH = d.type2SillHeightRatio * y2;
+      const teeth = fitBlockRow(width, d.type2ToothRatio * y2, d.type2ToothRatio * y2);
       return {
         chuteBlocks: { ...row, height: y1, length: d.chuteBlockLengthRatio * y1 },
         endSill: {
@@ -37,7 +37,7 @@ export const usbr2: DissipatorModule = {
           height: sillH,
           upstreamSlope: 2,
           length: 2 * sillH + 0.02 * y2,
-          teeth: { count: teeth.count, width: teeth.width, spacing: teeth.spacing, wallSpace: teeth.wallSpace, centres: teeth.centres },
+          teeth: { count: teeth.count, width: teeth.width, spacing: teeth.spacing, wallSpace: teeth.wallSpace, centres: teeth.centres, ...(teeth.narrow ? { narrow: true } : {}) },
         },
       };
     },

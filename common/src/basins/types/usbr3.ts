@@ -3,7 +3,7 @@
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit } from './shared';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit, pair } from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -49,7 +49,7 @@ export const usbr3: DissipatorModule = {
           // top 0.2·h3 and a 1:1 downstream face [mem: EM-25]
           topLength: 0.2 * h3,
           length: 1.2 * h3,
-          distanceFromUpstream: 0.8 * y2,
+          distanceFromUpstream: d.type3PierDistanceRatio * y2,
           kind: 'baffle-piers',
         },
         endSill: { kind: 'solid', height: h4, upstreamSlope: 2, length: 2 * h4 },
@@ -68,8 +68,8 @@ export const usbr3: DissipatorModule = {
       v <= d.type3VelocityWarn
         ? crit('velocity', 'pass', `V1 ${n3(v)} m/s ≤ ${n3(d.type3VelocityWarn)} m/s ${TAG}`, row.Q)
         : v <= d.type3VelocityFail
-          ? crit('velocity', 'warn', `V1 ${n3(v)} m/s is above ${n3(d.type3VelocityWarn)} m/s: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
-          : crit('velocity', 'fail', `V1 ${n3(v)} m/s is above ${n3(d.type3VelocityFail)} m/s: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
+          ? crit('velocity', 'warn', `V1 ${pair(v, d.type3VelocityWarn)[0]} m/s is above ${pair(v, d.type3VelocityWarn)[1]} m/s: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
+          : crit('velocity', 'fail', `V1 ${pair(v, d.type3VelocityFail)[0]} m/s is above ${pair(v, d.type3VelocityFail)[1]} m/s: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
     return [
       froudeInRange(row, 4.5, 17, TAG),
       velocity,

@@ -25,10 +25,11 @@ export const usbr4: DissipatorModule = {
     lengthTag: '[mem: EM-25] L ≈ length of the free jump (USBR curve)',
     appurtenances: ({ y1, width, d }) => {
       // [mem: EM-25] deflector blocks h = 2·y1, width ≤ y1 (y1 used), spaces 2.5 × width.
-      const row = fitBlockRow(width, y1, 2.5 * y1);
+      const row = fitBlockRow(width, y1, d.type4DeflectorSpacingRatio * y1);
       const sill = d.type4SillHeightRatio * y1;
+      const h = d.type4DeflectorHeightRatio * y1;
       return {
-        chuteBlocks: { ...row, height: 2 * y1, length: d.chuteBlockLengthRatio * 2 * y1 },
+        chuteBlocks: { ...row, height: h, length: d.chuteBlockLengthRatio * h },
         endSill: { kind: 'solid', height: sill, upstreamSlope: 2, length: 2 * sill },
       };
     },

@@ -3,7 +3,7 @@ import { G } from '../../units/constants';
 import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, designRow, n3 } from './shared';
+import { crit, debrisCriterion, designRow, n3, pair } from './shared';
 
 const TAG = '[src: HEC-14 (2006) §9.4]';
 
@@ -101,10 +101,10 @@ export const usbr6: DissipatorModule = {
     const out = [
       row.Q <= d.type6MaxDischarge
         ? crit('discharge', 'pass', `Q ${n3(row.Q)} m³/s ≤ ${n3(d.type6MaxDischarge)} m³/s ${TAG}`, row.Q)
-        : crit('discharge', 'fail', `Q ${n3(row.Q)} m³/s exceeds the ${n3(d.type6MaxDischarge)} m³/s of the type ${TAG}`, row.Q),
+        : crit('discharge', 'fail', `Q ${pair(row.Q, d.type6MaxDischarge)[0]} m³/s exceeds the ${pair(row.Q, d.type6MaxDischarge)[1]} m³/s of the type ${TAG}`, row.Q),
       row.v1 <= d.type6MaxVelocity
         ? crit('velocity', 'pass', `V ${n3(row.v1)} m/s ≤ ${n3(d.type6MaxVelocity)} m/s ${TAG}`, row.Q)
-        : crit('velocity', 'fail', `V ${n3(row.v1)} m/s exceeds ${n3(d.type6MaxVelocity)} m/s ${TAG}`, row.Q),
+        : crit('velocity', 'fail', `V ${pair(row.v1, d.type6MaxVelocity)[0]} m/s exceeds ${pair(row.v1, d.type6MaxVelocity)[1]} m/s ${TAG}`, row.Q),
     ];
     const dr = designRow(rows) ?? row;
     const size = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);

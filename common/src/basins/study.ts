@@ -1,0 +1,215 @@
+// The dissipator part of a study: per candidate type, the floor solved with that type's
+// tailwater factor, the rows over the range, the screening, the designs and their drawings.
+import { analyseRange, solveFloorElevation, type StudyInput, type StudyRow } from '../study';
+import { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, isJumpBasinType } from './catalogue';
+import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
+import {
+  designBaffledApron,
+  designImpactBasin,
+  designJumpBasin,
+  designRiprapApron,
+  type DesignOptions,
+  type DesignRow,
+  type DissipatorDesign,
+} from './design';
+import { buildBasinDrawing, type Drawing, type DrawingOptions } from './drawing';
+import { screenDissipators, type TypeScreening, type Verdict } from './screening';
+import type { DebrisLevel, DissipatorTypeId, JumpBasinType, ScreeningContext } from './types';
+
+/** What the user may set for the dissipator part of a study (all optional). */
+export interface DissipatorStudyOptions extends DesignOptions {
+  debris?: DebrisLevel;
+  /** the culvert at the outlet when the study input does not describe it */
+  culvert?: ScreeningContext['culvert'];
+  /** the type to design instead of the recommended one */
+  chosenType?: DissipatorTypeId;
+  /** further types to design as alternatives whatever their verdict */
+  alternatives?: DissipatorTypeId[];
+  drawing?: DrawingOptions;
+}
+
+/** One designed type: its verdict, the design and its drawing. */
+export interface DesignEntry {
+  type: DissipatorTypeId;
+  verdict: Verdict;
+  design: DissipatorDesign;
+  drawing: Drawing;
+}
+
+export interface DissipatorStudyResult {
+  /** every type, in rank order, with its criteria and reasons */
+  screening: TypeScreening[];
+  /** the best-ranked usable type, or null when none (then see the specialist types) */
+  recommended: DissipatorTypeId | null;
+  /** the type designed as `design` (the user's choice, else the recommended one) */
+  chosen: DissipatorTypeId | null;
+  design: DesignEntry | null;
+  alternatives: DesignEntry[];
+  /** floor solved per jump-basin type, m, with the governing discharge */
+  floors: Partial<Record<JumpBasinType, { elevation: number; governingQ: number | null; depthBelowBed: number }>>;
+  context: ScreeningContext;
+  /** every default in force (from memory, common practice, sources) */
+  assumptions: Assumption[];
+  notes: string[];
+}
+
+function toRow(r: StudyRow): DesignRow {
+  const row: DesignRow = {
+    Q: r.Q,
+    q: r.q,
+    y1: r.y1,
+    v1: r.v1,
+    fr1: r.fr1,
+    y2: r.y2,
+    tailwaterDepth: r.tailwaterDepth,
+    tailwaterElevation: r.tailwaterElevation,
+  };
+  if (r.H0 !== null) row.head = r.H0;
+  return row;
+}
+
+/** The screening context from the study input and the user's options. */
+export function screeningContext(input: StudyInput, opts: DissipatorStudyOptions = {}): ScreeningContext {
+  const inflow = input.inflow;
+  let culvert = opts.culvert;
+  if (!culvert && inflow.kind === 'pipe' && inflow.outlet.kind === 'barrel') {
+    const s = inflow.outlet.section;
+    if (s.shape === 'circular') culvert = { shape: 'circular', rise: s.diameter };
+  }
+  const ctx: ScreeningContext = { inflow: inflow.kind, width: input.basinWidth };
+  if (opts.debris) ctx.debris = opts.debris;
+  if (culvert) ctx.culvert = culvert;
+  return ctx;
+}
+
+function outletWidth(input: StudyInput): number | undefined {
+  const inflow = input.inflow;
+  if (inflow.kind !== 'pipe' || inflow.outlet.kind !== 'barrel') return undefined;
+  const s = inflow.outlet.section;
+  return s.shape === 'circular' ? s.diameter : s.shape === 'rectangular' ? s.width : s.bottomWidth;
+}
+
+/**
+ * Screens every catalogue type for a study, recommends one, designs it and the usable
+ * alternatives (each jump basin on its own floor, solved with its tailwater factor over the
+ * whole range) and draws them. Pure; SI.
+ */
+export function designDissipators(input: StudyInput, opts: DissipatorStudyOptions = {}): DissipatorStudyResult {
+  const d: BasinDefaults = resolveDefaults(opts.defaults);
+  const ctx = screeningContext(input, opts);
+  const notes: string[] = [];
+  const extra = opts.extraFloorDepth ?? 0;
+  if (!(Number.isFinite(extra) && extra >= 0)) throw new RangeError(`extraFloorDepth must be a non-negative number (got ${extra})`);
+  const fixedFloor = input.floorElevation;
+  const bed = input.channelBedElevation;
+
+  // Rows at the natural level (for the types that need no floor solve).
+  const naturalFloor = input.inflow.kind === 'pipe' ? input.inflow.invertElevation : bed;
+  const bedRows = analyseRange(input, fixedFloor ?? naturalFloor, 1).map(toRow);
+
+  const rowsByType: Partial<Record<DissipatorTypeId, DesignRow[]>> = {};
+  const floors: DissipatorStudyResult['floors'] = {};
+  const designs: Partial<Record<DissipatorTypeId, DissipatorDesign>> = {};
+  for (const type of JUMP_BASIN_TYPES) {
+    const rules = DISSIPATOR_CATALOGUE.find((m) => m.id === type)!.jump!;
+    const factor = (r: { fr1: number }): number => rules.tailwaterFactor(r.fr1, d);
+    try {
+      let floor: number;
+      let governingQ: number | null = null;
+      if (fixedFloor !== undefined) floor = fixedFloor;
+      else {
+        const sol = solveFloorElevation(input, factor);
+        floor = sol.elevation - extra;
+        governingQ = sol.governingQ;
+      }
+      const rows = analyseRange(input, floor, factor).map(toRow);
+      rowsByType[type] = rows;
+      floors[type] = { elevation: floor, governingQ, depthBelowBed: Math.max(0, bed - floor) };
+      const inflowWidth = outletWidth(input);
+      designs[type] = designJumpBasin(
+        {
+          type,
+          width: input.basinWidth,
+          floorElevation: floor,
+          channelBedElevation: bed,
+          designQ: input.designDischarge,
+          governingQ,
+          rows,
+          ...(inflowWidth !== undefined ? { inflowWidth } : {}),
+        },
+        opts,
+      );
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      notes.push(`${type}: no floor or design found (${e.message})`);
+    }
+  }
+
+  // Types with their own rules, where the study describes what they need.
+  try {
+    designs['usbr-6'] = designImpactBasin({ floorElevation: naturalFloor, channelBedElevation: bed, designQ: input.designDischarge, rows: bedRows }, opts);
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    notes.push(`usbr-6: not sized (${e.message})`);
+  }
+  if (input.inflow.kind === 'chute') {
+    try {
+      designs['usbr-9'] = designBaffledApron({ crestElevation: input.inflow.crestElevation, channelBedElevation: bed, width: input.basinWidth, designQ: input.designDischarge }, opts);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      notes.push(`usbr-9: not sized (${e.message})`);
+    }
+  }
+  if (ctx.culvert) {
+    const dr = bedRows.reduce((a, r) => (Math.abs(r.Q - input.designDischarge) < Math.abs(a.Q - input.designDischarge) ? r : a));
+    designs['riprap-apron'] = designRiprapApron({ invertElevation: naturalFloor, designQ: dr.Q, culvert: ctx.culvert, tailwaterElevation: dr.tailwaterElevation }, opts);
+  }
+
+  const measures: Partial<Record<DissipatorTypeId, { length?: number; concreteVolume?: number }>> = {};
+  for (const [id, des] of Object.entries(designs) as Array<[DissipatorTypeId, DissipatorDesign]>) {
+    measures[id] = { length: des.length, concreteVolume: des.concrete.total };
+  }
+  const screening = screenDissipators({ rows: bedRows, rowsByType, context: ctx, defaults: d, measures });
+  const recommended = screening.find((s) => s.verdict === 'recommended')?.type ?? null;
+  if (!recommended) {
+    const sp = screening.filter((s) => s.verdict === 'specialist').map((s) => s.name);
+    notes.push(
+      sp.length > 0
+        ? `No standard basin suits the whole range; ${sp.join(' or ')} is the likely answer: a specialist study is needed.`
+        : 'No catalogue type suits the whole range: change the width, the floor or the range, or seek a specialist design.',
+    );
+  }
+  if (screening.some((s) => s.verdict === 'specialist') && recommended) {
+    notes.push('A jet structure is also indicated (see the specialist types): compare with a specialist study.');
+  }
+  const chosen = opts.chosenType ?? recommended;
+  const entry = (type: DissipatorTypeId): DesignEntry | null => {
+    const des = designs[type];
+    const s = screening.find((x) => x.type === type);
+    if (!des || !s) return null;
+    return { type, verdict: s.verdict, design: des, drawing: buildBasinDrawing(des, opts.drawing) };
+  };
+  let design: DesignEntry | null = null;
+  if (chosen) {
+    design = entry(chosen);
+    if (!design) notes.push(`${chosen}: cannot be designed from this study (not sized, or its inputs are missing)`);
+  }
+  const altIds = new Set<DissipatorTypeId>([
+    ...screening.filter((s) => (s.verdict === 'suitable' || s.verdict === 'marginal' || s.verdict === 'recommended') && s.type !== chosen).map((s) => s.type),
+    ...(opts.alternatives ?? []).filter((t) => t !== chosen),
+  ]);
+  const alternatives = [...altIds].map(entry).filter((x): x is DesignEntry => x !== null);
+  return {
+    screening,
+    recommended,
+    chosen,
+    design,
+    alternatives,
+    floors,
+    context: ctx,
+    assumptions: listAssumptions(d),
+    notes,
+  };
+}
+
+export { isJumpBasinType };

@@ -1,0 +1,64 @@
+// Engine benchmark (not a test): time per runStudy at 200 and 800 discharges on the demo
+// scenario (product.md, invented) and their ratio; the target ratio is ≤ 4.4 (near-linear).
+// The two sizes are run in alternation and the median taken, so background load on the
+// machine affects both alike; CPU time of this process is reported beside wall time.
+// Run: node --import tsx --conditions=@basinwright/source scripts/bench-engine.ts
+import { runStudy, type StudyInput } from '@basinwright/common';
+
+const demo = (count: number): StudyInput => ({
+  units: 'SI',
+  channelBedElevation: 90,
+  basinWidth: 12,
+  designDischarge: 85,
+  discharges: { kind: 'range', min: 5, max: 85, count },
+  tailwater: {
+    kind: 'manning',
+    section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 },
+    slope: 0.0015,
+    manningN: 0.03,
+  },
+  inflow: {
+    kind: 'chute',
+    crestElevation: 102,
+    headwater: { kind: 'weir', C: 2.15, L: 12 },
+    lossModel: { kind: 'fraction', value: 0.1 },
+  },
+});
+
+function once(input: StudyInput): { wall: number; cpu: number } {
+  const c0 = process.cpuUsage();
+  const t0 = performance.now();
+  runStudy(input);
+  const wall = performance.now() - t0;
+  const c = process.cpuUsage(c0);
+  return { wall, cpu: (c.user + c.system) / 1000 };
+}
+
+const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)]!;
+};
+
+const small = demo(200);
+const large = demo(800);
+for (let i = 0; i < 5; i++) {
+  runStudy(small); // warm up the JIT on both sizes
+  runStudy(large);
+}
+const rounds = Number(process.env.BENCH_ROUNDS ?? 15);
+const s: Array<{ wall: number; cpu: number }> = [];
+const l: Array<{ wall: number; cpu: number }> = [];
+for (let i = 0; i < rounds; i++) {
+  s.push(once(small), once(small), once(small), once(small));
+  l.push(once(large));
+}
+const w200 = median(s.map((x) => x.wall));
+const w800 = median(l.map((x) => x.wall));
+const c200 = median(s.map((x) => x.cpu));
+const c800 = median(l.map((x) => x.cpu));
+console.log(`runStudy, 200 discharges: ${w200.toFixed(2)} ms per run (CPU ${c200.toFixed(2)} ms)`);
+console.log(`runStudy, 800 discharges: ${w800.toFixed(2)} ms per run (CPU ${c800.toFixed(2)} ms)`);
+const ratio = w800 / w200;
+console.log(
+  `ratio 800/200: ${ratio.toFixed(2)} wall, ${(c800 / c200).toFixed(2)} CPU (target ≤ 4.4) ${ratio <= 4.4 ? 'OK' : 'OVER TARGET'}`,
+);

@@ -1,0 +1,224 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ACTIONS, POLICY, ROLES, TOKEN_TTL_MS, type Action, type Role } from '@basinwright/common';
+import openapi from '../../api/src/openapi.json' with { type: 'json' };
+import {
+  addMember,
+  bearer,
+  setPlan,
+  signUpFirm,
+  startApi,
+  uniqueEmail,
+  type ApiHarness,
+} from '../support/api-app';
+
+let h: ApiHarness;
+let firmId = '';
+let ownerId = '';
+
+beforeAll(async () => {
+  h = await startApi();
+  const firm = await signUpFirm(h, 'matrix');
+  firmId = firm.firm.id;
+  ownerId = firm.user.id;
+  await setPlan(h, firmId, 'firm', 1000);
+});
+afterAll(async () => {
+  await h.close();
+});
+
+type Method = 'get' | 'post' | 'patch' | 'delete';
+
+interface RouteCase {
+  action: Action;
+  method: Method;
+  /** OpenAPI path template under /api/v1. */
+  path: string;
+  /** Prepares what the request needs; returns the concrete path, body and a check of the side effect. */
+  prepare(): Promise<{ url: string; body?: object; changed?: () => Promise<boolean> }>;
+  success: number;
+}
+
+async function newProject(name = 'Matrix project') {
+  return h.models.Project.create({ firmId, name, units: 'SI', createdById: ownerId });
+}
+
+/** Every authenticated route, with the policy action that guards it. */
+const routes: RouteCase[] = [
+  {
+    action: 'session.read',
+    method: 'get',
+    path: '/auth/me',
+    success: 200,
+    prepare: async () => ({ url: '/auth/me' }),
+  },
+  {
+    action: 'session.end',
+    method: 'post',
+    path: '/auth/logout',
+    success: 204,
+    prepare: async () => ({ url: '/auth/logout' }),
+  },
+  {
+    action: 'members.list',
+    method: 'get',
+    path: '/members',
+    success: 200,
+    prepare: async () => ({ url: '/members' }),
+  },
+  {
+    action: 'members.update',
+    method: 'patch',
+    path: '/members/{id}',
+    success: 200,
+    prepare: async () => {
+      const target = await addMember(h, firmId, 'viewer');
+      return {
+        url: `/members/${target.id}`,
+        body: { role: 'estimator' },
+        changed: async () => (await h.models.User.findByPk(target.id))?.role === 'estimator',
+      };
+    },
+  },
+  {
+    action: 'invitations.list',
+    method: 'get',
+    path: '/members/invitations',
+    success: 200,
+    prepare: async () => ({ url: '/members/invitations' }),
+  },
+  {
+    action: 'invitations.create',
+    method: 'post',
+    path: '/members/invitations',
+    success: 201,
+    prepare: async () => {
+      const email = uniqueEmail('matrix-invitee');
+      return {
+        url: '/members/invitations',
+        body: { email, role: 'viewer' },
+        changed: async () => (await h.models.Invitation.count({ where: { email } })) > 0,
+      };
+    },
+  },
+  {
+    action: 'invitations.revoke',
+    method: 'delete',
+    path: '/members/invitations/{id}',
+    success: 204,
+    prepare: async () => {
+      const invitation = await h.models.Invitation.create({
+        firmId,
+        email: uniqueEmail('matrix-revoke'),
+        role: 'viewer',
+        tokenHash: uniqueEmail('hash').padEnd(64, 'x').slice(0, 64),
+        expiresAt: new Date(Date.now() + TOKEN_TTL_MS.invitation),
+        invitedById: ownerId,
+      });
+      return {
+        url: `/members/invitations/${invitation.id}`,
+        changed: async () => (await h.models.Invitation.findByPk(invitation.id)) === null,
+      };
+    },
+  },
+  {
+    action: 'projects.list',
+    method: 'get',
+    path: '/projects',
+    success: 200,
+    prepare: async () => ({ url: '/projects' }),
+  },
+  {
+    action: 'projects.create',
+    method: 'post',
+    path: '/projects',
+    success: 201,
+    prepare: async () => {
+      const name = `Created ${uniqueEmail('p')}`;
+      return {
+        url: '/projects',
+        body: { name, units: 'US' },
+        changed: async () => (await h.models.Project.count({ where: { firmId, name } })) > 0,
+      };
+    },
+  },
+  {
+    action: 'projects.read',
+    method: 'get',
+    path: '/projects/{id}',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${(await newProject()).id}` }),
+  },
+  {
+    action: 'projects.update',
+    method: 'patch',
+    path: '/projects/{id}',
+    success: 200,
+    prepare: async () => {
+      const project = await newProject();
+      return {
+        url: `/projects/${project.id}`,
+        body: { status: 'issued' },
+        changed: async () => (await h.models.Project.findByPk(project.id))?.status === 'issued',
+      };
+    },
+  },
+  {
+    action: 'projects.delete',
+    method: 'delete',
+    path: '/projects/{id}',
+    success: 204,
+    prepare: async () => {
+      const project = await newProject();
+      return {
+        url: `/projects/${project.id}`,
+        changed: async () => (await h.models.Project.findByPk(project.id)) === null,
+      };
+    },
+  },
+];
+
+describe('the route table covers every guarded route', () => {
+  it('has one case per policy action', () => {
+    expect(routes.map((r) => r.action).sort()).toEqual([...ACTIONS].sort());
+  });
+
+  it('has one case per bearer-secured operation in openapi.json (engine routes aside)', () => {
+    const secured: string[] = [];
+    for (const [path, item] of Object.entries(
+      openapi.paths as Record<string, Record<string, { security?: unknown[] }>>,
+    )) {
+      if (path.startsWith('/calc')) continue;
+      for (const [method, op] of Object.entries(item))
+        if (op.security !== undefined) secured.push(`${method} ${path}`);
+    }
+    expect(routes.map((r) => `${r.method} ${r.path}`).sort()).toEqual(secured.sort());
+  });
+});
+
+describe.each(routes)('$method $path ($action)', (route) => {
+  it('without a token: 401', async () => {
+    const { url, body } = await route.prepare();
+    const agent = h.http();
+    const res = await agent[route.method](`/api/v1${url}`).send(body ?? {});
+    expect(res.status).toBe(401);
+    expect(res.body.code).toBe('unauthorized');
+  });
+
+  it.each(ROLES)('as %s: allowed only if the policy says so', async (role: Role) => {
+    const member = await addMember(h, firmId, role);
+    const { url, body, changed } = await route.prepare();
+    const agent = h.http();
+    const res = await agent[route.method](`/api/v1${url}`)
+      .set(bearer(member.token))
+      .send(body ?? {});
+    const allowed = (POLICY[route.action] as readonly Role[]).includes(role);
+    if (allowed) {
+      expect(res.status, JSON.stringify(res.body)).toBe(route.success);
+      if (changed !== undefined) expect(await changed()).toBe(true);
+    } else {
+      expect(res.status).toBe(403);
+      expect(res.body).toEqual({ code: 'forbidden', message: 'Your role does not allow this.' });
+      if (changed !== undefined) expect(await changed()).toBe(false);
+    }
+  });
+});

@@ -1,0 +1,88 @@
+// Unit conversions against the standard factors (NIST SP 811: 1 ft = 0.3048 m exactly;
+// 1 lb = 0.45359237 kg exactly; g_n = 9.80665 m/s² exactly) and hydraulics.md §6.
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import {
+  G,
+  UNITS,
+  convert,
+  fromSIValue,
+  inputFromSI,
+  toSI,
+  toSIValue,
+  type StudyInput,
+} from '@basinwright/common';
+import { create, all } from 'mathjs';
+import { expectRel } from '../support/tolerance';
+
+describe('units', () => {
+  it('1 cfs = 0.028316846592 m³/s; 1 ft = 0.3048 m; 1 yd³ = 0.764554858 m³ [standard, hydraulics.md §6]', () => {
+    expectRel(convert(1, 'cfs', 'm^3/s'), 0.028316846592, 1e-12);
+    expectRel(convert(1, 'ft', 'm'), 0.3048, 1e-15);
+    expectRel(convert(1, 'yd^3', 'm^3'), 0.764554858, 1e-9);
+  });
+  it('ft/s, ft²/s, lb (force and mass), psi [standard: NIST SP 811]', () => {
+    expectRel(toSIValue(1, 'velocity', 'US'), 0.3048, 1e-15);
+    expectRel(toSIValue(1, 'unitDischarge', 'US'), 0.3048 ** 2, 1e-15);
+    expectRel(toSIValue(1, 'mass', 'US'), 0.45359237, 1e-15);
+    expectRel(toSIValue(1, 'force', 'US'), 0.45359237 * 9.80665, 1e-12);
+    expectRel(toSIValue(1, 'pressure', 'US'), (0.45359237 * 9.80665) / 0.0254 ** 2, 1e-9); // mathjs's psi constant agrees to 6e-11
+    expectRel(toSIValue(1, 'earthwork', 'US'), 0.9144 ** 3, 1e-12);
+    expect(UNITS.discharge.US).toBe('cfs');
+    expect(G).toBe(9.80665);
+  });
+  it('weir coefficient: C_US = C_SI/√0.3048, so the SI demo C 2.15 is about 3.89 in ft units (common practice)', () => {
+    expectRel(fromSIValue(2.15, 'weirCoefficient', 'US'), 2.15 / Math.sqrt(0.3048), 1e-12);
+  });
+  it('the private mathjs instance leaves the global one without cfs', () => {
+    const other = create(all!, {});
+    expect(() => other.unit(1, 'cfs')).toThrow();
+  });
+  it('round trip SI → US → SI returns every number (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-6, max: 1e6, noNaN: true }), (v) => {
+        for (const k of Object.keys(UNITS) as Array<keyof typeof UNITS>) {
+          expectRel(toSIValue(fromSIValue(v, k, 'US'), k, 'US'), v, 1e-12);
+        }
+      }),
+    );
+  });
+  it('toSI converts a whole StudyInput by field, leaving n, slopes and coefficients alone', () => {
+    const us: StudyInput = {
+      units: 'US',
+      channelBedElevation: 100,
+      basinWidth: 20,
+      designDischarge: 420,
+      discharges: { kind: 'range', min: 50, max: 420, count: 5 },
+      tailwater: {
+        kind: 'table',
+        rows: [
+          { Q: 50, elevation: 101 },
+          { Q: 420, elevation: 104 },
+        ],
+      },
+      inflow: { kind: 'gate', Cc: 0.61, opening: 1.5 },
+      tailwaterFactor: 1.1,
+    };
+    const si = toSI(us);
+    expect(si.units).toBe('US'); // the user's presentation units are kept
+    expectRel(si.channelBedElevation, 30.48, 1e-12);
+    expectRel(si.designDischarge, 420 * 0.028316846592, 1e-12);
+    if (
+      si.discharges.kind !== 'range' ||
+      si.tailwater.kind !== 'table' ||
+      si.inflow.kind !== 'gate'
+    )
+      throw new Error('shape changed');
+    expectRel(si.discharges.min, 50 * 0.028316846592, 1e-12);
+    expectRel(si.discharges.max, 420 * 0.028316846592, 1e-12);
+    expect(si.discharges.count).toBe(5);
+    expectRel(si.tailwater.rows[1]!.elevation, 104 * 0.3048, 1e-12);
+    expectRel(si.inflow.opening!, 1.5 * 0.3048, 1e-12);
+    expect(si.inflow.Cc).toBe(0.61);
+    expect(si.tailwaterFactor).toBe(1.1);
+    const back = inputFromSI(si, 'US');
+    expectRel(back.basinWidth, 20, 1e-12);
+    expect(toSI({ ...us, units: 'SI' })).toEqual({ ...us, units: 'SI' });
+  });
+});
