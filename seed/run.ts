@@ -3,6 +3,7 @@
 //   node --import tsx --conditions=@basinwright/source seed/run.ts
 import { ConfigError, getConfig } from '../api/src/config/env';
 import { DEMO_PASSWORD, demoFirm, demoProjects, demoUsers } from './demo';
+import { demoDesigns } from './designs';
 
 async function main(): Promise<number> {
   try {
@@ -11,7 +12,7 @@ async function main(): Promise<number> {
     console.error(`seed: ${error instanceof ConfigError ? error.message : String(error)}`);
     return 1;
   }
-  const { Firm, Project, sequelize, User } = await import('../api/src/models');
+  const { Design, Firm, Project, sequelize, User } = await import('../api/src/models');
   const { hashPassword } = await import('../api/src/security');
   const added: string[] = [];
   try {
@@ -63,6 +64,26 @@ async function main(): Promise<number> {
           { transaction },
         );
         added.push(`project "${demo.name}"`);
+      }
+      for (const demo of demoDesigns) {
+        const project = await Project.findOne({
+          where: { firmId: firm.id, name: demo.projectName },
+          transaction,
+        });
+        if (project === null) continue;
+        const found = await Design.findOne({ where: { projectId: project.id }, transaction });
+        if (found !== null) continue;
+        await Design.create(
+          {
+            firmId: firm.id,
+            projectId: project.id,
+            input: demo.input,
+            options: null,
+            updatedById: project.createdById,
+          },
+          { transaction },
+        );
+        added.push(`design of "${demo.projectName}"`);
       }
     });
     if (added.length === 0) console.log('seed: demo data already present, nothing to add');

@@ -12,6 +12,7 @@ import { healthRouter } from './modules/health/health.routes';
 import { invitationsRouter } from './modules/invitations/invitations.routes';
 import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
+import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
@@ -65,6 +66,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/auth', authRouter(limits));
   api.use('/invitations', invitationsRouter(limits));
   api.use('/members', membersRouter());
+  api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
 
   // engine routes

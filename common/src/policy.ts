@@ -17,6 +17,8 @@ export const POLICY = {
   'projects.create': ['owner', 'admin', 'engineer'],
   'projects.update': ['owner', 'admin', 'engineer'],
   'projects.delete': ['owner', 'admin', 'engineer'],
+  'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'designs.write': ['owner', 'admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -17,6 +17,7 @@ import {
   jetFlareTangent,
   outletFlow,
   toeFromHead,
+  _toeDepthOrNegative,
   toeFromKnown,
   validateLossModel,
   weirHead,
@@ -25,7 +26,7 @@ import {
   type ToeConditions,
 } from './hydraulics/inflow';
 import { createMonotoneInterpolant, type Interpolant } from './hydraulics/interpolate';
-import { jumpToeDistance } from './hydraulics/profiles';
+import { _directStepDistance } from './hydraulics/profiles';
 import { validateSection, type Section } from './hydraulics/sections';
 import { makeTailwaterRating, type TailwaterAt, type TailwaterSpec } from './hydraulics/tailwater';
 import { jumpDiagrams, type JumpDiagrams } from './hydraulics/diagrams';
@@ -186,7 +187,10 @@ export interface StudyResult {
   /** the other usable types, designed */
   alternatives: DesignEntry[];
   /** the rest of the dissipator result: floors per type, context, assumptions, notes */
-  dissipators: Omit<DissipatorStudyResult, 'screening' | 'design' | 'alternatives' | 'recommended'> | null;
+  dissipators: Omit<
+    DissipatorStudyResult,
+    'screening' | 'design' | 'alternatives' | 'recommended'
+  > | null;
 }
 
 /** The cautions carried by every result (product.md; hydraulics.md §7). */
@@ -241,6 +245,8 @@ interface Toe extends ToeConditions {
 
 interface Prepared {
   input: StudyInput;
+  /** fast y1 for the floor search, −1 when the head cannot pass the flow (chute, pipe) */
+  y1At: ((Q: number, index: number, floor: number) => number) | null;
   Qs: number[];
   tw: TailwaterAt[];
   basin: Section;
@@ -300,6 +306,7 @@ function prepare(input: StudyInput): Prepared {
   const inflow = input.inflow;
   if (!inflow || typeof inflow !== 'object') throw new RangeError('inflow must be given');
   let toeAt: Prepared['toeAt'];
+  let y1At: Prepared['y1At'] = null;
   switch (inflow.kind) {
     case 'chute': {
       requireFinite('inflow.crestElevation', inflow.crestElevation);
@@ -331,6 +338,8 @@ function prepare(input: StudyInput): Prepared {
       } else throw new RangeError(`inflow.headwater.kind must be 'weir' or 'table'`);
       const hws = Qs.map((Q) => headwater(Q));
       const hwD = headwater(Qd);
+      y1At = (Q, i, z) =>
+        _toeDepthOrNegative(Q / b, (i >= 0 ? hws[i]! : hwD) + hv - z, inflow.lossModel);
       toeAt = (Q, i, z) => {
         const H0 = (i >= 0 ? hws[i]! : hwD) + hv - z;
         if (!(H0 > 0))
@@ -452,6 +461,14 @@ function prepare(input: StudyInput): Prepared {
       warnings.push(
         `Jet from the outlet: walls should diverge no faster than tanθ = 1/(3·Fr) = ${jetFlareTangent(frMax).toFixed(3)} at the highest outlet Froude number ${frMax.toFixed(2)} (HEC-14).`,
       );
+      y1At = (Q, i, z) => {
+        const o = i >= 0 ? outs[i]! : outD;
+        return _toeDepthOrNegative(
+          Q / b,
+          invert - z + o.depth + (o.velocity * o.velocity) / (2 * G),
+          loss,
+        );
+      };
       toeAt = (Q, i, z) => {
         const o = i >= 0 ? outs[i]! : outD;
         const H0 = invert - z + o.depth + (o.velocity * o.velocity) / (2 * G);
@@ -487,7 +504,7 @@ function prepare(input: StudyInput): Prepared {
     default:
       throw new RangeError(`inflow.kind must be 'chute', 'gate', 'pipe' or 'known'`);
   }
-  return { input, Qs, tw: tws, basin, toeAt, warnings };
+  return { input, Qs, tw: tws, basin, toeAt, y1At, warnings };
 }
 
 function factorFor(
@@ -522,17 +539,29 @@ function jumpCore(
 function minMargin(p: Prepared, z: number, C: TailwaterFactor): { margin: number; index: number } {
   let margin = Infinity;
   let index = 0;
+  const b = p.input.basinWidth;
   for (let i = 0; i < p.Qs.length; i++) {
     const Q = p.Qs[i]!;
     let m: number;
-    try {
-      const { toe, y2 } = jumpCore(p, Q, i, z);
-      const c = factorFor(C, () => ({ Q, fr1: toe.fr1, y1: toe.y1, y2, v1: toe.v1, q: toe.q }));
-      m = p.tw[i]!.elevation - z - c * y2;
-    } catch (e) {
+    let y1: number;
+    if (p.y1At) y1 = p.y1At(Q, i, z);
+    else {
+      try {
+        y1 = p.toeAt(Q, i, z).y1;
+      } catch (e) {
+        if (!(e instanceof RangeError)) throw e;
+        y1 = -1;
+      }
+    }
+    const q = Q / b;
+    const fr1 = y1 > 0 ? q / (y1 * Math.sqrt(G * y1)) : 0;
+    if (!(fr1 > 1)) {
       // A floor too high for the head to drive supercritical flow is simply infeasible.
-      if (e instanceof RangeError && !e.message.startsWith('tailwaterFactor')) m = -Infinity;
-      else throw e;
+      m = -Infinity;
+    } else {
+      const y2 = 0.5 * y1 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1); // Bélanger (rectangular basin)
+      const c = typeof C === 'number' ? C : factorFor(C, () => ({ Q, fr1, y1, y2, v1: q / y1, q }));
+      m = p.tw[i]!.elevation - z - c * y2;
     }
     if (m < margin) {
       margin = m;
@@ -599,12 +628,11 @@ function rowsAt(p: Prepared, z: number, C: TailwaterFactor): StudyRow[] {
     if (twDepth < y2 * (1 - 1e-9)) {
       position = 'swept-out';
       if (twDepth > yc) {
-        try {
-          sweep = jumpToeDistance(p.basin, Q, nFloor, 0, toe.y1, twDepth);
-        } catch (e) {
-          if (!(e instanceof RangeError)) throw e;
-          sweep = null;
-        }
+        // Horizontal rectangular floor: the H3 profile from y1 rises to the depth whose
+        // sequent is the tailwater (Bélanger, reversed), by the direct step method.
+        const frTw = toe.q / (twDepth * Math.sqrt(G * twDepth));
+        const yToe = 0.5 * twDepth * (Math.sqrt(1 + 8 * frTw * frTw) - 1);
+        sweep = yToe > toe.y1 ? _directStepDistance(p.basin, Q, nFloor, 0, toe.y1, yToe) : 0;
         notes.push(
           'tailwater short of the sequent depth: the jump is pushed downstream of the toe',
         );
@@ -794,7 +822,13 @@ export function runStudy(input: StudyInput): StudyResult {
     design: dissipators?.design ?? null,
     alternatives: dissipators?.alternatives ?? [],
     dissipators: dissipators
-      ? { chosen: dissipators.chosen, floors: dissipators.floors, context: dissipators.context, assumptions: dissipators.assumptions, notes: dissipators.notes }
+      ? {
+          chosen: dissipators.chosen,
+          floors: dissipators.floors,
+          context: dissipators.context,
+          assumptions: dissipators.assumptions,
+          notes: dissipators.notes,
+        }
       : null,
   };
 }

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ACTIONS, POLICY, ROLES, TOKEN_TTL_MS, type Action, type Role } from '@basinwright/common';
 import openapi from '../../api/src/openapi.json' with { type: 'json' };
+import { fenwickDesign } from '../../seed/designs';
 import {
   addMember,
   bearer,
@@ -26,7 +27,7 @@ afterAll(async () => {
   await h.close();
 });
 
-type Method = 'get' | 'post' | 'patch' | 'delete';
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 interface RouteCase {
   action: Action;
@@ -172,6 +173,28 @@ const routes: RouteCase[] = [
       return {
         url: `/projects/${project.id}`,
         changed: async () => (await h.models.Project.findByPk(project.id)) === null,
+      };
+    },
+  },
+  {
+    action: 'designs.read',
+    method: 'get',
+    path: '/projects/{id}/design',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${(await newProject()).id}/design` }),
+  },
+  {
+    action: 'designs.write',
+    method: 'put',
+    path: '/projects/{id}/design',
+    success: 200,
+    prepare: async () => {
+      const project = await newProject();
+      return {
+        url: `/projects/${project.id}/design`,
+        body: { input: fenwickDesign },
+        changed: async () =>
+          (await h.models.Design.count({ where: { projectId: project.id } })) === 1,
       };
     },
   },

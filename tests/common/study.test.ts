@@ -283,7 +283,8 @@ describe('SI and US customary give the same answer', () => {
     expectRel(shown.rows[0]!.Q, 5 / CFS, 1e-9);
     expectRel(shown.rows[0]!.v1, a.rows[0]!.v1 / FT, 1e-9);
     expectRel(shown.rows[0]!.q, a.rows[0]!.q / FT ** 2, 1e-9);
-    expect(shown.rows[0]!.fr1).toBe(a.rows[0]!.fr1);
+    expect(shown.rows[0]!.fr1).toBe(b.rows[0]!.fr1); // dimensionless: untouched by fromSI
+    expectRel(b.rows[0]!.fr1, a.rows[0]!.fr1, 1e-9);
   });
   it('property: any scaled problem gives the same answer in both systems', () => {
     fc.assert(
@@ -362,5 +363,18 @@ describe('study input errors are RangeErrors naming the field', () => {
   it.each(cases)('%s', (_n, input, msg) => {
     expect(() => runStudy(input)).toThrow(RangeError);
     expect(() => runStudy(input)).toThrow(msg);
+  });
+});
+
+describe('sweep-out distance on the basin floor', () => {
+  it('equals the public jumpToeDistance (800-step direct step) on the horizontal floor', async () => {
+    const { jumpToeDistance } = await import('@basinwright/common');
+    const z = runStudy(demo).floor.elevation + 0.6;
+    const rows = analyseRange(demo, z, 1).filter((r) => r.sweepOutDistance !== null && r.sweepOutDistance > 0);
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) {
+      const d = jumpToeDistance({ shape: 'rectangular', width: 12 }, r.Q, 0.014, 0, r.y1, r.tailwaterDepth);
+      expectRel(r.sweepOutDistance!, d, 1e-5);
+    }
   });
 });

@@ -1,4 +1,5 @@
 import { sequelize } from '../db/sequelize';
+import { Design } from './Design';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
@@ -11,6 +12,7 @@ User.initModel(sequelize);
 Project.initModel(sequelize);
 Invitation.initModel(sequelize);
 PasswordReset.initModel(sequelize);
+Design.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -21,5 +23,8 @@ Firm.hasMany(Invitation, { as: 'invitations', foreignKey: 'firmId' });
 Invitation.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
 Invitation.belongsTo(User, { as: 'invitedBy', foreignKey: 'invitedById' });
 PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+Project.hasOne(Design, { as: 'design', foreignKey: 'projectId' });
+Design.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+Design.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
 
-export { sequelize, Firm, Invitation, PasswordReset, Project, User };
+export { sequelize, Design, Firm, Invitation, PasswordReset, Project, User };

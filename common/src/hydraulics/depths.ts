@@ -31,11 +31,14 @@ export function _froude(s: Section, Q: number, y: number): number {
   if (g.topWidth <= 0) return 0; // a full conduit has no free surface: no gravity wave
   return Q / g.area / Math.sqrt((G * g.area) / g.topWidth);
 }
+// Rectangles take the short path (no geometry object): the whole-range study calls these
+// hundreds of thousands of times.
 export function _energy(s: Section, Q: number, y: number): number {
-  const a = geometry(s, y).area;
+  const a = s.shape === 'rectangular' ? s.width * y : geometry(s, y).area;
   return y + (Q * Q) / (2 * G * a * a);
 }
 export function _momentum(s: Section, Q: number, y: number): number {
+  if (s.shape === 'rectangular') return (Q * Q) / (G * s.width * y) + (s.width * y * y) / 2;
   const g = geometry(s, y);
   return (Q * Q) / (G * g.area) + g.centroidMoment;
 }
@@ -184,6 +187,11 @@ export function normalDepth(
 
 /** Friction slope Sf = (n·Q)²/(k²·A²·R^(4/3)) (Manning). */
 export function _frictionSlope(s: Section, Q: number, y: number, n: number): number {
+  if (s.shape === 'rectangular') {
+    const a = s.width * y;
+    const v = Q / a;
+    return (n * n * v * v) / Math.pow(a / (s.width + 2 * y), 4 / 3);
+  }
   const g = geometry(s, y);
   const v = Q / g.area;
   return (n * n * v * v) / Math.pow(g.hydraulicRadius, 4 / 3);

@@ -2,7 +2,7 @@
 // Sources per function; hydraulics.md §2.
 import { G } from '../units/constants';
 import { requireInRange, requireNonNegative, requirePositive } from './guards';
-import { _criticalDepth, _froude, _normalDepth, _supercriticalRoot } from './depths';
+import { _criticalDepth, _froude, _normalDepth } from './depths';
 import type { Section } from './sections';
 import { geometry, validateSection } from './sections';
 import { brent } from './solve';
@@ -32,8 +32,6 @@ export interface ToeConditions {
   /** head lost before the toe, m */
   headLoss: number;
 }
-
-const unitRect: Section = { shape: 'rectangular', width: 1 };
 
 function toe(q: number, y1: number, H0: number): ToeConditions {
   const v1 = q / y1;
@@ -82,41 +80,54 @@ export function toeFromHead(
   requirePositive('q (unit discharge)', q);
   requirePositive('H0 (head above the floor)', H0);
   validateLossModel(loss);
-  switch (loss.kind) {
-    case 'none':
-    case 'fraction': {
-      const E = loss.kind === 'none' ? H0 : H0 * (1 - loss.value);
-      const yc = Math.cbrt((q * q) / G); // rectangle: yc = (q²/g)^(1/3) [Chow 1959, §3-2]
-      const y1 = _supercriticalRoot(unitRect, q, E, yc);
-      return toe(q, y1, H0);
-    }
-    case 'velocityCoefficient': {
-      const yTop = (2 * H0) / 3; // q = Cv·y·√(2g(H0 − y)) is greatest here
-      const f = (y: number): number => loss.Cv * y * Math.sqrt(2 * G * (H0 - y));
-      const qMax = f(yTop);
-      if (q > qMax) {
-        throw new RangeError(
-          `H0 (head above the floor) ${H0} m is too small to pass q = ${q} m²/s with Cv = ${loss.Cv} (at most ${qMax.toPrecision(5)} m²/s)`,
-        );
-      }
-      const y1 = brent((y) => f(y) / q - 1, 1e-12 * yTop, yTop, 'toe depth');
-      return toe(q, y1, H0);
-    }
-    case 'lossCoefficient': {
-      const k1 = 1 + loss.K;
-      const yStar = Math.cbrt((k1 * q * q) / G);
-      const h = (y: number): number => y + (k1 * q * q) / (2 * G * y * y);
-      if (H0 < h(yStar)) {
-        throw new RangeError(
-          `H0 (head above the floor) ${H0} m is too small to pass q = ${q} m²/s with K = ${loss.K} (needs ${h(yStar).toPrecision(5)} m)`,
-        );
-      }
-      let lo = yStar / 2;
-      for (let i = 0; i < 400 && h(lo) < H0; i++) lo /= 2;
-      const y1 = brent((y) => h(y) / H0 - 1, lo, yStar, 'toe depth');
-      return toe(q, y1, H0);
-    }
+  return toe(q, _toeDepth(q, H0, loss), H0);
+}
+
+/**
+ * y1 (m) for validated q, H0 and loss model. Every loss model has the form E = y + c/y²:
+ * fraction E = (1 − f)·H0, c = q²/2g; velocity coefficient E = H0, c = q²/(2g·Cv²) (from
+ * V1 = Cv·√(2g(H0 − y1))); loss coefficient E = H0, c = (1 + K)·q²/2g. The shallow root is
+ * found by Newton's method from the left, which on this convex, falling branch climbs to the
+ * root without overshooting (allocation-free: the whole-range study calls it constantly).
+ */
+export function _toeDepth(q: number, H0: number, loss: LossModel): number {
+  const y = _toeDepthOrNegative(q, H0, loss);
+  if (y < 0) {
+    const what =
+      loss.kind === 'velocityCoefficient'
+        ? ` with Cv = ${loss.Cv}`
+        : loss.kind === 'lossCoefficient'
+          ? ` with K = ${loss.K}`
+          : '';
+    throw new RangeError(
+      `H0 (head above the floor) ${H0} m is too small to pass q = ${q} m²/s${what}`,
+    );
   }
+  return y;
+}
+
+/** As _toeDepth, but −1 when the head cannot pass q (no exception in the floor search). */
+export function _toeDepthOrNegative(q: number, H0: number, loss: LossModel): number {
+  if (!(H0 > 0)) return -1;
+  let E = H0;
+  let c = (q * q) / (2 * G);
+  if (loss.kind === 'fraction') E = H0 * (1 - loss.value);
+  else if (loss.kind === 'velocityCoefficient') c /= loss.Cv * loss.Cv;
+  else if (loss.kind === 'lossCoefficient') c *= 1 + loss.K;
+  const yStar = Math.cbrt(2 * c); // least E of y + c/y² is 1.5·y*
+  if (E < 1.5 * yStar * (1 - 1e-12)) return -1;
+  let y = Math.min(Math.sqrt(c / E), yStar); // c/y² = E: left of the root
+  for (let i = 0; i < 100; i++) {
+    const f = y + c / (y * y) - E;
+    const d = 1 - (2 * c) / (y * y * y);
+    if (!(d < 0) || f <= 0) break; // at the minimum, or rounding reached the root
+    const next = y - f / d;
+    if (!(next > y) || next >= yStar) break;
+    const done = next - y <= 1e-15 * next;
+    y = next;
+    if (done) break;
+  }
+  return y;
 }
 
 /**

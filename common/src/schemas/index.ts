@@ -4,3 +4,4 @@ export * from './auth';
 export * from './member';
 export * from './project';
 export * from './study';
+export * from './design';

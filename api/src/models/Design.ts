@@ -1,0 +1,42 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
+import type { StudyInput } from '@basinwright/common';
+import type { User } from './User';
+
+/** A project's design: the study input in the project's units (tenant-owned). */
+export class Design extends Model<InferAttributes<Design>, InferCreationAttributes<Design>> {
+  declare id: CreationOptional<string>;
+  declare firmId: string;
+  declare projectId: string;
+  declare input: StudyInput;
+  declare options: Record<string, unknown> | null;
+  declare updatedById: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare updatedBy?: NonAttribute<User | null>;
+
+  static initModel(sequelize: Sequelize): typeof Design {
+    Design.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        firmId: { type: DataTypes.UUID, allowNull: false },
+        projectId: { type: DataTypes.UUID, allowNull: false, unique: true },
+        input: { type: DataTypes.JSONB, allowNull: false },
+        options: { type: DataTypes.JSONB, allowNull: true },
+        updatedById: { type: DataTypes.UUID, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'designs', modelName: 'Design' },
+    );
+    return Design;
+  }
+}

@@ -1,0 +1,22 @@
+import { mixed, object, type ObjectSchema } from 'yup';
+import type { StudyInput } from '../study';
+import { studyInputSchema } from './study';
+
+function isPlainObject(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+export interface DesignSaveInput {
+  input: StudyInput;
+  /** what steers the dissipator catalogue: the chosen type, overrides of defaults */
+  options?: Record<string, unknown> | null;
+}
+
+/** PUT /projects/:id/design: the study input in the project's units, and the catalogue options. */
+export const designSaveSchema = object({
+  input: studyInputSchema.required('Send the design input.'),
+  options: mixed<Record<string, unknown>>()
+    .nullable()
+    .optional()
+    .test('object', 'The design options must be an object.', (v) => v == null || isPlainObject(v)),
+}) as unknown as ObjectSchema<DesignSaveInput>;

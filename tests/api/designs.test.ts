@@ -1,0 +1,121 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runStudy, toSI } from '@basinwright/common';
+import { caldwellDesign, fenwickDesign } from '../../seed/designs';
+import { bearer, setPlan, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+
+// A project's design: saved as typed (in the project's units), validated by the shared schema
+// and by running the study on the server; bad input is a 4xx and saves nothing.
+
+let h: ApiHarness;
+let token = '';
+let firmId = '';
+let siProject = '';
+let usProject = '';
+
+beforeAll(async () => {
+  h = await startApi();
+  const firm = await signUpFirm(h, 'designs');
+  token = firm.token;
+  firmId = firm.firm.id;
+  await setPlan(h, firmId, 'firm', 5);
+  const si = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Design SI', units: 'SI' });
+  const us = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Design US', units: 'US' });
+  siProject = si.body.id;
+  usProject = us.body.id;
+});
+afterAll(async () => {
+  await h.close();
+});
+
+const get = (id: string, t = token) => h.http().get(`/api/v1/projects/${id}/design`).set(bearer(t));
+const put = (id: string, body: unknown, t = token) =>
+  h.http().put(`/api/v1/projects/${id}/design`).set(bearer(t)).send(body as object);
+
+describe('GET/PUT /projects/:id/design', () => {
+  it('a project without a design answers with nulls', async () => {
+    const res = await get(siProject);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ projectId: siProject, input: null, options: null, updatedAt: null, updatedBy: null });
+  });
+
+  it('saves the input as typed and returns it unchanged, with who saved it', async () => {
+    const res = await put(siProject, { input: fenwickDesign, options: { chosenType: 'usbr-2' } });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.input).toEqual(fenwickDesign);
+    expect(res.body.options).toEqual({ chosenType: 'usbr-2' });
+    expect(res.body.updatedBy.name).toBeTruthy();
+    const again = await get(siProject);
+    expect(again.body.input).toEqual(fenwickDesign);
+    expect(await h.models.Design.count({ where: { projectId: siProject } })).toBe(1);
+  });
+
+  it('a second save replaces the first (one design a project)', async () => {
+    const changed = { ...fenwickDesign, basinWidth: 14 };
+    const res = await put(siProject, { input: changed });
+    expect(res.status).toBe(200);
+    expect(res.body.input.basinWidth).toBe(14);
+    expect(res.body.options).toBeNull();
+    expect(await h.models.Design.count({ where: { projectId: siProject } })).toBe(1);
+  });
+
+  it('keeps a US-customary design in its own units (the study still runs in SI)', async () => {
+    const res = await put(usProject, { input: caldwellDesign });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.input.designDischarge).toBe(420);
+    // the server ran the same study the browser runs: it is computable
+    expect(runStudy(toSI(caldwellDesign)).rows.length).toBe(20);
+  });
+
+  it('rejects a design in the wrong unit system for the project, saving nothing', async () => {
+    const before = await get(usProject);
+    const res = await put(usProject, { input: fenwickDesign });
+    expect(res.status).toBe(422);
+    expect(res.body.code).toBe('validation_error');
+    expect(res.body.details['input.units']).toMatch(/US/);
+    expect((await get(usProject)).body).toEqual(before.body);
+  });
+
+  it('input the engine cannot compute (a subcritical toe) is a 422 with its message; nothing saved', async () => {
+    const before = await get(siProject);
+    const bad = { ...fenwickDesign, inflow: { kind: 'known', toe: { y1: 3, v1: 1 } } };
+    const res = await put(siProject, { input: bad });
+    expect(res.status).toBe(422);
+    expect(res.body.message).toMatch(/not supercritical/);
+    expect((await get(siProject)).body).toEqual(before.body);
+  });
+
+  it('schema errors come back per field', async () => {
+    const res = await put(siProject, { input: { ...fenwickDesign, basinWidth: -3, designDischarge: 'lots' } });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.body.details)).toEqual(expect.arrayContaining(['input.basinWidth', 'input.designDischarge']));
+  });
+
+  it('a missing input, non-object options and malformed JSON are 4xx, never 500', async () => {
+    expect((await put(siProject, {})).status).toBe(422);
+    expect((await put(siProject, { input: fenwickDesign, options: [1, 2] })).status).toBe(422);
+    const raw = await h
+      .http()
+      .put(`/api/v1/projects/${siProject}/design`)
+      .set(bearer(token))
+      .set('Content-Type', 'application/json')
+      .send('{"input": ');
+    expect(raw.status).toBe(400);
+    expect(raw.body.code).toBe('bad_json');
+  });
+
+  it("another firm's project answers 404 and gets no design", async () => {
+    const other = await signUpFirm(h, 'designs-other');
+    expect((await get(siProject, other.token)).status).toBe(404);
+    const res = await put(siProject, { input: { ...fenwickDesign, basinWidth: 99 } }, other.token);
+    expect(res.status).toBe(404);
+    expect((await get(siProject)).body.input.basinWidth).toBe(14);
+    expect((await get('not-a-uuid')).status).toBe(404);
+  });
+
+  it('deleting the project deletes its design', async () => {
+    const p = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Short-lived', units: 'SI' });
+    expect((await put(p.body.id, { input: fenwickDesign })).status).toBe(200);
+    expect((await h.http().delete(`/api/v1/projects/${p.body.id}`).set(bearer(token))).status).toBe(204);
+    expect(await h.models.Design.count({ where: { projectId: p.body.id } })).toBe(0);
+  });
+});

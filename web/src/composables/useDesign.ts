@@ -1,0 +1,227 @@
+// The design of one project: load, save, busy state and errors; the starting input of a new
+// design; the form's shared context for the step components; CSV tables for ratings.
+import { inject, provide, ref, shallowRef, watch, type InjectionKey, type Ref } from 'vue';
+import Papa from 'papaparse';
+import { inputFromSI, toSI, type StudyInput, type UnitSystem } from '@basinwright/common';
+import { ApiError } from '@/api/client';
+import { designsApi, type Design, type DesignOptions } from '@/api/designs';
+import { projectsApi } from '@/api/projects';
+import type { Project } from '@/api/types';
+
+/**
+ * Where a new design starts: a plausible small spillway outlet, not the demo scenario, in the
+ * project's units. The page labels it as starting values to replace.
+ */
+export function startingInput(units: UnitSystem): StudyInput {
+  if (units === 'US') {
+    return {
+      units: 'US',
+      channelBedElevation: 500,
+      basinWidth: 30,
+      designDischarge: 1500,
+      discharges: { kind: 'range', min: 150, max: 1500, count: 10 },
+      tailwater: {
+        kind: 'manning',
+        section: { shape: 'trapezoidal', bottomWidth: 35, sideSlope: 2 },
+        slope: 0.001,
+        manningN: 0.035,
+      },
+      inflow: {
+        kind: 'chute',
+        crestElevation: 530,
+        headwater: { kind: 'weir', C: 3.8, L: 30 },
+        lossModel: { kind: 'fraction', value: 0.1 },
+      },
+    };
+  }
+  return {
+    units: 'SI',
+    channelBedElevation: 100,
+    basinWidth: 10,
+    designDischarge: 50,
+    discharges: { kind: 'range', min: 5, max: 50, count: 10 },
+    tailwater: {
+      kind: 'manning',
+      section: { shape: 'trapezoidal', bottomWidth: 12, sideSlope: 2 },
+      slope: 0.001,
+      manningN: 0.035,
+    },
+    inflow: {
+      kind: 'chute',
+      crestElevation: 110,
+      headwater: { kind: 'weir', C: 2.1, L: 10 },
+      lossModel: { kind: 'fraction', value: 0.1 },
+    },
+  };
+}
+
+/** Drops float noise from a unit round trip (e.g. 295.27559055118104 ft → 295.2755905512). */
+function tidy<T>(node: T): T {
+  if (typeof node === 'number') return (Number.isFinite(node) ? Number(node.toPrecision(10)) : node) as T;
+  if (Array.isArray(node)) return node.map(tidy) as T;
+  if (node !== null && typeof node === 'object') {
+    return Object.fromEntries(Object.entries(node).map(([k, v]) => [k, tidy(v)])) as T;
+  }
+  return node;
+}
+
+/** A saved SI input as the form shows it, in the project's units. */
+export function inputForForm(saved: StudyInput, units: UnitSystem): StudyInput {
+  const shown = tidy(inputFromSI({ ...saved, units: 'SI' }, units));
+  return { ...shown, units };
+}
+
+/** The form's values (user's units) as the SI input the API stores. */
+export function inputForSave(values: StudyInput): StudyInput {
+  return toSI(values);
+}
+
+/** One project and its design. */
+export function useDesign(projectId: Ref<string>) {
+  const project = shallowRef<Project | null>(null);
+  const design = shallowRef<Design | null>(null);
+  const busy = ref(false);
+  const saving = ref(false);
+  const error = shallowRef<ApiError | null>(null);
+
+  async function reload(): Promise<void> {
+    busy.value = true;
+    error.value = null;
+    try {
+      const [p, d] = await Promise.all([projectsApi.get(projectId.value), designsApi.get(projectId.value)]);
+      project.value = p;
+      design.value = d;
+    } catch (e) {
+      project.value = null;
+      design.value = null;
+      error.value = e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the design.');
+    } finally {
+      busy.value = false;
+    }
+  }
+
+  /** Saves the form's values (converted to SI); throws ApiError so the form can show it. */
+  async function save(values: StudyInput, options: DesignOptions): Promise<Design> {
+    saving.value = true;
+    try {
+      const saved = await designsApi.save(projectId.value, { input: inputForSave(values), options });
+      design.value = saved;
+      return saved;
+    } finally {
+      saving.value = false;
+    }
+  }
+
+  watch(projectId, () => void reload(), { immediate: true });
+
+  return { project, design, busy, saving, error, reload, save };
+}
+
+/** What the step components share with the workspace: values, errors, edit rights, units. */
+export interface DesignFormContext {
+  values: StudyInput;
+  errors: Ref<Partial<Record<string, string | undefined>>>;
+  setFieldValue: (path: string, value: unknown) => void;
+  readOnly: Ref<boolean>;
+  units: Ref<UnitSystem>;
+}
+
+const FORM_KEY: InjectionKey<DesignFormContext> = Symbol('design-form');
+
+export function provideDesignForm(ctx: DesignFormContext): void {
+  provide(FORM_KEY, ctx);
+}
+
+export function useDesignForm(): DesignFormContext {
+  const ctx = inject(FORM_KEY);
+  if (!ctx) throw new Error('useDesignForm needs the design workspace around it');
+  return ctx;
+}
+
+/** Reads a dotted path ("inflow.headwater.C", "tailwater.rows[2].Q") from an object. */
+export function getPath(obj: unknown, path: string): unknown {
+  let node: unknown = obj;
+  for (const key of path.replace(/\[(\d+)\]/g, '.$1').split('.')) {
+    if (node === null || typeof node !== 'object') return undefined;
+    node = (node as Record<string, unknown>)[key];
+  }
+  return node;
+}
+
+// ---- CSV tables (tailwater rating, headwater rating, outlet table) ----
+
+export interface CsvColumn {
+  key: string;
+  label: string;
+  /** the value must be greater than zero */
+  positive?: boolean;
+}
+
+export type CsvOutcome =
+  | { ok: true; rows: Array<Record<string, number>> }
+  | { ok: false; errors: string[] };
+
+/**
+ * Parses a CSV table of numbers with the given columns in order (a header row is recognised
+ * and skipped). Any bad row makes the whole table fail, with the row numbers as they appear in
+ * the file; nothing partial is returned. `increasingKey` must rise from row to row.
+ */
+export function parseCsvTable(text: string, columns: readonly CsvColumn[], increasingKey?: string): CsvOutcome {
+  const parsed = Papa.parse(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', comments: '#' });
+  const errors: string[] = parsed.errors.map((e) => `Row ${(e.row ?? 0) + 1}: ${e.message}.`);
+  const lines = parsed.data;
+  if (lines.length === 0) return { ok: false, errors: ['The file holds no rows.'] };
+  const isNumber = (s: string | undefined) => s !== undefined && s.trim() !== '' && Number.isFinite(Number(s.trim()));
+  const first = lines[0]!;
+  const hasHeader = !first.every((c) => isNumber(c));
+  const rows: Array<Record<string, number>> = [];
+  lines.forEach((cells, i) => {
+    if (i === 0 && hasHeader) return;
+    const rowNo = i + 1;
+    const used = cells.map((c) => c.trim());
+    while (used.length > columns.length && used[used.length - 1] === '') used.pop();
+    if (used.length !== columns.length) {
+      errors.push(`Row ${rowNo}: expected ${columns.length} values (${columns.map((c) => c.label).join(', ')}), found ${used.length}.`);
+      return;
+    }
+    const row: Record<string, number> = {};
+    for (const [j, col] of columns.entries()) {
+      const cell = used[j]!;
+      if (!isNumber(cell)) {
+        errors.push(`Row ${rowNo}: ${col.label} “${cell}” is not a number.`);
+        return;
+      }
+      const v = Number(cell);
+      if (col.positive && !(v > 0)) {
+        errors.push(`Row ${rowNo}: ${col.label} must be greater than zero (got ${cell}).`);
+        return;
+      }
+      row[col.key] = v;
+    }
+    if (increasingKey && rows.length > 0) {
+      const prev = rows[rows.length - 1]![increasingKey]!;
+      if (!(row[increasingKey]! > prev)) {
+        const col = columns.find((c) => c.key === increasingKey)!;
+        errors.push(`Row ${rowNo}: ${col.label} ${row[increasingKey]} does not increase from the row before (${prev}).`);
+      }
+    }
+    rows.push(row);
+  });
+  if (errors.length > 0) return { ok: false, errors };
+  if (rows.length < 2) return { ok: false, errors: ['A rating table needs at least two rows of numbers.'] };
+  return { ok: true, rows };
+}
+
+/** The tailwater rating as CSV: discharge, water-surface elevation (in the project's units). */
+export function parseTailwaterCsv(text: string, units: UnitSystem): CsvOutcome {
+  const q = units === 'US' ? 'cfs' : 'm³/s';
+  const z = units === 'US' ? 'ft' : 'm';
+  return parseCsvTable(
+    text,
+    [
+      { key: 'Q', label: `Q (${q})`, positive: true },
+      { key: 'elevation', label: `Tailwater elevation (${z})` },
+    ],
+    'Q',
+  );
+}

@@ -1,0 +1,142 @@
+// Live results: the engine runs in the browser on the form's input as the user types.
+import { onBeforeUnmount, ref, shallowRef, watch, type Ref } from 'vue';
+import { ValidationError } from 'yup';
+import {
+  UNIT_LABELS,
+  fromSIValue,
+  runStudy,
+  studyInputSchema,
+  toSI,
+  type DissipatorTypeId,
+  type QuantityKind,
+  type StudyInput,
+  type StudyResult,
+  type UnitSystem,
+} from '@basinwright/common';
+
+/** How long typing must pause before the study runs again, ms. */
+export const STUDY_DEBOUNCE_MS = 250;
+
+// Engine argument paths → the words the form uses, for messages shown to the user.
+const FIELD_WORDS: Array<[RegExp, string]> = [
+  [/^channelBedElevation\b/, 'Channel bed elevation'],
+  [/^basinWidth\b/, 'Basin width'],
+  [/^designDischarge\b/, 'Design discharge'],
+  [/^discharges\b/, 'Discharges to check'],
+  [/^tailwater\b/, 'Tailwater rating'],
+  [/^inflow\.headwater\b/, 'Headwater rating'],
+  [/^inflow\.lossModel\b/, 'Loss allowance'],
+  [/^inflow\.outlet\b/, 'Outlet flow'],
+  [/^inflow\.toe\b/, 'Toe conditions'],
+  [/^inflow\b/, 'Inflow'],
+  [/^floorElevation\b/, 'Floor elevation'],
+  [/^tailwaterFactor\b/, 'Tailwater factor'],
+];
+
+/**
+ * A RangeError from the engine as a sentence for the page: the argument it names becomes the
+ * field's label. The engine computes in SI, so numbers in the message are in m and m³/s.
+ */
+export function readableEngineError(error: unknown): string {
+  if (error instanceof RangeError) {
+    let text = error.message.trim();
+    const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);
+    const path = m?.[1] ?? '';
+    const hit = FIELD_WORDS.find(([re]) => re.test(path));
+    if (m && hit) {
+      const [re, words] = hit;
+      const detail = path.replace(re, '').replace(/^\./, '');
+      const rest = text.slice(m[0].length);
+      text = `${words}${detail ? ` (${detail})` : ''}${m[2] ? ':' : ''} ${rest}`;
+    }
+    text = text.charAt(0).toUpperCase() + text.slice(1);
+    return `The study cannot be computed with these inputs. ${text}${/[.!?]$/.test(text) ? '' : '.'} (Values in the engine's message are in SI units.)`;
+  }
+  if (error instanceof Error) return `The calculation failed unexpectedly: ${error.message}`;
+  return 'The calculation failed unexpectedly.';
+}
+
+export interface StudyOutcome {
+  result: StudyResult | null;
+  /** readable message when the engine refused the input (RangeError) or failed */
+  engineError: string | null;
+  /** schema messages when the form is not complete yet */
+  inputProblems: string[];
+}
+
+/**
+ * One evaluation, without debounce: schema (in the user's units) → SI → runStudy. Never
+ * throws: every failure becomes a message.
+ */
+export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null): StudyOutcome {
+  let input: StudyInput;
+  try {
+    input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
+  } catch (e) {
+    if (e instanceof ValidationError) return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
+    return { result: null, engineError: readableEngineError(e), inputProblems: [] };
+  }
+  try {
+    const si = toSI(input);
+    const result = runStudy(chosenType ? { ...si, dissipators: { chosenType } } : si);
+    return { result, engineError: null, inputProblems: [] };
+  } catch (e) {
+    return { result: null, engineError: readableEngineError(e), inputProblems: [] };
+  }
+}
+
+/**
+ * Runs the study on `source` whenever it changes, after a pause in typing. Keeps the last good
+ * result (marked stale) while the input is incomplete or refused, so the page never blanks.
+ */
+export function useStudy(
+  source: Ref<unknown>,
+  chosenType: Ref<DissipatorTypeId | null | undefined>,
+  debounceMs = STUDY_DEBOUNCE_MS,
+) {
+  const result = shallowRef<StudyResult | null>(null);
+  const engineError = ref<string | null>(null);
+  const inputProblems = ref<string[]>([]);
+  const stale = ref(false);
+  const pending = ref(false);
+  let timer: ReturnType<typeof setTimeout> | undefined;
+
+  function runNow(): void {
+    clearTimeout(timer);
+    pending.value = false;
+    const out = evaluateStudy(source.value, chosenType.value);
+    engineError.value = out.engineError;
+    inputProblems.value = out.inputProblems;
+    if (out.result) {
+      result.value = out.result;
+      stale.value = false;
+    } else stale.value = result.value !== null;
+  }
+
+  function schedule(): void {
+    clearTimeout(timer);
+    pending.value = true;
+    timer = setTimeout(runNow, debounceMs);
+  }
+
+  watch(source, schedule, { deep: true });
+  watch(chosenType, runNow);
+  onBeforeUnmount(() => clearTimeout(timer));
+
+  return { result, engineError, inputProblems, stale, pending, runNow };
+}
+
+/** Numbers in the user's units, for tables, labels and the drawing. */
+export function unitFormat(units: UnitSystem) {
+  const label = (kind: QuantityKind): string => UNIT_LABELS[kind][units];
+  const value = (si: number, kind: QuantityKind): number => fromSIValue(si, kind, units);
+  const num = (si: number | null | undefined, kind: QuantityKind | null, digits = 2): string => {
+    if (si === null || si === undefined || !Number.isFinite(si)) return '—';
+    const v = kind ? value(si, kind) : si;
+    return v.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  };
+  const withUnit = (si: number | null | undefined, kind: QuantityKind, digits = 2): string =>
+    si === null || si === undefined || !Number.isFinite(si) ? '—' : `${num(si, kind, digits)} ${label(kind)}`;
+  return { label, value, num, withUnit };
+}
+export type UnitFormat = ReturnType<typeof unitFormat>;
