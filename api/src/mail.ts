@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { getConfig } from './config/env';
+import { serviceUnavailable } from './errors';
 
 export interface MailMessage {
   to: string;
@@ -22,8 +23,21 @@ function transporter(): Transporter {
   return transport;
 }
 
+/**
+ * Sends one message. A mail server that cannot be reached is the service's problem, not the
+ * caller's: it answers 503 with a plain message (callers that send inside a transaction then
+ * roll back, so nothing is half done).
+ */
 export async function sendMail(message: MailMessage): Promise<void> {
-  await transporter().sendMail({ from: getConfig().mailFrom, ...message });
+  try {
+    await transporter().sendMail({ from: getConfig().mailFrom, ...message });
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw Object.assign(
+      serviceUnavailable('The e-mail could not be sent just now. Nothing was saved; try again shortly.'),
+      { cause: reason },
+    );
+  }
 }
 
 /** Closes pooled SMTP connections (shutdown, tests). */

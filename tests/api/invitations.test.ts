@@ -188,9 +188,10 @@ describe('invitations', () => {
     closeMail();
     config.smtpPort = 1;
     try {
+      // a 503 with a plain message, never a 500 with the socket error
       await expect(
         createInvitation(user, { email: uniqueEmail('unsent'), role: 'viewer' }),
-      ).rejects.toThrow();
+      ).rejects.toMatchObject({ status: 503, code: 'service_unavailable' });
     } finally {
       config.smtpPort = port;
       closeMail();
