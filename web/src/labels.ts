@@ -1,5 +1,6 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
+import type { CriterionId, CriterionStatus, JumpPosition, Verdict } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -60,3 +61,48 @@ export function formatDateTime(iso: string | null | undefined): string {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? '—' : dateTimeFormat.format(d);
 }
+
+// Design workspace: jump positions, jump classes, screening verdicts and criteria in our words.
+
+const jumpPositions: Record<JumpPosition, string> = {
+  'at-toe': 'At the toe',
+  'swept-out': 'Swept out',
+  drowned: 'Drowned',
+};
+export const jumpPositionLabel = (p: JumpPosition): string => jumpPositions[p];
+
+const jumpClasses: Record<string, string> = {
+  none: 'No jump',
+  undular: 'Undular',
+  weak: 'Weak',
+  oscillating: 'Oscillating',
+  steady: 'Steady',
+  strong: 'Strong',
+};
+export const jumpClassLabel = (c: string): string => jumpClasses[c] ?? c;
+
+const verdicts: Record<Verdict, string> = {
+  recommended: 'Recommended',
+  suitable: 'Suitable',
+  marginal: 'Usable with cautions',
+  unsuitable: 'Not suitable',
+  specialist: 'Specialist study',
+};
+export const verdictLabel = (v: Verdict): string => verdicts[v];
+
+const criterionStatuses: Record<CriterionStatus, string> = { pass: 'Meets', warn: 'Caution', fail: 'Fails' };
+export const criterionStatusLabel = (s: CriterionStatus): string => criterionStatuses[s];
+
+const criteria: Record<CriterionId, string> = {
+  froude: 'Froude number',
+  velocity: 'Inflow velocity',
+  unitDischarge: 'Unit discharge',
+  discharge: 'Total discharge',
+  tailwater: 'Tailwater',
+  debris: 'Debris',
+  culvertSize: 'Culvert size',
+  stoneSize: 'Stone size',
+  inflow: 'Kind of inflow',
+  head: 'Head',
+};
+export const criterionLabel = (c: CriterionId): string => criteria[c] ?? c;

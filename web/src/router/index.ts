@@ -77,6 +77,14 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, can: 'projects.read', title: 'Project' },
   },
   {
+    path: '/projects/:id/design',
+    name: 'project-design',
+    component: () => import('@/views/DesignWorkspaceView.vue'),
+    props: true,
+    // Everyone signed in reads a design; the view shows it read-only to those who cannot edit.
+    meta: { requiresAuth: true, can: 'projects.read', title: 'Design' },
+  },
+  {
     path: '/team',
     name: 'team',
     component: () => import('@/views/TeamView.vue'),
