@@ -21,6 +21,8 @@ export interface AppOptions {
   healthDatabase?: Sequelize;
   /** Folder of the built SPA; defaults to WEB_DIST. */
   webDist?: string | null;
+  /** Extra routes under /api/v1, mounted last (the benchmark's bare route). */
+  extraRoutes?: (api: express.Router) => void;
 }
 
 /** Builds the Express app without listening; server.ts listens and tests drive it with supertest. */
@@ -72,6 +74,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))
   api.use('/calc', calcRouter());
+  options.extraRoutes?.(api);
 
   api.use(notFoundHandler);
   app.use('/api/v1', api);

@@ -1,7 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import type { IncomingMessage } from 'node:http';
+import type { RequestHandler } from 'express';
 import { pino, type Logger } from 'pino';
-import { pinoHttp, type HttpLogger } from 'pino-http';
 import { getConfig } from './config/env';
 
 let base: Logger | undefined;
@@ -15,19 +14,40 @@ export function logger(): Logger {
   return base;
 }
 
-/** One log line per request, with a request id echoed from X-Request-Id when sane. */
-export function httpLogger(): HttpLogger {
-  return pinoHttp({
-    logger: logger(),
-    genReqId: (req: IncomingMessage) => {
-      const given = req.headers['x-request-id'];
-      return typeof given === 'string' && /^[\w-]{1,64}$/.test(given) ? given : randomUUID();
-    },
-    customLogLevel: (_req, res, error) => {
-      if (error !== undefined || res.statusCode >= 500) return 'error';
-      if (res.statusCode >= 400) return 'warn';
-      return 'info';
-    },
-    autoLogging: { ignore: (req) => req.url === '/api/v1/health' },
-  });
+/**
+ * One log line per request (method, path, status, duration, request id echoed from a sane
+ * X-Request-Id). A few lines on pino instead of pino-http: pino-http builds a child logger
+ * and serialises request and response on every call, which alone costs about a third of a
+ * small JSON route's throughput; this does the same job for the levels that are enabled.
+ */
+export function httpLogger(): RequestHandler {
+  const log = logger();
+  return (req, res, next) => {
+    const started = process.hrtime.bigint();
+    const given = req.headers['x-request-id'];
+    const id = typeof given === 'string' && /^[\w-]{1,64}$/.test(given) ? given : randomUUID();
+    req.id = id;
+    res.setHeader('X-Request-Id', id);
+    res.once('finish', () => {
+      if (req.originalUrl === '/api/v1/health') return;
+      const level = res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info';
+      if (!log.isLevelEnabled(level)) return;
+      const ms = Number(process.hrtime.bigint() - started) / 1e6;
+      log[level](
+        { reqId: id, method: req.method, url: req.originalUrl, status: res.statusCode, ms },
+        'request',
+      );
+    });
+    next();
+  };
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      /** Set by httpLogger(): the request id, also sent back as X-Request-Id. */
+      id?: string;
+    }
+  }
 }

@@ -46,6 +46,20 @@ export const authenticate: RequestHandler = async (
   next();
 };
 
+/**
+ * Requires a valid token (signature, issuer, audience, expiry) without reading the database.
+ * Only for routes that compute and neither read nor write firm data (the engine): there a
+ * signed-out member's still-unexpired token can do no harm, and skipping the per-request user
+ * lookup keeps the calculators as fast as a plain JSON route. Everything else uses authenticate().
+ */
+export const authenticateToken: RequestHandler = (req, _res, next) => {
+  const header = req.get('authorization');
+  const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
+  if (match?.[1] === undefined) throw unauthorized();
+  verifyToken(match[1]);
+  next();
+};
+
 /** The signed-in context; only valid after authenticate(). */
 export function authOf(req: Request): AuthContext {
   if (req.auth === undefined) throw unauthorized();

@@ -15,7 +15,7 @@ import {
   validationError,
 } from '../errors';
 import { getConfig } from '../config/env';
-import type {} from 'pino-http'; // req.log
+import { logger } from '../logger';
 
 /** body-parser marks its errors with a `type` string and an HTTP status. */
 function bodyParserError(error: unknown): { type: string; status: number } | null {
@@ -64,6 +64,6 @@ export function errorHandler(
     return;
   }
   const apiError = toApiError(error);
-  if (apiError.status >= 500) req.log.error({ err: error }, 'request failed');
+  if (apiError.status >= 500) logger().error({ err: error, reqId: req.id }, 'request failed');
   res.status(apiError.status).json(apiError.toJSON());
 }

@@ -1,4 +1,5 @@
-// The design of a project (one a project): GET loads it, PUT replaces it. Input is SI.
+// The design of a project (one a project): GET loads it, PUT replaces it. The input is in
+// the project's units, as the user typed it; the server runs the study on toSI(input).
 import type { DissipatorTypeId, StudyInput } from '@basinwright/common';
 import { request } from './client';
 import type { PersonRef } from './types';
@@ -11,7 +12,7 @@ export interface DesignOptions {
 
 export interface Design {
   projectId: string;
-  /** SI numbers; `units` says which system the user works in */
+  /** in the units it names (the project's); the server converts with toSI */
   input: StudyInput | null;
   options: DesignOptions | null;
   updatedAt: string | null;

@@ -65,14 +65,18 @@ function tidy<T>(node: T): T {
   return node;
 }
 
-/** A saved SI input as the form shows it, in the project's units. */
+/**
+ * A saved input as the form shows it, in the project's units. The API keeps the input in the
+ * units it names (and converts with toSI itself); when the project's units changed since, the
+ * numbers go through SI into the new system.
+ */
 export function inputForForm(saved: StudyInput, units: UnitSystem): StudyInput {
-  const shown = tidy(inputFromSI({ ...saved, units: 'SI' }, units));
-  return { ...shown, units };
+  if (saved.units === units) return tidy(saved);
+  return { ...tidy(inputFromSI(toSI(saved), units)), units };
 }
 
-/** The form's values (user's units) as the SI input the API stores. */
-export function inputForSave(values: StudyInput): StudyInput {
+/** The SI input the engine takes, from the form's values in the user's units. */
+export function inputForEngine(values: StudyInput): StudyInput {
   return toSI(values);
 }
 
@@ -100,11 +104,11 @@ export function useDesign(projectId: Ref<string>) {
     }
   }
 
-  /** Saves the form's values (converted to SI); throws ApiError so the form can show it. */
+  /** Saves the form's values (in the project's units); throws ApiError so the form can show it. */
   async function save(values: StudyInput, options: DesignOptions): Promise<Design> {
     saving.value = true;
     try {
-      const saved = await designsApi.save(projectId.value, { input: inputForSave(values), options });
+      const saved = await designsApi.save(projectId.value, { input: values, options });
       design.value = saved;
       return saved;
     } finally {
@@ -168,7 +172,10 @@ export type CsvOutcome =
  */
 export function parseCsvTable(text: string, columns: readonly CsvColumn[], increasingKey?: string): CsvOutcome {
   const parsed = Papa.parse(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', comments: '#' });
-  const errors: string[] = parsed.errors.map((e) => `Row ${(e.row ?? 0) + 1}: ${e.message}.`);
+  // A guessed delimiter is not an error of the file (a one-column row makes papaparse guess).
+  const errors: string[] = parsed.errors
+    .filter((e) => e.type !== 'Delimiter')
+    .map((e) => `Row ${(e.row ?? 0) + 1}: ${e.message.replace(/\.$/, '')}.`);
   const lines = parsed.data;
   if (lines.length === 0) return { ok: false, errors: ['The file holds no rows.'] };
   const isNumber = (s: string | undefined) => s !== undefined && s.trim() !== '' && Number.isFinite(Number(s.trim()));

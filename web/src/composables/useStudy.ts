@@ -6,13 +6,13 @@ import {
   fromSIValue,
   runStudy,
   studyInputSchema,
-  toSI,
   type DissipatorTypeId,
   type QuantityKind,
   type StudyInput,
   type StudyResult,
   type UnitSystem,
 } from '@basinwright/common';
+import { inputForEngine } from '@/composables/useDesign';
 
 /** How long typing must pause before the study runs again, ms. */
 export const STUDY_DEBOUNCE_MS = 250;
@@ -77,7 +77,7 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
     return { result: null, engineError: readableEngineError(e), inputProblems: [] };
   }
   try {
-    const si = toSI(input);
+    const si = inputForEngine(input);
     const result = runStudy(chosenType ? { ...si, dissipators: { chosenType } } : si);
     return { result, engineError: null, inputProblems: [] };
   } catch (e) {

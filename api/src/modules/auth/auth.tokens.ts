@@ -37,7 +37,7 @@ export function issueToken(user: { id: string; firmId: string; tokenVersion: num
 }
 
 /** Verifies signature (HS256 only), issuer, audience and expiry; throws 401 otherwise. */
-export function verifyToken(token: string): TokenClaims {
+function verifyUncached(token: string): TokenClaims & { expMs: number } {
   let payload: string | jwt.JwtPayload;
   try {
     payload = jwt.verify(token, signingKey(), {
@@ -58,5 +58,27 @@ export function verifyToken(token: string): TokenClaims {
   ) {
     throw unauthorized('Your session is not valid. Sign in again.');
   }
-  return { sub: payload.sub, fid: payload.fid, tv: payload.tv as number };
+  const expMs = typeof payload.exp === 'number' ? payload.exp * 1000 : 0;
+  return { sub: payload.sub, fid: payload.fid, tv: payload.tv as number, expMs };
+}
+
+// Tokens this process has already verified, with their expiry. A token is immutable and the key
+// is fixed for the process's life, so a hit only needs the expiry re-checked; this saves the
+// HMAC and two JSON parses on every request of a session. Per process and bounded, so it holds
+// nothing other processes need (revocation is checked against the database by authenticate()).
+const verified = new Map<string, TokenClaims & { expMs: number }>();
+const VERIFIED_MAX = 5000;
+
+/** Verifies signature (HS256 only), issuer, audience and expiry; throws 401 otherwise. */
+export function verifyToken(token: string): TokenClaims {
+  const hit = verified.get(token);
+  if (hit !== undefined && Date.now() < hit.expMs) return { sub: hit.sub, fid: hit.fid, tv: hit.tv };
+  if (hit !== undefined) verified.delete(token);
+  const claims = verifyUncached(token);
+  if (verified.size >= VERIFIED_MAX) {
+    const oldest = verified.keys().next().value;
+    if (oldest !== undefined) verified.delete(oldest);
+  }
+  verified.set(token, claims);
+  return { sub: claims.sub, fid: claims.fid, tv: claims.tv };
 }

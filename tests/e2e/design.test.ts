@@ -1,0 +1,159 @@
+// The design workspace in a real browser against the built app and a migrated, seeded
+// database (E2E_BASE_URL): the demo engineer walks the steps of the seeded demo design,
+// changes a value, saves, reloads and finds it kept.
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
+const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
+const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
+// The demo's downstream channel bed (product.md, demo scenario).
+const CHANNEL_BED = 90.0;
+
+let context: BrowserContext;
+let page: Page;
+let profileDir: string;
+let designUrl = '';
+const pageErrors: string[] = [];
+
+async function shot(name: string): Promise<void> {
+  await page.screenshot({ path: join(SHOTS, `design-${name}.png`), fullPage: true });
+}
+
+/** A number shown with its unit, e.g. "87.64 m" → 87.64. */
+function numberIn(text: string | null): number {
+  const m = /-?[\d,]+(\.\d+)?/.exec(text ?? '');
+  if (!m) throw new Error(`no number in ${JSON.stringify(text)}`);
+  return Number(m[0].replace(/,/g, ''));
+}
+
+async function goToStep(title: string): Promise<void> {
+  await page.locator('[data-test="design-steps"]').getByText(title, { exact: false }).first().click();
+  await expect.poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent()).toBe(title);
+}
+
+describe('design workspace: the demo engineer checks, sizes and saves the demo design', () => {
+  beforeAll(async () => {
+    if (!BASE_URL) {
+      throw new Error(
+        'E2E_BASE_URL is not set. Start the built app against a migrated, seeded database and set ' +
+          'E2E_BASE_URL (e.g. http://127.0.0.1:8090); `npm test` does this for you.',
+      );
+    }
+    mkdirSync(SHOTS, { recursive: true });
+    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-design-'));
+    context = await chromium.launchPersistentContext(profileDir, {
+      executablePath: '/usr/bin/chromium',
+      headless: true,
+      viewport: { width: 1366, height: 900 },
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    page = context.pages()[0] ?? (await context.newPage());
+    page.setDefaultTimeout(20_000);
+    page.on('pageerror', (error) => pageErrors.push(error.message));
+  });
+
+  afterAll(async () => {
+    await context?.close();
+    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+  });
+
+  it('signs in as the demo engineer and opens the demo project design', async () => {
+    await page.goto(`${BASE_URL}/sign-in`);
+    await page.getByLabel('E-mail').fill('engineer@harrow-lune.example');
+    await page.getByLabel('Password').fill('basinwright-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/projects$/);
+    const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
+    await row.getByRole('link', { name: DEMO_PROJECT }).click();
+    await expect.poll(() => page.locator('h1').textContent()).toContain(DEMO_PROJECT);
+    await page.locator('[data-test="open-design"]').click();
+    await page.waitForURL(/\/projects\/[^/]+\/design/);
+    designUrl = page.url().split('?')[0]!;
+    // Seeded with the demo input: the site step shows the channel bed at 90.
+    const bed = page.getByLabel('Downstream channel bed elevation (m)');
+    await expect.poll(() => bed.inputValue()).toBe('90');
+    expect(await page.locator('[data-test="starting-values"]').count()).toBe(0);
+    await page.locator('[data-test="summary-floor"]').waitFor();
+    await shot('1-site');
+  });
+
+  it('walks Flows and Inflow with the demo values', async () => {
+    await goToStep('Flows');
+    await expect.poll(() => page.getByLabel('Design discharge (m³/s)').inputValue()).toBe('85');
+    await expect.poll(async () => Number(await page.getByLabel("Manning's n").inputValue())).toBe(0.03);
+    await shot('2-flows');
+    await goToStep('Inflow');
+    await expect.poll(() => page.getByLabel('Crest elevation (m)').inputValue()).toBe('102');
+    await expect.poll(() => page.getByLabel('Weir coefficient C (m^½/s)').inputValue()).toBe('2.15');
+    await shot('3-inflow');
+  });
+
+  it('jump check: the floor is solved below the channel bed, with chart, table and diagrams', async () => {
+    await goToStep('Jump check');
+    const floor = numberIn(await page.locator('[data-test="floor-elevation"]').textContent());
+    expect(floor).toBeLessThan(CHANNEL_BED);
+    expect(await page.locator('[data-test="floor-elevation"]').textContent()).toContain('m');
+    expect(numberIn(await page.locator('[data-test="depth-below-bed"]').textContent())).toBeCloseTo(CHANNEL_BED - floor, 1);
+    // 17 discharges from 5 to 85 m³/s in the seeded input.
+    await expect.poll(() => page.locator('[data-test="range-table"] tbody tr.ant-table-row').count()).toBe(17);
+    const headers = await page.locator('[data-test="range-table"] thead th').allTextContents();
+    expect(headers).toEqual(expect.arrayContaining(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)']));
+    // Charts carry axis titles with units (SVG renderer: the titles are text in the page).
+    await expect.poll(() => page.getByText('Discharge Q (m³/s)').count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByText('Specific energy E (m)').count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByText('Momentum function M (m³)').count()).toBeGreaterThan(0);
+    await expect.poll(() => page.locator('[data-test="cautions"]').textContent()).toContain('Concept level only');
+    await shot('4-jump-check');
+  });
+
+  it('basin choice names the recommended basin with reasons per criterion', async () => {
+    await goToStep('Basin choice');
+    const name = (await page.locator('[data-test="recommended-name"]').textContent())?.trim() ?? '';
+    expect(name).toMatch(/^(USBR Type|SAF)/);
+    const card = page.locator('li.verdict-recommended');
+    expect(await card.count()).toBe(1);
+    expect(await card.textContent()).toContain('Recommended');
+    expect(await card.locator('.crit').count()).toBeGreaterThan(2);
+    await shot('5-basin-choice');
+  });
+
+  it('sizing shows the dimensions and the drawing with dimension text', async () => {
+    await goToStep('Sizing');
+    const svg = page.locator('[data-test="design-drawing"] svg');
+    await svg.waitFor();
+    expect(await svg.locator('[data-role^="dim-"]').count()).toBeGreaterThan(3);
+    expect(await svg.locator('[data-role="dim-basin-length"] text').first().textContent()).toMatch(/^\d+\.\d{2} m$/);
+    expect(numberIn(await page.locator('[data-test="sizing-width"]').textContent())).toBe(12);
+    await shot('6-sizing');
+  });
+
+  it('changes the basin width, saves, reloads and finds it kept', async () => {
+    await goToStep('Site');
+    const width = page.getByLabel('Basin width (m)');
+    await width.fill('12.5');
+    await width.blur();
+    await page.locator('[data-test="unsaved"]').waitFor();
+    await page.locator('[data-test="save-design"]').click();
+    await page.getByText('Design saved.').waitFor();
+    await expect.poll(() => page.locator('[data-test="unsaved"]').count()).toBe(0);
+    await shot('7-saved');
+    await page.goto(designUrl);
+    await expect.poll(() => page.getByLabel('Basin width (m)').inputValue()).toBe('12.5');
+    // Put the demo back as seeded so a second run starts from the same design.
+    await page.getByLabel('Basin width (m)').fill('12');
+    await page.getByLabel('Basin width (m)').blur();
+    await page.keyboard.press('Control+s');
+    await page.getByText('Design saved.').first().waitFor();
+    await page.goto(designUrl);
+    await expect.poll(() => page.getByLabel('Basin width (m)').inputValue()).toBe('12');
+  });
+
+  it('raised no uncaught errors in the page', () => {
+    expect(pageErrors).toEqual([]);
+  });
+});

@@ -1,0 +1,101 @@
+// The design workspace view: read-only for those who cannot edit, saving for engineers, and a
+// server 422 put back on the form.
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { flushPromises, mount } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import { createMemoryHistory } from 'vue-router';
+import type { StudyInput } from '@basinwright/common';
+import DesignWorkspaceView from '../../web/src/views/DesignWorkspaceView.vue';
+import { createAppRouter } from '../../web/src/router';
+import { TOKEN_KEY } from '../../web/src/stores/auth';
+import { demoFirm, demoUser, stubApi, type Reply } from './fetch-stub';
+
+const project = {
+  id: 'p1',
+  name: 'Fenwick Mill Pond — auxiliary spillway outlet',
+  client: null,
+  location: null,
+  units: 'SI',
+  status: 'draft',
+  notes: null,
+  createdBy: null,
+  createdAt: '2025-01-01T00:00:00.000Z',
+  updatedAt: '2025-01-01T00:00:00.000Z',
+};
+const input: StudyInput = {
+  units: 'SI',
+  channelBedElevation: 90,
+  basinWidth: 12,
+  designDischarge: 85,
+  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
+  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
+  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
+};
+const design = { projectId: 'p1', input, options: null, updatedAt: '2025-01-02T00:00:00.000Z', updatedBy: { id: 'u-engineer', name: 'Demo engineer' } };
+
+afterEach(() => vi.unstubAllGlobals());
+
+async function mountAs(role: 'engineer' | 'viewer' | 'estimator', put?: (init: RequestInit) => Reply) {
+  localStorage.setItem(TOKEN_KEY, `tok-${role}`);
+  setActivePinia(createPinia());
+  const api = stubApi({
+    'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } },
+    'GET /projects/p1': { status: 200, body: project },
+    'GET /projects/p1/design': { status: 200, body: design },
+    ...(put ? { 'PUT /projects/p1/design': put } : {}),
+  });
+  const router = createAppRouter(createMemoryHistory());
+  await router.push('/projects/p1/design');
+  const wrapper = mount(DesignWorkspaceView, { props: { id: 'p1' }, global: { plugins: [router] }, attachTo: document.body });
+  await vi.waitFor(() => expect(wrapper.find('#design-basinWidth').exists()).toBe(true));
+  await flushPromises();
+  return { wrapper, api };
+}
+
+describe('DesignWorkspaceView', () => {
+  it.each(['viewer', 'estimator'] as const)('is read-only for a %s: no save, inputs disabled, results shown', async (role) => {
+    const { wrapper, api } = await mountAs(role);
+    expect(wrapper.find('[data-test="read-only"]').exists()).toBe(true);
+    expect(wrapper.find('[data-test="save-design"]').exists()).toBe(false);
+    const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
+    expect(width.element.value).toBe('12');
+    expect(width.element.disabled).toBe(true);
+    expect(wrapper.find('[data-test="summary-floor"]').text()).toMatch(/^\d+\.\d{2} m$/);
+    window.dispatchEvent(new KeyboardEvent('keydown', { key: 's', ctrlKey: true }));
+    await flushPromises();
+    expect(api.calls.some((c) => c.method === 'PUT')).toBe(false);
+    wrapper.unmount();
+  });
+
+  it('lets an engineer save with Ctrl-S, sending the input in the project units', async () => {
+    const { wrapper, api } = await mountAs('engineer', (init) => ({ status: 200, body: { ...design, input: JSON.parse(String(init.body)).input } }));
+    const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
+    expect(width.element.disabled).toBe(false);
+    await width.setValue('12.5');
+    await width.trigger('blur');
+    await flushPromises();
+    await vi.waitFor(() => expect(wrapper.find('[data-test="unsaved"]').exists()).toBe(true));
+    window.dispatchEvent(new KeyboardEvent('keydown', { key: 's', ctrlKey: true }));
+    await vi.waitFor(() => expect(api.calls.some((c) => c.method === 'PUT')).toBe(true));
+    const put = api.calls.find((c) => c.method === 'PUT')!;
+    const body = JSON.parse(String(put.init.body)) as { input: StudyInput; options: object };
+    expect(body.input).toEqual({ ...input, basinWidth: 12.5 });
+    expect(body.options).toEqual({});
+    await vi.waitFor(() => expect(wrapper.find('[data-test="unsaved"]').exists()).toBe(false));
+    wrapper.unmount();
+  });
+
+  it("puts a server 422's field message under the field", async () => {
+    const { wrapper } = await mountAs('engineer', () => ({
+      status: 422,
+      body: { code: 'validation_error', message: 'The basin is too wide for this site.', details: { 'input.basinWidth': 'Basin width exceeds the site limit.' } },
+    }));
+    await wrapper.find('[data-test="save-design"]').trigger('click');
+    await vi.waitFor(() => expect(wrapper.find('[data-test="design-error"]').exists()).toBe(true));
+    await flushPromises();
+    expect(wrapper.find('[data-test="design-error"]').text()).toContain('The basin is too wide for this site.');
+    const item = wrapper.find('#design-basinWidth').element.closest('.ant-form-item')!;
+    await vi.waitFor(() => expect(item.querySelector('.ant-form-item-explain-error')?.textContent).toBe('Basin width exceeds the site limit.'));
+    wrapper.unmount();
+  });
+});
