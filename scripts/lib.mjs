@@ -89,7 +89,7 @@ export function ensureNodeModules() {
     !fs.existsSync(stamp) || (fs.existsSync(lock) && fs.statSync(lock).mtimeMs > fs.statSync(stamp).mtimeMs + 1000);
   if (!stale) return;
   log('installing npm dependencies (npm ci)…');
-  run('npm', fs.existsSync(lock) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund']);
+  run('npm', [fs.existsSync(lock) ? 'ci' : 'install', '--no-audit', '--no-fund', '--loglevel=error']);
 }
 
 export function pgBinDir() {
