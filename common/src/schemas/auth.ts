@@ -1,10 +1,11 @@
 import { object, string, type InferType } from 'yup';
+import { lowerString, trimString } from './text';
 import { LIMITS, utf8ByteLength } from './limits';
 
 /** E-mail as stored: trimmed and lowercased, so look-ups and the unique index agree. */
 export const emailSchema = string()
-  .trim()
-  .lowercase()
+  .transform(trimString)
+  .transform(lowerString)
   .required('Enter an e-mail address.')
   .max(LIMITS.emailMaxLength, `An e-mail address has at most ${LIMITS.emailMaxLength} characters.`)
   .email('Enter a valid e-mail address.');
@@ -37,19 +38,19 @@ export const currentPasswordSchema = string()
   );
 
 export const personNameSchema = string()
-  .trim()
+  .transform(trimString)
   .required('Enter your name.')
   .max(LIMITS.personNameMaxLength, `A name has at most ${LIMITS.personNameMaxLength} characters.`);
 
 /** An e-mailed token (reset or invitation). */
 export const emailTokenSchema = string()
-  .trim()
+  .transform(trimString)
   .required('The link is missing its token.')
   .max(LIMITS.tokenMaxLength, 'This link is not valid.');
 
 export const signupSchema = object({
   firmName: string()
-    .trim()
+    .transform(trimString)
     .required('Enter the name of your firm.')
     .max(
       LIMITS.firmNameMaxLength,

@@ -1,4 +1,5 @@
 import { number, object, string, type InferType } from 'yup';
+import { trimString } from './text';
 import {
   LIMITS,
   PROJECT_SORTS,
@@ -15,11 +16,11 @@ import {
 const text = (max: number, label: string) =>
   string()
     .transform((value: unknown, original: unknown) => (original === null ? '' : value))
-    .trim()
+    .transform(trimString)
     .max(max, `${label} has at most ${max} characters.`);
 
 const projectName = string()
-  .trim()
+  .transform(trimString)
   .min(1, 'Enter a project name.')
   .max(
     LIMITS.projectNameMaxLength,
@@ -59,7 +60,7 @@ const blankToUndefined = (value: unknown, original: unknown) =>
 
 export const projectListQuerySchema = object({
   search: string()
-    .trim()
+    .transform(trimString)
     .max(LIMITS.searchMaxLength, `Search has at most ${LIMITS.searchMaxLength} characters.`)
     .default(''),
   sort: string<ProjectSort>()

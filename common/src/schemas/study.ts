@@ -1,8 +1,10 @@
 // Shared yup schemas for the engine's requests: the jump calculator and the whole study.
 // Numbers are in the units named by `units` (the engine converts with toSI); limits here
 // only reject what can never be a valid problem — the engine's RangeErrors cover physics.
-import { array, lazy, number, object, string, type ObjectSchema, type Schema } from 'yup';
+import { array, boolean, lazy, mixed, number, object, string, type ObjectSchema, type Schema } from 'yup';
 import type { Section } from '../hydraulics/sections';
+import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
+import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { StudyInput } from '../study';
 
 export const MAX_STUDY_DISCHARGES = 5000;
@@ -26,9 +28,16 @@ const nonNegative = (label: string) =>
     .required(`Enter ${label}.`);
 const elevation = (label: string) => num(label).required(`Enter ${label}.`);
 
-function byKind<T extends string>(field: string, label: string, schemas: Record<T, Schema>) {
+function byKind<T extends string>(
+  field: string,
+  label: string,
+  schemas: Record<T, Schema>,
+  optional = false,
+) {
   const kinds = Object.keys(schemas) as T[];
   return lazy((value: unknown) => {
+    // An optional choice may be left out altogether (the engine then takes its default).
+    if (optional && value === undefined) return mixed().optional();
     const kind =
       value !== null && typeof value === 'object'
         ? (value as Record<string, unknown>)[field]
@@ -85,6 +94,30 @@ const lossModelSchema = byKind('kind', 'the loss allowance', {
   }),
   lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
 });
+
+const lossModelOptional = byKind(
+  'kind',
+  'the loss allowance',
+  {
+    none: object({ kind: string().required() }),
+    fraction: object({
+      kind: string().required(),
+      value: num('the loss fraction')
+        .min(0, 'The loss fraction must not be negative.')
+        .max(0.95, 'The loss fraction must be below 0.95.')
+        .required('Enter the loss fraction.'),
+    }),
+    velocityCoefficient: object({
+      kind: string().required(),
+      Cv: num('Cv')
+        .min(0.1, 'Cv must be at least 0.1.')
+        .max(1, 'Cv must not exceed 1.')
+        .required('Enter Cv.'),
+    }),
+    lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
+  },
+  true,
+);
 
 const qElevationRows = (label: string) =>
   array(object({ Q: positive('Q'), elevation: elevation('the elevation') }))
@@ -162,7 +195,8 @@ const inflowSchema = byKind('kind', 'the inflow type', {
       }),
       barrel: object({ kind: string().required(), ...manningChannel }),
     }),
-    lossModel: lossModelSchema.optional(),
+    // Optional, as in the StudyInput type: the engine takes 'none' (no loss) when absent.
+    lossModel: lossModelOptional,
   }),
   known: object({
     kind: string().required(),
@@ -214,6 +248,107 @@ const dischargesSchema = byKind('kind', 'the discharges to check', {
   ),
 });
 
+const DISSIPATOR_IDS = DISSIPATOR_CATALOGUE.map((m) => m.id);
+const typeList = DISSIPATOR_IDS.join(', ');
+const DEFAULT_KEYS = new Set(Object.keys(BASIN_DEFAULTS));
+
+/**
+ * Overrides of the dissipator defaults: known keys only (named with their plain-words label),
+ * each a non-negative finite number. Checked as a whole so an unknown key is reported, not
+ * silently dropped by stripUnknown.
+ */
+const defaultsOverrideSchema = mixed<Record<string, number>>()
+  .optional()
+  .test('defaults', 'The default overrides must be an object of numbers.', (v, ctx) => {
+    if (v === undefined || v === null) return true;
+    if (typeof v !== 'object' || Array.isArray(v))
+      return ctx.createError({ message: 'The default overrides must be an object of numbers.' });
+    for (const [key, value] of Object.entries(v as Record<string, unknown>)) {
+      if (!DEFAULT_KEYS.has(key))
+        return ctx.createError({
+          path: `${ctx.path}.${key}`,
+          message: `"${key}" is not a setting of the dissipator catalogue.`,
+        });
+      const label = BASIN_DEFAULT_PROVENANCE[key as keyof typeof BASIN_DEFAULT_PROVENANCE].label;
+      if (typeof value !== 'number' || !Number.isFinite(value) || value < 0)
+        return ctx.createError({
+          path: `${ctx.path}.${key}`,
+          message: `${cap(label)} must be a number not below zero.`,
+        });
+    }
+    return true;
+  });
+
+/**
+ * The dissipator catalogue's options of a study (DissipatorStudyOptions in basins/study.ts):
+ * debris, the culvert at the outlet, the chosen type and alternatives, default overrides, the
+ * flotation case, an extra floor depth, the drawing and the wording units. Lengths in the
+ * units named by the study's `units`.
+ */
+export const dissipatorOptionsSchema = object({
+  debris: string()
+    .oneOf(['none', 'light', 'heavy'], 'Debris must be none, light or heavy.')
+    .optional(),
+  culvert: object({
+    shape: string()
+      .oneOf(['circular', 'box'], 'The culvert shape must be circular or box.')
+      .required('Choose the culvert shape.'),
+    rise: positive('the culvert rise (diameter or height)'),
+    span: num('the culvert span').positive('The culvert span must be greater than zero.').optional(),
+  })
+    .test(
+      'box-span',
+      'A box culvert needs its span.',
+      (c) => !c || c.shape !== 'box' || c.span !== undefined,
+    )
+    .default(undefined)
+    .optional(),
+  chosenType: string()
+    .oneOf(DISSIPATOR_IDS, `The chosen basin type must be one of: ${typeList}.`)
+    .optional(),
+  alternatives: array(
+    string()
+      .oneOf(DISSIPATOR_IDS, `Each alternative basin type must be one of: ${typeList}.`)
+      .required('Name the alternative basin type.'),
+  )
+    .max(DISSIPATOR_IDS.length, `At most ${DISSIPATOR_IDS.length} alternatives.`)
+    .optional(),
+  defaults: defaultsOverrideSchema,
+  flotation: object({
+    upliftElevation: num('the uplift (groundwater) elevation').optional(),
+    waterOnSlabDepth: num('the water depth on the slab')
+      .min(0, 'The water depth on the slab must not be negative.')
+      .optional(),
+    safetyFactor: num('the flotation safety factor')
+      .min(1, 'The flotation safety factor must be at least 1.')
+      .max(3, 'The flotation safety factor must not exceed 3.')
+      .optional(),
+    minThickness: num('the least slab thickness')
+      .positive('The least slab thickness must be greater than zero.')
+      .optional(),
+    monolithic: boolean().typeError('Say whether the walls are cast with the slab (true or false).').optional(),
+  })
+    .default(undefined)
+    .optional(),
+  extraFloorDepth: num('the extra floor depth')
+    .min(0, 'The extra floor depth must not be negative.')
+    .optional(),
+  units: string().oneOf(['SI', 'US'], 'The wording units must be SI or US.').optional(),
+  drawing: object({
+    flowBearingDeg: num('the flow bearing')
+      .min(0, 'The flow bearing must lie between 0 and 360 degrees.')
+      .max(360, 'The flow bearing must lie between 0 and 360 degrees.')
+      .optional(),
+    chuteSlope: num('the chute slope drawn')
+      .positive('The chute slope drawn must be greater than zero.')
+      .optional(),
+  })
+    .default(undefined)
+    .optional(),
+})
+  .default(undefined)
+  .optional();
+
 /** The whole study request (POST /calc/study), in the units named by `units`. */
 export const studyInputSchema = object({
   units: string()
@@ -241,6 +376,7 @@ export const studyInputSchema = object({
   jumpLengthMethod: string()
     .oneOf(['usbr', 'hager'], 'The jump length method must be usbr or hager.')
     .optional(),
+  dissipators: dissipatorOptionsSchema,
 }) as unknown as ObjectSchema<StudyInput>;
 
 /** Narrow type guard for code that validated with studyInputSchema. */
