@@ -7,6 +7,8 @@ import type { Role } from './schemas/limits';
 export const POLICY = {
   'session.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'session.end': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'profile.update': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'password.change': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'members.list': ['owner', 'admin'],
   'members.update': ['owner', 'admin'],
   'invitations.list': ['owner', 'admin'],

@@ -38,6 +38,7 @@ import {
 } from './basins/study';
 import type { TypeScreening } from './basins/screening';
 import type { DissipatorTypeId } from './basins/types';
+import { phraser, type Phraser } from './units/phrase';
 
 export type UnitSystem = 'SI' | 'US';
 
@@ -193,7 +194,7 @@ export interface StudyResult {
   > | null;
 }
 
-/** The cautions carried by every result (product.md; hydraulics.md §7). */
+/** The cautions carried by every result (product.md; hydraulics.md §7), SI wording. */
 export const STUDY_CAUTIONS: readonly string[] = [
   'Concept level only: verify with detailed design before construction.',
   'Large or high-hazard structures, inflow velocities above 15 m/s, Froude numbers outside the tested ranges and asymmetric approach flow call for physical or numerical model studies.',
@@ -204,6 +205,18 @@ export const STUDY_CAUTIONS: readonly string[] = [
   'Consider debris and ice for the basin type chosen.',
   'The design must be reviewed and sealed by a licensed professional engineer and follow local codes and dam-safety regulations.',
 ];
+
+/** The cautions in the wording of a unit system (the 15 m/s threshold is about 50 ft/s). */
+export function studyCautions(units: UnitSystem = 'SI'): string[] {
+  if (units !== 'US') return [...STUDY_CAUTIONS];
+  return STUDY_CAUTIONS.map((c) => c.replace('inflow velocities above 15 m/s', 'inflow velocities above about 50 ft/s (15 m/s)'));
+}
+
+/** Options of runStudy that do not change any number. */
+export interface StudyOptions {
+  /** unit system of warnings, notes and screening reasons; default the input's `units` */
+  units?: UnitSystem;
+}
 
 const DEFAULTS = {
   tailwaterFactor: 1,
@@ -268,7 +281,7 @@ function withGate(t: ToeConditions): Toe {
   return { q: t.q, y1: t.y1, v1: t.v1, fr1: t.fr1, H0: t.H0, headLoss: t.headLoss, gate: null };
 }
 
-function prepare(input: StudyInput): Prepared {
+function prepare(input: StudyInput, P: Phraser = phraser('SI')): Prepared {
   if (input === null || typeof input !== 'object')
     throw new RangeError('input must be a study object');
   if (input.units !== 'SI' && input.units !== 'US')
@@ -304,7 +317,7 @@ function prepare(input: StudyInput): Prepared {
   const outside = Qs.filter((_, i) => tws[i]!.outside !== null);
   if (outside.length > 0) {
     warnings.push(
-      `${outside.length} discharge(s) lie outside the tailwater rating table (${outside[0]!.toPrecision(4)}${outside.length > 1 ? ' …' : ''} m³/s); the tailwater there is extended in a straight line from the end of the table — extend the table.`,
+      `${outside.length} discharge(s) lie outside the tailwater rating table (${P.Q(outside[0]!)}${outside.length > 1 ? ' …' : ''}); the tailwater there is extended in a straight line from the end of the table — extend the table.`,
     );
   }
   const inflow = input.inflow;
@@ -491,7 +504,7 @@ function prepare(input: StudyInput): Prepared {
       const qDesign = Qd / b;
       if (Math.abs(k.q - qDesign) > 0.01 * qDesign) {
         warnings.push(
-          `The toe conditions give q = ${k.q.toPrecision(4)} m²/s but the design discharge over the basin width gives ${qDesign.toPrecision(4)} m²/s; the toe velocity ${k.v1.toPrecision(4)} m/s is used with the basin's unit discharge.`,
+          `The toe conditions give q = ${P.q(k.q)} but the design discharge over the basin width gives ${P.q(qDesign)}; the toe velocity ${P.vel(k.v1)} is used with the basin's unit discharge.`,
         );
       }
       warnings.push(
@@ -712,8 +725,13 @@ export function analyseRange(
  * excavation, design-discharge jump and diagrams, warnings and cautions. SI in, SI out.
  * [hydraulics.md §1–3, §7]
  */
-export function runStudy(input: StudyInput): StudyResult {
-  const p = prepare(input);
+export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyResult {
+  if (options.units !== undefined && options.units !== 'SI' && options.units !== 'US')
+    throw new RangeError(`options.units must be 'SI' or 'US'`);
+  const units: UnitSystem =
+    options.units ?? input?.dissipators?.units ?? (input?.units === 'US' ? 'US' : 'SI');
+  const P = phraser(units);
+  const p = prepare(input, P);
   const C = input.tailwaterFactor ?? DEFAULTS.tailwaterFactor;
   const warnings = [...p.warnings];
   const fixed = input.floorElevation !== undefined;
@@ -749,26 +767,26 @@ export function runStudy(input: StudyInput): StudyResult {
 
   if (fixed && solved && z > solved.elevation + 1e-6) {
     warnings.push(
-      `The fixed floor ${z.toFixed(3)} m is above the highest floor that holds the jump at every discharge (${solved.elevation.toFixed(3)} m).`,
+      `The fixed floor at elevation ${P.value(z, 'length').toFixed(units === 'US' ? 2 : 3)} ${P.unit('length')} is above the highest floor that holds the jump at every discharge (${P.value(solved.elevation, 'length').toFixed(units === 'US' ? 2 : 3)} ${P.unit('length')}).`,
     );
   }
   const swept = rows.filter((r) => r.position === 'swept-out');
   if (swept.length > 0) {
     warnings.push(
-      `Sweep-out: tailwater is short of the sequent depth at ${swept.length} discharge(s), from ${swept[0]!.Q.toPrecision(4)} m³/s.`,
+      `Sweep-out: tailwater is short of the sequent depth at ${swept.length} discharge(s), from ${P.Q(swept[0]!.Q)}.`,
     );
   }
   const drowned = rows.filter((r) => r.position === 'drowned');
   if (drowned.length > 0) {
     const worst = drowned.reduce((a, r) => (r.submergenceRatio > a.submergenceRatio ? r : a));
     warnings.push(
-      `Excess submergence at ${drowned.length} discharge(s): up to ${(worst.submergenceRatio * 100).toFixed(0)} % above the sequent depth (Q = ${worst.Q.toPrecision(4)} m³/s); a drowned jump dissipates less energy.`,
+      `Excess submergence at ${drowned.length} discharge(s): up to ${(worst.submergenceRatio * 100).toFixed(0)} % above the sequent depth (Q = ${P.Q(worst.Q)}); a drowned jump dissipates less energy.`,
     );
   }
   const vMax = Math.max(...rows.map((r) => r.v1), jump.v1);
   if (vMax > 15)
     warnings.push(
-      `Inflow velocity reaches ${vMax.toFixed(1)} m/s (> 15 m/s): cavitation risk on blocks; model study advised.`,
+      `Inflow velocity reaches ${P.vel(vMax)} (> ${units === 'US' ? P.vel(15) : '15 m/s'}): cavitation risk on blocks; model study advised.`,
     );
   const osc = rows.filter((r) => r.jumpClass === 'oscillating');
   if (osc.length > 0)
@@ -793,7 +811,7 @@ export function runStudy(input: StudyInput): StudyResult {
   // Dissipators: each type on its own floor, screened, the chosen one and the alternatives designed.
   let dissipators: DissipatorStudyResult | null = null;
   try {
-    dissipators = designDissipators(input, input.dissipators ?? {});
+    dissipators = designDissipators(input, { ...(input.dissipators ?? {}), units });
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
     warnings.push(`Dissipator screening and sizing could not run: ${e.message}`);
@@ -834,7 +852,7 @@ export function runStudy(input: StudyInput): StudyResult {
     },
     diagrams: jumpDiagrams(p.basin, Qd, jump.y1, jump.y2, twDepth > 0 ? twDepth : null),
     warnings,
-    cautions: [...STUDY_CAUTIONS],
+    cautions: studyCautions(units),
     screening: dissipators?.screening ?? [],
     recommendedType: dissipators?.recommended ?? null,
     design: dissipators?.design ?? null,

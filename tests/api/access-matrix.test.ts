@@ -9,6 +9,7 @@ import {
   signUpFirm,
   startApi,
   uniqueEmail,
+  TEST_PASSWORD,
   type ApiHarness,
 } from '../support/api-app';
 
@@ -58,6 +59,23 @@ const routes: RouteCase[] = [
     path: '/auth/logout',
     success: 204,
     prepare: async () => ({ url: '/auth/logout' }),
+  },
+  {
+    action: 'profile.update',
+    method: 'patch',
+    path: '/auth/me',
+    success: 200,
+    prepare: async () => ({ url: '/auth/me', body: { name: 'Renamed in the matrix' } }),
+  },
+  {
+    action: 'password.change',
+    method: 'post',
+    path: '/auth/change-password',
+    success: 200,
+    prepare: async () => ({
+      url: '/auth/change-password',
+      body: { currentPassword: TEST_PASSWORD, newPassword: 'a brand new password' },
+    }),
   },
   {
     action: 'members.list',

@@ -163,6 +163,30 @@ describe('POST /api/v1/calc/study', () => {
     expect(sub.status).toBe(422);
     expect(sub.body.message).toMatch(/not supercritical/);
   });
+  it('passes the dissipator options through: chosen type and a default override reach the engine', async () => {
+    const res = await study({ ...demo, dissipators: { chosenType: 'usbr-2', defaults: { riprapLengthRatio: 6 } } });
+    expect(res.status).toBe(200);
+    expect(res.body.input.dissipators).toEqual({ chosenType: 'usbr-2', defaults: { riprapLengthRatio: 6 } });
+    expect(res.body.design.type).toBe('usbr-2');
+    // riprap length = ratio × y2 [from memory: 4–6·y2 habit; here the override 6]
+    expectRel(res.body.design.design.riprap.length, 6 * res.body.design.design.sizing.y2, 1e-12);
+    const bad = await study({ ...demo, dissipators: { chosenType: 'moat', defaults: { colour: 1 } } });
+    expect(bad.status).toBe(422);
+    expect(bad.body.details['dissipators.chosenType']).toMatch(/must be one of/);
+    expect(bad.body.details['dissipators.defaults.colour']).toMatch(/not a setting/);
+  });
+  it('a pipe inflow needs no lossModel (optional, default none)', async () => {
+    const res = await study({
+      ...demo,
+      inflow: {
+        kind: 'pipe',
+        invertElevation: 95,
+        outlet: { kind: 'table', rows: [{ Q: 1, depth: 0.5, velocity: 5 }, { Q: 100, depth: 2, velocity: 9 }] },
+      },
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.rows.length).toBe(9);
+  });
   it('is documented in the OpenAPI file', async () => {
     const res = await h.http().get('/api/v1/openapi.json');
     expect(res.status).toBe(200);

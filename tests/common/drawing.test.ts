@@ -1,7 +1,12 @@
 // Drawing geometry invariants and the shared SVG renderer.
 import { describe, expect, it } from 'vitest';
-import { buildBasinDrawing, designDissipators, designJumpBasin, drawingToSvg, drawingView, freeboard, type DesignRow, type Drawing, type JumpBasinDesign, type PolylineItem } from '../../common/src/basins';
-import type { StudyInput } from '../../common/src/study';
+import { buildBasinDrawing, designDissipators, designJumpBasin, drawingToSvg, drawingView, formatSI, freeboard, type DesignRow, type Drawing, type JumpBasinDesign, type PolylineItem } from '../../common/src/basins';
+import { boxesOverlap, layoutDrawing, scaleBarLength, textBox, type Box, type DrawingFormatter } from '../../common/src/basins/svg';
+import type { DrawingQuantity } from '../../common/src/basins/drawing';
+import { runStudy, type StudyInput } from '../../common/src/study';
+import { toSI } from '../../common/src/units';
+import { caldwellDesign, fenwickDesign } from '../../seed/designs';
+import { expectRel } from '../support/tolerance';
 
 // The demo project of product.md (invented scenario).
 const DEMO: StudyInput = {
@@ -115,7 +120,7 @@ describe('drawingToSvg', () => {
     expect(svg).toContain(`${len.toFixed(2)} m`);
   });
   it('labels go through the caller’s formatter (US users see feet)', () => {
-    const ft = drawingToSvg(drawing, { format: (v, q) => (q === 'count' ? String(v) : q === 'discharge' ? `${(v / 0.028316846592).toFixed(0)} cfs` : `${(v / 0.3048).toFixed(1)} ft`) });
+    const ft = drawingToSvg(drawing, { format: (v, q) => (q === 'count' ? String(v) : q === 'discharge' ? `${(v / 0.028316846592).toFixed(0)} cfs` : `${(v / 0.3048).toFixed(1)} ft`), scaleUnit: { label: 'ft', metres: 0.3048 } });
     const len = (demo.design!.design as JumpBasinDesign).length;
     expect(ft).toContain(`${(len / 0.3048).toFixed(1)} ft`);
     expect(ft).toContain('cfs');
@@ -130,5 +135,110 @@ describe('drawingToSvg', () => {
     const d = buildBasinDrawing(demo.design!.design, { flowBearingDeg: 90 });
     expect(drawingView(d, 'plan').items.some((i) => i.kind === 'arrow' && i.role === 'north')).toBe(true);
     expect(drawingToSvg(d)).toContain('arrow-north');
+  });
+});
+
+// Label layout, scale bar and dimension values of the two demo drawings (invented scenario,
+// seed/designs.ts) as the web app draws them: SI in metres, US in feet.
+describe('drawing layout at the rendered size', () => {
+  const FT = 0.3048; // international foot, exact by definition [src: NIST SP 811]
+  const feet: DrawingFormatter = (v, q) => (q === 'count' ? String(Math.round(v)) : q === 'discharge' ? `${(v / FT ** 3).toFixed(1)} cfs` : `${(v / FT).toFixed(2)} ft`);
+  const demos = [
+    { name: 'Fenwick (SI)', input: fenwickDesign, format: formatSI, unit: { label: 'm', metres: 1 } },
+    { name: 'Caldwell (US)', input: toSI(caldwellDesign), format: feet, unit: { label: 'ft', metres: FT } },
+  ];
+  const jumpTypes = (['usbr-2', 'usbr-3', 'saf', 'usbr-4', 'usbr-1'] as const).map((type) => {
+    const fr = type === 'usbr-4' ? 3.5 : 7;
+    return { name: type, drawing: buildBasinDrawing(designJumpBasin({ type, width: 4, floorElevation: 50, channelBedElevation: 52, designQ: 1e9, rows: rows(4, fr, 9, 50), governingQ: null })) };
+  });
+  const sheets = [...demos.map((d) => ({ name: d.name, drawing: runStudy(d.input).design!.drawing, format: d.format, unit: d.unit })), ...jumpTypes.map((j) => ({ ...j, format: formatSI, unit: { label: 'm', metres: 1 } }))];
+
+  describe.each(sheets)('$name', ({ drawing, format, unit }) => {
+    it.each([760, 1100])('no two text boxes overlap at %i px (boxes from the layout’s own text-width estimate)', (width) => {
+      const lay = layoutDrawing(drawing, { format, width });
+      for (const { layout } of lay.views) {
+        // each label's box recomputed from its text, size, baseline and anchor
+        const boxes: Array<[string, Box]> = layout.labels.map((l) => [`label ${l.role}`, textBox(l.text, l.size, l.x, l.y, l.anchor)]);
+        for (const d of layout.dimensions) boxes.push([`dimension ${d.role}`, d.box]);
+        layout.arrowBoxes.forEach((b, i) => boxes.push([`arrow ${i}`, b]));
+        expect(layout.labels.length + layout.dimensions.length).toBeGreaterThan(0);
+        for (let i = 0; i < boxes.length; i++) {
+          for (let j = i + 1; j < boxes.length; j++) {
+            const [na, a] = boxes[i]!, [nb, b] = boxes[j]!;
+            expect(boxesOverlap(a, b), `${layout.view.id}: ${na} overlaps ${nb}`).toBe(false);
+          }
+        }
+      }
+    });
+    it('the scale bar is a round length (1, 2 or 5 × 10ⁿ) in the chosen unit [common practice]', () => {
+      const svg = drawingToSvg(drawing, { format, width: 1100, scaleUnit: unit });
+      const m = /data-role="scale-bar" data-length="([\d.e-]+)" data-unit="([^"]+)" data-length-px="([\d.]+)"/.exec(svg);
+      expect(m).not.toBeNull();
+      const len = Number(m![1]);
+      expect(m![2]).toBe(unit.label);
+      const mant = len / Math.pow(10, Math.floor(Math.log10(len) + 1e-9));
+      expect([1, 2, 5].some((k) => Math.abs(mant - k) < 1e-9), `scale bar ${len} ${unit.label}`).toBe(true);
+      // the bar is drawn to the sheet's scale: its px length is its true length times px per metre
+      const scale = Number(/data-scale-px-per-m="([\d.]+)"/.exec(svg)![1]);
+      expectRel(Number(m![3]), len * unit.metres * scale, 0.01);
+      expect(svg).toContain(`>${len} ${unit.label}<`);
+      expect(svg).not.toMatch(/\d\.\d+ (ft|m)<\/text><\/g><g data-role="title-block"/);
+    });
+    it('carries the flow arrow and a title block with the cautions', () => {
+      const svg = drawingToSvg(drawing, { format, width: 1100, scaleUnit: unit });
+      expect(svg).toContain('arrow-flow');
+      expect(svg).toContain('data-role="title-block"');
+      expect(svg).toContain('licensed professional engineer');
+    });
+  });
+
+  it('scaleBarLength picks the nearest of 1-2-5 steps to a fifth of the span [common practice]', () => {
+    expect(scaleBarLength(82)).toBe(20); // 16.4 → 20
+    expect(scaleBarLength(49)).toBe(10); // 9.8 → 10
+    expect(scaleBarLength(23)).toBe(5); // 4.6 → 5
+    expect(() => scaleBarLength(0)).toThrow(RangeError);
+  });
+
+  it.each(demos)('$name: every dimension is positive and equals the design value it names', ({ input }) => {
+    const out = runStudy(input).design!;
+    const d = out.design as JumpBasinDesign;
+    expect(d.family).toBe('jump-basin');
+    const want: Record<string, number> = {
+      'basin-length': d.length,
+      'basin-width': d.width,
+      'wall-height': d.walls.height,
+      'riprap-length': d.riprap.length,
+      ...(d.endSill.height > 0 ? { 'sill-height': d.endSill.height } : {}),
+      ...(d.flare ? { 'flare-length': d.flare.length } : {}),
+      ...(d.baffleBlocks ? { 'baffle-distance': d.baffleBlocks.distanceFromUpstream } : {}),
+    };
+    const seen = new Set<string>();
+    for (const v of out.drawing.views) {
+      for (const it of v.items) {
+        if (it.kind !== 'dimension') continue;
+        expect(it.value, it.role).toBeGreaterThan(0);
+        const w = want[it.role];
+        expect(w, `dimension ${it.role} names a design value`).toBeDefined();
+        expectRel(it.value, w!, 1e-9);
+        seen.add(it.role);
+      }
+    }
+    for (const role of ['basin-length', 'basin-width', 'wall-height', 'riprap-length']) expect(seen.has(role), role).toBe(true);
+    if (d.endSill.height > 0) expect(seen.has('sill-height')).toBe(true);
+    // elevations and block call-outs carry the design's own numbers
+    const section = drawingView(out.drawing, 'section').items.filter((i) => i.kind === 'label');
+    const plan = drawingView(out.drawing, 'plan').items.filter((i) => i.kind === 'label');
+    const valueOf = (items: typeof section, role: string, k = 0): number => {
+      const l = items.find((i) => i.role === role);
+      const parts = l && l.kind === 'label' ? l.parts.filter((p): p is { value: number; quantity: DrawingQuantity } => typeof p !== 'string') : [];
+      return parts[k]!.value;
+    };
+    expectRel(valueOf(section, 'floor-elevation'), d.floorElevation, 1e-12);
+    expectRel(valueOf(section, 'wall-top-elevation'), d.walls.topElevation, 1e-12);
+    if (d.chuteBlocks) {
+      expect(valueOf(plan, 'chute-blocks', 0)).toBe(d.chuteBlocks.count);
+      expectRel(valueOf(plan, 'chute-blocks', 1), d.chuteBlocks.height, 1e-12);
+    }
+    if (d.baffleBlocks) expect(valueOf(plan, 'baffle-blocks', 0)).toBe(d.baffleBlocks.count);
   });
 });

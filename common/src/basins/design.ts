@@ -5,10 +5,10 @@ import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults }
 import { slabFlotation, type FlotationResult } from './flotation';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqFinite, reqPositive, roundUp } from './guards';
-import { jumpRules, sizeJumpBasin } from './jumpBasin';
+import { jumpRules, jumpWarningItems, sizeJumpBasin, type JumpWarning } from './jumpBasin';
 import { designCulvertApron, riprapBelowSill, type CulvertApron, type RiprapProtection } from './riprap';
 import type { BaffleSet, BlockSet, DischargeRow, EndSill, JumpBasinSizing, JumpBasinType } from './types';
-import { n3 } from './types/shared';
+import { n3, phraser, type Phraser, type PhraseUnits } from '../units/phrase';
 import { sizeImpactBasin, type ImpactBasinSizing } from './types/usbr6';
 import { sizeBaffledApron, type BaffledApronSizing } from './types/usbr9';
 
@@ -24,6 +24,8 @@ export interface DesignOptions {
   flotation?: { upliftElevation?: number; waterOnSlabDepth?: number; safetyFactor?: number; minThickness?: number; monolithic?: boolean };
   /** extra depth to set the floor below the solved one, m (a margin against sweep-out) */
   extraFloorDepth?: number;
+  /** unit system of warnings, notes and reasons (numbers stay SI); default SI, in a study the input's units */
+  units?: PhraseUnits;
 }
 
 export interface ConcreteQuantities {
@@ -103,6 +105,8 @@ function pickDesignRow<T extends DischargeRow>(rows: readonly T[], Q: number): T
  */
 export function designJumpBasin(input: JumpDesignInput, options: DesignOptions = {}): JumpBasinDesign {
   const d = resolveDefaults(options.defaults);
+  const units = options.units ?? 'SI';
+  const P = phraser(units);
   const W = reqPositive('width', input.width);
   const zf = reqFinite('floorElevation', input.floorElevation);
   const zb = reqFinite('channelBedElevation', input.channelBedElevation);
@@ -117,7 +121,7 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     return { Q: r.Q, fr1: s.fr1, v1: s.v1, y1: r.y1, y2: s.y2, tailwaterDepth: tw, requiredDepth: req, margin: tw - req, length: s.length, s };
   });
   const maxTw = Math.max(...rows.map((r) => r.tailwaterDepth));
-  const sizing = sizeJumpBasin(input.type, { width: W, Q: dr.Q, y1: dr.y1 }, { defaults: d, maxTailwaterDepth: Math.max(0, maxTw) });
+  const sizing = sizeJumpBasin(input.type, { width: W, Q: dr.Q, y1: dr.y1 }, { defaults: d, maxTailwaterDepth: Math.max(0, maxTw), units });
   const longest = rows.reduce((a, r) => (r.length > a.length ? r : a));
   const length = Math.max(longest.length, sizing.length);
   const app = rules.appurtenances({ fr1: sizing.fr1, y1: sizing.y1, y2: sizing.y2, width: W, length, d });
@@ -155,6 +159,7 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     wallThickness: wallT,
     wallHeight,
     safetyFactor: fl.safetyFactor ?? d.flotationSafetyFactor,
+    units,
     minThickness: fl.minThickness ?? d.minSlabThickness,
     concreteUnitWeight: d.concreteUnitWeight,
     waterUnitWeight: d.waterUnitWeight,
@@ -197,13 +202,16 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     basis: 'neat-line volumes of the concept geometry (slab under the walls, walls full height over the basin length, wingwalls tapering to half height, blocks as prisms, sill by its section)',
   };
 
-  const warnings = designWarnings(input.type, rows, sizing, d, rules.froudeRange);
+  const items = jumpWarningItems(input.type, { fr1: sizing.fr1, v1: sizing.v1, q: sizing.q, y2: sizing.y2, length: sizing.length }, rules, d, units);
+  const own = new Set(items.map((w) => w.text));
+  for (const text of sizing.warnings) if (!own.has(text)) items.push({ topic: 'narrow', text });
+  const warnings = designWarnings(input.type, rows, items, d, rules.froudeRange, P);
   warnings.push(...slab.notes);
   if (input.governingQ !== undefined && input.governingQ !== null) {
     const g = rows.reduce((a, r) => (r.margin < a.margin ? r : a));
     if (g.margin < 0.05 * g.y2) {
       warnings.push(
-        `Sweep-out margin: at ${n3(g.Q)} m³/s the tailwater exceeds the required ${n3(g.requiredDepth)} m by only ${n3(Math.max(0, g.margin))} m; lower the floor (extraFloorDepth) for a margin`,
+        `Sweep-out margin: at ${P.Q(g.Q)} the tailwater exceeds the required ${P.len(g.requiredDepth)} by only ${P.len(Math.max(0, g.margin))}; set an extra floor depth (lowers the floor) for a margin`,
       );
     }
   }
@@ -246,37 +254,40 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
   return design;
 }
 
+/**
+ * The design's warnings: the sizing's (at the design discharge) and the range-wide ones, each
+ * topic said once — a range-wide caution replaces the design-discharge one on the same topic
+ * (cavitation, oscillating jump, Froude range), so one V1 never yields two cavitation lines.
+ */
 function designWarnings(
   type: JumpBasinType,
   rows: ReadonlyArray<{ Q: number; fr1: number; v1: number; y2: number; tailwaterDepth: number; requiredDepth: number }>,
-  sizing: JumpBasinSizing,
+  sizing: readonly JumpWarning[],
   d: BasinDefaults,
   range: readonly [number, number],
+  P: Phraser,
 ): string[] {
-  const w = [...sizing.warnings];
-  const seen = new Set(w);
-  const add = (s: string): void => {
-    if (!seen.has(s)) {
-      seen.add(s);
-      w.push(s);
-    }
-  };
+  const ranged: Array<{ topic: JumpWarning['topic'] | 'submergence' | 'sweepOut'; text: string }> = [];
   const vMax = rows.reduce((a, r) => (r.v1 > a.v1 ? r : a));
-  if (type !== 'usbr-1' && vMax.v1 > d.cavitationVelocity) {
-    add(`Cavitation risk: inflow velocity reaches ${n3(vMax.v1)} m/s at ${n3(vMax.Q)} m³/s (> ${n3(d.cavitationVelocity)} m/s); model study advised`);
+  const strongVelocity = sizing.some((w) => w.topic === 'velocity');
+  if (type !== 'usbr-1' && vMax.v1 > d.cavitationVelocity && !strongVelocity) {
+    ranged.push({ topic: 'cavitation', text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${P.vel(d.cavitationVelocity)}); model study advised` });
   }
   const osc = rows.filter((r) => r.fr1 >= 2.5 && r.fr1 < 4.5);
-  if (osc.length > 0) add(`Oscillating jump (Fr1 2.5–4.5) at ${osc.length} discharge(s) from ${n3(osc[0]!.Q)} m³/s: waves downstream; wave suppressors may be needed`);
+  if (osc.length > 0) ranged.push({ topic: 'oscillating', text: `Oscillating jump (Fr1 2.5–4.5) at ${osc.length} discharge(s) from ${P.Q(osc[0]!.Q)}: waves downstream; wave suppressors may be needed` });
   const out = rows.filter((r) => r.fr1 < range[0] || r.fr1 > range[1]);
-  if (out.length > 0) add(`Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${n3(out[0]!.Q)} m³/s)`);
+  if (out.length > 0) ranged.push({ topic: 'froude', text: `Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${P.Q(out[0]!.Q)}): model study` });
   const excess = rows.filter((r) => r.tailwaterDepth > d.excessSubmergenceRatio * r.requiredDepth);
   if (excess.length > 0) {
     const worst = excess.reduce((a, r) => (r.tailwaterDepth / r.requiredDepth > a.tailwaterDepth / a.requiredDepth ? r : a));
-    add(`Excess submergence at ${excess.length} discharge(s): tailwater up to ${n3(worst.tailwaterDepth / worst.requiredDepth)}× the required depth (at ${n3(worst.Q)} m³/s); the jump is drowned and dissipates less`);
+    ranged.push({ topic: 'submergence', text: `Excess submergence at ${excess.length} discharge(s): tailwater up to ${n3(worst.tailwaterDepth / worst.requiredDepth)}× the required depth (at ${P.Q(worst.Q)}); the jump is drowned and dissipates less` });
   }
   const short = rows.filter((r) => r.tailwaterDepth < r.requiredDepth - 1e-6);
-  if (short.length > 0) add(`Tailwater short of the required depth at ${short.length} discharge(s) from ${n3(short[0]!.Q)} m³/s: the jump sweeps out`);
-  return w;
+  if (short.length > 0) ranged.push({ topic: 'sweepOut', text: `Tailwater short of the required depth at ${short.length} discharge(s) from ${P.Q(short[0]!.Q)}: the jump sweeps out` });
+  const covered = new Set(ranged.map((r) => r.topic));
+  // A velocity "not advised" at the design discharge also covers a cavitation caution there.
+  const keep = sizing.filter((w) => !covered.has(w.topic) && !(w.topic === 'cavitation' && strongVelocity));
+  return [...new Set([...keep.map((w) => w.text), ...ranged.map((r) => r.text)])];
 }
 
 export interface ImpactBasinDesign {
@@ -308,7 +319,7 @@ export function designImpactBasin(
   const zf = reqFinite('floorElevation', c.floorElevation);
   const dr = pickDesignRow(c.rows, c.designQ);
   const maxTw = Math.max(...c.rows.map((r) => r.tailwaterElevation - zf));
-  const s = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) }, d);
+  const s = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) }, d, options.units ?? 'SI');
   const t = roundUp(Math.max(d.minWallThickness, s.width / 12), 0.05);
   const vExit = dr.Q / (s.width * Math.max(s.endSill.height, dr.tailwaterElevation - zf - s.endSill.height, 0.1));
   const riprap = riprapBelowSill({ velocity: vExit, y2: s.wallHeight, width: s.width, lengthRatio: d.riprapLengthRatio, minThickness: d.riprapMinThickness });
@@ -361,7 +372,7 @@ export function designBaffledApron(
 ): BaffledApronDesign {
   const d = resolveDefaults(options.defaults);
   const drop = reqFinite('crestElevation', c.crestElevation) - reqFinite('channelBedElevation', c.channelBedElevation);
-  const s = sizeBaffledApron({ Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) }, d);
+  const s = sizeBaffledApron({ Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) }, d, options.units ?? 'SI');
   const t = d.minSlabThickness;
   const slab = s.slopeLength * (c.width + 2 * d.minWallThickness) * t;
   const walls = 2 * s.slopeLength * s.wallHeight * d.minWallThickness;
@@ -412,6 +423,7 @@ export function designRiprapApron(
     shape: c.culvert.shape,
     ...(c.culvert.span !== undefined ? { span: c.culvert.span } : {}),
     ...(tw !== undefined ? { tailwater: tw } : {}),
+    units: options.units ?? 'SI',
   });
   return {
     family: 'riprap-apron',

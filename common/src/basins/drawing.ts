@@ -45,6 +45,10 @@ export interface LabelItem {
   parts: LabelPart[];
   anchor: 'start' | 'middle' | 'end';
   size: 'small' | 'normal';
+  /** which side of `at` the text goes (the renderer keeps a px gap and moves it if crowded) */
+  place?: 'above' | 'below' | 'left' | 'right' | 'on';
+  /** the feature the label names, when `at` is not on it: a leader is drawn to it */
+  target?: Pt;
   role: string;
 }
 
@@ -72,13 +76,27 @@ export interface Drawing {
   title: string;
   views: DrawingView[];
   notes: string[];
+  /** the cautions, in one line for the title block */
+  caution?: string;
 }
+
+/** The cautions of product.md, short enough for a drawing's title block. */
+export const DRAWING_CAUTION =
+  'Concept level only: verify by detailed design (model studies for large or high-hazard structures); check cavitation, sweep-out, uplift and scour; to be reviewed and sealed by a licensed professional engineer and to follow local codes and dam-safety regulations.';
 
 const P = (x: number, y: number): Pt => ({ x, y });
 const rect = (x0: number, y0: number, x1: number, y1: number): Pt[] => [P(x0, y0), P(x1, y0), P(x1, y1), P(x0, y1)];
 const poly = (role: string, points: Pt[], style: LineStyle = 'concrete', fill: FillStyle = 'concrete', closed = true): PolylineItem => ({ kind: 'polyline', role, style, fill, closed, points });
 const dim = (role: string, from: Pt, to: Pt, offset: number): DimensionItem => ({ kind: 'dimension', role, from, to, offset, value: Math.hypot(to.x - from.x, to.y - from.y), quantity: 'length' });
-const label = (role: string, at: Pt, parts: LabelPart[], anchor: LabelItem['anchor'] = 'middle', size: LabelItem['size'] = 'small'): LabelItem => ({ kind: 'label', role, at, parts, anchor, size });
+interface LabelOpts {
+  anchor?: LabelItem['anchor'];
+  place?: LabelItem['place'];
+  target?: Pt;
+  size?: LabelItem['size'];
+}
+const label = (role: string, at: Pt, parts: LabelPart[], o: LabelOpts = {}): LabelItem => ({
+  kind: 'label', role, at, parts, anchor: o.anchor ?? 'middle', size: o.size ?? 'small', place: o.place ?? 'above', ...(o.target ? { target: o.target } : {}),
+});
 const v = (value: number, quantity: DrawingQuantity = 'length'): LabelPart => ({ value, quantity });
 
 function boundsOf(items: DrawingItem[], pad: number): DrawingView['bounds'] {
@@ -205,15 +223,16 @@ function jumpBasinDrawing(d: JumpBasinDesign, opts: DrawingOptions): Drawing {
   if (sill.height > 0) sec.push(dim('sill-height', P(L - sill.length - 0.4, zf), P(L - sill.length - 0.4, zs), 0.6));
   const rBottom = Math.min(ground(L), ground(xr)) - d.riprap.thickness - 0.3;
   sec.push(dim('riprap-length', P(L, rBottom), P(xr, rBottom), -0.6));
-  sec.push(label('floor-elevation', P(L * 0.5, zf - t - 0.35), ['Floor El. ', v(zf, 'elevation')]));
-  sec.push(label('wall-top-elevation', P(L * 0.5, zt + 0.25), ['Top of wall El. ', v(zt, 'elevation')]));
-  sec.push(label('tailwater-elevation', P(L + ramp + 1, w.tailwaterElevation + 0.25), ['Tailwater El. ', v(w.tailwaterElevation, 'elevation'), ' at Q = ', v(w.Q, 'discharge')], 'start'));
-  sec.push(label('bed-elevation', P(xEnd, d.channelBedElevation - 0.4), ['Channel bed El. ', v(d.channelBedElevation, 'elevation')], 'end'));
-  sec.push(label('y1', P(0.2, zf + w.y1 + 0.2), ['y1 = ', v(w.y1)], 'start'));
-  sec.push(label('y2', P(Lj, zf + ytw + 0.2), ['y2 = ', v(w.y2)], 'middle'));
-  sec.push(label('slab', P(L * 0.25, zf - t / 2), ['Slab ', v(t), ' thick'], 'middle'));
-  sec.push(label('riprap', P((L + xr) / 2, ground((L + xr) / 2) + 0.35), ['Riprap D50 ', v(d.riprap.d50), ', ', v(d.riprap.thickness), ' thick'], 'middle'));
-  sec.push(label('sill', P(L - sill.length / 2, zs + Math.max(0.6, 0.12 * H)), [sill.height > 0 ? `${sill.kind === 'dentated' ? 'Dentated' : 'Solid'} end sill` : 'No end sill'], 'middle'));
+  // Labels sit on their feature; the renderer keeps them apart at the rendered scale.
+  sec.push(label('floor-elevation', P(L * 0.55, zf), ['Floor El. ', v(zf, 'elevation')], { place: 'above' }));
+  sec.push(label('wall-top-elevation', P(L * 0.5, zt), ['Top of wall El. ', v(zt, 'elevation')], { place: 'above' }));
+  sec.push(label('tailwater-elevation', P(xEnd, w.tailwaterElevation), ['Tailwater El. ', v(w.tailwaterElevation, 'elevation'), ' at Q = ', v(w.Q, 'discharge')], { anchor: 'end', place: 'above' }));
+  sec.push(label('bed-elevation', P(xEnd, d.channelBedElevation), ['Channel bed El. ', v(d.channelBedElevation, 'elevation')], { anchor: 'end', place: 'below' }));
+  sec.push(label('y1', P(Math.min(0.1 * L, 0.5), zf + w.y1), ['y1 = ', v(w.y1)], { anchor: 'start', place: 'above' }));
+  sec.push(label('y2', P(Lj, zf + ytw), ['y2 = ', v(w.y2)], { place: 'above' }));
+  sec.push(label('slab', P(L * 0.3, zf - t / 2), ['Slab ', v(t), ' thick'], { place: 'on' }));
+  sec.push(label('riprap', P((L + xr) / 2, ground((L + xr) / 2) - d.riprap.thickness), ['Riprap D50 ', v(d.riprap.d50), ', ', v(d.riprap.thickness), ' thick'], { place: 'below' }));
+  sec.push(label('sill', P(L - sill.length / 2, sill.height > 0 ? zs : zf), [sill.height > 0 ? `${sill.kind === 'dentated' ? 'Dentated' : 'Solid'} end sill` : 'No end sill'], { place: 'above' }));
   sec.push({ kind: 'arrow', role: 'flow', from: P(xUp + 0.5, zChute(xUp) + w.y1 + 1.2), to: P(xUp + 0.5 + Math.max(2, 0.1 * L), zChute(xUp) + w.y1 + 1.2 - Math.max(2, 0.1 * L) / slope), text: 'Flow' });
 
   // Plan.
@@ -245,12 +264,18 @@ function jumpBasinDrawing(d: JumpBasinDesign, opts: DrawingOptions): Drawing {
   const rh = d.riprap.width / 2;
   plan.push(poly('riprap', rect(L, -rh, xr, rh), 'riprap', 'riprap'));
   plan.push(poly('centre-line', [P(xPlanUp, 0), P(xEnd, 0)], 'centre', 'none', false));
-  plan.push(dim('basin-width', P(L * 0.55, -half), P(L * 0.55, half), 0.5));
+  // The width goes across open floor: between the last row of blocks and the end sill.
+  const xOpenUp = Math.max(cb ? cb.length : 0, bb ? bb.distanceFromUpstream + bb.length : 0);
+  const xOpenDn = sill.height > 0 ? L - sill.length : L;
+  plan.push(dim('basin-width', P((xOpenUp + xOpenDn) / 2, -half), P((xOpenUp + xOpenDn) / 2, half), 0));
   plan.push(dim('basin-length', P(0, half + tw), P(L, half + tw), 0.8));
   plan.push(dim('riprap-length', P(L, -rh), P(xr, -rh), -0.8));
   if (d.flare) plan.push(dim('flare-length', P(-d.flare.length, -(half + tw)), P(0, -(half + tw)), -0.8));
-  if (cb) plan.push(label('chute-blocks', P(cb.length + 0.2, -half - tw - 0.6), [v(cb.count, 'count'), ` ${d.type === 'usbr-4' ? 'deflector' : 'chute'} blocks `, v(cb.width), ' wide at ', v(cb.spacing), ' spacing'], 'start'));
-  if (bb) plan.push(label('baffle-blocks', P(bb.distanceFromUpstream, -half - tw - 1.4), [v(bb.count, 'count'), bb.kind === 'baffle-piers' ? ' baffle piers ' : ' floor blocks ', v(bb.width), ' wide at ', v(bb.spacing), ' spacing'], 'start'));
+  // Block call-outs below the lower wall, each with a leader to the outermost block.
+  const lowest = (cs: readonly number[]): number => Math.min(...cs);
+  if (cb) plan.push(label('chute-blocks', P(cb.length / 2, -half - tw), [v(cb.count, 'count'), ` ${d.type === 'usbr-4' ? 'deflector' : 'chute'} blocks, `, v(cb.height), ' high, ', v(cb.width), ' wide at ', v(cb.spacing), ' spacing'], { anchor: 'start', place: 'below', target: P(cb.length / 2, lowest(cb.centres)) }));
+  if (bb) plan.push(label('baffle-blocks', P(bb.distanceFromUpstream + bb.length / 2, -half - tw), [v(bb.count, 'count'), bb.kind === 'baffle-piers' ? ' baffle piers, ' : ' floor blocks, ', v(bb.height), ' high, ', v(bb.width), ' wide at ', v(bb.spacing), ' spacing'], { anchor: 'start', place: 'below', target: P(bb.distanceFromUpstream + bb.length / 2, lowest(bb.centres)) }));
+  if (sill.height > 0 && sill.teeth) plan.push(label('sill-teeth', P(L - sill.length / 2, -half - tw), [v(sill.teeth.centres.length, 'count'), ' sill teeth ', v(sill.teeth.width), ' wide'], { anchor: 'start', place: 'below', target: P(L - sill.length / 2, lowest(sill.teeth.centres)) }));
   plan.push({ kind: 'arrow', role: 'flow', from: P(xPlanUp + 0.3, 0), to: P(xPlanUp + 0.3 + Math.max(2, 0.1 * L), 0), text: 'Flow' });
   northArrow(plan, P(xEnd - 1.5, half + tw + 2), 1.5, opts.flowBearingDeg);
 
@@ -265,8 +290,8 @@ function jumpBasinDrawing(d: JumpBasinDesign, opts: DrawingOptions): Drawing {
     ],
     notes: [
       `Chute end drawn at ${slope}H:1V (indicative).`,
-      'Concept drawing: dimensions in metres unless the labels say otherwise; to be detailed and checked by a licensed engineer.',
     ],
+    caution: DRAWING_CAUTION,
   };
 }
 
@@ -286,8 +311,8 @@ function impactBasinDrawing(d: ImpactBasinDesign, opts: DrawingOptions): Drawing
   sec.push(dim('basin-length', P(0, zf - t - 0.3), P(L, zf - t - 0.3), -0.6));
   sec.push(dim('wall-height', P(L + 0.2, zf), P(L + 0.2, zt), -0.5));
   sec.push(dim('baffle-distance', P(0, zt + 0.2), P(s.baffleDistance, zt + 0.2), 0.4));
-  sec.push(label('floor-elevation', P(L / 2, zf - t - 0.3), ['Floor El. ', v(zf, 'elevation')]));
-  sec.push(label('baffle', P(s.baffleDistance, zf + s.baffleClearance + s.baffleHeight + 0.2), ['Hanging baffle']));
+  sec.push(label('floor-elevation', P(L * 0.7, zf), ['Floor El. ', v(zf, 'elevation')], { place: 'above' }));
+  sec.push(label('baffle', P(s.baffleDistance, zf + s.baffleClearance + s.baffleHeight), ['Hanging baffle'], { place: 'above' }));
   sec.push({ kind: 'arrow', role: 'flow', from: P(-2.5, zf + 0.3 * s.wallHeight), to: P(-0.5, zf + 0.3 * s.wallHeight), text: 'Flow' });
   plan.push(poly('wall', rect(-t, W / 2, L, W / 2 + t)));
   plan.push(poly('wall', rect(-t, -W / 2 - t, L, -W / 2)));
@@ -305,7 +330,8 @@ function impactBasinDrawing(d: ImpactBasinDesign, opts: DrawingOptions): Drawing
       { id: 'plan', title: 'Plan', bounds: boundsOf(plan, 1), items: plan },
       { id: 'section', title: 'Longitudinal section on the centre line', bounds: boundsOf(sec, 1), items: sec },
     ],
-    notes: ['Concept drawing; the pipe enters through the upstream wall.'],
+    notes: ['The pipe enters through the upstream wall.'],
+    caution: DRAWING_CAUTION,
   };
 }
 
@@ -326,8 +352,8 @@ function baffledApronDrawing(d: BaffledApronDesign, opts: DrawingOptions): Drawi
   }
   sec.push(poly('ground', [P(Lh * 0.5, d.channelBedElevation), P(Lh + 3, d.channelBedElevation)], 'ground', 'none', false));
   sec.push(dim('apron-length', P(0, z0 - Lh / s.slope - 1), P(Lh, z0 - Lh / s.slope - 1), -0.5));
-  sec.push(label('crest-elevation', P(0, z0 + 0.3), ['Crest El. ', v(z0, 'elevation')], 'start'));
-  sec.push(label('bed-elevation', P(Lh + 3, d.channelBedElevation + 0.3), ['Channel bed El. ', v(d.channelBedElevation, 'elevation')], 'end'));
+  sec.push(label('crest-elevation', P(0, z0), ['Crest El. ', v(z0, 'elevation')], { anchor: 'start', place: 'above' }));
+  sec.push(label('bed-elevation', P(Lh + 3, d.channelBedElevation), ['Channel bed El. ', v(d.channelBedElevation, 'elevation')], { anchor: 'end', place: 'above' }));
   sec.push({ kind: 'arrow', role: 'flow', from: P(-3, z0 + 1), to: P(-1, z0 + 1), text: 'Flow' });
   const W = d.width;
   plan.push(poly('wall', rect(0, W / 2, Lh, W / 2 + t)));
@@ -348,6 +374,7 @@ function baffledApronDrawing(d: BaffledApronDesign, opts: DrawingOptions): Drawi
       { id: 'section', title: 'Section on the centre line', bounds: boundsOf(sec, 1), items: sec },
     ],
     notes: [`${s.rows} rows of baffles on a ${s.slope}H:1V apron; alternate rows staggered.`],
+    caution: DRAWING_CAUTION,
   };
 }
 
@@ -359,7 +386,7 @@ function riprapApronDrawing(d: RiprapApronDesign, opts: DrawingOptions): Drawing
   sec.push(poly('riprap', rect(0, z - a.thickness, a.length, z), 'riprap', 'riprap'));
   sec.push(poly('culvert', rect(-2, z, 0, z + 1), 'concrete', 'none', false));
   sec.push(dim('apron-length', P(0, z - a.thickness - 0.3), P(a.length, z - a.thickness - 0.3), -0.5));
-  sec.push(label('riprap', P(a.length / 2, z + 0.3), ['Riprap D50 ', v(a.d50), ', ', v(a.thickness), ' thick']));
+  sec.push(label('riprap', P(a.length / 2, z), ['Riprap D50 ', v(a.d50), ', ', v(a.thickness), ' thick'], { place: 'above' }));
   sec.push({ kind: 'arrow', role: 'flow', from: P(-1.8, z + 0.5), to: P(-0.2, z + 0.5), text: 'Flow' });
   plan.push(poly('riprap', [P(0, -a.widthAtOutlet / 2), P(a.length, -a.widthAtEnd / 2), P(a.length, a.widthAtEnd / 2), P(0, a.widthAtOutlet / 2)], 'riprap', 'riprap'));
   plan.push(dim('apron-length', P(0, a.widthAtEnd / 2), P(a.length, a.widthAtEnd / 2), 0.6));
@@ -373,5 +400,6 @@ function riprapApronDrawing(d: RiprapApronDesign, opts: DrawingOptions): Drawing
       { id: 'section', title: 'Section on the centre line', bounds: boundsOf(sec, 1), items: sec },
     ],
     notes: ['Place on a filter (granular or geotextile).'],
+    caution: DRAWING_CAUTION,
   };
 }

@@ -2,6 +2,7 @@
 // slab) against uplift, with a safety factor. Per metre of basin length; SI (m, kN).
 import { BASIN_DEFAULTS } from './defaults';
 import { reqFinite, reqNonNegative, reqPositive, roundUp } from './guards';
+import { phraser, type PhraseUnits } from '../units/phrase';
 
 export interface FlotationCase {
   /** basin floor (top of slab) elevation, m */
@@ -29,6 +30,8 @@ export interface FlotationCase {
   upliftFactor?: number;
   /** thickness step, m (default 0.05) */
   step?: number;
+  /** unit system of the notes' wording; default SI */
+  units?: PhraseUnits;
 }
 
 export interface FlotationResult {
@@ -85,7 +88,7 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const upliftHead = Math.max(0, H + thickness);
   const uplift = gw * k * B * upliftHead;
   const resisting = gc * B * thickness + walls + water;
-  if (need > 1.0) notes.push(`flotation needs a ${need.toFixed(2)} m slab: consider underdrains (pressure relief) or anchors, which reduce the uplift`);
+  if (need > 1.0) notes.push(`flotation needs a ${phraser(c.units ?? 'SI').len(need)} slab: consider underdrains (pressure relief) or anchors, which reduce the uplift`);
   if (H <= 0) notes.push('the uplift level is below the floor: no flotation beyond the slab depth');
   return {
     thickness,

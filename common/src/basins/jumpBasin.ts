@@ -6,13 +6,24 @@ import { resolveDefaults, type BasinDefaults } from './defaults';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqNonNegative, reqPositive } from './guards';
 import type { JumpBasinSizing, JumpBasinType, JumpRules } from './types';
-import { n3 } from './types/shared';
+import { n3, phraser, type PhraseUnits } from '../units/phrase';
 
 export interface SizeJumpBasinOptions {
   /** overrides of the from-memory defaults */
   defaults?: Partial<BasinDefaults>;
   /** largest tailwater depth above the floor, m (walls are raised to clear it) */
   maxTailwaterDepth?: number;
+  /** unit system of the warnings' wording (numbers stay SI); default SI */
+  units?: PhraseUnits;
+}
+
+/** What a sizing warning is about: a range-wide design says each topic once (design.ts). */
+export type JumpWarningTopic = 'froude' | 'oscillating' | 'cavitation' | 'velocity' | 'unitDischarge' | 'length' | 'narrow';
+
+/** A sizing warning with its topic. */
+export interface JumpWarning {
+  topic: JumpWarningTopic;
+  text: string;
 }
 
 export function jumpRules(type: JumpBasinType): JumpRules {
@@ -53,10 +64,11 @@ export function sizeJumpBasin(
   const tw = Math.max(requiredTailwaterDepth, options.maxTailwaterDepth !== undefined ? reqNonNegative('maxTailwaterDepth', options.maxTailwaterDepth) : 0);
   const fb = rules.freeboardRule === 'saf' ? y2 / 3 : usbrFreeboard(v1, y2, d.freeboardCoefficient);
   const wallHeight = rules.freeboardRule === 'saf' ? tw + fb : Math.max(y2, tw) + fb;
-  const warnings = jumpWarnings(type, { fr1, v1, q, y2, length }, rules, d);
+  const items = jumpWarningItems(type, { fr1, v1, q, y2, length }, rules, d, options.units);
   for (const [what, row] of [['chute or deflector blocks', app.chuteBlocks], ['baffle or floor blocks', app.baffleBlocks], ['sill teeth', app.endSill.teeth]] as const) {
-    if (row && 'narrow' in row && row.narrow) warnings.push(`the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin`);
+    if (row && 'narrow' in row && row.narrow) items.push({ topic: 'narrow', text: `the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin` });
   }
+  const warnings = items.map((w) => w.text);
   const sizing: JumpBasinSizing = {
     type,
     fr1,
@@ -86,31 +98,50 @@ export function sizeJumpBasin(
   return sizing;
 }
 
-/** The cautions of a type at one discharge, in plain words. */
+/** The cautions of a type at one discharge, in plain words (numbers in `units`, default SI). */
 export function jumpWarnings(
   type: JumpBasinType,
   r: { fr1: number; v1: number; q: number; y2: number; length: number },
   rules: JumpRules,
   d: BasinDefaults,
+  units: PhraseUnits = 'SI',
 ): string[] {
-  const w: string[] = [];
+  return jumpWarningItems(type, r, rules, d, units).map((w) => w.text);
+}
+
+/** As jumpWarnings, each with its topic. */
+export function jumpWarningItems(
+  type: JumpBasinType,
+  r: { fr1: number; v1: number; q: number; y2: number; length: number },
+  rules: JumpRules,
+  d: BasinDefaults,
+  units: PhraseUnits = 'SI',
+): JumpWarning[] {
+  const P = phraser(units);
+  const w: JumpWarning[] = [];
+  const add = (topic: JumpWarningTopic, text: string): void => {
+    w.push({ topic, text });
+  };
   const [lo, hi] = rules.froudeRange;
   if (r.fr1 < lo || r.fr1 > hi) {
-    w.push(`Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`);
+    add('froude', `Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`);
   }
   if (r.fr1 >= 2.5 && r.fr1 < 4.5 && (type === 'usbr-1' || type === 'usbr-4' || type === 'saf')) {
-    w.push(`Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`);
+    add('oscillating', `Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`);
   }
   const hasBlocks = type !== 'usbr-1';
-  if (hasBlocks && r.v1 > d.cavitationVelocity) {
-    w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.cavitationVelocity)} m/s: cavitation risk on the blocks; model study advised`);
+  // One velocity caution per type: the stronger "not advised" replaces the cavitation caution.
+  if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) {
+    add('velocity', `V1 ${P.vel(r.v1)} > ${P.vel(d.type3VelocityFail)}: baffle piers would cavitate and are not advised; use Type II`);
+  } else if (type === 'saf' && r.v1 > d.safVelocityFail) {
+    add('velocity', `V1 ${P.vel(r.v1)} > ${P.vel(d.safVelocityFail)}: cavitation on the chute blocks; not advised for an SAF basin`);
+  } else if (hasBlocks && r.v1 > d.cavitationVelocity) {
+    add('cavitation', `V1 ${P.vel(r.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the blocks; model study advised`);
   }
-  if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.type3VelocityFail)} m/s: baffle piers not advised; use Type II`);
-  if (type === 'saf' && r.v1 > d.safVelocityFail) w.push(`V1 ${n3(r.v1)} m/s > ${n3(d.safVelocityFail)} m/s: chute blocks not advised (SAF)`);
-  if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge) w.push(`q ${n3(r.q)} m²/s above the ${n3(d.type3MaxUnitDischarge)} m²/s of Type III`);
-  if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge) w.push(`q ${n3(r.q)} m²/s above the ${n3(d.type2MaxUnitDischarge)} m²/s tested for Type II`);
+  if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge) add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type3MaxUnitDischarge)} of Type III`);
+  if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge) add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type2MaxUnitDischarge)} tested for Type II`);
   if (type === 'usbr-1' && r.fr1 > 9) {
-    w.push(`Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${n3(r.length)} m); a basin with blocks is shorter`);
+    add('length', `Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${P.len(r.length)}); a basin with blocks is shorter`);
   }
   return w;
 }

@@ -2,6 +2,7 @@
 import { G } from '../units/constants';
 import { BASIN_DEFAULTS } from './defaults';
 import { reqPositive, roundUp } from './guards';
+import { phraser, type PhraseUnits } from '../units/phrase';
 
 /**
  * Isbash stone size, m: D = V²/(2g·C²·(Gs − 1)); C = 0.86 for high turbulence (below a
@@ -52,7 +53,10 @@ export function culvertApronStoneSize(c: {
   shape?: 'circular' | 'box';
   tailwater?: number;
   g?: number;
+  /** unit system of the warnings' wording; default SI */
+  units?: PhraseUnits;
 }): CulvertApronStone {
+  const P = phraser(c.units ?? 'SI');
   const Q = reqPositive('Q (discharge)', c.Q);
   const D = reqPositive('rise (culvert diameter or rise)', c.rise);
   const g = reqPositive('g', c.g ?? G);
@@ -66,7 +70,7 @@ export function culvertApronStoneSize(c: {
     tw = Math.min(D, Math.max(0.4 * D, c.tailwater));
     if (tw !== c.tailwater) {
       warnings.push(
-        `tailwater ${c.tailwater.toFixed(2)} m is outside 0.4·D–1.0·D (${(0.4 * D).toFixed(2)}–${D.toFixed(2)} m): held at ${tw.toFixed(2)} m`,
+        `tailwater ${P.len(c.tailwater)} is outside 0.4·D–1.0·D (${P.num(0.4 * D, 'length')}–${P.len(D)}): held at ${P.len(tw)}`,
       );
     }
   }
@@ -180,12 +184,14 @@ export function designCulvertApron(c: {
   span?: number;
   shape?: 'circular' | 'box';
   tailwater?: number;
+  units?: PhraseUnits;
 }): CulvertApron {
+  const P = phraser(c.units ?? 'SI');
   const stone = culvertApronStoneSize(c);
   const warnings = [...stone.warnings];
   const klass = APRON_CLASSES.find((k) => stone.d50 <= k.d50 + 1e-12);
   const use = klass ?? APRON_CLASSES[APRON_CLASSES.length - 1]!;
-  if (!klass) warnings.push(`stone D50 ${stone.d50.toFixed(2)} m exceeds the largest apron class (${use.d50} m): use another dissipator`);
+  if (!klass) warnings.push(`stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`);
   const D = c.rise;
   const length = use.lengthRatio * D;
   const outlet = Math.max(3 * D, c.span ?? 0);

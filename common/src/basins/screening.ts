@@ -16,7 +16,8 @@ import type {
 } from './types';
 import { sizeBaffledApron } from './types/usbr9';
 import { sizeImpactBasin } from './types/usbr6';
-import { designRow, n3 } from './types/shared';
+import { designRow } from './types/shared';
+import { phraser, type Phraser } from '../units/phrase';
 
 /**
  * Overall verdict of a type: 'recommended' (the best-ranked of the usable types), 'suitable'
@@ -175,7 +176,8 @@ export function screenDissipators(input: ScreeningInput): TypeScreening[] {
   results.forEach((r, i) => (r.rank = i + 1));
   const best = results.find((r) => r.verdict === 'suitable' || r.verdict === 'marginal');
   if (best) best.verdict = 'recommended';
-  for (const r of results) r.summary = summarise(r, best);
+  const P = phraser(ctx.units ?? 'SI');
+  for (const r of results) r.summary = summarise(r, best, P);
   return results;
 }
 
@@ -186,10 +188,10 @@ function checkRow(r: DischargeRow): void {
   }
 }
 
-function summarise(r: TypeScreening, best: TypeScreening | undefined): string {
+function summarise(r: TypeScreening, best: TypeScreening | undefined, P: Phraser): string {
   const fails = r.criteria.filter((c) => c.status === 'fail');
   const warns = r.criteria.filter((c) => c.status === 'warn');
-  const len = r.length !== undefined ? ` Basin length about ${n3(r.length)} m.` : '';
+  const len = r.length !== undefined ? ` Basin length about ${P.len(r.length)}.` : '';
   switch (r.verdict) {
     case 'recommended':
       return warns.length === 0

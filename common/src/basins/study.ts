@@ -2,6 +2,9 @@
 // tailwater factor, the rows over the range, the screening, the designs and their drawings.
 import { analyseRange, solveFloorElevation, type StudyInput, type StudyRow } from '../study';
 import { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, isJumpBasinType } from './catalogue';
+
+/** The published name of a type, for sentences (never the code id). */
+const nameOf = (id: DissipatorTypeId): string => DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'the chosen type';
 import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
 import {
   designBaffledApron,
@@ -76,7 +79,7 @@ export function screeningContext(input: StudyInput, opts: DissipatorStudyOptions
     const s = inflow.outlet.section;
     if (s.shape === 'circular') culvert = { shape: 'circular', rise: s.diameter };
   }
-  const ctx: ScreeningContext = { inflow: inflow.kind, width: input.basinWidth };
+  const ctx: ScreeningContext = { inflow: inflow.kind, width: input.basinWidth, units: opts.units ?? input.units };
   if (opts.debris) ctx.debris = opts.debris;
   if (culvert) ctx.culvert = culvert;
   return ctx;
@@ -94,12 +97,17 @@ function outletWidth(input: StudyInput): number | undefined {
  * alternatives (each jump basin on its own floor, solved with its tailwater factor over the
  * whole range) and draws them. Pure; SI.
  */
-export function designDissipators(input: StudyInput, opts: DissipatorStudyOptions = {}): DissipatorStudyResult {
+export function designDissipators(input: StudyInput, options: DissipatorStudyOptions = {}): DissipatorStudyResult {
+  // Words in the user's units unless told otherwise; every number stays SI.
+  const opts: DissipatorStudyOptions = { ...options, units: options.units ?? (input.units === 'US' ? 'US' : 'SI') };
   const d: BasinDefaults = resolveDefaults(opts.defaults);
+  for (const t of [...(opts.chosenType !== undefined ? [opts.chosenType] : []), ...(opts.alternatives ?? [])]) {
+    if (!DISSIPATOR_CATALOGUE.some((m) => m.id === t)) throw new RangeError(`dissipators.chosenType: "${String(t)}" is not a type of the catalogue`);
+  }
   const ctx = screeningContext(input, opts);
   const notes: string[] = [];
   const extra = opts.extraFloorDepth ?? 0;
-  if (!(Number.isFinite(extra) && extra >= 0)) throw new RangeError(`extraFloorDepth must be a non-negative number (got ${extra})`);
+  if (!(Number.isFinite(extra) && extra >= 0)) throw new RangeError(`dissipators.extraFloorDepth (extra floor depth) must be a non-negative number (got ${extra})`);
   const fixedFloor = input.floorElevation;
   const bed = input.channelBedElevation;
 
@@ -141,7 +149,7 @@ export function designDissipators(input: StudyInput, opts: DissipatorStudyOption
       );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      notes.push(`${type}: no floor or design found (${e.message})`);
+      notes.push(`${nameOf(type)}: no floor or design found (${e.message})`);
     }
   }
 
@@ -150,14 +158,14 @@ export function designDissipators(input: StudyInput, opts: DissipatorStudyOption
     designs['usbr-6'] = designImpactBasin({ floorElevation: naturalFloor, channelBedElevation: bed, designQ: input.designDischarge, rows: bedRows }, opts);
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
-    notes.push(`usbr-6: not sized (${e.message})`);
+    notes.push(`${nameOf('usbr-6')}: not sized (${e.message})`);
   }
   if (input.inflow.kind === 'chute') {
     try {
       designs['usbr-9'] = designBaffledApron({ crestElevation: input.inflow.crestElevation, channelBedElevation: bed, width: input.basinWidth, designQ: input.designDischarge }, opts);
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      notes.push(`usbr-9: not sized (${e.message})`);
+      notes.push(`${nameOf('usbr-9')}: not sized (${e.message})`);
     }
   }
   if (ctx.culvert) {
@@ -192,7 +200,7 @@ export function designDissipators(input: StudyInput, opts: DissipatorStudyOption
   let design: DesignEntry | null = null;
   if (chosen) {
     design = entry(chosen);
-    if (!design) notes.push(`${chosen}: cannot be designed from this study (not sized, or its inputs are missing)`);
+    if (!design) notes.push(`${nameOf(chosen)}: cannot be designed from this study (not sized, or its inputs are missing)`);
   }
   const altIds = new Set<DissipatorTypeId>([
     ...screening.filter((s) => (s.verdict === 'suitable' || s.verdict === 'marginal' || s.verdict === 'recommended') && s.type !== chosen).map((s) => s.type),

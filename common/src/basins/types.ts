@@ -37,7 +37,7 @@ export type CriterionStatus = 'pass' | 'warn' | 'fail';
 export interface CriterionResult {
   criterion: CriterionId;
   status: CriterionStatus;
-  /** short reason in plain words, with the numbers (SI) */
+  /** short reason in plain words, with the numbers in the context's unit system (default SI) */
   reason: string;
   /** the discharge (m³/s) where this outcome occurs; absent for criteria that do not vary with Q */
   atQ?: number;
@@ -76,6 +76,8 @@ export interface ScreeningContext {
   debris?: DebrisLevel;
   /** the culvert or pipe at the outlet, when there is one; rise = diameter for a pipe, m */
   culvert?: { shape: 'circular' | 'box'; rise: number; span?: number };
+  /** unit system of the reasons' wording (numbers stay SI); default SI */
+  units?: 'SI' | 'US';
 }
 
 /** A published limit, for display in the catalogue. */
@@ -114,10 +116,16 @@ export interface BaffleSet extends BlockSet {
   kind: 'baffle-piers' | 'floor-blocks';
 }
 
+/**
+ * The end sill. Always present in the result (hydraulics.md shape); a USBR Type I plain apron
+ * has no sill, which is written kind 'solid', height 0, length 0 and present false.
+ */
 export interface EndSill {
   kind: 'solid' | 'dentated';
   /** m; 0 for a plain apron without sill */
   height: number;
+  /** false when there is no sill (Type I plain apron); additive, set by every sizing */
+  present?: boolean;
   /** upstream face slope, horizontal per 1 vertical (0 = vertical) */
   upstreamSlope: number;
   /** length of the sill along the flow, m */

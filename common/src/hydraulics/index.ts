@@ -28,6 +28,9 @@ export {
   conjugateDepth,
   hydraulicJump,
   rectangularJumpLoss,
+  slopingApronJump,
+  HORIZONTAL_APRON_SLOPE,
+  type SlopingApronJump,
 } from './jump';
 export { G, RHO_WATER, MANNING_K_SI, MANNING_K_US } from '../units/constants';
 export * from './interpolate';

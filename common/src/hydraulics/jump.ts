@@ -74,6 +74,52 @@ export function belangerRatio(fr1: number): number {
   return 0.5 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1);
 }
 
+/** Floor slope (rise over run) up to which a jump is treated as on a horizontal floor [src: HEC-14 ch. 6]. */
+export const HORIZONTAL_APRON_SLOPE = 0.1;
+
+export interface SlopingApronJump {
+  /** sequent depth, m */
+  y2: number;
+  /** y2 / y1 */
+  ratio: number;
+  /** Γ = 10^(0.027·θ°) (1 when treated as horizontal) */
+  gamma: number;
+  /** G = Γ·Fr1, the Froude number the relation uses */
+  G: number;
+  /** floor slope as given (rise over run) and its angle, degrees */
+  slope: number;
+  angleDeg: number;
+  /** true when the slope is at most 10 %: Bélanger on a horizontal floor */
+  treatedAsHorizontal: boolean;
+  notes: string[];
+}
+
+/**
+ * Sequent depth of a jump on a sloping apron (Rajaratnam; relation from memory, hydraulics.md
+ * §1 [mem] — check against the publication before relying on it): y2/y1 = ½(√(1 + 8·G²) − 1),
+ * G = Γ·Fr1, Γ = 10^(0.027·θ°), θ the floor angle in degrees. A floor of at most 10 % slope is
+ * treated as horizontal (Γ = 1, Bélanger) [src: HEC-14 ch. 6]; above it the result says so.
+ * `slope` is rise over run (0.2 = 20 %), ≥ 0; y1 in m; Fr1 > 1.
+ * @example slopingApronJump(6, 0.3, 0.25).y2 // θ = 14.04°, Γ = 2.39, y2 ≈ 5.93 m
+ */
+export function slopingApronJump(fr1: number, y1: number, slope: number): SlopingApronJump {
+  requirePositive('fr1 (inflow Froude number)', fr1);
+  if (!(fr1 > 1)) throw new RangeError(`fr1 (inflow Froude number) ${fr1} is not supercritical (≤ 1): no jump forms`);
+  requirePositive('y1', y1);
+  requireNonNegative('slope (floor slope, rise over run)', slope);
+  const angleDeg = (Math.atan(slope) * 180) / Math.PI;
+  const flat = slope <= HORIZONTAL_APRON_SLOPE;
+  const gamma = flat ? 1 : Math.pow(10, 0.027 * angleDeg);
+  const Gf = gamma * fr1;
+  const ratio = 0.5 * (Math.sqrt(1 + 8 * Gf * Gf) - 1);
+  const notes = flat
+    ? [`floor slope ${(slope * 100).toFixed(1)} % is at most 10 %: treated as horizontal (Bélanger) [src: HEC-14 ch. 6]`]
+    : [
+        `floor slope ${(slope * 100).toFixed(1)} % exceeds 10 %: sloping-apron jump, Γ = 10^(0.027·${angleDeg.toFixed(2)}°) = ${gamma.toFixed(3)} (Rajaratnam, from memory)`,
+      ];
+  return { y2: ratio * y1, ratio, gamma, G: Gf, slope, angleDeg, treatedAsHorizontal: flat, notes };
+}
+
 /** USBR jump-length curve L/y2 against Fr1, approximate points (from memory; see hydraulics.md §1). */
 export const USBR_LENGTH_CURVE: ReadonlyArray<readonly [number, number]> = [
   [1.7, 4.0],

@@ -85,3 +85,16 @@ export const acceptInvitationSchema = object({
   password: newPasswordSchema,
 });
 export type AcceptInvitationInput = InferType<typeof acceptInvitationSchema>;
+
+/** PATCH /auth/me: what a member may change of their own profile. */
+export const profileUpdateSchema = object({
+  name: personNameSchema,
+});
+export type ProfileUpdateInput = InferType<typeof profileUpdateSchema>;
+
+/** POST /auth/change-password: the current password, then the new one. */
+export const changePasswordSchema = object({
+  currentPassword: currentPasswordSchema,
+  newPassword: newPasswordSchema,
+});
+export type ChangePasswordInput = InferType<typeof changePasswordSchema>;

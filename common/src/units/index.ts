@@ -3,6 +3,7 @@
 // stays untouched. Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
 import { all, create, type MathJsInstance } from 'mathjs';
 import type { StudyInput, StudyResult, UnitSystem } from '../study';
+import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 
 export * from './constants';
 
@@ -25,7 +26,11 @@ export type QuantityKind =
   | 'pressure'
   | 'power'
   | 'mass'
-  | 'weirCoefficient';
+  | 'weirCoefficient'
+  /** force per metre of basin length (slab flotation), kN/m ⇄ lbf/ft */
+  | 'lineLoad'
+  /** unit weight, kN/m³ ⇄ lbf/ft³ (pcf) */
+  | 'unitWeight';
 
 /** mathjs unit strings per kind and system. */
 export const UNITS: Record<QuantityKind, Record<UnitSystem, string>> = {
@@ -42,6 +47,8 @@ export const UNITS: Record<QuantityKind, Record<UnitSystem, string>> = {
   mass: { SI: 'kg', US: 'lb' },
   // Q = C·L·H^1.5 → C has units length^0.5/time.
   weirCoefficient: { SI: 'm^0.5/s', US: 'ft^0.5/s' },
+  lineLoad: { SI: 'kN/m', US: 'lbf/ft' },
+  unitWeight: { SI: 'kN/m^3', US: 'lbf/ft^3' },
 };
 
 /** Labels for column headers. */
@@ -58,6 +65,8 @@ export const UNIT_LABELS: Record<QuantityKind, Record<UnitSystem, string>> = {
   power: { SI: 'W', US: 'hp' },
   mass: { SI: 'kg', US: 'lb' },
   weirCoefficient: { SI: 'm^½/s', US: 'ft^½/s' },
+  lineLoad: { SI: 'kN/m', US: 'lb/ft' },
+  unitWeight: { SI: 'kN/m³', US: 'lb/ft³' },
 };
 
 /**
@@ -133,12 +142,58 @@ const LENGTH_KEYS = new Set([
   'distance',
   'yToe',
   'ySequent',
+  'head',
+  // Dissipator options and designs (basins/): blocks, sill, walls, slab, riprap, aprons.
+  'requiredTailwaterDepth',
+  'spacing',
+  'nominalSpacing',
+  'wallSpace',
+  'topLength',
+  'centres',
+  'distanceFromUpstream',
+  'topElevation',
+  'freeboard',
+  'wallHeight',
+  'fromWidth',
+  'toWidth',
+  'maxTailwaterElevation',
+  'maxTailwaterDepth',
+  'thickness',
+  'requiredThickness',
+  'minThickness',
+  'upliftHead',
+  'upliftElevation',
+  'waterOnSlabDepth',
+  'extraFloorDepth',
+  'rise',
+  'span',
+  'd50',
+  'd50Isbash',
+  'd50Velocity',
+  'jumpLength',
+  'equivalentDepth',
+  'curveWidth',
+  'baffleHeight',
+  'baffleWidth',
+  'baffleClearance',
+  'baffleDistance',
+  'endWallHeight',
+  'rowSpacing',
+  'slopeLength',
+  'widthAtOutlet',
+  'widthAtEnd',
+  'tailwaterUsed',
 ]);
 const KEY_KIND: Record<string, QuantityKind> = {
   Q: 'discharge',
   designDischarge: 'discharge',
   governingQ: 'discharge',
+  designQ: 'discharge',
+  lengthGoverningQ: 'discharge',
+  atQ: 'discharge',
   q: 'unitDischarge',
+  criticalVelocity: 'velocity',
+  concreteVolume: 'earthwork',
   v1: 'velocity',
   v2: 'velocity',
   velocity: 'velocity',
@@ -148,9 +203,26 @@ const KEY_KIND: Record<string, QuantityKind> = {
   M2: 'volume',
 };
 
+// The unit of a dissipator default (its provenance, SI) → the quantity it holds.
+const DEFAULT_UNIT_KIND: Record<string, QuantityKind> = {
+  m: 'length',
+  'm/s': 'velocity',
+  'm²/s': 'unitDischarge',
+  'm³/s': 'discharge',
+  'kN/m³': 'unitWeight',
+};
+function defaultKind(key: string): QuantityKind | null {
+  const p = (BASIN_DEFAULT_PROVENANCE as Record<string, { unit: string } | undefined>)[key];
+  return p ? (DEFAULT_UNIT_KIND[p.unit] ?? null) : null;
+}
+
 function kindOf(key: string, path: readonly string[]): QuantityKind | null {
   const parent = path[path.length - 1];
   const grand = path[path.length - 2];
+  // Overrides of the dissipator defaults carry the units of their provenance.
+  if (parent === 'defaults') return defaultKind(key);
+  if (parent === 'concrete') return 'earthwork'; // concrete by element: m³ ⇄ yd³
+  if (parent === 'slab' && (key === 'resisting' || key === 'uplift')) return 'lineLoad';
   if (parent === 'discharges' && (key === 'min' || key === 'max' || key === 'values'))
     return 'discharge';
   if (parent === 'lossModel') return null; // fraction, Cv, K: dimensionless
@@ -164,7 +236,21 @@ function kindOf(key: string, path: readonly string[]): QuantityKind | null {
   return KEY_KIND[key] ?? null;
 }
 
-function walk(node: unknown, path: string[], f: (v: number, k: QuantityKind) => number): unknown {
+/** The SI unit label of an assumption (Provenance.unit) → its quantity. */
+function assumptionKind(unit: string): QuantityKind | null {
+  return DEFAULT_UNIT_KIND[unit] ?? null;
+}
+
+// Subtrees left in SI: the drawing is geometry in metres whose labels carry their quantity for
+// the caller's formatter (drawingToSvg), so it is converted when drawn, not here.
+const SI_SUBTREES = new Set(['drawing']);
+
+function walk(
+  node: unknown,
+  path: string[],
+  f: (v: number, k: QuantityKind) => number,
+  to: UnitSystem | null,
+): unknown {
   if (Array.isArray(node)) {
     const key = path[path.length - 1] ?? '';
     const parentPath = path.slice(0, -1);
@@ -174,23 +260,38 @@ function walk(node: unknown, path: string[], f: (v: number, k: QuantityKind) => 
         return kind ? f(item, kind) : item;
       }
       // Array items inherit the array's key as context (e.g. points[] under momentum).
-      return walk(item, path, f);
+      return walk(item, path, f, to);
     });
   }
   if (node !== null && typeof node === 'object') {
+    const rec = node as Record<string, unknown>;
+    // An assumption { key, value, defaultValue, unit }: converted by its own unit, relabelled.
+    if (to && typeof rec.unit === 'string' && typeof rec.value === 'number' && typeof rec.defaultValue === 'number') {
+      const kind = assumptionKind(rec.unit) ?? (UNIT_LABELS_SI_TO_KIND.get(rec.unit) ?? null);
+      if (!kind) return { ...rec };
+      return { ...rec, value: f(rec.value, kind), defaultValue: f(rec.defaultValue, kind), unit: UNIT_LABELS[kind][to] };
+    }
     const out: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(node as Record<string, unknown>)) {
+    for (const [k, v] of Object.entries(rec)) {
       if (typeof v === 'number') {
         const kind = kindOf(k, path);
         out[k] = kind ? f(v, kind) : v;
-      } else if (typeof v === 'function') {
+      } else if (typeof v === 'function' || SI_SUBTREES.has(k)) {
         out[k] = v;
-      } else out[k] = walk(v, [...path, k], f);
+      } else out[k] = walk(v, [...path, k], f, to);
     }
     return out;
   }
   return node;
 }
+
+// Either system's label → kind, so an assumption already shown in US units converts back.
+const UNIT_LABELS_SI_TO_KIND = new Map<string, QuantityKind>(
+  (Object.keys(UNIT_LABELS) as QuantityKind[]).flatMap((k) => [
+    [UNIT_LABELS[k].SI, k] as const,
+    [UNIT_LABELS[k].US, k] as const,
+  ]),
+);
 
 /**
  * The whole StudyInput in SI (what the engine takes). US input: ft, cfs, ft/s, ft²/s, weir
@@ -199,20 +300,31 @@ function walk(node: unknown, path: string[], f: (v: number, k: QuantityKind) => 
  */
 export function toSI(input: StudyInput): StudyInput {
   if (input.units !== 'US') return input;
-  return walk(input, [], (v, k) => toSIValue(v, k, 'US')) as StudyInput;
+  return walk(input, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyInput;
 }
 
 /** An SI StudyInput shown in `system` units (the inverse of toSI). */
 export function inputFromSI(input: StudyInput, system: UnitSystem): StudyInput {
   if (system === 'SI') return input;
-  return walk(input, [], (v, k) => fromSIValue(v, k, 'US')) as StudyInput;
+  return walk(input, [], (v, k) => fromSIValue(v, k, 'US'), 'US') as StudyInput;
 }
 
 /**
  * A StudyResult (SI) in the units the user works in: lengths ft, Q cfs, q ft²/s, V ft/s,
- * excavation yd³, power hp, momentum ft³. Text (warnings, cautions) is left as computed.
+ * excavation and concrete yd³, power hp, momentum ft³, slab loads lbf/ft; the dissipator
+ * designs (blocks, sill, walls, slab, riprap, aprons) and the assumptions in force (value and
+ * unit label) too. The drawing stays SI (its labels carry their quantity for drawingToSvg's
+ * formatter). Text is not rewritten here: runStudy already words warnings and reasons in the
+ * input's units.
  */
 export function fromSI(result: StudyResult, system: UnitSystem): StudyResult {
   if (system === 'SI') return result;
-  return walk(result, [], (v, k) => fromSIValue(v, k, 'US')) as StudyResult;
+  return walk(result, [], (v, k) => fromSIValue(v, k, 'US'), 'US') as StudyResult;
 }
+
+/** A StudyResult in US customary back to SI (the inverse of fromSI(…, 'US')). */
+export function resultToSI(result: StudyResult, system: UnitSystem): StudyResult {
+  if (system === 'SI') return result;
+  return walk(result, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyResult;
+}
+export * from './phrase';

@@ -1,6 +1,8 @@
 import type { Request, Response } from 'express';
 import type {
+  ChangePasswordInput,
   ForgotPasswordInput,
+  ProfileUpdateInput,
   LoginInput,
   ResetPasswordInput,
   SignupInput,
@@ -36,5 +38,17 @@ export async function forgotPassword(req: Request, res: Response): Promise<void>
 
 export async function resetPassword(req: Request, res: Response): Promise<void> {
   const session = await auth.resetPassword(req.body as ResetPasswordInput);
+  res.json(presentSession(session.token, session.user, session.firm));
+}
+
+export async function updateMe(req: Request, res: Response): Promise<void> {
+  const { user, firm } = authOf(req);
+  const updated = await auth.updateProfile(user, req.body as ProfileUpdateInput);
+  res.json({ user: presentUser(updated), firm: presentFirm(firm) });
+}
+
+export async function changePassword(req: Request, res: Response): Promise<void> {
+  const { user, firm } = authOf(req);
+  const session = await auth.changePassword(user, firm, req.body as ChangePasswordInput);
   res.json(presentSession(session.token, session.user, session.firm));
 }

@@ -1,7 +1,9 @@
 import { Router } from 'express';
 import {
+  changePasswordSchema,
   forgotPasswordSchema,
   loginSchema,
+  profileUpdateSchema,
   resetPasswordSchema,
   signupSchema,
 } from '@basinwright/common';
@@ -23,6 +25,15 @@ export function authRouter(limits: RateLimits): Router {
   );
   router.post('/logout', guard('session.end'), controller.logout);
   router.get('/me', guard('session.read'), controller.me);
+  router.patch('/me', guard('profile.update'), validate(profileUpdateSchema), controller.updateMe);
+  // Rate-limited like the token routes: it checks a password.
+  router.post(
+    '/change-password',
+    limits.tokenByIp,
+    guard('password.change'),
+    validate(changePasswordSchema),
+    controller.changePassword,
+  );
   router.post(
     '/forgot-password',
     limits.forgotByIp,

@@ -1,13 +1,15 @@
 import {
   PLAN_LIMITS,
   TOKEN_TTL_MS,
+  type ChangePasswordInput,
   type ForgotPasswordInput,
+  type ProfileUpdateInput,
   type LoginInput,
   type ResetPasswordInput,
   type SignupInput,
 } from '@basinwright/common';
 import { Op, UniqueConstraintError } from 'sequelize';
-import { conflict, invalidToken, unauthorized } from '../../errors';
+import { conflict, invalidToken, unauthorized, validationError } from '../../errors';
 import { passwordResetMail, sendMail } from '../../mail';
 import { Firm, PasswordReset, sequelize, User } from '../../models';
 import { hashEmailToken, hashPassword, newEmailToken, verifyPassword } from '../../security';
@@ -117,5 +119,29 @@ export async function resetPassword(input: ResetPasswordInput): Promise<Session>
     return user;
   });
   const firm = await Firm.findByPk(user.firmId, { rejectOnEmpty: true });
+  return { token: issueToken(user), user, firm };
+}
+
+/** Changes the member's own name. */
+export async function updateProfile(user: User, input: ProfileUpdateInput): Promise<User> {
+  return user.update({ name: input.name });
+}
+
+/**
+ * Changes the member's password after checking the current one; every other session ends
+ * (token version bumped) and this one continues with the new token returned.
+ */
+export async function changePassword(
+  user: User,
+  firm: Firm,
+  input: ChangePasswordInput,
+): Promise<Session> {
+  if (!(await verifyPassword(input.currentPassword, user.passwordHash)))
+    throw validationError(
+      { currentPassword: 'The current password is not right.' },
+      'The current password is not right.',
+    );
+  const passwordHash = await hashPassword(input.newPassword);
+  await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 });
   return { token: issueToken(user), user, firm };
 }

@@ -3,19 +3,21 @@
 // (and usually a physical model) is needed.
 import type { CriterionResult, DischargeRow, DissipatorModule } from '../types';
 import type { BasinDefaults } from '../defaults';
-import { crit, designRow, headOf, n3 } from './shared';
+import type { ScreeningContext } from '../types';
+import { crit, designRow, headOf, n3, ph } from './shared';
 
-function energyCriteria(rows: readonly DischargeRow[], d: BasinDefaults, velocityLimit: number): CriterionResult[] {
+function energyCriteria(rows: readonly DischargeRow[], d: BasinDefaults, velocityLimit: number, ctx: ScreeningContext): CriterionResult[] {
+  const P = ph(ctx);
   const dr = designRow(rows);
   if (!dr) return [crit('velocity', 'fail', 'no discharges to screen')];
   const h = headOf(dr);
   return [
     dr.v1 > velocityLimit
-      ? crit('velocity', 'pass', `V1 ${n3(dr.v1)} m/s at the largest discharge is beyond ${n3(velocityLimit)} m/s, where basins with blocks become doubtful`, dr.Q)
-      : crit('velocity', 'fail', `V1 ${n3(dr.v1)} m/s ≤ ${n3(velocityLimit)} m/s: a stilling basin can serve`, dr.Q),
+      ? crit('velocity', 'pass', `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${P.vel(velocityLimit)}, where basins with blocks become doubtful`, dr.Q)
+      : crit('velocity', 'fail', `V1 ${P.vel(dr.v1)} ≤ ${P.vel(velocityLimit)}: a stilling basin can serve`, dr.Q),
     h > d.specialistHead
-      ? crit('head', 'pass', `head ${n3(h)} m above the floor exceeds ${n3(d.specialistHead)} m (common practice)`, dr.Q)
-      : crit('head', 'fail', `head ${n3(h)} m ≤ ${n3(d.specialistHead)} m (common practice)`, dr.Q),
+      ? crit('head', 'pass', `head ${P.len(h)} above the floor exceeds ${P.len(d.specialistHead)} (common practice)`, dr.Q)
+      : crit('head', 'fail', `head ${P.len(h)} ≤ ${P.len(d.specialistHead)} (common practice)`, dr.Q),
   ];
 }
 
@@ -32,8 +34,8 @@ export const flipBucket: DissipatorModule = {
   ],
   screenRow: () => [],
   indicated: (c) => c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass'),
-  screenFixed(_ctx, d, rows) {
-    return energyCriteria(rows, d, d.specialistVelocity);
+  screenFixed(ctx, d, rows) {
+    return energyCriteria(rows, d, d.specialistVelocity, ctx);
   },
 };
 
@@ -52,8 +54,9 @@ export const slottedBucket: DissipatorModule = {
   indicated: (c) =>
     c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass') &&
     c.some((x) => x.criterion === 'tailwater' && x.status === 'pass'),
-  screenFixed(_ctx, d, rows) {
-    const [velocity, head] = energyCriteria(rows, d, d.cavitationVelocity);
+  screenFixed(ctx, d, rows) {
+    const P = ph(ctx);
+    const [velocity, head] = energyCriteria(rows, d, d.cavitationVelocity, ctx);
     let worst: DischargeRow | undefined;
     let worstRatio = Infinity;
     for (const r of rows) {
@@ -68,7 +71,7 @@ export const slottedBucket: DissipatorModule = {
       ? crit('tailwater', 'fail', 'tailwater not known')
       : worstRatio >= d.slottedBucketTailwaterRatio
         ? crit('tailwater', 'pass', `tailwater at bed level is ≥ ${n3(worstRatio)}× the sequent depth at every discharge: deep tailwater suits a submerged bucket [mem: EM-25]`, worst.Q)
-        : crit('tailwater', 'fail', `tailwater at bed level is only ${n3(worstRatio)}× the sequent depth at ${n3(worst.Q)} m³/s: a submerged bucket needs deeper tailwater [mem: EM-25]`, worst.Q);
+        : crit('tailwater', 'fail', `tailwater at bed level is only ${n3(worstRatio)}× the sequent depth at ${P.Q(worst.Q)}: a submerged bucket needs deeper tailwater [mem: EM-25]`, worst.Q);
     return [velocity!, head!, tw];
   },
 };

@@ -1,7 +1,7 @@
 // Riprap apron at a small culvert outlet (HEC-14 ch. 10).
 import { culvertApronStoneSize, APRON_CLASSES } from '../riprap';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, n3 } from './shared';
+import { crit, debrisCriterion, n3, ph } from './shared';
 
 const TAG = '[src: HEC-14 (2006) ch. 10]';
 const MAX_D50 = APRON_CLASSES[APRON_CLASSES.length - 1]!.d50;
@@ -16,9 +16,10 @@ export const riprapApron: DissipatorModule = {
     { criterion: 'culvertSize', text: 'culvert rise up to 1.5 m', tag: TAG },
     { criterion: 'tailwater', text: 'stone relation valid for tailwater 0.4–1.0 × rise', tag: '[src: HEC-14 eq. 10.4]' },
     { criterion: 'froude', text: 'outlet Froude number up to about 2.5', tag: '[mem: HEC-14]' },
-    { criterion: 'stoneSize', text: `D50 up to the largest class (${MAX_D50} m)`, tag: '[mem: HEC-14 Table 10.1]' },
+    { criterion: 'stoneSize', text: `D50 up to the largest class (${MAX_D50} m, about 1.8 ft)`, tag: '[mem: HEC-14 Table 10.1]' },
   ],
   screenRow(row, ctx, d) {
+    const P = ph(ctx);
     const out = [
       row.fr1 <= d.apronMaxFroude
         ? crit('froude', 'pass', `outlet Fr ${n3(row.fr1)} ≤ ${n3(d.apronMaxFroude)} [mem: HEC-14]`, row.Q)
@@ -32,8 +33,8 @@ export const riprapApron: DissipatorModule = {
       tw === undefined
         ? crit('tailwater', 'warn', 'tailwater not known: the stone is sized for 0.4·D (conservative)', row.Q)
         : tw < 0.4 * D || tw > D
-          ? crit('tailwater', 'warn', `tailwater ${n3(tw)} m is outside 0.4–1.0 × rise (${n3(0.4 * D)}–${n3(D)} m): the relation is held at its bound [src: HEC-14 eq. 10.4]`, row.Q)
-          : crit('tailwater', 'pass', `tailwater ${n3(tw)} m within 0.4–1.0 × rise`, row.Q),
+          ? crit('tailwater', 'warn', `tailwater ${P.len(tw)} is outside 0.4–1.0 × rise (${P.num(0.4 * D, 'length')}–${P.len(D)}): the relation is held at its bound [src: HEC-14 eq. 10.4]`, row.Q)
+          : crit('tailwater', 'pass', `tailwater ${P.len(tw)} within 0.4–1.0 × rise`, row.Q),
     );
     const stone = culvertApronStoneSize({
       Q: row.Q,
@@ -44,12 +45,13 @@ export const riprapApron: DissipatorModule = {
     });
     out.push(
       stone.d50 <= MAX_D50
-        ? crit('stoneSize', 'pass', `apron stone D50 ${n3(stone.d50)} m [src: HEC-14 eq. 10.4]`, row.Q)
-        : crit('stoneSize', 'fail', `apron stone D50 ${n3(stone.d50)} m exceeds the largest class ${MAX_D50} m: use a basin [mem: HEC-14]`, row.Q),
+        ? crit('stoneSize', 'pass', `apron stone D50 ${P.len(stone.d50)} [src: HEC-14 eq. 10.4]`, row.Q)
+        : crit('stoneSize', 'fail', `apron stone D50 ${P.len(stone.d50)} exceeds the largest class ${P.len(MAX_D50)}: use a basin [mem: HEC-14]`, row.Q),
     );
     return out;
   },
   screenFixed(ctx, d) {
+    const P = ph(ctx);
     const c = ctx.culvert;
     const inflow =
       ctx.inflow === 'culvert' || ctx.inflow === 'pipe'
@@ -58,8 +60,8 @@ export const riprapApron: DissipatorModule = {
     const size = !c
       ? crit('culvertSize', 'fail', 'no culvert given')
       : c.rise <= d.apronMaxRise
-        ? crit('culvertSize', 'pass', `rise ${n3(c.rise)} m ≤ ${n3(d.apronMaxRise)} m ${TAG}`)
-        : crit('culvertSize', 'fail', `rise ${n3(c.rise)} m exceeds ${n3(d.apronMaxRise)} m ${TAG}`);
+        ? crit('culvertSize', 'pass', `rise ${P.len(c.rise)} ≤ ${P.len(d.apronMaxRise)} ${TAG}`)
+        : crit('culvertSize', 'fail', `rise ${P.len(c.rise)} exceeds ${P.len(d.apronMaxRise)} ${TAG}`);
     return [inflow, size, debrisCriterion(ctx, 'pass', 'pass', 'riprap is not harmed by debris')];
   },
 };

@@ -3,19 +3,38 @@
 import { fitBlockRow, staggeredRow } from '../blocks';
 import type { BasinDefaults } from '../defaults';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit } from './shared';
+import { BASIN_DEFAULTS } from '../defaults';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
 
 const TAG = '[src: Blaisdell 1948]';
 
+type SafFactorDefaults = Pick<
+  BasinDefaults,
+  'safTailwaterLowIntercept' | 'safTailwaterLowDivisor' | 'safTailwaterMid' | 'safTailwaterHighIntercept' | 'safTailwaterHighDivisor'
+>;
+
 /**
- * SAF tailwater factor C in TW = C·y2 [mem: Blaisdell 1948]: 1.10 − Fr²/120 for 1.7–5.5; 0.85
- * for 5.5–11; 1.00 − Fr²/800 for 11–17; held at the end values outside 1.7–17.
+ * SAF tailwater factor C in TW = C·y2 [mem: Blaisdell 1948, every coefficient an overridable
+ * default]: 1.10 − Fr²/120 (Fr1 1.7–5.5), 0.85 (5.5–11), 1.00 − Fr²/800 (11–17).
+ * The published breaks 5.5 and 11 are rounded: the pieces meet 0.85 at Fr1 = √30 ≈ 5.477 and
+ * √120 ≈ 10.954, and the breaks are taken there so C is continuous (the rounded breaks leave
+ * steps of 0.002 and 0.001). Outside 1.7–17 C is held at the end value (at 17: 0.639), never
+ * extrapolated — 1 − Fr²/800 would fall to zero at Fr1 28 — and the sizing flags the Froude
+ * number as outside the tested range.
+ * @example safTailwaterFactor(8) // 0.85
  */
-export function safTailwaterFactor(fr1: number): number {
+export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEFAULTS): number {
+  if (!Number.isFinite(fr1)) throw new RangeError(`fr1 (inflow Froude number) must be a finite number (got ${fr1})`);
   const f = Math.min(17, Math.max(1.7, fr1));
-  if (f <= 5.5) return 1.1 - (f * f) / 120;
-  if (f <= 11) return 0.85;
-  return 1.0 - (f * f) / 800;
+  const mid = d.safTailwaterMid;
+  const low = (x: number): number => d.safTailwaterLowIntercept - (x * x) / d.safTailwaterLowDivisor;
+  const high = (x: number): number => d.safTailwaterHighIntercept - (x * x) / d.safTailwaterHighDivisor;
+  // Where each curve meets the middle value (continuity), kept in order within 1.7–17.
+  const b1 = Math.min(17, Math.max(1.7, Math.sqrt(Math.max(0, (d.safTailwaterLowIntercept - mid) * d.safTailwaterLowDivisor))));
+  const b2 = Math.min(17, Math.max(b1, Math.sqrt(Math.max(0, (d.safTailwaterHighIntercept - mid) * d.safTailwaterHighDivisor))));
+  if (f <= b1) return low(f);
+  if (f <= b2) return mid;
+  return high(f);
 }
 
 /** SAF basin length L = 4.5·y2/Fr1^0.76 [mem: Blaisdell 1948]. */
@@ -36,8 +55,8 @@ export const saf: DissipatorModule = {
   ],
   jump: {
     froudeRange: [1.7, 17],
-    tailwaterFactor: (fr) => safTailwaterFactor(fr),
-    tailwaterFactorTag: '[mem: Blaisdell 1948] C(Fr1) piecewise',
+    tailwaterFactor: (fr, d) => safTailwaterFactor(fr, d),
+    tailwaterFactorTag: '[mem: Blaisdell 1948] C = 1.10 − Fr²/120, 0.85, 1.00 − Fr²/800, pieces joined where they meet (continuous), held outside Fr1 1.7–17',
     length: (fr1, _y1, y2, d) => safLength(fr1, y2, d),
     lengthTag: '[mem: Blaisdell 1948] L = 4.5·y2/Fr1^0.76',
     appurtenances: ({ y1, y2, width, length, d }) => {
@@ -48,9 +67,9 @@ export const saf: DissipatorModule = {
       const floor = staggeredRow(width, chute, b);
       const sill = d.safSillRatio * y2;
       return {
-        chuteBlocks: { ...chute, height: y1, length: 2 * y1 },
+        chuteBlocks: { ...chute, height: y1, length: d.chuteBlockLengthRatio * y1 },
         baffleBlocks: { ...floor, height: y1, length: b, distanceFromUpstream: d.safFloorBlockPosition * length, kind: 'floor-blocks' },
-        endSill: { kind: 'solid', height: sill, upstreamSlope: 1, length: sill },
+        endSill: { kind: 'solid', height: sill, upstreamSlope: 1, length: sill, present: true },
       };
     },
     freeboardRule: 'saf',
@@ -60,20 +79,21 @@ export const saf: DissipatorModule = {
       '[mem: Blaisdell 1948] end sill 0.07·y2; wall top y2/3 above the largest tailwater; wingwalls at 45°',
     ],
   },
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     const v = row.v1;
     const velocity =
       v <= d.cavitationVelocity
-        ? crit('velocity', 'pass', `V1 ${n3(v)} m/s ≤ ${n3(d.cavitationVelocity)} m/s`, row.Q)
+        ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
         : v <= d.safVelocityFail
-          ? crit('velocity', 'warn', `V1 ${n3(v)} m/s > ${n3(d.cavitationVelocity)} m/s: cavitation risk on the chute blocks, model study`, row.Q)
-          : crit('velocity', 'fail', `V1 ${n3(v)} m/s > ${n3(d.safVelocityFail)} m/s: chute blocks not advised ${TAG}`, row.Q);
+          ? crit('velocity', 'warn', `V1 ${P.vel(v)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the chute blocks, model study`, row.Q)
+          : crit('velocity', 'fail', `V1 ${P.vel(v)} > ${P.vel(d.safVelocityFail)}: chute blocks not advised ${TAG}`, row.Q);
     return [
       froudeInRange(row, 1.7, 17, TAG),
       velocity,
-      crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s: no published limit (the type is meant for small structures)`, row.Q),
-      noDischargeLimit(row),
-      jumpTailwater(row, safTailwaterFactor(row.fr1), d, rows),
+      crit('unitDischarge', 'pass', `q ${P.q(row.q)}: no published limit (the type is meant for small structures)`, row.Q),
+      noDischargeLimit(row, ctx),
+      jumpTailwater(row, safTailwaterFactor(row.fr1, d), d, rows, ctx),
     ];
   },
   screenFixed(ctx) {

@@ -1,18 +1,18 @@
-// Criteria shared by several types; reasons in plain words with SI numbers.
+// Criteria shared by several types; reasons in plain words, numbers in the user's units
+// (ctx.units, default SI) through the phraser.
 import { G } from '../../units/constants';
+import { n3, phraser, type Phraser } from '../../units/phrase';
 import type { BasinDefaults } from '../defaults';
 import type { CriterionResult, DebrisLevel, DischargeRow, ScreeningContext } from '../types';
 
-/** Numbers in reasons: three significant figures, no trailing noise. */
-export function n3(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  const a = Math.abs(x);
-  if (a >= 100) return x.toFixed(0);
-  if (a >= 10) return x.toFixed(1);
-  return x.toFixed(2);
+export { n3 };
+
+/** The phraser of the screening context's unit system. */
+export function ph(ctx: { units?: 'SI' | 'US' } | undefined): Phraser {
+  return phraser(ctx?.units ?? 'SI');
 }
 
-/** Two numbers compared in a reason, with enough digits to tell them apart. */
+/** Two numbers compared in a reason (dimensionless, or SI; see Phraser.pair for units), with enough digits to tell them apart. */
 export function pair(x: number, limit: number): [string, string] {
   let a = n3(x);
   let b = n3(limit);
@@ -46,12 +46,14 @@ export function jumpTailwater(
   factor: number,
   d: BasinDefaults,
   rows: readonly DischargeRow[],
+  ctx?: ScreeningContext,
 ): CriterionResult {
+  const P = ph(ctx);
   const need = factor * row.y2;
   const tw = row.tailwaterDepth;
-  if (tw === undefined) return crit('tailwater', 'warn', `tailwater not known: this basin needs ${n3(need)} m (C ${n3(factor)} × y2)`, row.Q);
+  if (tw === undefined) return crit('tailwater', 'warn', `tailwater not known: this basin needs ${P.len(need)} (C ${n3(factor)} × y2)`, row.Q);
   if (tw < need - 1e-6) {
-    return crit('tailwater', 'fail', `tailwater ${n3(tw)} m is short of the ${n3(need)} m needed (C ${n3(factor)} × y2 ${n3(row.y2)} m): the jump would sweep out`, row.Q);
+    return crit('tailwater', 'fail', `tailwater ${P.len(tw)} is short of the ${P.len(need)} needed (C ${n3(factor)} × y2 ${P.len(row.y2)}): the jump would sweep out`, row.Q);
   }
   const ratio = tw / need;
   if (ratio > d.excessSubmergenceRatio) {
@@ -61,12 +63,12 @@ export function jumpTailwater(
       'tailwater',
       atDesign ? 'warn' : 'pass',
       atDesign
-        ? `tailwater ${n3(tw)} m is ${n3(ratio)}× the ${n3(need)} m needed at the largest discharge: excess submergence, the jump is drowned and dissipates less`
-        : `tailwater ${n3(tw)} m is ${n3(ratio)}× the ${n3(need)} m needed: a drowned jump at this partial flow (acceptable, less dissipation)`,
+        ? `tailwater ${P.len(tw)} is ${n3(ratio)}× the ${P.len(need)} needed at the largest discharge: excess submergence, the jump is drowned and dissipates less`
+        : `tailwater ${P.len(tw)} is ${n3(ratio)}× the ${P.len(need)} needed: a drowned jump at this partial flow (acceptable, less dissipation)`,
       row.Q,
     );
   }
-  return crit('tailwater', 'pass', `tailwater ${n3(tw)} m holds the jump (needs ${n3(need)} m = C ${n3(factor)} × y2)`, row.Q);
+  return crit('tailwater', 'pass', `tailwater ${P.len(tw)} holds the jump (needs ${P.len(need)} = C ${n3(factor)} × y2)`, row.Q);
 }
 
 export function debrisCriterion(ctx: ScreeningContext, heavy: 'pass' | 'warn' | 'fail', light: 'pass' | 'warn', what: string): CriterionResult {
@@ -78,8 +80,8 @@ export function debrisCriterion(ctx: ScreeningContext, heavy: 'pass' | 'warn' | 
   return crit('debris', status, reason);
 }
 
-export function noDischargeLimit(row: DischargeRow): CriterionResult {
-  return crit('discharge', 'pass', `no published limit on total discharge (Q ${n3(row.Q)} m³/s)`, row.Q);
+export function noDischargeLimit(row: DischargeRow, ctx?: ScreeningContext): CriterionResult {
+  return crit('discharge', 'pass', `no published limit on total discharge (Q ${ph(ctx).Q(row.Q)})`, row.Q);
 }
 
 /** Total head above the floor: given, or at least the specific energy at the toe. */

@@ -1,7 +1,7 @@
 // USBR Type I: a free hydraulic jump on a plain horizontal apron, no appurtenances.
 import { jumpLengthUSBR } from '../../hydraulics';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, jumpTailwater, n3, noDischargeLimit } from './shared';
+import { crit, debrisCriterion, jumpTailwater, n3, noDischargeLimit, ph } from './shared';
 
 const TAG = '[src: USBR EM-25 via Chow 1959]';
 
@@ -21,11 +21,13 @@ export const usbr1: DissipatorModule = {
     tailwaterFactorTag: '[src: EM-25] C = 1.0',
     length: (fr1, _y1, y2) => jumpLengthUSBR(fr1, y2),
     lengthTag: '[mem: USBR jump-length curve L/y2 = f(Fr1), ≈ 6·y2 for 4.5 < Fr1 < 13 [src]]',
-    appurtenances: () => ({ endSill: { kind: 'solid', height: 0, upstreamSlope: 0, length: 0 } }),
+    // A plain apron has no end sill [src: EM-25]; the shape keeps endSill, marked absent.
+    appurtenances: () => ({ endSill: { kind: 'solid', height: 0, upstreamSlope: 0, length: 0, present: false } }),
     freeboardRule: 'usbr',
-    appurtenanceTags: ['plain apron: no blocks, no end sill (height 0)'],
+    appurtenanceTags: ['[src: EM-25] plain apron: no blocks and no end sill (endSill.present false, height 0); the downstream cutoff and riprap remain'],
   },
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     const f = row.fr1;
     let froude;
     if (f <= 1) froude = crit('froude', 'fail', `Fr1 ${n3(f)} ≤ 1: the inflow is not supercritical, no jump forms ${TAG}`, row.Q);
@@ -35,10 +37,10 @@ export const usbr1: DissipatorModule = {
     else froude = crit('froude', 'warn', `Fr1 ${n3(f)} > 9: strong jump; the plain apron is long (≈ 6·y2); a basin with blocks is shorter ${TAG}`, row.Q);
     return [
       froude,
-      crit('velocity', 'pass', `no blocks to cavitate (V1 ${n3(row.v1)} m/s)`, row.Q),
-      crit('unitDischarge', 'pass', `no published limit on unit discharge (q ${n3(row.q)} m²/s)`, row.Q),
-      noDischargeLimit(row),
-      jumpTailwater(row, d.tailwaterFactorType1, d, rows),
+      crit('velocity', 'pass', `no blocks to cavitate (V1 ${P.vel(row.v1)})`, row.Q),
+      crit('unitDischarge', 'pass', `no published limit on unit discharge (q ${P.q(row.q)})`, row.Q),
+      noDischargeLimit(row, ctx),
+      jumpTailwater(row, d.tailwaterFactorType1, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {

@@ -2,7 +2,7 @@
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit } from './shared';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -34,6 +34,7 @@ export const usbr2: DissipatorModule = {
         chuteBlocks: { ...row, height: y1, length: d.chuteBlockLengthRatio * y1 },
         endSill: {
           kind: 'dentated',
+          present: true,
           height: sillH,
           upstreamSlope: 2,
           length: 2 * sillH + 0.02 * y2,
@@ -47,15 +48,16 @@ export const usbr2: DissipatorModule = {
       '[mem: EM-25] dentated end sill h = 0.2·y2, teeth and gaps 0.15·y2, 2:1 upstream slope; no baffle piers [src]',
     ],
   },
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     return [
       froudeInRange(row, 4.5, Infinity, TAG),
-      crit('velocity', 'pass', `no baffle piers: suits high inflow velocity (V1 ${n3(row.v1)} m/s)`, row.Q),
+      crit('velocity', 'pass', `no baffle piers: suits high inflow velocity (V1 ${P.vel(row.v1)})`, row.Q),
       row.q <= d.type2MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s is within the tested ${n3(d.type2MaxUnitDischarge)} m²/s [mem: EM-25]`, row.Q)
-        : crit('unitDischarge', 'warn', `q ${n3(row.q)} m²/s exceeds the tested ${n3(d.type2MaxUnitDischarge)} m²/s [mem: EM-25]: model study`, row.Q),
-      noDischargeLimit(row),
-      jumpTailwater(row, d.tailwaterFactorType2, d, rows),
+        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} is within the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]`, row.Q)
+        : crit('unitDischarge', 'warn', `q ${P.q(row.q)} exceeds the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]: model study`, row.Q),
+      noDischargeLimit(row, ctx),
+      jumpTailwater(row, d.tailwaterFactorType2, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {

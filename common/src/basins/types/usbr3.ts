@@ -3,7 +3,7 @@
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit, pair } from './shared';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -52,7 +52,7 @@ export const usbr3: DissipatorModule = {
           distanceFromUpstream: d.type3PierDistanceRatio * y2,
           kind: 'baffle-piers',
         },
-        endSill: { kind: 'solid', height: h4, upstreamSlope: 2, length: 2 * h4 },
+        endSill: { kind: 'solid', height: h4, upstreamSlope: 2, length: 2 * h4, present: true },
       };
     },
     freeboardRule: 'usbr',
@@ -62,22 +62,23 @@ export const usbr3: DissipatorModule = {
       '[mem: EM-25] solid end sill h4 = y1·(0.0556·Fr1 + 1.0), 2:1 upstream slope',
     ],
   },
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     const v = row.v1;
     const velocity =
       v <= d.type3VelocityWarn
-        ? crit('velocity', 'pass', `V1 ${n3(v)} m/s ≤ ${n3(d.type3VelocityWarn)} m/s ${TAG}`, row.Q)
+        ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.type3VelocityWarn)} ${TAG}`, row.Q)
         : v <= d.type3VelocityFail
-          ? crit('velocity', 'warn', `V1 ${pair(v, d.type3VelocityWarn)[0]} m/s is above ${pair(v, d.type3VelocityWarn)[1]} m/s: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
-          : crit('velocity', 'fail', `V1 ${pair(v, d.type3VelocityFail)[0]} m/s is above ${pair(v, d.type3VelocityFail)[1]} m/s: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
+          ? crit('velocity', 'warn', `V1 ${P.pair('velocity', v, d.type3VelocityWarn)[0]} is above ${P.pair('velocity', v, d.type3VelocityWarn)[1]}: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
+          : crit('velocity', 'fail', `V1 ${P.pair('velocity', v, d.type3VelocityFail)[0]} is above ${P.pair('velocity', v, d.type3VelocityFail)[1]}: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
     return [
       froudeInRange(row, 4.5, 17, TAG),
       velocity,
       row.q <= d.type3MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s ≤ ${n3(d.type3MaxUnitDischarge)} m²/s [mem: EM-25]`, row.Q)
-        : crit('unitDischarge', 'fail', `q ${n3(row.q)} m²/s is above the ${n3(d.type3MaxUnitDischarge)} m²/s of the tests [mem: EM-25]`, row.Q),
-      noDischargeLimit(row),
-      jumpTailwater(row, d.tailwaterFactorType3, d, rows),
+        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} ≤ ${P.q(d.type3MaxUnitDischarge)} [mem: EM-25]`, row.Q)
+        : crit('unitDischarge', 'fail', `q ${P.q(row.q)} is above the ${P.q(d.type3MaxUnitDischarge)} of the tests [mem: EM-25]`, row.Q),
+      noDischargeLimit(row, ctx),
+      jumpTailwater(row, d.tailwaterFactorType3, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {

@@ -2,7 +2,7 @@
 import { jumpLengthUSBR } from '../../hydraulics';
 import { fitBlockRow } from '../blocks';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, n3, noDischargeLimit } from './shared';
+import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -30,7 +30,7 @@ export const usbr4: DissipatorModule = {
       const h = d.type4DeflectorHeightRatio * y1;
       return {
         chuteBlocks: { ...row, height: h, length: d.chuteBlockLengthRatio * h },
-        endSill: { kind: 'solid', height: sill, upstreamSlope: 2, length: 2 * sill },
+        endSill: { kind: 'solid', height: sill, upstreamSlope: 2, length: 2 * sill, present: sill > 0 },
       };
     },
     freeboardRule: 'usbr',
@@ -39,15 +39,16 @@ export const usbr4: DissipatorModule = {
       '[mem: EM-25] optional solid end sill, height 1.25·y1 (default, overridable)',
     ],
   },
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     return [
       froudeInRange(row, 2.5, 4.5, TAG),
       row.v1 <= d.cavitationVelocity
-        ? crit('velocity', 'pass', `V1 ${n3(row.v1)} m/s ≤ ${n3(d.cavitationVelocity)} m/s`, row.Q)
-        : crit('velocity', 'warn', `V1 ${n3(row.v1)} m/s > ${n3(d.cavitationVelocity)} m/s: cavitation risk on the deflector blocks [src: EM-25]`, row.Q),
-      crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s: the type suits small unit discharges; no figure is published`, row.Q),
-      noDischargeLimit(row),
-      jumpTailwater(row, d.tailwaterFactorType4, d, rows),
+        ? crit('velocity', 'pass', `V1 ${P.vel(row.v1)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
+        : crit('velocity', 'warn', `V1 ${P.vel(row.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the deflector blocks [src: EM-25]`, row.Q),
+      crit('unitDischarge', 'pass', `q ${P.q(row.q)}: the type suits small unit discharges; no figure is published`, row.Q),
+      noDischargeLimit(row, ctx),
+      jumpTailwater(row, d.tailwaterFactorType4, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {

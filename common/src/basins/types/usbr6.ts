@@ -3,7 +3,8 @@ import { G } from '../../units/constants';
 import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, designRow, n3, pair } from './shared';
+import { phraser, type PhraseUnits } from '../../units/phrase';
+import { crit, debrisCriterion, designRow, ph } from './shared';
 
 const TAG = '[src: HEC-14 (2006) §9.4]';
 
@@ -41,7 +42,9 @@ export interface ImpactBasinSizing {
 export function sizeImpactBasin(
   c: { Q: number; velocity: number; width?: number; tailwaterDepth?: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
+  units: PhraseUnits = 'SI',
 ): ImpactBasinSizing {
+  const P = phraser(units);
   const Q = reqPositive('Q (discharge)', c.Q);
   const V = reqPositive('velocity (entering velocity)', c.velocity);
   const A = Q / V;
@@ -52,14 +55,14 @@ export function sizeImpactBasin(
   const warnings: string[] = [
     'the Type VI width comes from a fit of the HEC-14 design curve recalled from memory: check W against the published curve',
   ];
-  if (W < curveWidth * 0.999) warnings.push(`width ${n3(W)} m is narrower than the ${n3(curveWidth)} m of the width curve`);
-  if (Q > d.type6MaxDischarge) warnings.push(`Q ${n3(Q)} m³/s exceeds the ${n3(d.type6MaxDischarge)} m³/s limit of the type ${TAG}`);
-  if (V > d.type6MaxVelocity) warnings.push(`entering velocity ${n3(V)} m/s exceeds ${n3(d.type6MaxVelocity)} m/s ${TAG}`);
+  if (W < curveWidth * 0.999) warnings.push(`width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
+  if (Q > d.type6MaxDischarge) warnings.push(`Q ${P.Q(Q)} exceeds the ${P.Q(d.type6MaxDischarge)} limit of the type ${TAG}`);
+  if (V > d.type6MaxVelocity) warnings.push(`entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
   const baffleHeight = 0.375 * W;
   const baffleClearance = W / 6;
   const maxTw = baffleClearance + baffleHeight / 2;
   if (c.tailwaterDepth !== undefined && reqNonNegative('tailwaterDepth', c.tailwaterDepth) > maxTw) {
-    warnings.push(`tailwater ${n3(c.tailwaterDepth)} m above the floor exceeds ${n3(maxTw)} m (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`);
+    warnings.push(`tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`);
   }
   return {
     type: 'usbr-6',
@@ -97,22 +100,23 @@ export const usbr6: DissipatorModule = {
     { criterion: 'tailwater', text: 'needs no tailwater; tailwater above the baffle reduces dissipation', tag: TAG },
     { criterion: 'inflow', text: 'pipe or culvert outlets (also small open chutes)', tag: TAG },
   ],
-  screenRow(row, _ctx, d, rows) {
+  screenRow(row, ctx, d, rows) {
+    const P = ph(ctx);
     const out = [
       row.Q <= d.type6MaxDischarge
-        ? crit('discharge', 'pass', `Q ${n3(row.Q)} m³/s ≤ ${n3(d.type6MaxDischarge)} m³/s ${TAG}`, row.Q)
-        : crit('discharge', 'fail', `Q ${pair(row.Q, d.type6MaxDischarge)[0]} m³/s exceeds the ${pair(row.Q, d.type6MaxDischarge)[1]} m³/s of the type ${TAG}`, row.Q),
+        ? crit('discharge', 'pass', `Q ${P.Q(row.Q)} ≤ ${P.Q(d.type6MaxDischarge)} ${TAG}`, row.Q)
+        : crit('discharge', 'fail', `Q ${P.pair('discharge', row.Q, d.type6MaxDischarge)[0]} exceeds the ${P.pair('discharge', row.Q, d.type6MaxDischarge)[1]} of the type ${TAG}`, row.Q),
       row.v1 <= d.type6MaxVelocity
-        ? crit('velocity', 'pass', `V ${n3(row.v1)} m/s ≤ ${n3(d.type6MaxVelocity)} m/s ${TAG}`, row.Q)
-        : crit('velocity', 'fail', `V ${pair(row.v1, d.type6MaxVelocity)[0]} m/s exceeds ${pair(row.v1, d.type6MaxVelocity)[1]} m/s ${TAG}`, row.Q),
+        ? crit('velocity', 'pass', `V ${P.vel(row.v1)} ≤ ${P.vel(d.type6MaxVelocity)} ${TAG}`, row.Q)
+        : crit('velocity', 'fail', `V ${P.pair('velocity', row.v1, d.type6MaxVelocity)[0]} exceeds ${P.pair('velocity', row.v1, d.type6MaxVelocity)[1]} ${TAG}`, row.Q),
     ];
     const dr = designRow(rows) ?? row;
     const size = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);
     const tw = row.tailwaterDepth;
     out.push(
       tw === undefined || tw <= size.maxTailwaterDepth
-        ? crit('tailwater', 'pass', 'needs no tailwater' + (tw === undefined ? '' : ` (tailwater ${n3(tw)} m stays below the baffle)`), row.Q)
-        : crit('tailwater', 'warn', `tailwater ${n3(tw)} m overtops the baffle zone (> ${n3(size.maxTailwaterDepth)} m): less dissipation [mem: HEC-14]`, row.Q),
+        ? crit('tailwater', 'pass', 'needs no tailwater' + (tw === undefined ? '' : ` (tailwater ${P.len(tw)} stays below the baffle)`), row.Q)
+        : crit('tailwater', 'warn', `tailwater ${P.len(tw)} overtops the baffle zone (> ${P.len(size.maxTailwaterDepth)}): less dissipation [mem: HEC-14]`, row.Q),
     );
     return out;
   },

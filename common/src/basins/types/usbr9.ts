@@ -4,7 +4,8 @@ import { fitBlockRow, staggeredRow, type BlockRow } from '../blocks';
 import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqPositive } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, n3 } from './shared';
+import { phraser, type PhraseUnits } from '../../units/phrase';
+import { crit, debrisCriterion, n3, ph } from './shared';
 
 const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
 
@@ -46,7 +47,9 @@ export interface BaffledApronSizing {
 export function sizeBaffledApron(
   c: { Q: number; width: number; drop: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
+  units: PhraseUnits = 'SI',
 ): BaffledApronSizing {
+  const P = phraser(units);
   const Q = reqPositive('Q (discharge)', c.Q);
   const W = reqPositive('width', c.width);
   const drop = reqPositive('drop (crest to channel bed)', c.drop);
@@ -61,7 +64,7 @@ export function sizeBaffledApron(
   const rows = Math.max(d.type9MinRows, Math.ceil(above / spacing) + 2);
   const slopeLength = (rows - 1) * spacing + spacing / 2;
   const warnings: string[] = [];
-  if (q > d.type9MaxUnitDischarge) warnings.push(`q ${n3(q)} m²/s exceeds the ${n3(d.type9MaxUnitDischarge)} m²/s of the type ${TAG}`);
+  if (q > d.type9MaxUnitDischarge) warnings.push(`q ${P.q(q)} exceeds the ${P.q(d.type9MaxUnitDischarge)} of the type ${TAG}`);
   const rowA = fitBlockRow(W, Math.min(bw, W), bw);
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
   return {
@@ -100,6 +103,7 @@ export const usbr9: DissipatorModule = {
     { criterion: 'tailwater', text: 'needs no tailwater; rows continue below the channel bed', tag: TAG },
   ],
   screenRow(row, ctx, d) {
+    const P = ph(ctx);
     const approach =
       ctx.inflow === 'chute' || ctx.inflow === 'drop'
         ? crit('froude', 'pass', 'the flow would enter the baffled apron over the crest near critical depth (the apron replaces the smooth chute)', row.Q)
@@ -109,8 +113,8 @@ export const usbr9: DissipatorModule = {
     return [
       approach,
       row.q <= d.type9MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${n3(row.q)} m²/s ≤ ${n3(d.type9MaxUnitDischarge)} m²/s ${TAG}`, row.Q)
-        : crit('unitDischarge', 'fail', `q ${n3(row.q)} m²/s exceeds ${n3(d.type9MaxUnitDischarge)} m²/s ${TAG}`, row.Q),
+        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} ≤ ${P.q(d.type9MaxUnitDischarge)} ${TAG}`, row.Q)
+        : crit('unitDischarge', 'fail', `q ${P.q(row.q)} exceeds ${P.q(d.type9MaxUnitDischarge)} ${TAG}`, row.Q),
       crit('tailwater', 'pass', 'needs no tailwater', row.Q),
     ];
   },

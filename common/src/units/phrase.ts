@@ -1,0 +1,94 @@
+// Numbers inside sentences (screening reasons, warnings, notes) in the user's unit system.
+// The engine computes in SI; only the words it hands back are phrased in US customary when the
+// project works in it. Exact factors (NIST SP 811: 1 ft = 0.3048 m, 1 yd = 0.9144 m); kept
+// here rather than through mathjs so the sizing code need not load the units instance.
+
+/** The unit system a project works in. */
+export type PhraseUnits = 'SI' | 'US';
+
+/** Quantities that appear in sentences. */
+export type PhraseKind = 'length' | 'velocity' | 'discharge' | 'unitDischarge' | 'volume';
+
+const FT = 0.3048;
+const US_FACTOR: Record<PhraseKind, number> = {
+  length: FT,
+  velocity: FT,
+  discharge: FT ** 3,
+  unitDischarge: FT ** 2,
+  volume: 0.9144 ** 3, // concrete and earthwork in cubic yards (US practice)
+};
+const LABEL: Record<PhraseKind, Record<PhraseUnits, string>> = {
+  length: { SI: 'm', US: 'ft' },
+  velocity: { SI: 'm/s', US: 'ft/s' },
+  discharge: { SI: 'm³/s', US: 'cfs' },
+  unitDischarge: { SI: 'm²/s', US: 'ft²/s' },
+  volume: { SI: 'm³', US: 'yd³' },
+};
+
+/** Numbers in reasons: three significant figures, no trailing noise. */
+export function n3(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  const a = Math.abs(x);
+  if (a >= 100) return x.toFixed(0);
+  if (a >= 10) return x.toFixed(1);
+  return x.toFixed(2);
+}
+
+/** Phrases SI quantities in one unit system. */
+export interface Phraser {
+  readonly units: PhraseUnits;
+  /** the SI value converted to the user's units (a number) */
+  value(si: number, kind: PhraseKind): number;
+  /** the unit label, e.g. 'ft' */
+  unit(kind: PhraseKind): string;
+  /** the converted number, three figures, no unit */
+  num(si: number, kind: PhraseKind): string;
+  /** number and unit: '1.23 ft' */
+  len(si: number): string;
+  vel(si: number): string;
+  Q(si: number): string;
+  q(si: number): string;
+  vol(si: number): string;
+  /** two quantities compared, with enough digits to tell them apart, each with its unit */
+  pair(kind: PhraseKind, si: number, siLimit: number): [string, string];
+}
+
+const cache: Partial<Record<PhraseUnits, Phraser>> = {};
+
+/**
+ * The phraser of a unit system (default SI).
+ * @example phraser('US').vel(15) // '49.2 ft/s'
+ */
+export function phraser(units: PhraseUnits = 'SI'): Phraser {
+  const u: PhraseUnits = units === 'US' ? 'US' : 'SI';
+  const hit = cache[u];
+  if (hit) return hit;
+  const value = (si: number, kind: PhraseKind): number => (u === 'SI' ? si : si / US_FACTOR[kind]);
+  const unit = (kind: PhraseKind): string => LABEL[kind][u];
+  const num = (si: number, kind: PhraseKind): string => n3(value(si, kind));
+  const withUnit = (kind: PhraseKind) => (si: number): string => `${num(si, kind)} ${unit(kind)}`;
+  const p: Phraser = {
+    units: u,
+    value,
+    unit,
+    num,
+    len: withUnit('length'),
+    vel: withUnit('velocity'),
+    Q: withUnit('discharge'),
+    q: withUnit('unitDischarge'),
+    vol: withUnit('volume'),
+    pair(kind, si, siLimit) {
+      const x = value(si, kind);
+      const lim = value(siLimit, kind);
+      let a = n3(x);
+      let b = n3(lim);
+      for (let k = 3; a === b && x !== lim && k <= 6; k++) {
+        a = x.toFixed(k);
+        b = lim.toFixed(k);
+      }
+      return [`${a} ${unit(kind)}`, `${b} ${unit(kind)}`];
+    },
+  };
+  cache[u] = p;
+  return p;
+}
