@@ -4,25 +4,12 @@
 // machine affects both alike; CPU time of this process is reported beside wall time.
 // Run: node --import tsx --conditions=@basinwright/source scripts/bench-engine.ts
 import { runStudy, type StudyInput } from '@basinwright/common';
+import { fenwickDesign } from '../seed/designs';
 
+// the demo project's design input (invented demo data) with `count` discharges
 const demo = (count: number): StudyInput => ({
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
+  ...fenwickDesign,
   discharges: { kind: 'range', min: 5, max: 85, count },
-  tailwater: {
-    kind: 'manning',
-    section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 },
-    slope: 0.0015,
-    manningN: 0.03,
-  },
-  inflow: {
-    kind: 'chute',
-    crestElevation: 102,
-    headwater: { kind: 'weir', C: 2.15, L: 12 },
-    lossModel: { kind: 'fraction', value: 0.1 },
-  },
 });
 
 function once(input: StudyInput): { wall: number; cpu: number } {

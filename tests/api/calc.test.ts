@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addMember, bearer, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
 import { expectRel } from '../support/tolerance';
+import { fenwickDesign } from '../../seed/designs';
 
 let h: ApiHarness;
 let token: string;
@@ -26,25 +27,8 @@ const study = (body: unknown) =>
     .set(bearer(token))
     .send(body as object);
 
-const demo = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 9 },
-  tailwater: {
-    kind: 'manning',
-    section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 },
-    slope: 0.0015,
-    manningN: 0.03,
-  },
-  inflow: {
-    kind: 'chute',
-    crestElevation: 102,
-    headwater: { kind: 'weir', C: 2.15, L: 12 },
-    lossModel: { kind: 'fraction', value: 0.1 },
-  },
-};
+// the demo project's design input (invented demo data, seed/designs.ts), 9 discharges
+const demo = { ...fenwickDesign, discharges: { kind: 'range', min: 5, max: 85, count: 9 } } as const;
 
 describe('POST /api/v1/calc/jump', () => {
   it('returns the JumpResult: y1 0.2, b 5, Q 4.43 → y2 0.8, Fr1 3.16 [src: textbook problem, ±0.5 %]', async () => {

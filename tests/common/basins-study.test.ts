@@ -7,16 +7,10 @@ import { DISSIPATOR_CATALOGUE } from '../../common/src/basins';
 import { expectRel } from '../support/tolerance';
 import { runStudy } from '../../common/src/study';
 import * as common from '@basinwright/common';
+import { fenwickDesign } from '../../seed/designs';
 
-const DEMO: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-};
+// the demo project's design input (invented demo data, seed/designs.ts)
+const DEMO: StudyInput = fenwickDesign;
 
 describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => {
   const r = designDissipators(DEMO);

@@ -15,26 +15,10 @@ import {
   type StudyInput,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
+import { fenwickDesign } from '../../seed/designs';
 
-const demo: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: {
-    kind: 'manning',
-    section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 },
-    slope: 0.0015,
-    manningN: 0.03,
-  },
-  inflow: {
-    kind: 'chute',
-    crestElevation: 102,
-    headwater: { kind: 'weir', C: 2.15, L: 12 },
-    lossModel: { kind: 'fraction', value: 0.1 },
-  },
-};
+// the demo project's design input (invented demo data, seed/designs.ts)
+const demo: StudyInput = fenwickDesign;
 
 function bisect(f: (x: number) => number, a: number, b: number): number {
   const fa = f(a) > 0;
