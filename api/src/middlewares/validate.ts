@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { ValidationError, type AnyObjectSchema } from 'yup';
+import { ValidationError, type Schema } from 'yup';
 import { validationError, type ErrorDetails } from '../errors';
 
 export type ValidationSource = 'body' | 'query';
@@ -40,7 +40,7 @@ export function detailsOf(error: ValidationError, source: ValidationSource): Err
  * res.locals.query (Express 5's req.query cannot be reassigned).
  */
 export function validate(
-  schema: AnyObjectSchema,
+  schema: Schema,
   source: ValidationSource = 'body',
 ): RequestHandler {
   return async (req, res, next) => {

@@ -3,6 +3,7 @@
 // only reject what can never be a valid problem — the engine's RangeErrors cover physics.
 import { array, boolean, lazy, mixed, number, object, string, type ObjectSchema, type Schema } from 'yup';
 import type { Section } from '../hydraulics/sections';
+import type { JumpSituation } from '../hydraulics/profiles';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { StudyInput } from '../study';
@@ -75,6 +76,79 @@ export const jumpRequestSchema = object({
   y1: positive('the depth y1'),
   lengthMethod: string().oneOf(['usbr', 'hager'], 'lengthMethod must be usbr or hager.').optional(),
 });
+
+const reach = (label: string) =>
+  object({
+    slope: num(`the ${label} slope`)
+      .min(0, `The ${label} slope must not be negative.`)
+      .max(1, `The ${label} slope must not exceed 1 (45°).`)
+      .required(`Enter the ${label} slope.`),
+    manningN: num(`the ${label} Manning's n`)
+      .min(0.005, "Manning's n must be at least 0.005.")
+      .max(0.2, "Manning's n must not exceed 0.2.")
+      .required(`Enter the ${label} Manning's n.`),
+  }).required(`Enter the ${label} reach.`);
+const slope = num('the bed slope')
+  .min(0, 'The bed slope must not be negative.')
+  .max(1, 'The bed slope must not exceed 1 (45°).')
+  .required('Enter the bed slope.');
+const manningN = num("Manning's n")
+  .min(0.005, "Manning's n must be at least 0.005.")
+  .max(0.2, "Manning's n must not exceed 0.2.")
+  .required("Enter Manning's n.");
+const optionalPositive = (label: string) =>
+  num(label).positive(`${cap(label)} must be greater than zero.`).optional();
+
+/** POST /calc/jump-position: where the jump forms below a control, SI. */
+export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the situation', {
+  slopeBreak: object({
+    kind: string().required(),
+    section: sectionSchema,
+    Q: positive('the discharge Q'),
+    upstream: reach('upstream'),
+    downstream: reach('downstream'),
+    tailwaterDepth: optionalPositive('the tailwater depth'),
+  }),
+  gateMildSlope: object({
+    kind: string().required(),
+    section: sectionSchema,
+    Q: positive('the discharge Q'),
+    opening: positive('the gate opening'),
+    Cc: num('the contraction coefficient')
+      .min(0.5, 'The contraction coefficient must be at least 0.5.')
+      .max(1, 'The contraction coefficient must not exceed 1.')
+      .required('Enter the contraction coefficient.'),
+    slope,
+    manningN,
+    tailwaterDepth: optionalPositive('the tailwater depth'),
+  }),
+  gateSteepSlope: object({
+    kind: string().required(),
+    section: sectionSchema,
+    Q: positive('the discharge Q'),
+    slope,
+    manningN,
+    upstreamDepth: optionalPositive('the depth upstream of the gate'),
+    opening: optionalPositive('the gate opening'),
+    Cc: num('the contraction coefficient')
+      .min(0.5, 'The contraction coefficient must be at least 0.5.')
+      .max(1, 'The contraction coefficient must not exceed 1.')
+      .optional(),
+  }),
+  weirToMildSlope: object({
+    kind: string().required(),
+    section: sectionSchema,
+    Q: positive('the discharge Q'),
+    crestHeight: positive('the crest height'),
+    lossFraction: num('the loss fraction')
+      .min(0, 'The loss fraction must not be negative.')
+      .max(0.9, 'The loss fraction must not exceed 0.9.')
+      .optional(),
+    slope,
+    manningN,
+    tailwaterDepth: optionalPositive('the tailwater depth'),
+  }),
+}) as unknown as Schema<JumpSituation>;
 
 const lossModelSchema = byKind('kind', 'the loss allowance', {
   none: object({ kind: string().required() }),

@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import type { StudyInput } from '@basinwright/common';
+import type { JumpSituation, StudyInput } from '@basinwright/common';
 import { presentJump, presentStudy } from './calc.presenter';
 import * as calc from './calc.service';
 
@@ -11,4 +11,9 @@ export function jump(req: Request, res: Response): void {
 export function study(req: Request, res: Response): void {
   // Cast by validate(studyInputSchema).
   res.json(presentStudy(calc.calculateStudy(req.body as StudyInput)));
+}
+
+export function jumpPosition(req: Request, res: Response): void {
+  // Cast by validate(jumpSituationSchema).
+  res.json(calc.calculateJumpPosition(req.body as JumpSituation));
 }

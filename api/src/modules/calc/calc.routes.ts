@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { jumpRequestSchema, studyInputSchema } from '@basinwright/common';
+import { jumpRequestSchema, jumpSituationSchema, studyInputSchema } from '@basinwright/common';
 import { authenticateToken } from '../../middlewares/auth';
 import { validate } from '../../middlewares/validate';
 import * as controller from './calc.controller';
@@ -13,5 +13,6 @@ export function calcRouter(): Router {
   router.use(authenticateToken);
   router.post('/jump', validate(jumpRequestSchema), controller.jump);
   router.post('/study', validate(studyInputSchema), controller.study);
+  router.post('/jump-position', validate(jumpSituationSchema), controller.jumpPosition);
   return router;
 }

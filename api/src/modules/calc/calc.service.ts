@@ -1,5 +1,8 @@
 import {
   hydraulicJump,
+  locateJump,
+  type JumpLocation,
+  type JumpSituation,
   runStudy,
   toSI,
   type JumpLengthMethod,
@@ -43,6 +46,15 @@ export function calculateJump(body: JumpRequest): JumpResult {
 export function calculateStudy(input: StudyInput): StudyResult {
   try {
     return runStudy(toSI(input));
+  } catch (error) {
+    throw engineError(error);
+  }
+}
+
+/** Where the jump forms below a control (slope break, gate, weir): distance and both profiles, SI. */
+export function calculateJumpPosition(body: JumpSituation): JumpLocation {
+  try {
+    return locateJump(body);
   } catch (error) {
     throw engineError(error);
   }
