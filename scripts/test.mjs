@@ -129,7 +129,6 @@ async function main() {
   }
 }
 
-let exitCode = 0;
 try {
   await main();
 } catch (err) {
@@ -137,7 +136,6 @@ try {
   process.stdout.write(`FAILED set-up: ${err instanceof Error ? err.message : String(err)}\n`);
 } finally {
   await cleanup();
-  exitCode = failed > 0 ? 1 : 0;
   process.stdout.write(`${passed} passed, ${failed} failed\n`);
-  process.exit(exitCode);
+  process.exit(failed > 0 ? 1 : 0);
 }

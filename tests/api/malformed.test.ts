@@ -86,9 +86,8 @@ describe('no operation answers 500 to malformed input', () => {
     const url = `/api/v1${concrete(path, path.includes('{') ? projectId : '')}`;
     for (const [label, raw] of BODIES) {
       if (method === 'get' || method === 'delete') continue;
-      const res = await h
-        .http()
-        [method](url)
+      const agent = h.http();
+      const res = await agent[method](url)
         .set(bearer(token))
         .set('Content-Type', 'application/json')
         .send(raw);
@@ -101,9 +100,8 @@ describe('no operation answers 500 to malformed input', () => {
   it.each(operations.filter((o) => o.path.includes('{')))('$method $path: bad ids', async ({ method, path }) => {
     const before = await counts();
     for (const id of IDS) {
-      const res = await h
-        .http()
-        [method](`/api/v1${concrete(path, id)}`)
+      const agent = h.http();
+      const res = await agent[method](`/api/v1${concrete(path, id)}`)
         .set(bearer(token))
         .send({});
       expectClientError(res, `${method} ${path} with id ${id.slice(0, 20)}`);
