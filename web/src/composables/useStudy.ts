@@ -140,3 +140,31 @@ export function unitFormat(units: UnitSystem) {
   return { label, value, num, withUnit };
 }
 export type UnitFormat = ReturnType<typeof unitFormat>;
+
+/** The floor the chosen basin is designed on, beside the free-jump floor the Jump check solves. */
+export interface GoverningFloor {
+  /** the chosen basin's own floor (top of slab or apron invert), m; null for a sloping apron */
+  elevation: number | null;
+  /** the chosen type's name, e.g. "USBR Type II basin" */
+  basin: string;
+  /** the chosen type's tailwater factor at the design discharge (jump basins only) */
+  factor: number | null;
+  governingQ: number | null;
+  /** chosen floor − free-jump floor, m (negative: the basin sits lower) */
+  difference: number | null;
+}
+
+export function governingFloor(result: StudyResult | null): GoverningFloor | null {
+  const entry = result?.design;
+  if (!result || !entry) return null;
+  const d = entry.design;
+  const elevation =
+    d.family === 'jump-basin' || d.family === 'impact-basin' ? d.floorElevation : d.family === 'riprap-apron' ? d.invertElevation : null;
+  return {
+    elevation,
+    basin: d.name,
+    factor: d.family === 'jump-basin' ? d.sizing.tailwaterFactor : null,
+    governingQ: d.family === 'jump-basin' ? d.governingQ : null,
+    difference: elevation === null ? null : elevation - result.floor.elevation,
+  };
+}
