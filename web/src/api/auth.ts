@@ -24,6 +24,10 @@ export const authApi = {
     request<{ message: string }>('/auth/forgot-password', { method: 'POST', body }),
   resetPassword: (body: { token: string; password: string }) =>
     request<Session>('/auth/reset-password', { method: 'POST', body }),
+  updateProfile: (body: { name: string }) =>
+    request<{ user: User; firm: Firm }>('/auth/me', { method: 'PATCH', body }),
+  changePassword: (body: { currentPassword: string; newPassword: string }) =>
+    request<Session>('/auth/change-password', { method: 'POST', body }),
   previewInvitation: (token: string) =>
     request<InvitationPreview>(`/invitations/${encodeURIComponent(token)}`),
   acceptInvitation: (body: { token: string; name: string; password: string }) =>

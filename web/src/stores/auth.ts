@@ -92,6 +92,17 @@ export const useAuthStore = defineStore('auth', () => {
     setSession(await authApi.acceptInvitation({ token: inviteToken, name, password }));
   }
 
+  async function updateProfile(name: string): Promise<void> {
+    const me = await authApi.updateProfile({ name });
+    user.value = me.user;
+    firm.value = me.firm;
+  }
+
+  /** Changes the password; the server ends every other session and hands this one a new token. */
+  async function changePassword(currentPassword: string, newPassword: string): Promise<void> {
+    setSession(await authApi.changePassword({ currentPassword, newPassword }));
+  }
+
   /** Ends the session on the server (best effort) and here (always). */
   async function signOut(): Promise<void> {
     try {
@@ -118,6 +129,8 @@ export const useAuthStore = defineStore('auth', () => {
     signUp,
     resetPassword,
     acceptInvitation,
+    updateProfile,
+    changePassword,
     signOut,
   };
 });
