@@ -72,6 +72,7 @@ async function main() {
     check('type-check tests', 'npx', ['tsc', '--noEmit', '-p', 'tests']);
     check('type-check web', 'npx', ['vue-tsc', '--noEmit', '-p', 'web']);
     check('type-check web tests', 'npx', ['vue-tsc', '--noEmit', '-p', 'tests/web']);
+    check('lint', 'npx', ['eslint', '.']);
   }
 
   tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-test-'));

@@ -34,7 +34,7 @@ async function caught(promise: Promise<unknown>): Promise<ApiError> {
     await promise;
   } catch (error) {
     if (error instanceof ApiError) return error;
-    throw new Error(`expected an ApiError, got ${String(error)}`);
+    throw new Error(`expected an ApiError, got ${String(error)}`, { cause: error });
   }
   throw new Error('expected the request to fail');
 }

@@ -434,7 +434,6 @@ export function layoutDrawing(drawing: Drawing, opts: SvgOptions = {}): DrawingL
  */
 export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
   const lay = layoutDrawing(drawing, opts);
-  const format = opts.format ?? formatSI;
   const width = lay.width;
   const font = esc(opts.fontFamily ?? 'Lato, Helvetica, Arial, sans-serif');
   const unit = opts.scaleUnit ?? { label: 'm', metres: 1 };
