@@ -118,4 +118,33 @@ describe('GET/PUT /projects/:id/design', () => {
     expect((await h.http().delete(`/api/v1/projects/${p.body.id}`).set(bearer(token))).status).toBe(204);
     expect(await h.models.Design.count({ where: { projectId: p.body.id } })).toBe(0);
   });
+
+  it('saves the dissipator overrides and the chosen type in the input; a bad override is a 422 and saves nothing', async () => {
+    // US project: the overrides are typed in ft; the server runs the study on toSI(input).
+    const dissipators = {
+      chosenType: 'usbr-2' as const,
+      debris: 'light' as const,
+      defaults: { freeboardCoefficient: 0.15, riprapMinThickness: 2 },
+      flotation: { safetyFactor: 1.5, minThickness: 1.5 },
+    };
+    const res = await put(usProject, { input: { ...caldwellDesign, dissipators } });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.input.dissipators).toEqual(dissipators);
+    expect((await get(usProject)).body.input.dissipators).toEqual(dissipators);
+    // What the server computed: the chosen type, and 2 ft = 0.6096 m exactly (NIST SP 811).
+    const study = runStudy(toSI(res.body.input));
+    expect(study.dissipators?.chosen).toBe('usbr-2');
+    expect(study.dissipators?.assumptions.find((a) => a.key === 'riprapMinThickness')?.value).toBe(2 * 0.3048);
+
+    const before = await get(usProject);
+    const bad = await put(usProject, {
+      input: { ...caldwellDesign, dissipators: { ...dissipators, defaults: { freeboardCoefficient: -1 }, flotation: { safetyFactor: 0.5 } } },
+    });
+    expect(bad.status).toBe(422);
+    expect(bad.body.details['input.dissipators.defaults.freeboardCoefficient']).toMatch(/must be a number not below zero/);
+    expect(bad.body.details['input.dissipators.flotation.safetyFactor']).toBe('The flotation safety factor must be at least 1.');
+    const unknown = await put(usProject, { input: { ...caldwellDesign, dissipators: { defaults: { wallColour: 3 } } } });
+    expect(unknown.status).toBe(422);
+    expect((await get(usProject)).body).toEqual(before.body);
+  });
 });

@@ -9,7 +9,8 @@ import DesignSizingStep from '../../web/src/components/DesignSizingStep.vue';
 import { governingFloor } from '../../web/src/composables/useStudy';
 import { fenwickDesign } from '../../seed/designs';
 
-const stubs = { DesignRangeChart: true, DesignDiagramChart: true, DesignDrawing: true };
+// The assumptions panel needs the workspace's form around it: tested in design-assumptions.test.ts.
+const stubs = { DesignRangeChart: true, DesignDiagramChart: true, DesignDrawing: true, DesignAssumptionsPanel: true };
 // The demo study of product.md (invented scenario): a USBR Type II basin is recommended.
 const result: StudyResult = runStudy(fenwickDesign);
 

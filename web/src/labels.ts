@@ -1,6 +1,6 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
-import type { CriterionId, CriterionStatus, JumpPosition, Verdict } from '@basinwright/common';
+import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, JumpPosition, Verdict } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -106,3 +106,22 @@ const criteria: Record<CriterionId, string> = {
   head: 'Head',
 };
 export const criterionLabel = (c: CriterionId): string => criteria[c] ?? c;
+
+// How sure a default is, in words (the engine's provenance tags src, mem, calc, practice).
+const confidences: Record<Confidence, { label: string; color: string; help: string }> = {
+  src: { label: 'Published', color: 'cyan', help: 'Read in the named publication.' },
+  mem: { label: 'From memory — verify', color: 'gold', help: 'Recalled from the named publication, not re-read: check it before relying on it.' },
+  calc: { label: 'Computed', color: 'blue', help: 'Follows from physics or a standard constant.' },
+  practice: { label: 'Common practice', color: 'default', help: 'A habit of the trade with no single source.' },
+};
+export const confidenceLabel = (c: Confidence): string => confidences[c].label;
+export const confidenceColor = (c: Confidence): string => confidences[c].color;
+export const confidenceHelp = (c: Confidence): string => confidences[c].help;
+
+const debrisLevels: Record<DebrisLevel, string> = {
+  none: 'None expected',
+  light: 'Light (leaves, small branches)',
+  heavy: 'Heavy (trees, large floating debris)',
+};
+export const debrisLabel = (d: DebrisLevel): string => debrisLevels[d];
+export const DEBRIS_LEVELS: readonly DebrisLevel[] = ['none', 'light', 'heavy'];

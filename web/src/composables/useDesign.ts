@@ -2,7 +2,23 @@
 // design; the form's shared context for the step components; CSV tables for ratings.
 import { inject, provide, ref, shallowRef, watch, type InjectionKey, type Ref } from 'vue';
 import Papa from 'papaparse';
-import { inputFromSI, toSI, type StudyInput, type UnitSystem } from '@basinwright/common';
+import { ValidationError } from 'yup';
+import {
+  BASIN_DEFAULTS,
+  BASIN_DEFAULT_PROVENANCE,
+  UNIT_LABELS,
+  dissipatorOptionsSchema,
+  fromSIValue,
+  inputFromSI,
+  toSI,
+  type Assumption,
+  type BasinDefaultKey,
+  type Confidence,
+  type DissipatorStudyOptions,
+  type QuantityKind,
+  type StudyInput,
+  type UnitSystem,
+} from '@basinwright/common';
 import { ApiError } from '@/api/client';
 import { designsApi, type Design, type DesignOptions } from '@/api/designs';
 import { projectsApi } from '@/api/projects';
@@ -75,6 +91,18 @@ export function inputForForm(saved: StudyInput, units: UnitSystem): StudyInput {
   return { ...tidy(inputFromSI(toSI(saved), units)), units };
 }
 
+/**
+ * The form's starting values from a saved design: the input in the project's units, with the
+ * chosen basin type inside `input.dissipators`. Designs saved before the type moved there kept
+ * it in `options.chosenType`: that is still read (the input's own choice wins).
+ */
+export function designFormValues(saved: StudyInput | null, options: DesignOptions | null, units: UnitSystem): StudyInput {
+  const input = saved ? inputForForm(saved, units) : startingInput(units);
+  const legacy = options?.chosenType;
+  if (input.dissipators?.chosenType !== undefined || legacy === undefined) return input;
+  return { ...input, dissipators: { ...(input.dissipators ?? {}), chosenType: legacy } };
+}
+
 /** The SI input the engine takes, from the form's values in the user's units. */
 export function inputForEngine(values: StudyInput): StudyInput {
   return toSI(values);
@@ -140,6 +168,131 @@ export function useDesignForm(): DesignFormContext {
   const ctx = inject(FORM_KEY);
   if (!ctx) throw new Error('useDesignForm needs the design workspace around it');
   return ctx;
+}
+
+// ---- Assumptions: the dissipator defaults in force, in the user's units, and their overrides ----
+
+/** The quantity an assumption's SI unit label stands for (null: a ratio or a count). */
+export function assumptionKind(unit: string): QuantityKind | null {
+  if (unit === '-' || unit === '°') return null;
+  const kinds = Object.keys(UNIT_LABELS) as QuantityKind[];
+  return kinds.find((k) => UNIT_LABELS[k].SI === unit) ?? null;
+}
+
+/** Drops float noise from a unit conversion, for showing and comparing typed numbers. */
+const clean = (v: number): number => Number(v.toPrecision(10));
+
+/**
+ * Two defaults are also fields of the flotation case (DesignOptions.flotation), which the
+ * engine prefers when given: the panel edits them there so there is one place for each.
+ */
+export const FLOTATION_FIELDS: Partial<Record<BasinDefaultKey, 'safetyFactor' | 'minThickness'>> = {
+  flotationSafetyFactor: 'safetyFactor',
+  minSlabThickness: 'minThickness',
+};
+
+/** One row of the assumptions table, every number in the user's units. */
+export interface AssumptionRow {
+  key: BasinDefaultKey;
+  label: string;
+  source: string;
+  confidence: Confidence;
+  /** unit label in the user's system ('' for ratios and counts) */
+  unit: string;
+  kind: QuantityKind | null;
+  /** the value in force (the engine's when a result is given) */
+  value: number;
+  defaultValue: number;
+  overridden: boolean;
+  /** form path of the override, under the study input */
+  path: string;
+}
+
+/**
+ * Every dissipator default as a row: label, source, confidence, the value in force in the
+ * user's units and whether the engineer changed it. `assumptions` are the engine's (SI, from
+ * result.dissipators.assumptions); without them (no result yet) the form's overrides stand in.
+ */
+export function assumptionRows(
+  dissipators: DissipatorStudyOptions | undefined,
+  units: UnitSystem,
+  assumptions?: readonly Assumption[] | null,
+): AssumptionRow[] {
+  const byKey = new Map((assumptions ?? []).map((a) => [a.key, a]));
+  return (Object.keys(BASIN_DEFAULTS) as BasinDefaultKey[]).map((key) => {
+    const p = BASIN_DEFAULT_PROVENANCE[key];
+    const kind = assumptionKind(p.unit);
+    const show = (si: number): number => clean(kind ? fromSIValue(si, kind, units) : si);
+    const flo = FLOTATION_FIELDS[key];
+    const typedFlotation = flo ? dissipators?.flotation?.[flo] : undefined;
+    const typedDefault = dissipators?.defaults?.[key];
+    const typed = typedFlotation ?? typedDefault;
+    const engine = byKey.get(key);
+    const defaultValue = show(BASIN_DEFAULTS[key]);
+    // The flotation case's value is what the engine uses, not the listed default.
+    const value = typeof typed === 'number' && Number.isFinite(typed) ? typed : engine ? show(engine.value) : defaultValue;
+    return {
+      key,
+      label: p.label,
+      source: p.source,
+      confidence: p.confidence,
+      unit: kind ? UNIT_LABELS[kind][units] : p.unit === '°' ? '°' : '',
+      kind,
+      value,
+      defaultValue,
+      overridden: typed !== undefined,
+      path: flo ? `dissipators.flotation.${flo}` : `dissipators.defaults.${key}`,
+    };
+  });
+}
+
+/**
+ * The dissipator options with one default overridden (`value`, in the user's units) or, when
+ * `value` is undefined, back to its default (the key removed, not left undefined: the schema
+ * takes an override as a number). Never mutates `dissipators`.
+ */
+export function withOverride(
+  dissipators: DissipatorStudyOptions | undefined,
+  key: BasinDefaultKey,
+  value: number | undefined,
+): DissipatorStudyOptions {
+  const out: DissipatorStudyOptions = { ...(dissipators ?? {}) };
+  const flo = FLOTATION_FIELDS[key];
+  if (flo) {
+    const f = { ...(out.flotation ?? {}) };
+    delete f[flo];
+    if (value !== undefined) f[flo] = value;
+    if (Object.keys(f).length > 0) out.flotation = f;
+    else delete out.flotation;
+    // An older override of the same default would hide behind the flotation field: drop it.
+    if (out.defaults && key in out.defaults) {
+      const rest = { ...out.defaults };
+      delete rest[key];
+      out.defaults = rest;
+    }
+  } else {
+    const defaults = { ...(out.defaults ?? {}) };
+    delete defaults[key];
+    if (value !== undefined) defaults[key] = value;
+    out.defaults = defaults;
+  }
+  if (out.defaults && Object.keys(out.defaults).length === 0) delete out.defaults;
+  return out;
+}
+
+/**
+ * Why an override (in the user's units) would be refused, in the shared schema's words, or
+ * null when the schema takes it. Bounds are the engine schema's (dissipatorOptionsSchema).
+ */
+export function overrideProblem(key: BasinDefaultKey, value: number | undefined): string | null {
+  if (value === undefined) return null;
+  try {
+    dissipatorOptionsSchema.validateSync(withOverride({}, key, value), { abortEarly: true });
+    return null;
+  } catch (e) {
+    if (e instanceof ValidationError) return e.errors[0] ?? e.message;
+    throw e;
+  }
 }
 
 /** Reads a dotted path ("inflow.headwater.C", "tailwater.rows[2].Q") from an object. */

@@ -31,6 +31,11 @@ const FIELD_WORDS: Array<[RegExp, string]> = [
   [/^inflow\b/, 'Inflow'],
   [/^floorElevation\b/, 'Floor elevation'],
   [/^tailwaterFactor\b/, 'Tailwater factor'],
+  [/^dissipators\.defaults\b/, 'Assumption'],
+  [/^defaults\b/, 'Assumption'],
+  [/^dissipators\.flotation\b/, 'Flotation case'],
+  [/^safetyFactor\b/, 'Flotation safety factor'],
+  [/^dissipators\.culvert\b/, 'Culvert size'],
 ];
 
 /**
@@ -78,7 +83,9 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
   }
   try {
     const si = inputForEngine(input);
-    const result = runStudy(chosenType ? { ...si, dissipators: { chosenType } } : si);
+    // A choice passed beside the input wins over the one stored in it; the rest of the
+    // dissipator options (overrides, flotation, debris, culvert) always go with the input.
+    const result = runStudy(chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si);
     return { result, engineError: null, inputProblems: [] };
   } catch (e) {
     return { result: null, engineError: readableEngineError(e), inputProblems: [] };
@@ -91,7 +98,7 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
  */
 export function useStudy(
   source: Ref<unknown>,
-  chosenType: Ref<DissipatorTypeId | null | undefined>,
+  chosenType: Ref<DissipatorTypeId | null | undefined> = ref(null),
   debounceMs = STUDY_DEBOUNCE_MS,
 ) {
   const result = shallowRef<StudyResult | null>(null);

@@ -1,0 +1,118 @@
+// The assumptions behind the sizing in a real browser (E2E_BASE_URL): the demo engineer changes
+// the freeboard coefficient, sees the wall freeboard change as its relation says, meets the
+// message of an out-of-bounds value, saves, reloads and finds the override kept; then puts
+// the seeded design back.
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { expectRel } from '../support/tolerance';
+
+const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
+const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
+const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
+
+let context: BrowserContext;
+let page: Page;
+let profileDir: string;
+let designUrl = '';
+const pageErrors: string[] = [];
+
+async function shot(name: string): Promise<void> {
+  await page.screenshot({ path: join(SHOTS, `design-assumptions-${name}.png`), fullPage: true });
+}
+function numberIn(text: string | null): number {
+  const m = /-?[\d,]+(\.\d+)?/.exec(text ?? '');
+  if (!m) throw new Error(`no number in ${JSON.stringify(text)}`);
+  return Number(m[0].replace(/,/g, ''));
+}
+const freeboard = async (): Promise<number> => numberIn(await page.locator('[data-test="sizing-freeboard"]').textContent());
+// ant-design-vue puts the data attribute on the <input> itself (or on its wrapper): take either.
+const numberBox = (key: string) => page.locator(`input[data-test="assumption-${key}"], [data-test="assumption-${key}"] input`).first();
+const coefficient = () => numberBox('freeboardCoefficient');
+
+describe('design workspace: the assumptions behind the sizing', () => {
+  beforeAll(async () => {
+    if (!BASE_URL) throw new Error('E2E_BASE_URL is not set: start the built app against a migrated, seeded database.');
+    mkdirSync(SHOTS, { recursive: true });
+    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-assumptions-'));
+    context = await chromium.launchPersistentContext(profileDir, {
+      executablePath: '/usr/bin/chromium',
+      headless: true,
+      viewport: { width: 1366, height: 900 },
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    page = context.pages()[0] ?? (await context.newPage());
+    page.setDefaultTimeout(20_000);
+    page.on('pageerror', (error) => pageErrors.push(error.message));
+  });
+  afterAll(async () => {
+    await context?.close();
+    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+  });
+
+  it('opens the demo design on the Sizing step with every assumption listed', async () => {
+    await page.goto(`${BASE_URL}/sign-in`);
+    await page.getByLabel('E-mail').fill('engineer@harrow-lune.example');
+    await page.getByLabel('Password').fill('basinwright-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/projects$/);
+    const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
+    await row.getByRole('link', { name: DEMO_PROJECT }).click();
+    await page.locator('[data-test="open-design"]').click();
+    await page.waitForURL(/\/projects\/[^/]+\/design/);
+    designUrl = page.url().split('?')[0]!;
+    await page.goto(`${designUrl}?step=sizing`);
+    await page.locator('[data-test="sizing-freeboard"]').waitFor();
+    await page.locator('[data-test="assumptions-table"]').waitFor();
+    expect(await page.locator('[data-test="assumptions-table"] tbody tr.ant-table-row').count()).toBeGreaterThan(60);
+    expect(await page.locator('[data-test="assumptions-table"]').textContent()).toContain('From memory — verify');
+    await expect.poll(() => coefficient().inputValue()).toBe('0.1');
+  });
+
+  it('a changed freeboard coefficient k changes the wall freeboard as F = k·(V1 + y2) says [from memory: USBR, Design of Small Dams]', async () => {
+    const before = await freeboard();
+    await coefficient().fill('0.15');
+    await coefficient().blur();
+    // Linear in k: 0.15/0.1 = 1.5 × the freeboard (shown to 0.01 m).
+    await expect.poll(freeboard).not.toBe(before);
+    expectRel(await freeboard(), before * 1.5, 0.01 / (before * 1.5) + 1e-9);
+    await page.locator('[data-test="assumptions-changed-count"]').waitFor();
+    await shot('1-changed');
+  });
+
+  it('an out-of-bounds value shows its message on the field and the page keeps working', async () => {
+    const sill = numberBox('type2SillHeightRatio');
+    await sill.fill('-1');
+    await sill.blur();
+    const item = page.locator('.ant-form-item', { has: page.locator('[data-test="assumption-type2SillHeightRatio"]') });
+    await expect.poll(() => item.textContent()).toMatch(/must be a number not below zero/);
+    await shot('2-refused');
+    await page.locator('[data-test="assumption-reset-type2SillHeightRatio"]').click();
+    await expect.poll(() => item.textContent()).not.toMatch(/must be a number/);
+    await expect.poll(() => sill.inputValue()).toBe('0.2');
+  });
+
+  it('saves, reloads and finds the override kept; then puts the seeded design back', async () => {
+    await page.locator('[data-test="save-design"]').click();
+    await page.getByText('Design saved.').waitFor();
+    await page.goto(`${designUrl}?step=sizing`);
+    await page.locator('[data-test="assumptions-table"]').waitFor();
+    await expect.poll(() => coefficient().inputValue()).toBe('0.15');
+    await page.locator('[data-test="assumption-reset-freeboardCoefficient"]').waitFor();
+    await shot('3-reloaded');
+    await page.locator('[data-test="assumption-reset-freeboardCoefficient"]').click();
+    await expect.poll(() => coefficient().inputValue()).toBe('0.1');
+    await page.keyboard.press('Control+s');
+    await page.getByText('Design saved.').first().waitFor();
+    await page.goto(`${designUrl}?step=sizing`);
+    await expect.poll(() => coefficient().inputValue()).toBe('0.1');
+    expect(await page.locator('[data-test="assumptions-changed-count"]').count()).toBe(0);
+  });
+
+  it('raised no uncaught errors in the page', () => {
+    expect(pageErrors).toEqual([]);
+  });
+});
