@@ -373,7 +373,7 @@ export function designBaffledApron(
   const d = resolveDefaults(options.defaults);
   const drop = reqFinite('crestElevation', c.crestElevation) - reqFinite('channelBedElevation', c.channelBedElevation);
   const s = sizeBaffledApron({ Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) }, d, options.units ?? 'SI');
-  const t = d.minSlabThickness;
+  const t = options.flotation?.minThickness ?? d.minSlabThickness;
   const slab = s.slopeLength * (c.width + 2 * d.minWallThickness) * t;
   const walls = 2 * s.slopeLength * s.wallHeight * d.minWallThickness;
   const baffles = s.rows * ((s.rowA.count + s.rowB.count) / 2) * s.baffleHeight * s.baffleWidth * s.baffleHeight;

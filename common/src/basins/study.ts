@@ -170,7 +170,12 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
   }
   if (ctx.culvert) {
     const dr = bedRows.reduce((a, r) => (Math.abs(r.Q - input.designDischarge) < Math.abs(a.Q - input.designDischarge) ? r : a));
-    designs['riprap-apron'] = designRiprapApron({ invertElevation: naturalFloor, designQ: dr.Q, culvert: ctx.culvert, tailwaterElevation: dr.tailwaterElevation }, opts);
+    try {
+      designs['riprap-apron'] = designRiprapApron({ invertElevation: naturalFloor, designQ: dr.Q, culvert: ctx.culvert, tailwaterElevation: dr.tailwaterElevation }, opts);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      notes.push(`${nameOf('riprap-apron')}: not sized (${e.message})`);
+    }
   }
 
   const measures: Partial<Record<DissipatorTypeId, { length?: number; concreteVolume?: number }>> = {};
@@ -215,7 +220,12 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
     alternatives,
     floors,
     context: ctx,
-    assumptions: listAssumptions(d),
+    // The flotation case, when given, takes the place of its two defaults: list what is in force.
+    assumptions: listAssumptions({
+      ...d,
+      ...(opts.flotation?.safetyFactor !== undefined ? { flotationSafetyFactor: opts.flotation.safetyFactor } : {}),
+      ...(opts.flotation?.minThickness !== undefined ? { minSlabThickness: opts.flotation.minThickness } : {}),
+    }),
     notes,
   };
 }

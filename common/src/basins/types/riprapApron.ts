@@ -28,11 +28,15 @@ export const riprapApron: DissipatorModule = {
     const c = ctx.culvert;
     if (!c) return out;
     const D = c.rise;
-    const tw = row.tailwaterDepth;
+    // A perched outlet (tailwater below its invert) discharges freely: tailwater 0 above the invert.
+    const perched = row.tailwaterDepth !== undefined && row.tailwaterDepth < 0;
+    const tw = row.tailwaterDepth === undefined ? undefined : Math.max(0, row.tailwaterDepth);
     out.push(
       tw === undefined
         ? crit('tailwater', 'warn', 'tailwater not known: the stone is sized for 0.4·D (conservative)', row.Q)
-        : tw < 0.4 * D || tw > D
+        : perched
+          ? crit('tailwater', 'warn', `tailwater is below the outlet invert (free outfall): the relation is held at 0.4 × rise [src: HEC-14 eq. 10.4]`, row.Q)
+          : tw < 0.4 * D || tw > D
           ? crit('tailwater', 'warn', `tailwater ${P.len(tw)} is outside 0.4–1.0 × rise (${P.num(0.4 * D, 'length')}–${P.len(D)}): the relation is held at its bound [src: HEC-14 eq. 10.4]`, row.Q)
           : crit('tailwater', 'pass', `tailwater ${P.len(tw)} within 0.4–1.0 × rise`, row.Q),
     );
