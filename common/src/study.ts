@@ -625,6 +625,12 @@ export function solveFloorElevation(
   return floorSolve(prepare(input), tailwaterFactor);
 }
 
+/** Where the jump stands against a tailwater depth: short of y2 sweeps out; above y2 by more than `tol` (a fraction) drowns. */
+function jumpPosition(twDepth: number, y2: number, tol: number): JumpPosition {
+  if (twDepth < y2 * (1 - 1e-9)) return 'swept-out';
+  return (twDepth - y2) / y2 > tol ? 'drowned' : 'at-toe';
+}
+
 function rowsAt(p: Prepared, z: number, C: TailwaterFactor): StudyRow[] {
   const inp = p.input;
   const tol = inp.submergenceTolerance ?? DEFAULTS.submergenceTolerance;
@@ -640,10 +646,9 @@ function rowsAt(p: Prepared, z: number, C: TailwaterFactor): StudyRow[] {
     const twDepth = tw.elevation - z;
     const ratio = (twDepth - y2) / y2;
     const notes: string[] = [];
-    let position: JumpPosition;
+    const position = jumpPosition(twDepth, y2, tol);
     let sweep: number | null = null;
-    if (twDepth < y2 * (1 - 1e-9)) {
-      position = 'swept-out';
+    if (position === 'swept-out') {
       if (twDepth > yc) {
         // Horizontal rectangular floor: the H3 profile from y1 rises to the depth whose
         // sequent is the tailwater (Bélanger, reversed), by the direct step method.
@@ -658,10 +663,9 @@ function rowsAt(p: Prepared, z: number, C: TailwaterFactor): StudyRow[] {
           'tailwater below critical depth on the floor: the flow stays supercritical and leaves the basin',
         );
       }
-    } else if (ratio > tol) {
-      position = 'drowned';
+    } else if (position === 'drowned') {
       notes.push(`jump drowned: tailwater ${(ratio * 100).toFixed(1)} % above the sequent depth`);
-    } else position = 'at-toe';
+    }
     if (tw.outside) notes.push(`tailwater extended ${tw.outside} the rating table`);
     let gate: StudyRow['gate'] = null;
     if (toe.gate) {
@@ -755,12 +759,7 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
   const twD = rating(Qd);
   const twDepth = twD.elevation - z;
   const tol = input.submergenceTolerance ?? DEFAULTS.submergenceTolerance;
-  const designPos: JumpPosition =
-    twDepth < jump.y2 * (1 - 1e-9)
-      ? 'swept-out'
-      : (twDepth - jump.y2) / jump.y2 > tol
-        ? 'drowned'
-        : 'at-toe';
+  const designPos = jumpPosition(twDepth, jump.y2, tol);
   const depthBelowBed = Math.max(0, input.channelBedElevation - z);
   const length = Math.max(...rows.map((r) => r.length), jump.length);
   const b = input.basinWidth;

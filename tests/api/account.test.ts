@@ -1,5 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, signUpFirm, startApi, TEST_PASSWORD, type ApiHarness } from '../support/api-app';
+import {
+  TEST_PASSWORD,
+  bearer,
+  login,
+  signUpFirm,
+  startApi,
+  type ApiHarness,
+} from '../support/api-app';
 
 // A member's own account: the name, and the password (which ends every other session).
 
@@ -45,13 +52,12 @@ describe('POST /auth/change-password', () => {
     expect(res.status).toBe(422);
     expect(res.body.details.currentPassword).toMatch(/not right/);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(s.token))).status).toBe(200);
-    const login = await h.http().post('/api/v1/auth/login').send({ email: s.user.email, password: TEST_PASSWORD });
-    expect(login.status).toBe(200);
+    expect((await login(h, s.user.email, TEST_PASSWORD)).status).toBe(200);
   });
 
   it('the new password works, the old one and every old session do not, this session goes on', async () => {
     const s = await signUpFirm(h, 'pw-ok');
-    const other = await h.http().post('/api/v1/auth/login').send({ email: s.user.email, password: TEST_PASSWORD });
+    const other = await login(h, s.user.email, TEST_PASSWORD);
     const res = await h
       .http()
       .post('/api/v1/auth/change-password')
@@ -62,9 +68,9 @@ describe('POST /auth/change-password', () => {
     expect((await h.http().get('/api/v1/auth/me').set(bearer(res.body.token))).status).toBe(200);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(s.token))).status).toBe(401);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(other.body.token))).status).toBe(401);
-    const oldLogin = await h.http().post('/api/v1/auth/login').send({ email: s.user.email, password: TEST_PASSWORD });
+    const oldLogin = await login(h, s.user.email, TEST_PASSWORD);
     expect(oldLogin.status).toBe(401);
-    const newLogin = await h.http().post('/api/v1/auth/login').send({ email: s.user.email, password: 'a fresh passphrase 2' });
+    const newLogin = await login(h, s.user.email, 'a fresh passphrase 2');
     expect(newLogin.status).toBe(200);
   });
 

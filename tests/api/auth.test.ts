@@ -8,6 +8,7 @@ import {
   TEST_PASSWORD,
   addMember,
   bearer,
+  login,
   randomClientIp,
   signUpFirm,
   startApi,
@@ -93,10 +94,7 @@ describe('POST /auth/signup', () => {
 describe('POST /auth/login', () => {
   it('signs in with the right password and records the time', async () => {
     const firm = await signUpFirm(h, 'login');
-    const res = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: ` ${firm.email.toUpperCase()} `, password: TEST_PASSWORD });
+    const res = await login(h, ` ${firm.email.toUpperCase()} `, TEST_PASSWORD);
     expect(res.status).toBe(200);
     expect(res.body.user.id).toBe(firm.user.id);
     expect(res.body.firm.id).toBe(firm.firm.id);
@@ -108,19 +106,10 @@ describe('POST /auth/login', () => {
 
   it('gives the same 401 message for a wrong password, an unknown e-mail and a deactivated member', async () => {
     const firm = await signUpFirm(h, 'wrongpw');
-    const wrong = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: firm.email, password: 'not the password' });
-    const unknown = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: uniqueEmail('ghost'), password: TEST_PASSWORD });
+    const wrong = await login(h, firm.email, 'not the password');
+    const unknown = await login(h, uniqueEmail('ghost'), TEST_PASSWORD);
     const inactive = await addMember(h, firm.firm.id, 'viewer', { active: false });
-    const deactivated = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: inactive.email, password: TEST_PASSWORD });
+    const deactivated = await login(h, inactive.email, TEST_PASSWORD);
     for (const res of [wrong, unknown, deactivated]) {
       expect(res.status).toBe(401);
       expect(res.body).toEqual({ code: 'unauthorized', message: 'Incorrect e-mail or password.' });
@@ -216,10 +205,7 @@ describe('tokens', () => {
 describe('POST /auth/logout', () => {
   it('revokes the token (and every other token of the member)', async () => {
     const firm = await signUpFirm(h, 'logout');
-    const second = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: firm.email, password: TEST_PASSWORD });
+    const second = await login(h, firm.email, TEST_PASSWORD);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(200);
     const out = await h.http().post('/api/v1/auth/logout').set(bearer(firm.token));
     expect(out.status).toBe(204);
@@ -230,10 +216,7 @@ describe('POST /auth/logout', () => {
       expect(res.body.code).toBe('unauthorized');
     }
     // Signing in again works and gives a fresh, valid token.
-    const again = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: firm.email, password: TEST_PASSWORD });
+    const again = await login(h, firm.email, TEST_PASSWORD);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(again.body.token))).status).toBe(200);
   });
 });
@@ -257,10 +240,7 @@ describe('login rate limits (counters in PostgreSQL)', () => {
     expect(retryAfter).toBeGreaterThan(0);
     expect(retryAfter).toBeLessThanOrEqual(15 * 60);
     // Another address is not affected.
-    const fresh = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: uniqueEmail('ipflood'), password: 'wrong password' });
+    const fresh = await login(h, uniqueEmail('ipflood'), 'wrong password');
     expect(fresh.status).toBe(401);
   });
 
@@ -273,10 +253,7 @@ describe('login rate limits (counters in PostgreSQL)', () => {
         .send({ email: firm.email, password: `wrong ${i}` });
       expect(res.status).toBe(401);
     }
-    const blocked = await h
-      .http()
-      .post('/api/v1/auth/login')
-      .send({ email: firm.email, password: TEST_PASSWORD });
+    const blocked = await login(h, firm.email, TEST_PASSWORD);
     expect(blocked.status).toBe(429);
     expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
     const row = await h.models.sequelize.query<{ hits: number }>(
@@ -292,10 +269,7 @@ describe('login rate limits (counters in PostgreSQL)', () => {
   it('successful sign-ins do not count against the account', async () => {
     const firm = await signUpFirm(h, 'acctok');
     for (let i = 0; i < 12; i += 1) {
-      const res = await h
-        .http()
-        .post('/api/v1/auth/login')
-        .send({ email: firm.email, password: TEST_PASSWORD });
+      const res = await login(h, firm.email, TEST_PASSWORD);
       expect(res.status).toBe(200);
     }
   });
@@ -359,10 +333,7 @@ describe('login rate limits (counters in PostgreSQL)', () => {
         ).toBe(401);
         expect((await viaOther(`bad other ${i}`)).status).toBe(401);
       }
-      const blockedHere = await h
-        .http()
-        .post('/api/v1/auth/login')
-        .send({ email: firm.email, password: TEST_PASSWORD });
+      const blockedHere = await login(h, firm.email, TEST_PASSWORD);
       expect(blockedHere.status).toBe(429);
       const blockedThere = await viaOther(TEST_PASSWORD);
       expect(blockedThere.status).toBe(429);

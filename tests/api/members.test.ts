@@ -3,6 +3,7 @@ import {
   TEST_PASSWORD,
   addMember,
   bearer,
+  login,
   setPlan,
   signUpFirm,
   startApi,
@@ -81,21 +82,11 @@ describe('PATCH /members/:id', () => {
     expect(off.body.active).toBe(false);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(eng.token))).status).toBe(401);
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: eng.email, password: TEST_PASSWORD })
-      ).status,
+      (await login(h, eng.email, TEST_PASSWORD)).status,
     ).toBe(401);
     expect((await patch(firm.token, eng.id, { active: true })).status).toBe(200);
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: eng.email, password: TEST_PASSWORD })
-      ).status,
+      (await login(h, eng.email, TEST_PASSWORD)).status,
     ).toBe(200);
   });
 

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   TEST_PASSWORD,
   bearer,
+  login,
   signUpFirm,
   startApi,
   tokenFromMail,
@@ -53,20 +54,10 @@ describe('password reset by e-mail', () => {
 
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(401);
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: firm.email, password: TEST_PASSWORD })
-      ).status,
+      (await login(h, firm.email, TEST_PASSWORD)).status,
     ).toBe(401);
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: firm.email, password: NEW_PASSWORD })
-      ).status,
+      (await login(h, firm.email, NEW_PASSWORD)).status,
     ).toBe(200);
   });
 
@@ -85,12 +76,7 @@ describe('password reset by e-mail', () => {
     expect(again.status).toBe(400);
     expect(again.body.code).toBe('invalid_token');
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: firm.email, password: NEW_PASSWORD })
-      ).status,
+      (await login(h, firm.email, NEW_PASSWORD)).status,
     ).toBe(200);
   });
 
@@ -109,12 +95,7 @@ describe('password reset by e-mail', () => {
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('invalid_token');
     expect(
-      (
-        await h
-          .http()
-          .post('/api/v1/auth/login')
-          .send({ email: firm.email, password: TEST_PASSWORD })
-      ).status,
+      (await login(h, firm.email, TEST_PASSWORD)).status,
     ).toBe(200);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(200);
   });

@@ -214,4 +214,9 @@ export async function addMember(
   return { id: user.id, email, token: h.issueToken(user) };
 }
 
+/** POST /auth/login through a fresh client. */
+export function login(h: ApiHarness, email: string, password: string) {
+  return h.http().post('/api/v1/auth/login').send({ email, password });
+}
+
 export const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });

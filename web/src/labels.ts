@@ -50,17 +50,15 @@ const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
   minute: '2-digit',
 });
 
-export function formatDate(iso: string | null | undefined): string {
+/** An ISO timestamp in one format; a dash when missing or unreadable. */
+function formatIso(format: Intl.DateTimeFormat, iso: string | null | undefined): string {
   if (!iso) return '—';
   const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? '—' : dateFormat.format(d);
+  return Number.isNaN(d.getTime()) ? '—' : format.format(d);
 }
 
-export function formatDateTime(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? '—' : dateTimeFormat.format(d);
-}
+export const formatDate = (iso: string | null | undefined): string => formatIso(dateFormat, iso);
+export const formatDateTime = (iso: string | null | undefined): string => formatIso(dateTimeFormat, iso);
 
 // Design workspace: jump positions, jump classes, screening verdicts and criteria in our words.
 
@@ -125,3 +123,14 @@ const debrisLevels: Record<DebrisLevel, string> = {
 };
 export const debrisLabel = (d: DebrisLevel): string => debrisLevels[d];
 export const DEBRIS_LEVELS: readonly DebrisLevel[] = ['none', 'light', 'heavy'];
+
+// The floor the Jump check's chart and table are computed at.
+export type CheckFloor = 'design' | 'reference';
+export const CHECK_AT_LABEL = 'Check at';
+export const checkFloorLabel = (f: CheckFloor, basin: string): string =>
+  f === 'design' ? `Design floor — ${basin}` : 'Free-jump floor (reference)';
+/** Why a chosen type has no tailwater check of its own (impact basin, baffled apron, riprap apron). */
+export const noDesignCheckNote = (basin: string | null): string =>
+  basin
+    ? `The ${basin} does not hold a hydraulic jump on a floor against the tailwater, so it has no tailwater check of its own. The check below is the free-jump one, for reference only.`
+    : 'No basin type is designed yet, so the check below is the free-jump one, for reference only.';

@@ -19,6 +19,14 @@ declare global {
   }
 }
 
+/** The token of `Authorization: Bearer <jwt>`; 401 when the header is missing or malformed. */
+function bearerToken(req: Request): string {
+  const header = req.get('authorization');
+  const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
+  if (match?.[1] === undefined) throw unauthorized();
+  return match[1];
+}
+
 /**
  * Requires `Authorization: Bearer <jwt>`. The user is loaded on every request so that a
  * deactivated member, a changed role or a bumped token version takes effect at once.
@@ -28,10 +36,7 @@ export const authenticate: RequestHandler = async (
   _res: Response,
   next: NextFunction,
 ) => {
-  const header = req.get('authorization');
-  const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
-  if (match?.[1] === undefined) throw unauthorized();
-  const claims = verifyToken(match[1]);
+  const claims = verifyToken(bearerToken(req));
   const user = await User.findByPk(claims.sub, { include: [{ model: Firm, as: 'firm' }] });
   if (
     user === null ||
@@ -53,10 +58,7 @@ export const authenticate: RequestHandler = async (
  * lookup keeps the calculators as fast as a plain JSON route. Everything else uses authenticate().
  */
 export const authenticateToken: RequestHandler = (req, _res, next) => {
-  const header = req.get('authorization');
-  const match = header === undefined ? null : /^Bearer\s+(\S+)$/i.exec(header);
-  if (match?.[1] === undefined) throw unauthorized();
-  verifyToken(match[1]);
+  verifyToken(bearerToken(req));
   next();
 };
 

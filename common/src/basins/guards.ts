@@ -1,24 +1,12 @@
 // Argument checks for the dissipator engine: impossible input ends in a RangeError naming the
 // argument, so no function returns NaN.
 
-export function reqFinite(name: string, value: unknown): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new RangeError(`${name} must be a finite number (got ${String(value)})`);
-  }
-  return value;
-}
-
-export function reqPositive(name: string, value: unknown): number {
-  const v = reqFinite(name, value);
-  if (v <= 0) throw new RangeError(`${name} must be greater than zero (got ${v})`);
-  return v;
-}
-
-export function reqNonNegative(name: string, value: unknown): number {
-  const v = reqFinite(name, value);
-  if (v < 0) throw new RangeError(`${name} must not be negative (got ${v})`);
-  return v;
-}
+// The same checks as the hydraulics engine's, under the short names the basin modules use.
+export {
+  requireFinite as reqFinite,
+  requirePositive as reqPositive,
+  requireNonNegative as reqNonNegative,
+} from '../hydraulics/guards';
 
 /** Piecewise-linear interpolation on (x, y) points sorted by x, held at the end values. */
 export function interpolate(points: ReadonlyArray<readonly [number, number]>, x: number): number {

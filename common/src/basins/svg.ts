@@ -33,9 +33,7 @@ export const formatSI: DrawingFormatter = (value, quantity) => {
       return String(Math.round(value));
     case 'discharge':
       return `${value.toFixed(1)} m³/s`;
-    case 'elevation':
-      return `${value.toFixed(2)} m`;
-    default:
+    default: // lengths and elevations
       return `${value.toFixed(2)} m`;
   }
 };

@@ -150,7 +150,7 @@ export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the si
   }),
 }) as unknown as Schema<JumpSituation>;
 
-const lossModelSchema = byKind('kind', 'the loss allowance', {
+const LOSS_MODELS = {
   none: object({ kind: string().required() }),
   fraction: object({
     kind: string().required(),
@@ -167,31 +167,11 @@ const lossModelSchema = byKind('kind', 'the loss allowance', {
       .required('Enter Cv.'),
   }),
   lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
-});
+};
 
-const lossModelOptional = byKind(
-  'kind',
-  'the loss allowance',
-  {
-    none: object({ kind: string().required() }),
-    fraction: object({
-      kind: string().required(),
-      value: num('the loss fraction')
-        .min(0, 'The loss fraction must not be negative.')
-        .max(0.95, 'The loss fraction must be below 0.95.')
-        .required('Enter the loss fraction.'),
-    }),
-    velocityCoefficient: object({
-      kind: string().required(),
-      Cv: num('Cv')
-        .min(0.1, 'Cv must be at least 0.1.')
-        .max(1, 'Cv must not exceed 1.')
-        .required('Enter Cv.'),
-    }),
-    lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
-  },
-  true,
-);
+const lossModelSchema = byKind('kind', 'the loss allowance', LOSS_MODELS);
+// Where the loss allowance may be left out (the engine then takes its default).
+const lossModelOptional = byKind('kind', 'the loss allowance', LOSS_MODELS, true);
 
 const qElevationRows = (label: string) =>
   array(object({ Q: positive('Q'), elevation: elevation('the elevation') }))

@@ -34,6 +34,17 @@ export function n3(x: number): string {
   return x.toFixed(2);
 }
 
+/** Two numbers compared, three figures each unless that makes unequal numbers look equal (up to six decimals). */
+export function n3Pair(x: number, limit: number): [string, string] {
+  let a = n3(x);
+  let b = n3(limit);
+  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
+    a = x.toFixed(k);
+    b = limit.toFixed(k);
+  }
+  return [a, b];
+}
+
 /** Phrases SI quantities in one unit system. */
 export interface Phraser {
   readonly units: PhraseUnits;
@@ -78,14 +89,7 @@ export function phraser(units: PhraseUnits = 'SI'): Phraser {
     q: withUnit('unitDischarge'),
     vol: withUnit('volume'),
     pair(kind, si, siLimit) {
-      const x = value(si, kind);
-      const lim = value(siLimit, kind);
-      let a = n3(x);
-      let b = n3(lim);
-      for (let k = 3; a === b && x !== lim && k <= 6; k++) {
-        a = x.toFixed(k);
-        b = lim.toFixed(k);
-      }
+      const [a, b] = n3Pair(value(si, kind), value(siLimit, kind));
       return [`${a} ${unit(kind)}`, `${b} ${unit(kind)}`];
     },
   };

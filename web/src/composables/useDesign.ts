@@ -71,9 +71,12 @@ export function startingInput(units: UnitSystem): StudyInput {
   };
 }
 
-/** Drops float noise from a unit round trip (e.g. 295.27559055118104 ft → 295.2755905512). */
+/** Drops float noise from a unit conversion (e.g. 295.27559055118104 ft → 295.2755905512). */
+export const clean = (v: number): number => Number(v.toPrecision(10));
+
+/** `clean` on every number of a unit round trip. */
 function tidy<T>(node: T): T {
-  if (typeof node === 'number') return (Number.isFinite(node) ? Number(node.toPrecision(10)) : node) as T;
+  if (typeof node === 'number') return (Number.isFinite(node) ? clean(node) : node) as T;
   if (Array.isArray(node)) return node.map(tidy) as T;
   if (node !== null && typeof node === 'object') {
     return Object.fromEntries(Object.entries(node).map(([k, v]) => [k, tidy(v)])) as T;
@@ -178,9 +181,6 @@ export function assumptionKind(unit: string): QuantityKind | null {
   const kinds = Object.keys(UNIT_LABELS) as QuantityKind[];
   return kinds.find((k) => UNIT_LABELS[k].SI === unit) ?? null;
 }
-
-/** Drops float noise from a unit conversion, for showing and comparing typed numbers. */
-const clean = (v: number): number => Number(v.toPrecision(10));
 
 /**
  * Two defaults are also fields of the flotation case (DesignOptions.flotation), which the
@@ -374,8 +374,8 @@ export function parseCsvTable(text: string, columns: readonly CsvColumn[], incre
 
 /** The tailwater rating as CSV: discharge, water-surface elevation (in the project's units). */
 export function parseTailwaterCsv(text: string, units: UnitSystem): CsvOutcome {
-  const q = units === 'US' ? 'cfs' : 'm³/s';
-  const z = units === 'US' ? 'ft' : 'm';
+  const q = UNIT_LABELS.discharge[units];
+  const z = UNIT_LABELS.length[units];
   return parseCsvTable(
     text,
     [

@@ -80,11 +80,14 @@ export async function revokeInvitation(firmId: string, invitationId: string): Pr
   if (removed === 0) throw notFound('No such invitation.');
 }
 
+/** Not yet accepted and not expired. */
+function isOpen(invitation: Invitation | null): invitation is Invitation {
+  return invitation !== null && invitation.acceptedAt === null && invitation.expiresAt > new Date();
+}
+
 async function openInvitation(token: string): Promise<Invitation | null> {
   const invitation = await Invitation.findOne({ where: { tokenHash: hashEmailToken(token) } });
-  if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date())
-    return null;
-  return invitation;
+  return isOpen(invitation) ? invitation : null;
 }
 
 /** What an open invitation offers; 404 when the token is unknown, used or expired. */
@@ -112,8 +115,7 @@ export async function acceptInvitation(input: AcceptInvitationInput): Promise<Se
       lock: transaction.LOCK.UPDATE,
       transaction,
     });
-    if (invitation === null || invitation.acceptedAt !== null || invitation.expiresAt <= new Date())
-      throw invalid();
+    if (!isOpen(invitation)) throw invalid();
     if ((await User.count({ where: { email: invitation.email }, transaction })) > 0)
       throw conflict(EMAIL_TAKEN);
     // The invitation already holds a seat; the plan may have shrunk since it was sent.

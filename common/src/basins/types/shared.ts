@@ -1,7 +1,7 @@
 // Criteria shared by several types; reasons in plain words, numbers in the user's units
 // (ctx.units, default SI) through the phraser.
 import { G } from '../../units/constants';
-import { n3, phraser, type Phraser } from '../../units/phrase';
+import { n3, n3Pair, phraser, type Phraser } from '../../units/phrase';
 import type { BasinDefaults } from '../defaults';
 import type { CriterionResult, DebrisLevel, DischargeRow, ScreeningContext } from '../types';
 
@@ -10,17 +10,6 @@ export { n3 };
 /** The phraser of the screening context's unit system. */
 export function ph(ctx: { units?: 'SI' | 'US' } | undefined): Phraser {
   return phraser(ctx?.units ?? 'SI');
-}
-
-/** Two numbers compared in a reason (dimensionless, or SI; see Phraser.pair for units), with enough digits to tell them apart. */
-export function pair(x: number, limit: number): [string, string] {
-  let a = n3(x);
-  let b = n3(limit);
-  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
-    a = x.toFixed(k);
-    b = limit.toFixed(k);
-  }
-  return [a, b];
 }
 
 export function crit(
@@ -35,8 +24,8 @@ export function crit(
 /** Froude number inside an inclusive published range: pass; outside: fail. */
 export function froudeInRange(row: DischargeRow, lo: number, hi: number, tag: string): CriterionResult {
   const f = row.fr1;
-  if (f < lo) return crit('froude', 'fail', `Fr1 ${pair(f, lo)[0]} is below the tested range ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
-  if (f > hi) return crit('froude', 'fail', `Fr1 ${pair(f, hi)[0]} is above the tested range ${lo}–${hi} ${tag}`, row.Q);
+  if (f < lo) return crit('froude', 'fail', `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
+  if (f > hi) return crit('froude', 'fail', `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${lo}–${hi} ${tag}`, row.Q);
   return crit('froude', 'pass', `Fr1 ${n3(f)} is within ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
 }
 
@@ -74,10 +63,7 @@ export function jumpTailwater(
 export function debrisCriterion(ctx: ScreeningContext, heavy: 'pass' | 'warn' | 'fail', light: 'pass' | 'warn', what: string): CriterionResult {
   const level: DebrisLevel | undefined = ctx.debris;
   if (level === undefined || level === 'none') return crit('debris', 'pass', level === undefined ? 'no debris stated' : 'no debris expected');
-  const status = level === 'heavy' ? heavy : light;
-  const reason =
-    status === 'pass' ? `${level} debris: ${what}` : `${level} debris: ${what}`;
-  return crit('debris', status, reason);
+  return crit('debris', level === 'heavy' ? heavy : light, `${level} debris: ${what}`);
 }
 
 export function noDischargeLimit(row: DischargeRow, ctx?: ScreeningContext): CriterionResult {
