@@ -2,31 +2,23 @@
 // the freeboard coefficient, sees the wall freeboard change as its relation says, meets the
 // message of an out-of-bounds value, saves, reloads and finds the override kept; then puts
 // the seeded design back.
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl, numberIn } from '../support/e2e';
 import { expectRel } from '../support/tolerance';
 
-const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
 
-let context: BrowserContext;
 let page: Page;
-let profileDir: string;
+let browser: E2eBrowser | undefined;
 let designUrl = '';
-const pageErrors: string[] = [];
+let pageErrors: string[] = [];
 
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `design-assumptions-${name}.png`), fullPage: true });
-}
-function numberIn(text: string | null): number {
-  const m = /-?[\d,]+(\.\d+)?/.exec(text ?? '');
-  if (!m) throw new Error(`no number in ${JSON.stringify(text)}`);
-  return Number(m[0].replace(/,/g, ''));
 }
 const freeboard = async (): Promise<number> => numberIn(await page.locator('[data-test="sizing-freeboard"]').textContent());
 // ant-design-vue puts the data attribute on the <input> itself (or on its wrapper): take either.
@@ -35,30 +27,15 @@ const coefficient = () => numberBox('freeboardCoefficient');
 
 describe('design workspace: the assumptions behind the sizing', () => {
   beforeAll(async () => {
-    if (!BASE_URL) throw new Error('E2E_BASE_URL is not set: start the built app against a migrated, seeded database.');
-    mkdirSync(SHOTS, { recursive: true });
-    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-assumptions-'));
-    context = await chromium.launchPersistentContext(profileDir, {
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      viewport: { width: 1366, height: 900 },
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.setDefaultTimeout(20_000);
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    browser = await startBrowser('assumptions');
+    ({ page, pageErrors } = browser);
   });
   afterAll(async () => {
-    await context?.close();
-    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+    await browser?.close();
   });
 
   it('opens the demo design on the Sizing step with every assumption listed', async () => {
-    await page.goto(`${BASE_URL}/sign-in`);
-    await page.getByLabel('E-mail').fill('engineer@harrow-lune.example');
-    await page.getByLabel('Password').fill('basinwright-demo');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/projects$/);
+    await signIn(page, e2eBaseUrl(), 'engineer@harrow-lune.example', 'basinwright-demo');
     const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
     await row.getByRole('link', { name: DEMO_PROJECT }).click();
     await page.locator('[data-test="open-design"]').click();

@@ -2,26 +2,23 @@
 // (E2E_BASE_URL): the demo engineer creates it, takes the design from its starting values to a
 // sized basin and saves; then loads a tailwater rating from a CSV file (a good file applies,
 // a bad one lists its row numbers and changes nothing). The project is deleted at the end.
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl } from '../support/e2e';
 
-const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const PROJECT = `Ashby Weir outlet ${Date.now().toString(36)}`; // invented
 // Invented rating for the starting values' channel (bed at 100 m, 5–50 m³/s).
 const GOOD_CSV = 'Q (m3/s),Tailwater elevation (m)\n5,100.6\n10,100.9\n20,101.4\n35,101.9\n50,102.4\n';
 const BAD_CSV = 'Q,Tailwater elevation\n5,100.6\n10,abc\n-3,101\n20\n';
 
-let context: BrowserContext;
 let page: Page;
-let profileDir: string;
+let browser: E2eBrowser | undefined;
 let designUrl = '';
 let projectId = '';
-const pageErrors: string[] = [];
+let pageErrors: string[] = [];
 
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `new-design-${name}.png`), fullPage: true });
@@ -49,23 +46,8 @@ async function upload(name: string, text: string): Promise<void> {
 
 describe('a new SI project: starting values → sized basin → saved; tailwater from a CSV file', () => {
   beforeAll(async () => {
-    if (!BASE_URL) {
-      throw new Error(
-        'E2E_BASE_URL is not set. Start the built app against a migrated, seeded database and set ' +
-          'E2E_BASE_URL (e.g. http://127.0.0.1:8090); `npm test` does this for you.',
-      );
-    }
-    mkdirSync(SHOTS, { recursive: true });
-    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-new-design-'));
-    context = await chromium.launchPersistentContext(profileDir, {
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      viewport: { width: 1366, height: 900 },
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.setDefaultTimeout(20_000);
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    browser = await startBrowser('new-design');
+    ({ page, pageErrors } = browser);
   });
 
   afterAll(async () => {
@@ -76,16 +58,11 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
         await fetch(`/api/v1/projects/${id}`, { method: 'DELETE', headers: { Authorization: `Bearer ${token}` } });
       }, projectId);
     }
-    await context?.close();
-    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+    await browser?.close();
   });
 
   it('creates an SI project and opens its design on the starting values', async () => {
-    await page.goto(`${BASE_URL}/sign-in`);
-    await page.getByLabel('E-mail').fill('engineer@harrow-lune.example');
-    await page.getByLabel('Password').fill('basinwright-demo');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/projects$/);
+    await signIn(page, e2eBaseUrl(), 'engineer@harrow-lune.example', 'basinwright-demo');
     await page.locator('[data-test="new-project"]').click();
     await page.waitForURL(/\/projects\/new$/);
     await page.getByLabel('Project name').fill(PROJECT);

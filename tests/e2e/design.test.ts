@@ -1,35 +1,26 @@
 // The design workspace in a real browser against the built app and a migrated, seeded
 // database (E2E_BASE_URL): the demo engineer walks the steps of the seeded demo design,
 // changes a value, saves, reloads and finds it kept.
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl, numberIn } from '../support/e2e';
 
-const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
 // The demo's downstream channel bed (product.md, demo scenario).
 const CHANNEL_BED = 90.0;
 
-let context: BrowserContext;
 let page: Page;
-let profileDir: string;
+let browser: E2eBrowser | undefined;
 let designUrl = '';
-const pageErrors: string[] = [];
+let pageErrors: string[] = [];
 
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `design-${name}.png`), fullPage: true });
 }
 
-/** A number shown with its unit, e.g. "87.64 m" → 87.64. */
-function numberIn(text: string | null): number {
-  const m = /-?[\d,]+(\.\d+)?/.exec(text ?? '');
-  if (!m) throw new Error(`no number in ${JSON.stringify(text)}`);
-  return Number(m[0].replace(/,/g, ''));
-}
 
 async function goToStep(title: string): Promise<void> {
   await page.locator('[data-test="design-steps"]').getByText(title, { exact: false }).first().click();
@@ -38,36 +29,16 @@ async function goToStep(title: string): Promise<void> {
 
 describe('design workspace: the demo engineer checks, sizes and saves the demo design', () => {
   beforeAll(async () => {
-    if (!BASE_URL) {
-      throw new Error(
-        'E2E_BASE_URL is not set. Start the built app against a migrated, seeded database and set ' +
-          'E2E_BASE_URL (e.g. http://127.0.0.1:8090); `npm test` does this for you.',
-      );
-    }
-    mkdirSync(SHOTS, { recursive: true });
-    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-design-'));
-    context = await chromium.launchPersistentContext(profileDir, {
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      viewport: { width: 1366, height: 900 },
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.setDefaultTimeout(20_000);
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    browser = await startBrowser('design');
+    ({ page, pageErrors } = browser);
   });
 
   afterAll(async () => {
-    await context?.close();
-    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+    await browser?.close();
   });
 
   it('signs in as the demo engineer and opens the demo project design', async () => {
-    await page.goto(`${BASE_URL}/sign-in`);
-    await page.getByLabel('E-mail').fill('engineer@harrow-lune.example');
-    await page.getByLabel('Password').fill('basinwright-demo');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/projects$/);
+    await signIn(page, e2eBaseUrl(), 'engineer@harrow-lune.example', 'basinwright-demo');
     const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
     await row.getByRole('link', { name: DEMO_PROJECT }).click();
     await expect.poll(() => page.locator('h1').textContent()).toContain(DEMO_PROJECT);

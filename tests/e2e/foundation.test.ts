@@ -1,20 +1,18 @@
 // Foundation flow in a real browser against the built app and a migrated, seeded database.
 // The lead's test script starts the server and sets E2E_BASE_URL.
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { startBrowser, type E2eBrowser } from '../support/e2e';
 
 const BASE_URL = process.env.E2E_BASE_URL?.replace(/\/$/, '');
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
 
-let context: BrowserContext;
 let page: Page;
-let profileDir: string;
-const pageErrors: string[] = [];
+let browser: E2eBrowser | undefined;
+let pageErrors: string[] = [];
 
 const stamp = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e6).toString(36)}`;
 const newFirm = {
@@ -35,37 +33,12 @@ function url(path: string): string {
 
 describe('foundation: sign up, create and find a project, sign in as the demo engineer', () => {
   beforeAll(async () => {
-    if (!BASE_URL) {
-      throw new Error(
-        'E2E_BASE_URL is not set. Start the built app against a migrated, seeded database and set ' +
-          'E2E_BASE_URL (e.g. http://127.0.0.1:8090); `npm test` does this for you.',
-      );
-    }
-    mkdirSync(SHOTS, { recursive: true });
-    profileDir = mkdtempSync(join(tmpdir(), 'basinwright-e2e-'));
-    context = await chromium.launchPersistentContext(profileDir, {
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      viewport: { width: 1366, height: 860 },
-      args: [
-        '--headless',
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-quic',
-        '--no-first-run',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-      ],
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.setDefaultTimeout(15_000);
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    browser = await startBrowser('foundation', { viewport: { width: 1366, height: 860 }, timeoutMs: 15_000 });
+    ({ page, pageErrors } = browser);
   });
 
   afterAll(async () => {
-    await context?.close();
-    if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+    await browser?.close();
   });
 
   it('signs up a new firm and lands on an empty project list', async () => {
