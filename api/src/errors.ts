@@ -57,3 +57,17 @@ export const unsupportedMediaType = (message = 'Send the request body as JSON.')
   new ApiError(415, 'unsupported_media_type', message);
 export const serviceUnavailable = (message: string) =>
   new ApiError(503, 'service_unavailable', message);
+
+/**
+ * The engine throws RangeError naming the argument for impossible input (subcritical y1, a
+ * conduit that would run full, a floor that cannot be found): that is the user's problem to
+ * fix, so it becomes a 422 with the engine's message, filed under the field it names (below
+ * `prefix` when the engine's input sits inside the request body), never a 500. Anything else
+ * is passed through unchanged.
+ */
+export function fromEngineError(error: unknown, prefix = ''): unknown {
+  if (!(error instanceof RangeError)) return error;
+  const named = /^([A-Za-z][\w.[\]]*)[\s:]/.exec(error.message)?.[1];
+  const field = named === undefined ? (prefix === '' ? 'body' : prefix) : `${prefix === '' ? '' : `${prefix}.`}${named}`;
+  return validationError({ [field]: error.message }, error.message);
+}

@@ -81,6 +81,8 @@ describe('GET/PUT /projects/:id/design', () => {
     const res = await put(siProject, { input: bad });
     expect(res.status).toBe(422);
     expect(res.body.message).toMatch(/not supercritical/);
+    // filed under the field the engine names, inside the request's `input`
+    expect(res.body.details['input.inflow.toe']).toMatch(/not supercritical/);
     expect((await get(siProject)).body).toEqual(before.body);
   });
 

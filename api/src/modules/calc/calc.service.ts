@@ -11,24 +11,13 @@ import {
   type StudyInput,
   type StudyResult,
 } from '@basinwright/common';
-import { validationError } from '../../errors';
+import { fromEngineError } from '../../errors';
 
 export interface JumpRequest {
   section: Section;
   Q: number;
   y1: number;
   lengthMethod?: JumpLengthMethod;
-}
-
-/**
- * The engine throws RangeError naming the argument for impossible input (subcritical y1, a
- * conduit that would run full, a floor that cannot be found): that is the user's problem to
- * fix, so it becomes a 422 with the engine's message, never a 500.
- */
-function engineError(error: unknown): unknown {
-  if (!(error instanceof RangeError)) return error;
-  const field = /^([A-Za-z][\w.[\]]*)[\s:]/.exec(error.message)?.[1] ?? 'body';
-  return validationError({ [field]: error.message }, error.message);
 }
 
 /** Jump calculator: SI in, SI out. */
@@ -38,7 +27,7 @@ export function calculateJump(body: JumpRequest): JumpResult {
       lengthMethod: body.lengthMethod ?? 'usbr',
     });
   } catch (error) {
-    throw engineError(error);
+    throw fromEngineError(error);
   }
 }
 
@@ -47,7 +36,7 @@ export function calculateStudy(input: StudyInput): StudyResult {
   try {
     return runStudy(toSI(input));
   } catch (error) {
-    throw engineError(error);
+    throw fromEngineError(error);
   }
 }
 
@@ -56,6 +45,6 @@ export function calculateJumpPosition(body: JumpSituation): JumpLocation {
   try {
     return locateJump(body);
   } catch (error) {
-    throw engineError(error);
+    throw fromEngineError(error);
   }
 }

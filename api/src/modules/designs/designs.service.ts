@@ -1,5 +1,5 @@
 import { runStudy, toSI, type DesignSaveInput } from '@basinwright/common';
-import { validationError } from '../../errors';
+import { fromEngineError, validationError } from '../../errors';
 import { Design, Project, sequelize, User } from '../../models';
 import { getProject } from '../projects/projects.service';
 
@@ -31,8 +31,7 @@ export async function saveDesign(
   try {
     runStudy(toSI(body.input));
   } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
-    throw validationError({ input: error.message }, error.message);
+    throw fromEngineError(error, 'input');
   }
   const id = await sequelize.transaction(async (transaction) => {
     const existing = await Design.findOne({ where: { firmId, projectId }, transaction, lock: true });
