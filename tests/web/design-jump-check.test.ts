@@ -6,6 +6,7 @@ import { mount, type VueWrapper } from '@vue/test-utils';
 import { runStudy, type StudyResult, type UnitSystem } from '@basinwright/common';
 import DesignJumpCheckStep from '../../web/src/components/DesignJumpCheckStep.vue';
 import DesignRangeChart from '../../web/src/components/DesignRangeChart.vue';
+import DesignDiagramChart from '../../web/src/components/DesignDiagramChart.vue';
 import { unitFormat } from '../../web/src/composables/useStudy';
 import { expectRel } from '../support/tolerance';
 import { fenwickDesign } from '../../seed/designs';
@@ -140,6 +141,36 @@ describe('Jump check at the free-jump floor (reference)', () => {
     expect(first['Tailwater depth (ft)']).toBe((d.rows[0]!.tailwaterDepth / 0.3048).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 }));
     await pick(w, /Free-jump floor/);
     expect(tableRows(w)[0]!['Tailwater depth (ft)']).toBe(f.num(result.rows[0]!.tailwaterDepth, 'length', 2));
+    w.unmount();
+  });
+});
+
+describe('E–y and M–y diagrams follow the floor shown', () => {
+  it('on the design floor: the chosen basin’s own jump at the design discharge; on the reference: the study’s', async () => {
+    const d = result.design!.design;
+    if (d.family !== 'jump-basin') throw new Error('jump basin expected');
+    const w = mountStep(result);
+    const charts = () => w.findAllComponents(DesignDiagramChart).map((c) => c.props('diagrams') as StudyResult['diagrams']);
+    const [onDesign] = charts();
+    const g = 9.80665; // standard gravity [CGPM 1901; NIST SP 330]
+    const b = d.width;
+    const y1 = onDesign!.y1;
+    expectRel(y1, d.water.y1, 1e-9);
+    const v1 = d.water.Q / (b * y1);
+    // E1 = y1 + V1²/2g in a rectangle of the basin width [Chow 1959, §3-1]
+    expectRel(onDesign!.specificEnergy.E1, y1 + (v1 * v1) / (2 * g), 1e-9);
+    // y2 by Bélanger [Chow 1959, §15-2]
+    const fr1 = v1 / Math.sqrt(g * y1);
+    expectRel(onDesign!.y2, 0.5 * y1 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1), 1e-9);
+    // tailwater marked at its depth over this floor
+    expectRel(onDesign!.tailwaterDepth!, d.water.tailwaterElevation - d.floorElevation, 1e-9);
+    expect(w.find('[data-test="design-jump"]').text()).toContain(`Fr1 ${fr1.toFixed(2)}`);
+    expect(w.find('[data-test="design-jump"]').text()).toContain('on the design floor');
+    // the two floors differ here, and so do the two toe depths
+    expect(Math.abs(y1 - result.diagrams.y1)).toBeGreaterThan(1e-4);
+    await pick(w, /Free-jump floor/);
+    expect(charts()[0]).toEqual(result.diagrams);
+    expect(w.find('[data-test="design-jump"]').text()).toContain('on the free-jump floor');
     w.unmount();
   });
 });
