@@ -1,3 +1,4 @@
+import { phraseMessage, type PhraseUnits } from '@basinwright/common';
 /** Every error the API answers with: `{ code, message, details? }` and an HTTP status. */
 export type ErrorCode =
   | 'validation_error'
@@ -63,11 +64,12 @@ export const serviceUnavailable = (message: string) =>
  * conduit that would run full, a floor that cannot be found): that is the user's problem to
  * fix, so it becomes a 422 with the engine's message, filed under the field it names (below
  * `prefix` when the engine's input sits inside the request body), never a 500. Anything else
- * is passed through unchanged.
+ * is passed through unchanged. The engine's quantities (SI) are put in `units`, the project's.
  */
-export function fromEngineError(error: unknown, prefix = ''): unknown {
+export function fromEngineError(error: unknown, prefix = '', units: PhraseUnits = 'SI'): unknown {
   if (!(error instanceof RangeError)) return error;
   const named = /^([A-Za-z][\w.[\]]*)[\s:]/.exec(error.message)?.[1];
   const field = named === undefined ? (prefix === '' ? 'body' : prefix) : `${prefix === '' ? '' : `${prefix}.`}${named}`;
-  return validationError({ [field]: error.message }, error.message);
+  const message = phraseMessage(error.message, units);
+  return validationError({ [field]: message }, message);
 }

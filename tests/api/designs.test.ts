@@ -86,6 +86,15 @@ describe('GET/PUT /projects/:id/design', () => {
     expect((await get(siProject)).body).toEqual(before.body);
   });
 
+  it("on a US project the engine's message quotes its quantities in ft, not m", async () => {
+    // a fixed floor at 400 ft lies above the outlet's energy line of the Caldwell demo (invented scenario)
+    const res = await put(usProject, { input: { ...caldwellDesign, floorElevation: 400 } });
+    expect(res.status).toBe(422);
+    // 400 ft = 121.92 m exactly [NIST SP 811: 1 ft = 0.3048 m]; the engine computed it in m
+    expect(res.body.details['input.floorElevation']).toBe("floorElevation 400 ft lies above the outlet's energy line");
+    expect(res.body.message).not.toMatch(/\d m\b/);
+  });
+
   it('schema errors come back per field', async () => {
     const res = await put(siProject, { input: { ...fenwickDesign, basinWidth: -3, designDischarge: 'lots' } });
     expect(res.status).toBe(422);

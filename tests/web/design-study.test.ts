@@ -50,6 +50,12 @@ describe('evaluateStudy', () => {
   it('names the field in words for a top-level argument', () => {
     expect(readableEngineError(new RangeError('basinWidth must be greater than zero (got 0)'))).toContain('Basin width must be greater than zero');
     expect(readableEngineError(new TypeError('x is undefined'))).toBe('The calculation failed unexpectedly: x is undefined');
+    // On a US project the engine's metres are put in feet (1 ft = 0.3048 m exactly, NIST SP 811);
+    // a bare SI number is said to be SI.
+    const us = readableEngineError(new RangeError('floorElevation 121.92 m lies above the outlet’s energy line'), 'US');
+    expect(us).toContain('Floor elevation 400 ft lies above');
+    expect(us).not.toContain('SI');
+    expect(readableEngineError(new RangeError('basinWidth must be greater than zero (got -1.524)'), 'US')).toContain('(The value quoted is in SI units.)');
   });
 });
 

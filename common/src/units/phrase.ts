@@ -96,3 +96,36 @@ export function phraser(units: PhraseUnits = 'SI'): Phraser {
   cache[u] = p;
   return p;
 }
+
+/** A number in a message: four significant figures, or one decimal beyond the units for larger numbers; no trailing zeros. */
+function messageNumber(x: number): string {
+  const whole = x === 0 ? 1 : Math.floor(Math.log10(Math.abs(x))) + 1;
+  return String(Number(x.toPrecision(Math.min(21, Math.max(4, whole + 1)))));
+}
+
+// Longest unit first, so that "m³/s" is not read as "m³" followed by "/s".
+const SI_IN_TEXT: ReadonlyArray<[string, PhraseKind]> = [
+  ['m³/s', 'discharge'],
+  ['m²/s', 'unitDischarge'],
+  ['m/s', 'velocity'],
+  ['m³', 'volume'],
+  ['m', 'length'],
+];
+const QUANTITY_IN_TEXT = /(?<![\w.])(-?\d+(?:\.\d+)?(?:e[-+]?\d+)?)\s?(m³\/s|m²\/s|m\/s|m³|m)(?![\w²³/])/g;
+
+/**
+ * An engine message (SI) phrased for a unit system: every number followed by an SI unit of a
+ * sentence quantity (m, m/s, m³/s, m²/s, m³) becomes the same quantity in US customary. Numbers
+ * without a unit are left as they are. SI messages come back unchanged.
+ * @example phraseMessage('floorElevation 30.48 m lies above the water', 'US') // 'floorElevation 100 ft lies above the water'
+ */
+export function phraseMessage(text: string, units: PhraseUnits): string {
+  if (units !== 'US') return text;
+  const p = phraser('US');
+  return text.replace(QUANTITY_IN_TEXT, (whole, num: string, label: string) => {
+    const kind = SI_IN_TEXT.find(([l]) => l === label)?.[1];
+    const si = Number(num);
+    if (!kind || !Number.isFinite(si)) return whole;
+    return `${messageNumber(p.value(si, kind))} ${p.unit(kind)}`;
+  });
+}

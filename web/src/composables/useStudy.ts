@@ -4,6 +4,7 @@ import { ValidationError } from 'yup';
 import {
   UNIT_LABELS,
   fromSIValue,
+  phraseMessage,
   runStudy,
   studyInputSchema,
   type DissipatorTypeId,
@@ -40,11 +41,12 @@ const FIELD_WORDS: Array<[RegExp, string]> = [
 
 /**
  * A RangeError from the engine as a sentence for the page: the argument it names becomes the
- * field's label. The engine computes in SI, so numbers in the message are in m and m³/s.
+ * field's label, and the quantities it quotes (the engine computes in SI) are put in the
+ * project's units. A bare number the engine names without a unit stays in SI, and then says so.
  */
-export function readableEngineError(error: unknown): string {
+export function readableEngineError(error: unknown, units: UnitSystem = 'SI'): string {
   if (error instanceof RangeError) {
-    let text = error.message.trim();
+    let text = phraseMessage(error.message.trim(), units);
     const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);
     const path = m?.[1] ?? '';
     const hit = FIELD_WORDS.find(([re]) => re.test(path));
@@ -55,7 +57,8 @@ export function readableEngineError(error: unknown): string {
       text = `${words}${detail ? ` (${detail})` : ''}${m[2] ? ':' : ''} ${rest}`;
     }
     text = text.charAt(0).toUpperCase() + text.slice(1);
-    return `The study cannot be computed with these inputs. ${text}${/[.!?]$/.test(text) ? '' : '.'} (Values in the engine's message are in SI units.)`;
+    const bareSI = units === 'US' && /\(got -?\d/.test(text);
+    return `The study cannot be computed with these inputs. ${text}${/[.!?]$/.test(text) ? '' : '.'}${bareSI ? ' (The value quoted is in SI units.)' : ''}`;
   }
   if (error instanceof Error) return `The calculation failed unexpectedly: ${error.message}`;
   return 'The calculation failed unexpectedly.';
@@ -79,7 +82,7 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
     input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
   } catch (e) {
     if (e instanceof ValidationError) return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
-    return { result: null, engineError: readableEngineError(e), inputProblems: [] };
+    return { result: null, engineError: readableEngineError(e, unitsOf(raw)), inputProblems: [] };
   }
   try {
     const si = inputForEngine(input);
@@ -88,8 +91,13 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
     const result = runStudy(chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si);
     return { result, engineError: null, inputProblems: [] };
   } catch (e) {
-    return { result: null, engineError: readableEngineError(e), inputProblems: [] };
+    return { result: null, engineError: readableEngineError(e, input.units), inputProblems: [] };
   }
+}
+
+/** The unit system a raw form value declares, SI unless it says US. */
+function unitsOf(raw: unknown): UnitSystem {
+  return raw !== null && typeof raw === 'object' && (raw as { units?: unknown }).units === 'US' ? 'US' : 'SI';
 }
 
 /**

@@ -36,7 +36,7 @@ export function calculateStudy(input: StudyInput): StudyResult {
   try {
     return runStudy(toSI(input));
   } catch (error) {
-    throw fromEngineError(error);
+    throw fromEngineError(error, '', input.units);
   }
 }
 

@@ -31,7 +31,7 @@ export async function saveDesign(
   try {
     runStudy(toSI(body.input));
   } catch (error) {
-    throw fromEngineError(error, 'input');
+    throw fromEngineError(error, 'input', project.units);
   }
   const id = await sequelize.transaction(async (transaction) => {
     const existing = await Design.findOne({ where: { firmId, projectId }, transaction, lock: true });
