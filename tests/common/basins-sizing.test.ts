@@ -6,6 +6,7 @@ import {
   BASIN_DEFAULT_PROVENANCE,
   fitBlockRow,
   freeboard,
+  staggerBehind,
   listAssumptions,
   resolveDefaults,
   safLength,
@@ -88,6 +89,45 @@ describe('USBR Type III', () => {
     expectRel(bb.distanceFromUpstream, 4.32990066116245, 1e-9); // 0.8·y2 [calc]
     expect(bb.spacing).toBeGreaterThanOrEqual(0.75 * 0.987 - 1e-12);
     expect(bb.kind).toBe('baffle-piers');
+  });
+  it('baffle piers stand staggered with the chute blocks, each behind an opening [from memory: EM-25 "staggered"]', () => {
+    const bb = s.baffleBlocks!;
+    const cb = s.chuteBlocks!;
+    // chute blocks at ±0.5, ±1.5 … ±4.5 m, so openings at −4 … 4 m; piers 0.74025 m wide need a
+    // pitch of 1.4805 m, two chute pitches (2 m): every second opening, 5 piers [calc by hand]
+    expect(bb.centres).toHaveLength(5);
+    bb.centres.forEach((c, i) => expectRel(c + 10, [-4, -2, 0, 2, 4][i]! + 10, 1e-12));
+    expectRel(bb.spacing, 2 - 0.74025, 1e-9);
+    expect(bb.behindOpenings).toBe(5);
+    expectRel(bb.wallSpaces![0], bb.wallSpaces![1], 1e-9);
+    for (const c of bb.centres) {
+      const nearest = Math.min(...cb.centres.map((x) => Math.abs(x - c)));
+      expectRel(nearest, (cb.width + cb.spacing) / 2, 1e-9); // midway between two chute blocks
+    }
+  });
+  it('staggered piers over many basins: behind openings, inside the walls, spacing never below the rule [geometry]', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 3, max: 60, noNaN: true }), fc.double({ min: 0.1, max: 1.5, noNaN: true }), fc.double({ min: 4.5, max: 17, noNaN: true }), (W, y1, fr) => {
+        const chute = fitBlockRow(W, y1, y1);
+        const rule = 0.75 * type3BaffleHeight(y1, fr);
+        const row = staggerBehind(W, chute, rule, rule);
+        const w = row.width; // the rule's, or at most W/2 in a basin too narrow for one pier and its space
+        const sorted = [...row.centres].sort((a, b) => a - b);
+        expect(row.count).toBe(row.centres.length);
+        expect(row.count).toBeGreaterThanOrEqual(1);
+        for (const c of sorted) expect(Math.abs(c) + w / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
+        for (let i = 1; i < sorted.length; i++) expect(sorted[i]! - sorted[i - 1]! - w).toBeGreaterThanOrEqual(rule - 1e-9);
+        if (row.behindOpenings) {
+          expect(row.behindOpenings).toBe(row.count);
+          // each centre is midway between two neighbouring chute blocks
+          for (const c of sorted) {
+            const d = chute.centres.map((x) => x - c).sort((a, b) => Math.abs(a) - Math.abs(b));
+            expect(Math.abs(d[0]! + d[1]!)).toBeLessThan(1e-9);
+          }
+        } else expect(chute.count).toBeLessThan(3); // only when the chute row leaves no opening to use
+      }),
+      { numRuns: 300 },
+    );
   });
   it('solid end sill h4 = y1(0.0556·Fr1 + 1.0), 2:1 upstream face [from memory: EM-25]', () => {
     expect(s.endSill.kind).toBe('solid');

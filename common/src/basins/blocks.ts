@@ -18,6 +18,10 @@ export interface BlockRow {
   widthFraction: number;
   /** true when the basin is too narrow for one block and its space: one block of at most W/2 is used */
   narrow?: boolean;
+  /** a staggered row's clear spaces at the −y and +y walls, m (wallSpace is the smaller) */
+  wallSpaces?: [number, number];
+  /** a staggered row: how many of its blocks stand behind an opening of the row upstream */
+  behindOpenings?: number;
 }
 
 /**
@@ -69,5 +73,52 @@ export function staggeredRow(basinWidth: number, reference: BlockRow, blockWidth
     wallSpace,
     centres,
     widthFraction: (centres.length * w) / W,
+  };
+}
+
+/**
+ * A row staggered with `reference` at its own rule's width and spacing: each block stands
+ * behind an opening of `reference` (centred between two of its blocks), at every m-th opening
+ * with m the fewest that keeps the clear spacing at least `spacing`, and the pattern placed to
+ * hold the most blocks, then the most evenly between the walls. Type III baffle piers
+ * "staggered" with the chute blocks [mem: EM-25]: the as-built spacing is a whole number of
+ * chute-block pitches less the pier width, so it can exceed the rule's, as the fitted rows' do.
+ * Falls back to the rule's own fit (`behindOpenings` 0) when there is no opening to stand behind.
+ */
+export function staggerBehind(basinWidth: number, reference: BlockRow, blockWidth: number, spacing: number): BlockRow {
+  const W = reqPositive('basinWidth', basinWidth);
+  const w = reqPositive('blockWidth', blockWidth);
+  const s = reqPositive('spacing', spacing);
+  const openings: number[] = [];
+  for (let k = 0; k + 1 < reference.centres.length; k++) {
+    const o = (reference.centres[k]! + reference.centres[k + 1]!) / 2;
+    if (Math.abs(o) + w / 2 <= W / 2 + 1e-12) openings.push(o);
+  }
+  const plain = (): BlockRow => ({ ...fitBlockRow(W, w, s), behindOpenings: 0 });
+  if (openings.length === 0) return plain();
+  const pitch = reference.width + reference.spacing;
+  const m = Math.max(1, Math.ceil((w + s) / pitch - 1e-9));
+  let best: number[] = [];
+  let bestImbalance = Infinity;
+  for (let start = 0; start < Math.min(m, openings.length); start++) {
+    const centres = openings.filter((_, k) => k >= start && (k - start) % m === 0);
+    const imbalance = Math.abs(W / 2 + centres[0]! - (W / 2 - centres[centres.length - 1]!));
+    if (centres.length > best.length || (centres.length === best.length && imbalance < bestImbalance - 1e-12)) {
+      best = centres;
+      bestImbalance = imbalance;
+    }
+  }
+  const left = W / 2 + best[0]! - w / 2;
+  const right = W / 2 - best[best.length - 1]! - w / 2;
+  return {
+    count: best.length,
+    width: w,
+    spacing: best.length > 1 ? m * pitch - w : left + right,
+    nominalSpacing: s,
+    wallSpace: Math.min(left, right),
+    wallSpaces: [left, right],
+    centres: best,
+    widthFraction: (best.length * w) / W,
+    behindOpenings: best.length,
   };
 }

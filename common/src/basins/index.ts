@@ -1,7 +1,7 @@
 // Dissipators: catalogue, screening, sizing, exit protection, flotation, drawing. SI inside.
 export * from './types';
 export * from './defaults';
-export { fitBlockRow, staggeredRow, type BlockRow } from './blocks';
+export { fitBlockRow, staggerBehind, staggeredRow, type BlockRow } from './blocks';
 export { freeboard } from './freeboard';
 export { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, getDissipator, isJumpBasinType } from './catalogue';
 export { sizeJumpBasin, jumpRules, jumpWarnings, type SizeJumpBasinOptions } from './jumpBasin';

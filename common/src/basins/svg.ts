@@ -437,14 +437,15 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
   const unit = opts.scaleUnit ?? { label: 'm', metres: 1 };
   if (!(Number.isFinite(unit.metres) && unit.metres > 0)) throw new RangeError(`scaleUnit.metres must be positive (got ${unit.metres})`);
   const out: string[] = [];
-  const T = (x: number, y: number, size: number, s: string, extra = ''): string =>
-    `<text x="${f(x)}" y="${f(y)}" font-family="${font}" font-size="${size}" fill="#0f172a"${extra}>${esc(s)}</text>`;
+  // One fill per text: an attribute written twice makes the file unreadable as XML (PDF, files).
+  const T = (x: number, y: number, size: number, s: string, extra = '', fill = '#0f172a'): string =>
+    `<text x="${f(x)}" y="${f(y)}" font-family="${font}" font-size="${size}" fill="${fill}"${extra}>${esc(s)}</text>`;
   out.push(T(MARGIN, MARGIN + 8, DRAWING_FONT.title, drawing.title, ' font-weight="bold"'));
   for (const v of lay.views) {
     const l = v.layout;
     const X = (x: number): number => (x - lay.minX) * lay.scale;
     const Y = (yy: number): number => (l.view.bounds.maxY - yy) * lay.scale;
-    out.push(T(MARGIN, v.titleY, DRAWING_FONT.view, l.view.title, ' font-weight="bold" fill="#334155"'));
+    out.push(T(MARGIN, v.titleY, DRAWING_FONT.view, l.view.title, ' font-weight="bold"', '#334155'));
     out.push(`<g data-view="${l.view.id}" transform="translate(${f(v.dx)} ${f(v.dy)})">`);
     for (const it of order(l.view.items)) {
       if (it.kind === 'polyline') out.push(polyline(it, X, Y, opts.accent));
@@ -476,7 +477,7 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
   let ty = tbTop + 18;
   const tb: string[] = [];
   for (const ln of lines) {
-    tb.push(T(MARGIN + 8, ty, ln.size, ln.s, `${ln.bold ? ' font-weight="bold"' : ''}${ln.colour ? ` fill="${ln.colour}"` : ''}`));
+    tb.push(T(MARGIN + 8, ty, ln.size, ln.s, ln.bold ? ' font-weight="bold"' : '', ln.colour));
     ty += ln.size + 5;
   }
   const tbH = ty - tbTop;

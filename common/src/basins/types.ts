@@ -108,6 +108,10 @@ export interface BlockSet {
   centres: number[];
   /** share of the width occupied */
   widthFraction: number;
+  /** a row staggered with the one upstream (Type III piers): its clear spaces at the −y and +y walls, m (wallSpace is the smaller) */
+  wallSpaces?: [number, number];
+  /** how many of its blocks stand behind an opening of the row upstream */
+  behindOpenings?: number;
 }
 
 export interface BaffleSet extends BlockSet {

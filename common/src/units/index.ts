@@ -148,6 +148,7 @@ const LENGTH_KEYS = new Set([
   'spacing',
   'nominalSpacing',
   'wallSpace',
+  'wallSpaces',
   'topLength',
   'centres',
   'distanceFromUpstream',

@@ -1,6 +1,6 @@
 // USBR Type III: chute blocks, baffle piers and a solid end sill — a short basin for moderate
 // velocities.
-import { fitBlockRow } from '../blocks';
+import { fitBlockRow, staggerBehind } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
 import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
@@ -39,7 +39,8 @@ export const usbr3: DissipatorModule = {
     appurtenances: ({ fr1, y1, y2, width, d }) => {
       const chute = fitBlockRow(width, y1, y1);
       const h3 = type3BaffleHeight(y1, fr1);
-      const piers = fitBlockRow(width, 0.75 * h3, 0.75 * h3);
+      // staggered with the chute blocks: behind their openings where the two pitches allow
+      const piers = staggerBehind(width, chute, 0.75 * h3, 0.75 * h3);
       const h4 = type3SillHeight(y1, fr1);
       return {
         chuteBlocks: { ...chute, height: y1, length: d.chuteBlockLengthRatio * y1 },
@@ -58,7 +59,7 @@ export const usbr3: DissipatorModule = {
     freeboardRule: 'usbr',
     appurtenanceTags: [
       '[mem: EM-25] chute blocks h = w = s = y1',
-      '[mem: EM-25] baffle piers h3 = y1·(0.168·Fr1 + 0.63), width and spacing 0.75·h3, top 0.2·h3, upstream face 0.8·y2 from the chute blocks',
+      '[mem: EM-25] baffle piers h3 = y1·(0.168·Fr1 + 0.63), width and spacing 0.75·h3, top 0.2·h3, upstream face 0.8·y2 from the chute blocks, staggered with the chute blocks',
       '[mem: EM-25] solid end sill h4 = y1·(0.0556·Fr1 + 1.0), 2:1 upstream slope',
     ],
   },
