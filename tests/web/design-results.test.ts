@@ -6,6 +6,7 @@ import { runStudy, type StudyResult } from '@basinwright/common';
 import DesignJumpCheckStep from '../../web/src/components/DesignJumpCheckStep.vue';
 import DesignResultNotes from '../../web/src/components/DesignResultNotes.vue';
 import DesignSizingStep from '../../web/src/components/DesignSizingStep.vue';
+import DesignResultSummary from '../../web/src/components/DesignResultSummary.vue';
 import { governingFloor } from '../../web/src/composables/useStudy';
 import { fenwickDesign } from '../../seed/designs';
 
@@ -39,17 +40,58 @@ describe('Jump check floor', () => {
   });
 });
 
-describe('warnings are shown once', () => {
-  it('drops exact duplicates from the engine and does not repeat them under Sizing', () => {
+describe('warnings are shown once, under the floor they were found on', () => {
+  it('groups the chosen basin’s warnings (its floor) before the study’s (free-jump floor), and drops duplicates', () => {
     const line = 'Check the tailwater rating at low flows.';
-    const dup: StudyResult = { ...result, warnings: [line, line, `${line} `], design: { ...result.design!, design: { ...result.design!.design, warnings: [line, 'Only under sizing.', 'Only under sizing.'] } } };
-    const notes = mount(DesignResultNotes, { props: { result: dup, engineError: null, inputProblems: [], stale: false } });
-    const items = notes.findAll('[data-test="engine-warnings"] li').map((li) => li.text());
-    expect(items.filter((t) => t === line)).toHaveLength(1);
-    expect(new Set(items).size).toBe(items.length);
+    const d = result.design!.design;
+    if (d.family !== 'jump-basin') throw new Error('jump basin expected');
+    const dup: StudyResult = { ...result, warnings: [line, line, `${line} `, 'Only in the study.'], design: { ...result.design!, design: { ...d, warnings: [line, 'Only under sizing.', 'Only under sizing.'] } } };
+    const notes = mount(DesignResultNotes, { props: { result: dup, engineError: null, inputProblems: [], stale: false, units: 'SI' } });
+    const all = notes.findAll('[data-test="engine-warnings"] li').map((li) => li.text());
+    expect(all.filter((t) => t === line)).toHaveLength(1);
+    expect(new Set(all).size).toBe(all.length);
+    // the design's list comes first, headed by its basin and floor; a line in both stays with the design
+    expect(notes.find('[data-test="warnings-design"]').text()).toBe(`${d.name}, on its floor at ${d.floorElevation.toFixed(2)} m`);
+    expect(notes.findAll('[data-test="warnings-design-list"] li').map((li) => li.text())).toEqual([line, 'Only under sizing.']);
+    expect(notes.find('[data-test="warnings-study"]').text()).toBe(`Free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`);
+    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual(['Only in the study.']);
+    expect(notes.find('[data-test="engine-warnings"]').text()).toContain(`Engine warnings (${all.length})`);
     notes.unmount();
+    // the Sizing step does not list them a second time
     const sizing = mount(DesignSizingStep, { props: { result: dup, units: 'SI' }, global: { stubs } });
-    expect(sizing.findAll('[data-test="sizing-warnings"] li').map((li) => li.text())).toEqual(['Only under sizing.']);
+    expect(sizing.text()).not.toContain('Only under sizing.');
     sizing.unmount();
+  });
+
+  it('without a chosen design the study’s warnings stand alone, with no floor heading', () => {
+    const notes = mount(DesignResultNotes, { props: { result: { ...result, design: null, warnings: ['A study warning.'] }, engineError: null, inputProblems: [], stale: false } });
+    expect(notes.find('[data-test="warnings-study"]').exists()).toBe(false);
+    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toContain('A study warning.');
+    notes.unmount();
+  });
+});
+
+describe('Live results name one floor and stay on it', () => {
+  it('with a jump basin chosen: its floor, and the toe and jump on that floor', () => {
+    const d = result.design!.design;
+    if (d.family !== 'jump-basin') throw new Error('jump basin expected');
+    const w = mount(DesignResultSummary, { props: { result, units: 'SI', pending: false } });
+    expect(w.find('[data-test="summary-floor"]').text()).toBe(`${d.floorElevation.toFixed(2)} m`);
+    // V1 = Q/(b·y1) and Fr1 = V1/√(g·y1) in the rectangular basin [Chow 1959, §1-9]; g = 9.80665 m/s² [NIST SP 330]
+    const y1 = d.water.y1;
+    const fr1 = d.water.Q / (d.width * y1) / Math.sqrt(9.80665 * y1);
+    expect(w.find('[data-test="summary-y1"]').text()).toBe(`${y1.toFixed(3)} m`);
+    expect(w.find('[data-test="summary-fr1"]').text()).toBe(fr1.toFixed(2));
+    expect(w.find('[data-test="summary-tailwater"]').text()).toBe(`${(d.water.tailwaterElevation - d.floorElevation).toFixed(2)} m`);
+    // not the free-jump floor's toe, which differs here
+    expect(Math.abs(y1 - result.designJump.jump.y1)).toBeGreaterThan(5e-4);
+    w.unmount();
+  });
+  it('with a type that holds no jump chosen: the study’s jump, and the chosen type named beside the recommended one', () => {
+    const res = runStudy({ ...fenwickDesign, dissipators: { chosenType: 'usbr-6' } });
+    const w = mount(DesignResultSummary, { props: { result: res, units: 'SI', pending: false } });
+    expect(w.find('[data-test="summary-y1"]').text()).toBe(`${res.designJump.jump.y1.toFixed(3)} m`);
+    expect(w.find('[data-test="summary-chosen"]').text()).toContain(res.design!.design.name);
+    w.unmount();
   });
 });

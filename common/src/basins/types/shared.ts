@@ -24,9 +24,10 @@ export function crit(
 /** Froude number inside an inclusive published range: pass; outside: fail. */
 export function froudeInRange(row: DischargeRow, lo: number, hi: number, tag: string): CriterionResult {
   const f = row.fr1;
-  if (f < lo) return crit('froude', 'fail', `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
-  if (f > hi) return crit('froude', 'fail', `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${lo}–${hi} ${tag}`, row.Q);
-  return crit('froude', 'pass', `Fr1 ${n3(f)} is within ${lo}–${hi === Infinity ? '∞' : hi} ${tag}`, row.Q);
+  const range = hi === Infinity ? `Fr1 ≥ ${lo}` : `${lo}–${hi}`;
+  if (f < lo) return crit('froude', 'fail', `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${range} ${tag}`, row.Q);
+  if (f > hi) return crit('froude', 'fail', `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${range} ${tag}`, row.Q);
+  return crit('froude', 'pass', hi === Infinity ? `Fr1 ${n3(f)} is at least ${lo} ${tag}` : `Fr1 ${n3(f)} is within ${range} ${tag}`, row.Q);
 }
 
 /** Jump basins: the tailwater against C·y2 (need) and against excess (submergence). */
