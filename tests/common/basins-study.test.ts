@@ -56,6 +56,15 @@ describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => 
     // a larger factor needs a lower floor: Type II (1.05) below Type I (1.0)
     expect(r.floors['usbr-2']!.elevation).toBeLessThan(r.floors['usbr-1']!.elevation);
     expect(d.floorElevation).toBeLessThan(90);
+    // the solved floor leaves no margin beyond C at the governing discharge, and the design says
+    // so in plain words, with the way to get one [engineering judgement: a rating is uncertain]
+    const sweep = d.warnings.find((w) => w.startsWith('Sweep-out margin'));
+    expect(sweep).toBe(`Sweep-out margin: at 85.0 m³/s the tailwater just meets the required ${gov.requiredDepth.toFixed(2)} m (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin`);
+    const deeper = runStudy({ ...DEMO, dissipators: { ...DEMO.dissipators, extraFloorDepth: 0.6 } }).design!.design as JumpBasinDesign;
+    expectRel(deeper.floorElevation, d.floorElevation - 0.6, 1e-9);
+    // 0.6 m deeper leaves more than the 5 % of y2 the warning asks for [threshold: common practice, no source]
+    expect(Math.min(...deeper.rows.map((x) => x.margin / x.y2))).toBeGreaterThan(0.05);
+    expect(deeper.warnings.some((w) => w.startsWith('Sweep-out margin'))).toBe(false);
   });
 
   it('product.md rough figures at 85 m³/s: V1 ≈ 15.6–17 m/s, Fr1 7–9, y2 ≈ 4.5–4.8 m (floor lower than the first guess) [product.md, rough]', () => {

@@ -211,7 +211,7 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     const g = rows.reduce((a, r) => (r.margin < a.margin ? r : a));
     if (g.margin < 0.05 * g.y2) {
       warnings.push(
-        `Sweep-out margin: at ${P.Q(g.Q)} the tailwater exceeds the required ${P.len(g.requiredDepth)} by only ${P.len(Math.max(0, g.margin))}; set an extra floor depth (lowers the floor) for a margin`,
+        `Sweep-out margin: at ${P.Q(g.Q)} the tailwater ${P.len(g.margin) === P.len(0) ? 'just meets' : `exceeds by only ${P.len(Math.max(0, g.margin))}`} the required ${P.len(g.requiredDepth)} (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin`,
       );
     }
   }

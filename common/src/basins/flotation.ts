@@ -88,8 +88,9 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const upliftHead = Math.max(0, H + thickness);
   const uplift = gw * k * B * upliftHead;
   const resisting = gc * B * thickness + walls + water;
-  if (need > 1.0) notes.push(`flotation needs a ${phraser(c.units ?? 'SI').len(need)} slab: consider underdrains (pressure relief) or anchors, which reduce the uplift`);
-  if (H <= 0) notes.push('the uplift level is below the floor: no flotation beyond the slab depth');
+  const P = phraser(c.units ?? 'SI');
+  if (need > 1.0) notes.push(`Flotation needs a slab of ${P.len(need)} (${P.len(thickness)} used): consider underdrains (pressure relief) or anchors, which reduce the uplift`);
+  if (H <= 0) notes.push('The uplift level is below the floor: no flotation beyond the slab depth');
   return {
     thickness,
     requiredThickness: need,

@@ -64,13 +64,13 @@ export function culvertApronStoneSize(c: {
   let tw: number;
   if (c.tailwater === undefined) {
     tw = 0.4 * D;
-    warnings.push('tailwater not known: taken as 0.4·D, the low bound of the relation (conservative)');
+    warnings.push('Tailwater not known: taken as 0.4·D, the low bound of the relation (conservative)');
   } else {
     if (!Number.isFinite(c.tailwater) || c.tailwater < 0) throw new RangeError(`tailwater must be a non-negative finite number (got ${c.tailwater})`);
     tw = Math.min(D, Math.max(0.4 * D, c.tailwater));
     if (tw !== c.tailwater) {
       warnings.push(
-        `tailwater ${P.len(c.tailwater)} is outside 0.4·D–1.0·D (${P.num(0.4 * D, 'length')}–${P.len(D)}): held at ${P.len(tw)}`,
+        `Tailwater ${P.len(c.tailwater)} is outside 0.4·D–1.0·D (${P.num(0.4 * D, 'length')}–${P.len(D)}): held at ${P.len(tw)}`,
       );
     }
   }
@@ -191,7 +191,7 @@ export function designCulvertApron(c: {
   const warnings = [...stone.warnings];
   const klass = APRON_CLASSES.find((k) => stone.d50 <= k.d50 + 1e-12);
   const use = klass ?? APRON_CLASSES[APRON_CLASSES.length - 1]!;
-  if (!klass) warnings.push(`stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`);
+  if (!klass) warnings.push(`Stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`);
   const D = c.rise;
   const length = use.lengthRatio * D;
   const outlet = Math.max(3 * D, c.span ?? 0);

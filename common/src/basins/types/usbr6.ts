@@ -55,14 +55,14 @@ export function sizeImpactBasin(
   const warnings: string[] = [
     'the Type VI width comes from a fit of the HEC-14 design curve recalled from memory: check W against the published curve',
   ];
-  if (W < curveWidth * 0.999) warnings.push(`width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
+  if (W < curveWidth * 0.999) warnings.push(`Width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
   if (Q > d.type6MaxDischarge) warnings.push(`Q ${P.Q(Q)} exceeds the ${P.Q(d.type6MaxDischarge)} limit of the type ${TAG}`);
-  if (V > d.type6MaxVelocity) warnings.push(`entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
+  if (V > d.type6MaxVelocity) warnings.push(`Entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
   const baffleHeight = 0.375 * W;
   const baffleClearance = W / 6;
   const maxTw = baffleClearance + baffleHeight / 2;
   if (c.tailwaterDepth !== undefined && reqNonNegative('tailwaterDepth', c.tailwaterDepth) > maxTw) {
-    warnings.push(`tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`);
+    warnings.push(`Tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`);
   }
   return {
     type: 'usbr-6',
