@@ -53,7 +53,7 @@ describe('warnings are shown once, under the floor they were found on', () => {
     // the design's list comes first, headed by its basin and floor; a line in both stays with the design
     expect(notes.find('[data-test="warnings-design"]').text()).toBe(`${d.name}, on its floor at ${d.floorElevation.toFixed(2)} m`);
     expect(notes.findAll('[data-test="warnings-design-list"] li').map((li) => li.text())).toEqual([line, 'Only under sizing.']);
-    expect(notes.find('[data-test="warnings-study"]').text()).toBe(`Free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`);
+    expect(notes.find('[data-test="warnings-study"]').text()).toBe(`The study, on the free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`);
     expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual(['Only in the study.']);
     expect(notes.find('[data-test="engine-warnings"]').text()).toContain(`Engine warnings (${all.length})`);
     notes.unmount();
