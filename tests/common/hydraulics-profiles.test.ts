@@ -6,68 +6,8 @@
 import { describe, expect, it } from 'vitest';
 import { G, jumpToeDistance, locateJump, type Section } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
+import { M, bisect, conj, critical, normal, rk4Until, type Chan } from '../support/gvf-reference';
 
-interface Chan {
-  b: number;
-  z: number;
-  n: number;
-  S0: number;
-  Q: number;
-}
-const A = (c: Chan, y: number) => c.b * y + c.z * y * y;
-const T = (c: Chan, y: number) => c.b + 2 * c.z * y;
-const P = (c: Chan, y: number) => c.b + 2 * y * Math.sqrt(1 + c.z * c.z);
-const Sf = (c: Chan, y: number) =>
-  (c.n * c.Q) ** 2 / (A(c, y) ** 2 * (A(c, y) / P(c, y)) ** (4 / 3));
-const Fr2 = (c: Chan, y: number) => (c.Q * c.Q * T(c, y)) / (G * A(c, y) ** 3);
-const M = (c: Chan, y: number) =>
-  (c.Q * c.Q) / (G * A(c, y)) + (c.b * y * y) / 2 + (c.z * y ** 3) / 3;
-const slope = (c: Chan, y: number) => (c.S0 - Sf(c, y)) / (1 - Fr2(c, y));
-
-function bisect(f: (x: number) => number, a: number, b: number): number {
-  const fa = f(a) > 0;
-  for (let i = 0; i < 200; i++) {
-    const m = 0.5 * (a + b);
-    if (f(m) > 0 === fa) a = m;
-    else b = m;
-  }
-  return 0.5 * (a + b);
-}
-const normal = (c: Chan) =>
-  bisect(
-    (y) => (1 / c.n) * A(c, y) * (A(c, y) / P(c, y)) ** (2 / 3) * Math.sqrt(c.S0) - c.Q,
-    1e-4,
-    50,
-  );
-const critical = (c: Chan) => bisect((y) => Fr2(c, y) - 1, 1e-4, 50);
-/** the conjugate depth with equal M on the other side of critical */
-const conj = (c: Chan, y: number) => {
-  const yc = critical(c);
-  return y < yc
-    ? bisect((x) => M(c, x) - M(c, y), yc, 50)
-    : bisect((x) => M(c, x) - M(c, y), 1e-5, yc);
-};
-
-/** RK4 from (0, y0) with step h (sign = direction) until stop(y) turns true; linear in the last step. */
-function rk4Until(c: Chan, y0: number, h: number, stop: (y: number) => number): number {
-  let x = 0;
-  let y = y0;
-  for (let i = 0; i < 5_000_000; i++) {
-    const k1 = slope(c, y);
-    const k2 = slope(c, y + (h / 2) * k1);
-    const k3 = slope(c, y + (h / 2) * k2);
-    const k4 = slope(c, y + h * k3);
-    const yn = y + (h / 6) * (k1 + 2 * k2 + 2 * k3 + k4);
-    if (stop(yn) >= 0) {
-      const s0 = stop(y);
-      const s1 = stop(yn);
-      return x + (h * -s0) / (s1 - s0);
-    }
-    x += h;
-    y = yn;
-  }
-  throw new Error('reference integration did not reach its end');
-}
 
 const rect3: Section = { shape: 'rectangular', width: 3 };
 const chan = (S0: number, n = 0.014, Q = 6): Chan => ({ b: 3, z: 0, n, S0, Q });

@@ -16,19 +16,11 @@ import {
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
 import { fenwickDesign } from '../../seed/designs';
+import { bisect } from '../support/gvf-reference';
 
 // the demo project's design input (invented demo data, seed/designs.ts)
 const demo: StudyInput = fenwickDesign;
 
-function bisect(f: (x: number) => number, a: number, b: number): number {
-  const fa = f(a) > 0;
-  for (let i = 0; i < 200; i++) {
-    const m = 0.5 * (a + b);
-    if (f(m) > 0 === fa) a = m;
-    else b = m;
-  }
-  return 0.5 * (a + b);
-}
 /** independent: the demo's y1, y2 and tailwater elevation at Q for floor z */
 function reference(Q: number, z: number): { y1: number; y2: number; tw: number } {
   const H = (Q / (2.15 * 12)) ** (2 / 3);

@@ -23,7 +23,7 @@ interface Option {
   series: Array<{ markLine?: { data: Array<{ xAxis?: number; yAxis?: number; label: { formatter: string } }> }; data: number[][] }>;
 }
 function chartOption(w: ReturnType<typeof mount>): Option {
-  return w.findComponent(VChart).props('option') as Option;
+  return w.findComponent(VChart).props('option') as unknown as Option;
 }
 
 describe('DesignDiagramChart', () => {

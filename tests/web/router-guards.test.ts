@@ -87,6 +87,18 @@ describe('router guards', () => {
     }
   });
 
+  it('opens the jump position tool for every signed-in role (a calculator needs sign-in only)', async () => {
+    expect(router.resolve('/tools/jump-position').name).toBe('jump-position');
+    for (const role of ['owner', 'admin', 'engineer', 'estimator', 'viewer'] as const) {
+      signedInAs(role);
+      expect(await land('/tools/jump-position')).toBe('/tools/jump-position');
+    }
+  });
+
+  it('sends a signed-out visitor from the jump position tool to sign-in and back', async () => {
+    expect(await land('/tools/jump-position')).toBe('/sign-in?redirect=/tools/jump-position');
+  });
+
   it('drops a rejected stored token and asks to sign in', async () => {
     localStorage.setItem(TOKEN_KEY, 'tok-revoked');
     setActivePinia(createPinia());

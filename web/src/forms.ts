@@ -1,6 +1,42 @@
 // Glue between vee-validate and ant-design-vue form items, shared by every form.
+import { inject, provide, type InjectionKey, type Ref } from 'vue';
 import type { PublicPathState } from 'vee-validate';
+import type { UnitSystem } from '@basinwright/common';
 import { ApiError } from '@/api/client';
+
+/** What a form's number fields (AppNumberField) share: values, messages, units, and how to name them. */
+export interface NumberFormContext {
+  values: object;
+  errors: Ref<Partial<Record<string, string | undefined>>>;
+  setFieldValue: (path: string, value: unknown) => void;
+  units: Ref<UnitSystem>;
+  readOnly?: Ref<boolean>;
+  /** the inputs' ids are `${idPrefix}-${path}` and their data-test `${testPrefix}-${path}` */
+  idPrefix: string;
+  testPrefix: string;
+}
+
+const NUMBER_FORM_KEY: InjectionKey<NumberFormContext> = Symbol('number-form');
+
+export function provideNumberForm(ctx: NumberFormContext): void {
+  provide(NUMBER_FORM_KEY, ctx);
+}
+
+export function useNumberForm(): NumberFormContext {
+  const ctx = inject(NUMBER_FORM_KEY);
+  if (!ctx) throw new Error('A number field needs a form that provides its context (provideNumberForm)');
+  return ctx;
+}
+
+/** Reads a path ("inflow.headwater.C", "rows[2].Q") from a form's values. */
+export function getPath(obj: unknown, path: string): unknown {
+  let node: unknown = obj;
+  for (const key of path.replace(/\[(\d+)\]/g, '.$1').split('.')) {
+    if (node === null || typeof node !== 'object') return undefined;
+    node = (node as Record<string, unknown>)[key];
+  }
+  return node;
+}
 
 /**
  * Validate a field when it loses focus; once it shows an error, re-check it as the user types

@@ -1,6 +1,6 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
-import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, JumpPosition, Verdict } from '@basinwright/common';
+import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -134,3 +134,68 @@ export const noDesignCheckNote = (basin: string | null): string =>
   basin
     ? `The ${basin} does not hold a hydraulic jump on a floor against the tailwater, so it has no tailwater check of its own. The check below is the free-jump one, for reference only.`
     : 'No basin type is designed yet, so the check below is the free-jump one, for reference only.';
+
+// Where the jump forms (the jump position tool): the page, its situations, the places a jump
+// can stand and the control the distance is measured from, in our words.
+export const JUMP_TOOL_TITLE = 'Where the jump forms';
+export const JUMP_TOOL_SUBTITLE =
+  'The water-surface profiles below a slope break, a gate or a weir, and where the jump between them stands. Nothing here is saved.';
+
+export type JumpSituationKind = JumpSituation['kind'];
+const jumpSituations: Record<JumpSituationKind, { label: string; help: string }> = {
+  slopeBreak: { label: 'Steep reach onto a mild one', help: 'A chute or steep channel meets a flatter channel at a break in the bed slope.' },
+  gateMildSlope: { label: 'Sluice gate on a mild slope', help: 'Flow issues under a gate onto a mild bed; the fast flow deepens downstream until the jump.' },
+  gateSteepSlope: { label: 'Gate on a steep slope', help: 'A gate across a steep channel backs the water up; the jump forms upstream of the gate.' },
+  weirToMildSlope: { label: 'Weir or drop onto a mild slope', help: 'Flow passes critical depth on a crest, falls to the bed below and runs onto a mild reach.' },
+};
+export const JUMP_SITUATION_KINDS: readonly JumpSituationKind[] = ['slopeBreak', 'gateMildSlope', 'gateSteepSlope', 'weirToMildSlope'];
+export const jumpSituationLabel = (k: JumpSituationKind): string => jumpSituations[k].label;
+export const jumpSituationHelp = (k: JumpSituationKind): string => jumpSituations[k].help;
+
+/** The control the distance to the toe is measured from, as a noun phrase. */
+const jumpControls: Record<JumpSituationKind, string> = {
+  slopeBreak: 'the slope break',
+  gateMildSlope: 'the vena contracta below the gate',
+  gateSteepSlope: 'the gate',
+  weirToMildSlope: 'the foot of the weir',
+};
+export const jumpControlLabel = (k: JumpSituationKind): string => jumpControls[k];
+/** The structure a drowned jump is held against. */
+const jumpStructures: Record<JumpSituationKind, string> = {
+  slopeBreak: 'the slope break',
+  gateMildSlope: 'the gate',
+  gateSteepSlope: 'the gate',
+  weirToMildSlope: 'the foot of the weir',
+};
+
+export type JumpPlace = JumpLocation['position'];
+const jumpPlaces: Record<JumpPlace, { label: string; color: string }> = {
+  downstream: { label: 'Downstream of the control', color: 'cyan' },
+  upstream: { label: 'Upstream of the control', color: 'blue' },
+  drowned: { label: 'Drowned at the structure', color: 'gold' },
+  'at-structure': { label: 'At the structure', color: 'purple' },
+};
+export const jumpPlaceLabel = (p: JumpPlace): string => jumpPlaces[p].label;
+export const jumpPlaceColor = (p: JumpPlace): string => jumpPlaces[p].color;
+
+/** The position in one plain sentence; `distance` is already written with its unit. */
+export function jumpPlaceSentence(p: JumpPlace, k: JumpSituationKind, distance: string): string {
+  const control = jumpControls[k];
+  switch (p) {
+    case 'downstream':
+      return `The jump forms ${distance} downstream of ${control}.`;
+    case 'upstream':
+      return k === 'slopeBreak'
+        ? `The jump forms ${distance} upstream of ${control}, on the steep reach.`
+        : `The jump forms ${distance} upstream of ${control}.`;
+    case 'drowned':
+      return `The jump is drowned: the tailwater holds it against ${jumpStructures[k]}.`;
+    case 'at-structure':
+      return `The jump stands right at ${jumpStructures[k]}.`;
+  }
+}
+
+/** The concept-level caution shown with every result, as on the design pages. */
+export const CONCEPT_CAUTION_LEAD = 'Concept level only.';
+export const CONCEPT_CAUTION_TEXT =
+  'Model studies for large or high-hazard structures; review and seal by a licensed professional engineer; local codes and dam-safety rules govern.';

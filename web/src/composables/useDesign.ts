@@ -20,6 +20,7 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import { ApiError } from '@/api/client';
+import { getPath, provideNumberForm } from '@/forms';
 import { designsApi, type Design, type DesignOptions } from '@/api/designs';
 import { projectsApi } from '@/api/projects';
 import type { Project } from '@/api/types';
@@ -153,6 +154,8 @@ export function useDesign(projectId: Ref<string>) {
 }
 
 /** What the step components share with the workspace: values, errors, edit rights, units. */
+export { getPath };
+
 export interface DesignFormContext {
   values: StudyInput;
   errors: Ref<Partial<Record<string, string | undefined>>>;
@@ -165,6 +168,7 @@ const FORM_KEY: InjectionKey<DesignFormContext> = Symbol('design-form');
 
 export function provideDesignForm(ctx: DesignFormContext): void {
   provide(FORM_KEY, ctx);
+  provideNumberForm({ ...ctx, idPrefix: 'design', testPrefix: 'field' });
 }
 
 export function useDesignForm(): DesignFormContext {
@@ -296,15 +300,6 @@ export function overrideProblem(key: BasinDefaultKey, value: number | undefined)
 }
 
 /** Reads a dotted path ("inflow.headwater.C", "tailwater.rows[2].Q") from an object. */
-export function getPath(obj: unknown, path: string): unknown {
-  let node: unknown = obj;
-  for (const key of path.replace(/\[(\d+)\]/g, '.$1').split('.')) {
-    if (node === null || typeof node !== 'object') return undefined;
-    node = (node as Record<string, unknown>)[key];
-  }
-  return node;
-}
-
 // ---- CSV tables (tailwater rating, headwater rating, outlet table) ----
 
 export interface CsvColumn {

@@ -1,5 +1,5 @@
 // Live results: the engine runs in the browser on the form's input as the user types.
-import { onBeforeUnmount, ref, shallowRef, watch, type Ref } from 'vue';
+import { ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
   UNIT_LABELS,
@@ -14,6 +14,7 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import { inputForEngine } from '@/composables/useDesign';
+import { useLiveResult } from '@/composables/useLive';
 
 /** How long typing must pause before the study runs again, ms. */
 export const STUDY_DEBOUNCE_MS = 250;
@@ -109,35 +110,13 @@ export function useStudy(
   chosenType: Ref<DissipatorTypeId | null | undefined> = ref(null),
   debounceMs = STUDY_DEBOUNCE_MS,
 ) {
-  const result = shallowRef<StudyResult | null>(null);
-  const engineError = ref<string | null>(null);
-  const inputProblems = ref<string[]>([]);
-  const stale = ref(false);
-  const pending = ref(false);
-  let timer: ReturnType<typeof setTimeout> | undefined;
-
-  function runNow(): void {
-    clearTimeout(timer);
-    pending.value = false;
+  const live = useLiveResult<StudyResult>(() => {
     const out = evaluateStudy(source.value, chosenType.value);
-    engineError.value = out.engineError;
-    inputProblems.value = out.inputProblems;
-    if (out.result) {
-      result.value = out.result;
-      stale.value = false;
-    } else stale.value = result.value !== null;
-  }
-
-  function schedule(): void {
-    clearTimeout(timer);
-    pending.value = true;
-    timer = setTimeout(runNow, debounceMs);
-  }
-
-  watch(source, schedule, { deep: true });
-  watch(chosenType, runNow);
-  onBeforeUnmount(() => clearTimeout(timer));
-
+    return { value: out.result, engineError: out.engineError, inputProblems: out.inputProblems };
+  }, debounceMs);
+  watch(source, live.schedule, { deep: true });
+  watch(chosenType, live.runNow);
+  const { value: result, engineError, inputProblems, stale, pending, runNow } = live;
   return { result, engineError, inputProblems, stale, pending, runNow };
 }
 

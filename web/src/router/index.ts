@@ -85,6 +85,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, can: 'projects.read', title: 'Design' },
   },
   {
+    path: '/tools/jump-position',
+    name: 'jump-position',
+    component: () => import('@/views/JumpPositionView.vue'),
+    // A calculator: it reads and stores nothing, so every signed-in role may use it.
+    meta: { requiresAuth: true, title: 'Where the jump forms' },
+  },
+  {
     path: '/team',
     name: 'team',
     component: () => import('@/views/TeamView.vue'),
