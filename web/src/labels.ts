@@ -1,6 +1,6 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
-import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
+import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, DissipatorFamily, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -89,7 +89,11 @@ const verdicts: Record<Verdict, string> = {
 export const verdictLabel = (v: Verdict): string => verdicts[v];
 
 const criterionStatuses: Record<CriterionStatus, string> = { pass: 'Meets', warn: 'Caution', fail: 'Fails' };
-export const criterionStatusLabel = (s: CriterionStatus): string => criterionStatuses[s];
+// A jet structure (flip or slotted bucket) is screened for whether the site points to it, not
+// for limits it must stay within: its criteria read as indications.
+const jetCriterionStatuses: Record<CriterionStatus, string> = { pass: 'Indicates', warn: 'Borderline', fail: 'Not indicated' };
+export const criterionStatusLabel = (s: CriterionStatus, family?: DissipatorFamily): string =>
+  (family === 'jet' ? jetCriterionStatuses : criterionStatuses)[s];
 
 const criteria: Record<CriterionId, string> = {
   froude: 'Froude number',
