@@ -168,6 +168,9 @@ describe('E–y and M–y diagrams follow the floor shown', () => {
     expect(w.find('[data-test="design-jump"]').text()).toContain('on the design floor');
     // the two floors differ here, and so do the two toe depths
     expect(Math.abs(y1 - result.diagrams.y1)).toBeGreaterThan(1e-4);
+    // power dissipated P = ρ·g·Q·ΔE with ρ = 1000 kg/m³ (fresh water, common practice) [Chow 1959, §15-2]
+    const power = 1000 * g * d.water.Q * (onDesign!.specificEnergy.E1 - onDesign!.specificEnergy.E2);
+    expect(w.find('[data-test="design-jump-power"]').text()).toBe(`${(power / 1e6).toFixed(2)} MW`);
     await pick(w, /Free-jump floor/);
     expect(charts()[0]).toEqual(result.diagrams);
     expect(w.find('[data-test="design-jump"]').text()).toContain('on the free-jump floor');
