@@ -1,7 +1,8 @@
 // The Jump check's chart and table follow a switch: at the chosen basin's own design floor
 // (its tailwater factor C) by default, or at the free-jump floor (C = 1.00) for reference. A type
 // that holds no jump against the tailwater has no check of its own: the reference only, with a note.
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
+import Papa from 'papaparse';
 import { mount, type VueWrapper } from '@vue/test-utils';
 import { runStudy, type StudyResult, type UnitSystem } from '@basinwright/common';
 import DesignJumpCheckStep from '../../web/src/components/DesignJumpCheckStep.vue';
@@ -174,6 +175,46 @@ describe('E–y and M–y diagrams follow the floor shown', () => {
     await pick(w, /Free-jump floor/);
     expect(charts()[0]).toEqual(result.diagrams);
     expect(w.find('[data-test="design-jump"]').text()).toContain('on the free-jump floor');
+    w.unmount();
+  });
+});
+
+describe('the table as CSV', () => {
+  const d = result.design!.design;
+  if (d.family !== 'jump-basin') throw new Error('jump basin expected');
+  const read = (w: VueWrapper) => {
+    const text = (w.vm as unknown as { rowsCsv: () => string }).rowsCsv();
+    const [comment, ...rest] = text.split('\r\n');
+    return { comment: comment!, rows: Papa.parse<string[]>(rest.join('\r\n')).data };
+  };
+
+  it('design floor: a header with units, then every row as plain numbers in SI', () => {
+    const w = mountStep(result);
+    const { comment, rows } = read(w);
+    expect(comment).toContain(`design floor, ${d.name}`);
+    expect(rows[0]).toEqual(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)', 'C', 'Required depth C·y2 (m)', 'Tailwater depth (m)', 'Margin TW − C·y2 (m)', 'Jump position', 'Basin length (m)']);
+    expect(rows).toHaveLength(d.rows.length + 1);
+    d.rows.forEach((row, i) => {
+      const cells = rows[i + 1]!;
+      expect(Number(cells[0])).toBe(Number(row.Q.toFixed(3)));
+      expect(Number(cells[7])).toBe(Number(row.tailwaterDepth.toFixed(4)));
+      // no thousands separators: every number reads back as a number
+      for (const c of [0, 1, 2, 3, 4, 5, 6, 7, 8, 10]) expect(Number.isFinite(Number(cells[c]))).toBe(true);
+    });
+    w.unmount();
+  });
+
+  it('US units: the same rows in cfs and ft (1 ft = 0.3048 m exactly, NIST SP 811); the button offers a file', async () => {
+    const w = mountStep(result, 'US');
+    const { rows } = read(w);
+    expect(rows[0]![0]).toBe('Q (cfs)');
+    expectRel(Number(rows[1]![0]), d.rows[0]!.Q / 0.3048 ** 3, 1e-3 / (d.rows[0]!.Q / 0.3048 ** 3));
+    expectRel(Number(rows[1]![7]), d.rows[0]!.tailwaterDepth / 0.3048, 1e-4 / (d.rows[0]!.tailwaterDepth / 0.3048));
+    const created = vi.fn(() => 'blob:csv');
+    vi.stubGlobal('URL', Object.assign(URL, { createObjectURL: created, revokeObjectURL: vi.fn() }));
+    await w.find('[data-test="download-csv"]').trigger('click');
+    expect(created).toHaveBeenCalledTimes(1);
+    vi.unstubAllGlobals();
     w.unmount();
   });
 });

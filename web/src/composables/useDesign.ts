@@ -319,7 +319,7 @@ export type CsvOutcome =
  * the file; nothing partial is returned. `increasingKey` must rise from row to row.
  */
 export function parseCsvTable(text: string, columns: readonly CsvColumn[], increasingKey?: string): CsvOutcome {
-  const parsed = Papa.parse(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', comments: '#' });
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', comments: '#' });
   // A guessed delimiter is not an error of the file (a one-column row makes papaparse guess).
   const errors: string[] = parsed.errors
     .filter((e) => e.type !== 'Delimiter')
