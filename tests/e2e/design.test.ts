@@ -15,6 +15,7 @@ const CHANNEL_BED = 90.0;
 let page: Page;
 let browser: E2eBrowser | undefined;
 let designUrl = '';
+let designFloor = NaN;
 let pageErrors: string[] = [];
 
 async function shot(name: string): Promise<void> {
@@ -79,7 +80,21 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     await expect.poll(() => page.getByText('Specific energy E (m)').count()).toBeGreaterThan(0);
     await expect.poll(() => page.getByText('Momentum function M (m³)').count()).toBeGreaterThan(0);
     await expect.poll(() => page.locator('[data-test="cautions"]').textContent()).toContain('Concept level only');
+    designFloor = floor;
     await shot('4-jump-check');
+  });
+
+  it('the table downloads as a CSV file with a header and one line per discharge', async () => {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-test="download-csv"]').click()]);
+    expect(download.suggestedFilename()).toBe('jump-check-design-floor.csv');
+    const path = await download.path();
+    const { readFile } = await import('node:fs/promises');
+    const lines = (await readFile(path, 'utf8')).replace(/^\uFEFF/, '').trim().split(/\r\n/);
+    // a comment naming the floor, the header, then the 17 discharges of the seeded input
+    expect(lines[0]).toContain(`Floor elevation ${designFloor.toFixed(2)}`);
+    expect(lines[1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
+    expect(lines).toHaveLength(2 + 17);
+    expect(Number(lines[2]!.split(',')[0])).toBe(5);
   });
 
   it('basin choice names the recommended basin with reasons per criterion', async () => {
@@ -100,6 +115,10 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     expect(await svg.locator('[data-role^="dim-"]').count()).toBeGreaterThan(3);
     expect(await svg.locator('[data-role="dim-basin-length"] text').first().textContent()).toMatch(/^\d+\.\d{2} m$/);
     expect(numberIn(await page.locator('[data-test="sizing-width"]').textContent())).toBe(12);
+    // the chosen basin first, beside at least one other sized type
+    const alternatives = page.locator('[data-test="alternatives-table"] tbody tr.ant-table-row');
+    expect(await alternatives.count()).toBeGreaterThan(1);
+    expect(await alternatives.first().textContent()).toContain('Sized above');
     await shot('6-sizing');
   });
 
@@ -122,6 +141,15 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     await page.getByText('Design saved.').first().waitFor();
     await page.goto(designUrl);
     await expect.poll(() => page.getByLabel('Basin width (m)').inputValue()).toBe('12');
+  });
+
+  it("the project page's design at a glance gives the floor the Jump check gave", async () => {
+    await page.goto(designUrl.replace(/\/design$/, ''));
+    const floor = page.locator('[data-test="project-design-summary"] [data-test="summary-floor"]');
+    await floor.waitFor();
+    expect(numberIn(await floor.textContent())).toBe(Number(designFloor.toFixed(2)));
+    await expect.poll(() => page.locator('[data-test="project-design-summary"] [data-test="design-drawing"] svg').count()).toBe(1);
+    await shot('8-project-summary');
   });
 
   it('raised no uncaught errors in the page', () => {
