@@ -1,6 +1,6 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
-import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, DissipatorFamily, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
+import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, DissipatorFamily, JumpClass, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -203,3 +203,16 @@ export function jumpPlaceSentence(p: JumpPlace, k: JumpSituationKind, distance: 
 export const CONCEPT_CAUTION_LEAD = 'Concept level only.';
 export const CONCEPT_CAUTION_TEXT =
   'Model studies for large or high-hazard structures; review and seal by a licensed professional engineer; local codes and dam-safety rules govern.';
+
+/**
+ * The jump classes by inflow Froude number, as bands [USBR classification via Chow 1959, §15-2;
+ * the engine's classifyJump]: undular 1–1.7, weak 1.7–2.5, oscillating 2.5–4.5, steady 4.5–9,
+ * strong above 9.
+ */
+export const JUMP_CLASS_BANDS: ReadonlyArray<{ jumpClass: JumpClass; from: number; to: number | null; color: string }> = [
+  { jumpClass: 'undular', from: 1, to: 1.7, color: '#f1f5f9' },
+  { jumpClass: 'weak', from: 1.7, to: 2.5, color: '#e2e8f0' },
+  { jumpClass: 'oscillating', from: 2.5, to: 4.5, color: '#fde68a' },
+  { jumpClass: 'steady', from: 4.5, to: 9, color: '#d1fae5' },
+  { jumpClass: 'strong', from: 9, to: null, color: '#e0f2fe' },
+];
