@@ -15,7 +15,7 @@ import {
 } from '@basinwright/common';
 import { STUDY_DEBOUNCE_MS, readableEngineError } from '@/composables/useStudy';
 import { useLiveResult } from '@/composables/useLive';
-import { getPath, provideNumberForm } from '@/forms';
+import { provideNumberForm } from '@/forms';
 
 export type JumpKind = JumpSituation['kind'];
 export type SectionShape = Section['shape'];
@@ -145,6 +145,8 @@ function shortNumbers(text: string): string {
   return text.replace(/(?<![\w.])(-?\d+\.\d{5,})(?=\s?m\b|\s?m³\/s|\s?m²\/s)/g, (n) => String(Number(Number(n).toPrecision(4))));
 }
 
+const JUMP_ERROR_LEAD = 'The jump position cannot be worked out with these inputs.';
+
 /**
  * A refusal of the engine as a sentence for the page: the argument it names in the form's
  * words, the quantities in the user's units (through readableEngineError), and our own lead.
@@ -158,10 +160,7 @@ export function readableJumpError(error: unknown, units: UnitSystem, situation?:
     kind === 'slopeBreak' ? [[/^slope\b/, 'Downstream slope'], ...ENGINE_WORDS] : [[/^slope\b/, 'Bed slope'], ...ENGINE_WORDS];
   const hit = words.find(([re]) => re.test(text));
   if (hit) text = text.replace(hit[0], hit[1]);
-  let sentence = readableEngineError(new RangeError(text), units).replace(
-    /^The study cannot be computed with these inputs\./,
-    'The jump position cannot be worked out with these inputs.',
-  );
+  let sentence = readableEngineError(new RangeError(text), units, JUMP_ERROR_LEAD);
   // A "mild" reach that is steep for this discharge shows up as a subcritical depth that is not.
   if (/^yDownstream\b.*not subcritical/.test(error.message)) {
     const given = situation !== undefined && 'tailwaterDepth' in situation && situation.tailwaterDepth !== undefined;
@@ -223,8 +222,6 @@ export function useJumpPosition(source: Ref<unknown>, units: Ref<UnitSystem>, de
   return { location, engineError, inputProblems, stale, pending, runNow };
 }
 
-/** Reads a dotted path ("upstream.slope") from the form's values. */
-export const valueAt = getPath;
 
 /** What the form's fields share: values, errors and the units of the numbers typed. */
 export interface JumpFormContext {

@@ -45,7 +45,7 @@ const FIELD_WORDS: Array<[RegExp, string]> = [
  * field's label, and the quantities it quotes (the engine computes in SI) are put in the
  * project's units. A bare number the engine names without a unit stays in SI, and then says so.
  */
-export function readableEngineError(error: unknown, units: UnitSystem = 'SI'): string {
+export function readableEngineError(error: unknown, units: UnitSystem = 'SI', lead = 'The study cannot be computed with these inputs.'): string {
   if (error instanceof RangeError) {
     let text = phraseMessage(error.message.trim(), units);
     const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);
@@ -59,7 +59,7 @@ export function readableEngineError(error: unknown, units: UnitSystem = 'SI'): s
     }
     text = text.charAt(0).toUpperCase() + text.slice(1);
     const bareSI = units === 'US' && /\(got -?\d/.test(text);
-    return `The study cannot be computed with these inputs. ${text}${/[.!?]$/.test(text) ? '' : '.'}${bareSI ? ' (The value quoted is in SI units.)' : ''}`;
+    return `${lead} ${text}${/[.!?]$/.test(text) ? '' : '.'}${bareSI ? ' (The value quoted is in SI units.)' : ''}`;
   }
   if (error instanceof Error) return `The calculation failed unexpectedly: ${error.message}`;
   return 'The calculation failed unexpectedly.';
