@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { ACTIONS, POLICY, ROLES, TOKEN_TTL_MS, type Action, type Role } from '@basinwright/common';
 import openapi from '../../api/src/openapi.json' with { type: 'json' };
 import { fenwickDesign } from '../../seed/designs';
@@ -7,25 +7,19 @@ import {
   bearer,
   setPlan,
   signUpFirm,
-  startApi,
+  apiForFile,
   uniqueEmail,
   TEST_PASSWORD,
-  type ApiHarness,
 } from '../support/api-app';
 
-let h: ApiHarness;
 let firmId = '';
 let ownerId = '';
 
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'matrix');
   firmId = firm.firm.id;
   ownerId = firm.user.id;
   await setPlan(h, firmId, 'firm', 1000);
-});
-afterAll(async () => {
-  await h.close();
 });
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';

@@ -1,22 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import {
   TEST_PASSWORD,
   bearer,
   login,
   signUpFirm,
-  startApi,
-  type ApiHarness,
+  apiForFile,
 } from '../support/api-app';
 
 // A member's own account: the name, and the password (which ends every other session).
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 describe('PATCH /auth/me', () => {
   it('changes the name (trimmed) and nothing else', async () => {

@@ -11,18 +11,11 @@ import {
   login,
   randomClientIp,
   signUpFirm,
-  startApi,
+  apiForFile,
   uniqueEmail,
-  type ApiHarness,
 } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 const claimsOf = (token: string) => jwt.decode(token) as jwt.JwtPayload;
 const b64 = (value: object) => Buffer.from(JSON.stringify(value)).toString('base64url');

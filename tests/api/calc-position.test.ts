@@ -4,19 +4,14 @@
 // the depth after the jump is the mild channel's normal depth (Manning, Chow 1959 §5-6), the
 // toe depth and that depth are conjugate (Bélanger, Chow 1959 eq. 3-20), and the toe depth
 // lies between the vena contracta (Cc·a, Henderson 1966) and critical depth.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+import { describe, expect, it } from 'vitest';
+import { bearer, signUpFirm, apiForFile } from '../support/api-app';
 import { expectRel } from '../support/tolerance';
 
 const g = 9.80665; // the engine's g (standard gravity)
-let h: ApiHarness;
 let token = '';
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(async () => {
   token = (await signUpFirm(h, 'position')).token;
-});
-afterAll(async () => {
-  await h.close();
 });
 
 const post = (body: unknown, t: string | null = token) => {

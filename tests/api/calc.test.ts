@@ -1,19 +1,14 @@
 // Engine routes: signed-in members only; bad or impossible input is a 4xx with the message.
 // Expected numbers come from hydraulics.md §6 (sources named there) and Bélanger's equation
 // (Chow 1959, eq. 3-20).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { addMember, bearer, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+import { describe, expect, it } from 'vitest';
+import { addMember, bearer, signUpFirm, apiForFile } from '../support/api-app';
 import { expectRel } from '../support/tolerance';
 import { fenwickDesign } from '../../seed/designs';
 
-let h: ApiHarness;
 let token: string;
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(async () => {
   token = (await signUpFirm(h, 'calc')).token;
-});
-afterAll(async () => {
-  await h.close();
 });
 
 const jump = (body: unknown, t: string | null = token) => {

@@ -1,19 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runStudy, toSI } from '@basinwright/common';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
-import { bearer, setPlan, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 // A project's design: saved as typed (in the project's units), validated by the shared schema
 // and by running the study on the server; bad input is a 4xx and saves nothing.
 
-let h: ApiHarness;
 let token = '';
 let firmId = '';
 let siProject = '';
 let usProject = '';
 
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'designs');
   token = firm.token;
   firmId = firm.firm.id;
@@ -22,9 +20,6 @@ beforeAll(async () => {
   const us = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Design US', units: 'US' });
   siProject = si.body.id;
   usProject = us.body.id;
-});
-afterAll(async () => {
-  await h.close();
 });
 
 const get = (id: string, t = token) => h.http().get(`/api/v1/projects/${id}/design`).set(bearer(t));

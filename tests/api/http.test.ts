@@ -5,15 +5,9 @@ import path from 'node:path';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+import { bearer, signUpFirm, apiForFile } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 describe('request bodies', () => {
   it('malformed JSON is a 400 bad_json', async () => {

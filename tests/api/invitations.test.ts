@@ -1,24 +1,17 @@
 import { createHash } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import {
   TEST_PASSWORD,
   addMember,
   bearer,
   setPlan,
   signUpFirm,
-  startApi,
+  apiForFile,
   tokenFromMail,
   uniqueEmail,
-  type ApiHarness,
 } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 async function paidFirm(label: string, seats = 5) {
   const firm = await signUpFirm(h, label);

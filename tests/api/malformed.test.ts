@@ -1,19 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import openapi from '../../api/src/openapi.json' with { type: 'json' };
-import { bearer, setPlan, signUpFirm, startApi, type ApiHarness } from '../support/api-app';
+import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 // Every operation of the OpenAPI document, fed bodies, ids and query strings that are wrong in
 // every way we could think of: the answer is always a 4xx (or a success for input that is merely
 // odd) in the one error shape — never a 500 — and a bad write leaves the database as it was.
 
-let h: ApiHarness;
 let token = '';
 let firmId = '';
 let projectId = '';
 let memberId = '';
 
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'malformed');
   token = firm.token;
   firmId = firm.firm.id;
@@ -21,9 +19,6 @@ beforeAll(async () => {
   await setPlan(h, firmId, 'firm', 5);
   const p = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Target', units: 'SI' });
   projectId = p.body.id;
-});
-afterAll(async () => {
-  await h.close();
 });
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';

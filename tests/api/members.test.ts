@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import {
   TEST_PASSWORD,
   addMember,
@@ -6,17 +6,10 @@ import {
   login,
   setPlan,
   signUpFirm,
-  startApi,
-  type ApiHarness,
+  apiForFile,
 } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 async function teamFirm(label: string, seats = 10) {
   const firm = await signUpFirm(h, label);

@@ -1,23 +1,16 @@
 import { createHash } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import {
   TEST_PASSWORD,
   bearer,
   login,
   signUpFirm,
-  startApi,
+  apiForFile,
   tokenFromMail,
   uniqueEmail,
-  type ApiHarness,
 } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 const NEW_PASSWORD = 'a brand new passphrase';
 

@@ -1,20 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import {
   addMember,
   bearer,
   setPlan,
   signUpFirm,
-  startApi,
-  type ApiHarness,
+  apiForFile,
 } from '../support/api-app';
 
-let h: ApiHarness;
-beforeAll(async () => {
-  h = await startApi();
-});
-afterAll(async () => {
-  await h.close();
-});
+const h = apiForFile();
 
 const create = (token: string, body: object) =>
   h.http().post('/api/v1/projects').set(bearer(token)).send(body);

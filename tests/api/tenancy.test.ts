@@ -1,19 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { TOKEN_TTL_MS } from '@basinwright/common';
 import {
   addMember,
   bearer,
   setPlan,
   signUpFirm,
-  startApi,
+  apiForFile,
   uniqueEmail,
-  type ApiHarness,
 } from '../support/api-app';
 
 // Firm A's owner probes every project and member route with firm B's ids: each must answer
 // exactly like an id that does not exist, leak nothing and change nothing.
 
-let h: ApiHarness;
 let tokenA = '';
 const b = {
   firmId: '',
@@ -25,8 +23,14 @@ const b = {
 };
 const MISSING = '7d1c9a3e-0000-4000-8000-000000000000';
 
-beforeAll(async () => {
-  h = await startApi();
+const h = apiForFile(
+  setUp,
+  async () => {
+    await h.models.Invitation.destroy({ where: { id: b.invitationId } });
+  },
+);
+
+async function setUp(): Promise<void> {
   const a = await signUpFirm(h, 'tenant-a');
   await setPlan(h, a.firm.id, 'firm', 10);
   tokenA = a.token;
@@ -58,11 +62,7 @@ beforeAll(async () => {
     invitedById: firmB.user.id,
   });
   b.invitationId = invitation.id;
-});
-afterAll(async () => {
-  await h.models.Invitation.destroy({ where: { id: b.invitationId } });
-  await h.close();
-});
+}
 
 type Method = 'get' | 'patch' | 'delete';
 function probe(method: Method, path: string, body?: object) {

@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { SMTPServer } from 'smtp-server';
 import request from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 import type { Plan, Role } from '@basinwright/common';
 
 type AppModule = typeof import('../../api/src/app');
@@ -73,6 +74,30 @@ export interface ApiHarness {
   http(app?: Express): request.Agent;
   waitForMail(to: string, timeoutMs?: number): Promise<CapturedMail>;
   close(): Promise<void>;
+}
+
+/**
+ * The API harness of one test file: started before its tests (then `setUp`, e.g. sign-ups),
+ * closed after them (after `tearDown`). The object returned stands for the harness from the
+ * first test on; reading it at module level, before the tests run, is an error.
+ */
+export function apiForFile(setUp?: () => Promise<void>, tearDown?: () => Promise<void>): ApiHarness {
+  let current: ApiHarness | undefined;
+  beforeAll(async () => {
+    current = await startApi();
+    await setUp?.();
+  });
+  afterAll(async () => {
+    await tearDown?.();
+    await current?.close();
+  });
+  return new Proxy({} as ApiHarness, {
+    get(_target, key) {
+      if (current === undefined) throw new Error('The API harness starts in beforeAll: use it inside hooks and tests.');
+      const value: unknown = Reflect.get(current, key);
+      return typeof value === 'function' ? value.bind(current) : value;
+    },
+  });
 }
 
 /** A random private IPv4 address, so each agent gets its own per-IP rate-limit bucket. */
