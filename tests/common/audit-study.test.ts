@@ -15,22 +15,14 @@ import {
   type StudyResult,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
+import { fenwickDesign } from '../../seed/designs';
 
 const FT = 0.3048;
 const CFS = FT ** 3;
 
 // The invented demo of product.md (Fenwick Mill Pond), SI.
 function demo(over: Partial<StudyInput> = {}): StudyInput {
-  return {
-    units: 'SI',
-    channelBedElevation: 90,
-    basinWidth: 12,
-    designDischarge: 85,
-    discharges: { kind: 'range', min: 5, max: 85, count: 5 },
-    tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-    inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-    ...over,
-  };
+  return { ...fenwickDesign, discharges: { kind: 'range', min: 5, max: 85, count: 5 }, ...over };
 }
 /** The same study typed in US customary units. */
 function inUS(si: StudyInput): StudyInput {

@@ -2,7 +2,7 @@
 // the place of its defaults. Expected values from the relations named beside them.
 import { describe, expect, it } from 'vitest';
 import { runStudy, toSI, type StudyInput } from '@basinwright/common';
-import { caldwellDesign } from '../../seed/designs';
+import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';
 
 const FT = 0.3048; // exact, by definition of the international foot
@@ -39,14 +39,8 @@ describe('perched culvert outlet (invented demo data, seed/designs.ts)', () => {
 describe('the flotation case stands in for its defaults in the list of assumptions', () => {
   it('safety factor and least slab thickness are listed as given', () => {
     const input: StudyInput = {
-      ...caldwellDesign,
-      units: 'SI',
-      channelBedElevation: 90,
-      basinWidth: 12,
-      designDischarge: 85,
+      ...fenwickDesign,
       discharges: { kind: 'range', min: 5, max: 85, count: 5 },
-      tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-      inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
       dissipators: { flotation: { safetyFactor: 1.5, minThickness: 0.6 } },
     };
     const r = runStudy(input);

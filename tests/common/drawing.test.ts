@@ -9,15 +9,8 @@ import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';
 
 // The demo project of product.md (invented scenario).
-const DEMO: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-};
+// the demo design of product.md (invented scenario), as seeded
+const DEMO: StudyInput = fenwickDesign;
 
 const g = 9.80665;
 /** Rows for a rectangular basin with tailwater 1.05·y2 [calc: Bélanger]. */

@@ -5,16 +5,10 @@ import { defineComponent, h, nextTick, ref, type Ref } from 'vue';
 import { mount } from '@vue/test-utils';
 import type { StudyInput } from '@basinwright/common';
 import { STUDY_DEBOUNCE_MS, evaluateStudy, readableEngineError, useStudy } from '../../web/src/composables/useStudy';
+import { fenwickDesign } from '../../seed/designs';
 
-const demo: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-};
+// the demo design of product.md (invented scenario), as seeded
+const demo: StudyInput = fenwickDesign;
 // Toe depth 2 m at 1 m/s: Fr1 = 1/√(9.80665·2) ≈ 0.23 < 1, subcritical — no jump can form
 // (Chow 1959: a jump needs supercritical inflow). The schema lets it through; the engine refuses.
 const subcritical: StudyInput = { ...demo, inflow: { kind: 'known', toe: { y1: 2, v1: 1 } } };

@@ -5,20 +5,14 @@ import { describe, expect, it } from 'vitest';
 import { runStudy, type StudyInput } from '@basinwright/common';
 import { inputForEngine, inputForForm, startingInput } from '../../web/src/composables/useDesign';
 import { expectRel } from '../support/tolerance';
+import { fenwickDesign } from '../../seed/designs';
 
 const FT = 0.3048;
 const CFS = 0.028316846592;
 
 // The demo scenario of product.md, as an SI user types it.
-const demoSI: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-};
+// the demo design of product.md (invented scenario), as seeded
+const demoSI: StudyInput = fenwickDesign;
 
 // The same site typed by a US user (converted here by hand with the exact factors).
 const demoUS: StudyInput = {

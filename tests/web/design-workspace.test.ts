@@ -10,6 +10,7 @@ import { createAppRouter } from '../../web/src/router';
 import { STUDY_DEBOUNCE_MS } from '../../web/src/composables/useStudy';
 import { TOKEN_KEY } from '../../web/src/stores/auth';
 import { demoFirm, demoUser, stubApi, type Reply } from './fetch-stub';
+import { fenwickDesign } from '../../seed/designs';
 
 const project = {
   id: 'p1',
@@ -23,15 +24,8 @@ const project = {
   createdAt: '2025-01-01T00:00:00.000Z',
   updatedAt: '2025-01-01T00:00:00.000Z',
 };
-const input: StudyInput = {
-  units: 'SI',
-  channelBedElevation: 90,
-  basinWidth: 12,
-  designDischarge: 85,
-  discharges: { kind: 'range', min: 5, max: 85, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
-  inflow: { kind: 'chute', crestElevation: 102, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } },
-};
+// the demo design of product.md (invented scenario), as seeded
+const input: StudyInput = fenwickDesign;
 const design = { projectId: 'p1', input, options: null, updatedAt: '2025-01-02T00:00:00.000Z', updatedBy: { id: 'u-engineer', name: 'Demo engineer' } };
 
 afterEach(() => vi.unstubAllGlobals());
