@@ -22,24 +22,10 @@ import {
   type Section,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
+// Plain bisection, 200 halvings: written apart from the engine's Brent solver.
+import { bisect } from '../support/gvf-reference';
 
 const g = 9.80665; // the engine's g (hydraulics.md: standard gravity, exact)
-
-/** Plain bisection, 200 halvings: written apart from the engine's Brent solver. */
-function bisect(f: (x: number) => number, a: number, b: number): number {
-  let fa = f(a);
-  for (let i = 0; i < 200; i++) {
-    const m = 0.5 * (a + b);
-    const fm = f(m);
-    if (fm === 0) return m;
-    if (fa * fm < 0) b = m;
-    else {
-      a = m;
-      fa = fm;
-    }
-  }
-  return 0.5 * (a + b);
-}
 
 // Independent geometry. Circle by chord geometry (segment of radius r, height y), not the
 // engine's θ form: A = r²·acos((r−y)/r) − (r−y)·√(2ry − y²), T = 2√(y(D − y)).

@@ -47,24 +47,12 @@ import {
   type Section,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
+import { bisect } from '../support/gvf-reference';
 
 const rect = (width: number): Section => ({ shape: 'rectangular', width });
 const G981 = 9.81;
 
 // ---- independent reference solutions (plain bisection, written apart from the engine) ----
-function bisect(f: (x: number) => number, a: number, b: number): number {
-  let fa = f(a);
-  for (let i = 0; i < 200; i++) {
-    const m = 0.5 * (a + b);
-    const fm = f(m);
-    if (fm === 0) return m;
-    if (fm > 0 === fa > 0) {
-      a = m;
-      fa = fm;
-    } else b = m;
-  }
-  return 0.5 * (a + b);
-}
 function circleGeom(D: number, y: number): { A: number; T: number; Ay: number } {
   const th = 2 * Math.acos(1 - (2 * y) / D);
   const s = Math.sin(th / 2);
