@@ -4,7 +4,7 @@ export * from './defaults';
 export { fitBlockRow, staggerBehind, staggeredRow, type BlockRow } from './blocks';
 export { freeboard } from './freeboard';
 export { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, getDissipator, isJumpBasinType } from './catalogue';
-export { sizeJumpBasin, jumpRules, jumpWarnings, type SizeJumpBasinOptions } from './jumpBasin';
+export { sizeJumpBasin, jumpRules, type SizeJumpBasinOptions } from './jumpBasin';
 export { type3BaffleHeight, type3SillHeight } from './types/usbr3';
 export { safTailwaterFactor, safLength } from './types/saf';
 export { sizeImpactBasin, type ImpactBasinSizing } from './types/usbr6';

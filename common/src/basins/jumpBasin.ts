@@ -98,18 +98,7 @@ export function sizeJumpBasin(
   return sizing;
 }
 
-/** The cautions of a type at one discharge, in plain words (numbers in `units`, default SI). */
-export function jumpWarnings(
-  type: JumpBasinType,
-  r: { fr1: number; v1: number; q: number; y2: number; length: number },
-  rules: JumpRules,
-  d: BasinDefaults,
-  units: PhraseUnits = 'SI',
-): string[] {
-  return jumpWarningItems(type, r, rules, d, units).map((w) => w.text);
-}
-
-/** As jumpWarnings, each with its topic. */
+/** The cautions of a type at one discharge, in plain words (numbers in `units`, default SI), each with its topic. */
 export function jumpWarningItems(
   type: JumpBasinType,
   r: { fr1: number; v1: number; q: number; y2: number; length: number },

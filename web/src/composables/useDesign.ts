@@ -20,7 +20,7 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import { ApiError } from '@/api/client';
-import { getPath, provideNumberForm } from '@/forms';
+import { provideNumberForm } from '@/forms';
 import { designsApi, type Design, type DesignOptions } from '@/api/designs';
 import { projectsApi } from '@/api/projects';
 import type { Project } from '@/api/types';
@@ -154,8 +154,6 @@ export function useDesign(projectId: Ref<string>) {
 }
 
 /** What the step components share with the workspace: values, errors, edit rights, units. */
-export { getPath };
-
 export interface DesignFormContext {
   values: StudyInput;
   errors: Ref<Partial<Record<string, string | undefined>>>;
