@@ -32,17 +32,20 @@ const belanger = (y1: number) => {
   return (y1 / 2) * (Math.sqrt(1 + 8 * fr * fr) - 1);
 };
 
+/** A sluice gate with the given opening (m) on the 3 m channel at slope 0.0005 (Cc 0.61). */
+const gateOnMildSlope = (opening: number) => ({
+  kind: 'gateMildSlope',
+  section: { shape: 'rectangular', width: b },
+  Q,
+  opening,
+  Cc: 0.61,
+  slope: 0.0005,
+  manningN: n,
+});
+
 describe('POST /api/v1/calc/jump-position', () => {
   it('a gate on a mild slope: the jump stands downstream on the M3 profile', async () => {
-    const res = await post({
-      kind: 'gateMildSlope',
-      section: { shape: 'rectangular', width: b },
-      Q,
-      opening: 0.3,
-      Cc: 0.61,
-      slope: 0.0005,
-      manningN: n,
-    });
+    const res = await post(gateOnMildSlope(0.3));
     expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(200);
     const r = res.body;
     expect(r.position).toBe('downstream');
@@ -73,15 +76,7 @@ describe('POST /api/v1/calc/jump-position', () => {
   });
 
   it('a drowned gate answers drowned at distance 0', async () => {
-    const res = await post({
-      kind: 'gateMildSlope',
-      section: { shape: 'rectangular', width: b },
-      Q,
-      opening: 0.6,
-      Cc: 0.61,
-      slope: 0.0005,
-      manningN: n,
-    });
+    const res = await post(gateOnMildSlope(0.6));
     expect(res.status).toBe(200);
     expect(res.body.position).toBe('drowned');
     expect(res.body.distance).toBe(0);

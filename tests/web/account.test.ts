@@ -5,6 +5,7 @@ import AccountPasswordForm from '../../web/src/components/AccountPasswordForm.vu
 import AccountProfileForm from '../../web/src/components/AccountProfileForm.vue';
 import { TOKEN_KEY, useAuthStore } from '../../web/src/stores/auth';
 import { demoFirm, demoUser, stubApi } from './fetch-stub';
+import { helpFor } from './form-help';
 
 async function settle(): Promise<void> {
   await flushPromises();
@@ -12,14 +13,6 @@ async function settle(): Promise<void> {
   await flushPromises();
 }
 
-function helpFor(wrapper: ReturnType<typeof mount>, label: string): string | null {
-  const item = wrapper
-    .findAll('.ant-form-item')
-    .find((el) => el.find('label').exists() && el.find('label').text() === label);
-  if (!item) throw new Error(`no form item labelled ${label}`);
-  const explain = item.find('.ant-form-item-explain-error');
-  return explain.exists() ? explain.text() : null;
-}
 
 beforeEach(() => {
   setActivePinia(createPinia());

@@ -4,20 +4,12 @@ import { LIMITS } from '@basinwright/common';
 import ProjectForm from '../../web/src/components/ProjectForm.vue';
 import { ApiError } from '../../web/src/api/client';
 import type { ProjectBody } from '../../web/src/api/projects';
+import { helpFor } from './form-help';
 
 function mountForm(save: (values: ProjectBody) => Promise<unknown>, initial?: Partial<ProjectBody>) {
   return mount(ProjectForm, { props: { save, initial }, attachTo: document.body });
 }
 
-/** The help text ant-design-vue shows under the form item labelled `label`. */
-function helpFor(wrapper: ReturnType<typeof mountForm>, label: string): string | null {
-  const item = wrapper
-    .findAll('.ant-form-item')
-    .find((el) => el.find('label').exists() && el.find('label').text() === label);
-  if (!item) throw new Error(`no form item labelled ${label}`);
-  const explain = item.find('.ant-form-item-explain-error');
-  return explain.exists() ? explain.text() : null;
-}
 
 async function settle(): Promise<void> {
   // vee-validate validates asynchronously and antd animates the help text in.
