@@ -20,13 +20,29 @@ const M = (y: number) => (b * y * y) / 2 + (Q * Q) / (g * b * y); // [Chow 1959,
 const diagrams = jumpDiagrams({ shape: 'rectangular', width: b }, Q, y1, y2, 4.99);
 
 interface Option {
-  series: Array<{ markLine?: { data: Array<{ xAxis?: number; yAxis?: number; label: { formatter: string } }> }; data: number[][] }>;
+  series: Array<{ markLine?: { data: Array<{ xAxis?: number; yAxis?: number; label: { formatter: string; position?: string } }> }; data: number[][] }>;
 }
 function chartOption(w: ReturnType<typeof mount>): Option {
   return w.findComponent(VChart).props('option') as unknown as Option;
 }
 
 describe('DesignDiagramChart', () => {
+  it('writes the y2 and tailwater labels on the sides of their lines away from each other', () => {
+    const position = (dg: typeof diagrams, starts: string) => {
+      const w = mount(DesignDiagramChart, { props: { diagrams: dg, which: 'energy', units: 'SI' }, global: { stubs: { VChart: true } } });
+      const p = chartOption(w).series[0]!.markLine!.data.find((m) => m.label.formatter.startsWith(starts))!.label.position;
+      w.unmount();
+      return p;
+    };
+    // tailwater above y2 (here 4.99 m): y2 written under its line, the tailwater over its own
+    expect(position(diagrams, 'y2')).toBe('insideEndBottom');
+    expect(position(diagrams, 'Tailwater')).toBe('insideStartTop');
+    // tailwater below y2 (a basin with C < 1): the other way round
+    const low = jumpDiagrams({ shape: 'rectangular', width: b }, Q, y1, y2, y2 - 0.2);
+    expect(position(low, 'y2')).toBe('insideEndTop');
+    expect(position(low, 'Tailwater')).toBe('insideStartBottom');
+  });
+
   it('energy: ΔE = E1 − E2 in words, E1 and E2 and the tailwater marked', () => {
     expectRel(diagrams.specificEnergy.E1, E(y1), 1e-9);
     expectRel(diagrams.specificEnergy.E2, E(y2), 1e-9);
