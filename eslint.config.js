@@ -2,6 +2,7 @@
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import pluginVue from 'eslint-plugin-vue';
+import prettierConfig from 'eslint-config-prettier/flat';
 
 export default tseslint.config(
   { ignores: ['**/dist/**', '**/node_modules/**', '.data/**', 'tests/e2e/screenshots/**'] },
@@ -17,7 +18,10 @@ export default tseslint.config(
     files: ['**/*.mjs', '**/*.js'],
     languageOptions: {
       globals: Object.fromEntries(
-        ['process', 'console', 'fetch', 'setTimeout', 'clearTimeout', 'Buffer', 'URL'].map((n) => [n, 'readonly']),
+        ['process', 'console', 'fetch', 'setTimeout', 'clearTimeout', 'Buffer', 'URL'].map((n) => [
+          n,
+          'readonly',
+        ]),
       ),
     },
   },
@@ -36,4 +40,6 @@ export default tseslint.config(
       'vue/html-self-closing': 'off',
     },
   },
+  // Prettier owns formatting (checked by `npm test`): ESLint's stylistic rules are off.
+  prettierConfig,
 );

@@ -28,8 +28,15 @@ const execFileAsync = promisify(execFile);
 async function load(url: string, method: string, body: unknown, headers: Record<string, string>) {
   const { stdout: out } = await execFileAsync(
     process.execPath,
-    ['scripts/bench-load.mjs', url, method, body === undefined ? '-' : JSON.stringify(body),
-      JSON.stringify(headers), String(SECONDS), String(CONCURRENCY)],
+    [
+      'scripts/bench-load.mjs',
+      url,
+      method,
+      body === undefined ? '-' : JSON.stringify(body),
+      JSON.stringify(headers),
+      String(SECONDS),
+      String(CONCURRENCY),
+    ],
     { encoding: 'utf8' },
   );
   return JSON.parse(out.trim()) as { ok: number; bad: number; rps: number };
@@ -57,9 +64,15 @@ const email = `bench-${Date.now()}@bench.example`;
 const signup = await fetch(`${real.url}/api/v1/auth/signup`, {
   method: 'POST',
   headers: { 'content-type': 'application/json' },
-  body: JSON.stringify({ firmName: 'Bench firm', name: 'Bench', email, password: 'bench-password-1' }),
+  body: JSON.stringify({
+    firmName: 'Bench firm',
+    name: 'Bench',
+    email,
+    password: 'bench-password-1',
+  }),
 });
-if (signup.status !== 201) throw new Error(`signup failed: ${signup.status} ${await signup.text()}`);
+if (signup.status !== 201)
+  throw new Error(`signup failed: ${signup.status} ${await signup.text()}`);
 const { token } = (await signup.json()) as { token: string };
 
 // Demo-like jump: 12 m rectangle, 85 m³/s, y1 0.46 m (invented demo values).
@@ -70,7 +83,8 @@ const check = await fetch(`${real.url}/api/v1/calc/jump`, {
   headers: { 'content-type': 'application/json', ...auth },
   body: JSON.stringify(jumpBody),
 });
-if (check.status !== 200) throw new Error(`calc/jump answered ${check.status}: ${await check.text()}`);
+if (check.status !== 200)
+  throw new Error(`calc/jump answered ${check.status}: ${await check.text()}`);
 
 // Alternate the two routes over several rounds and take medians: the machine is shared, so
 // a single pair of runs is at the mercy of whatever else runs at that moment.
@@ -85,7 +99,10 @@ const rps: Record<keyof typeof targets, number[]> = { plain: [], stack: [], jump
 const cpuPer: Record<string, number[]> = {};
 let errors = 0;
 for (let round = 0; round < ROUNDS; round += 1) {
-  for (const [name, run] of Object.entries(targets) as [keyof typeof targets, () => ReturnType<typeof load>][]) {
+  for (const [name, run] of Object.entries(targets) as [
+    keyof typeof targets,
+    () => ReturnType<typeof load>,
+  ][]) {
     const cpu0 = process.cpuUsage();
     const r = await run();
     const cpu = process.cpuUsage(cpu0);
@@ -97,16 +114,28 @@ for (let round = 0; round < ROUNDS; round += 1) {
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
 const ratioOf = (name: 'plain' | 'stack') =>
   median(rps.jump.map((j, i) => j / (rps[name][i] ?? NaN)));
-console.log(`bare route, plain Express (nothing else):       ${median(rps.plain).toFixed(0)} req/s`);
-console.log(`bare route behind the app's own stack:          ${median(rps.stack).toFixed(0)} req/s`);
-console.log(`POST /api/v1/calc/jump (token, schema, engine): ${median(rps.jump).toFixed(0)} req/s`);
-console.log(`(medians of ${ROUNDS} alternating rounds of ${SECONDS} s, ${CONCURRENCY} connections; ${errors} errors)`);
-const target = ratioOf('stack');
-console.log(`calc/jump ÷ bare route in the same app = ${target.toFixed(3)} (target ≥ 0.6) ${target >= 0.6 ? 'MET' : 'NOT MET'}`);
 console.log(
-  `server CPU per request: ${Object.entries(cpuPer).map(([k, v]) => `${k} ${median(v).toFixed(0)} µs`).join(', ')}`,
+  `bare route, plain Express (nothing else):       ${median(rps.plain).toFixed(0)} req/s`,
 );
-console.log(`calc/jump ÷ plain Express route        = ${ratioOf('plain').toFixed(3)} (for reference)`);
+console.log(
+  `bare route behind the app's own stack:          ${median(rps.stack).toFixed(0)} req/s`,
+);
+console.log(`POST /api/v1/calc/jump (token, schema, engine): ${median(rps.jump).toFixed(0)} req/s`);
+console.log(
+  `(medians of ${ROUNDS} alternating rounds of ${SECONDS} s, ${CONCURRENCY} connections; ${errors} errors)`,
+);
+const target = ratioOf('stack');
+console.log(
+  `calc/jump ÷ bare route in the same app = ${target.toFixed(3)} (target ≥ 0.6) ${target >= 0.6 ? 'MET' : 'NOT MET'}`,
+);
+console.log(
+  `server CPU per request: ${Object.entries(cpuPer)
+    .map(([k, v]) => `${k} ${median(v).toFixed(0)} µs`)
+    .join(', ')}`,
+);
+console.log(
+  `calc/jump ÷ plain Express route        = ${ratioOf('plain').toFixed(3)} (for reference)`,
+);
 
 await real.close();
 await plain.close();

@@ -65,7 +65,9 @@ export async function stopChild(child, timeoutMs = 8000) {
 
 function aptInstall(pkgs) {
   if (!isRoot) {
-    throw new Error(`Missing ${pkgs.join(', ')}: install them with apt-get (needs root), then run again.`);
+    throw new Error(
+      `Missing ${pkgs.join(', ')}: install them with apt-get (needs root), then run again.`,
+    );
   }
   const marker = '/var/lib/apt/lists';
   const fresh = fs.existsSync(marker) && fs.readdirSync(marker).some((f) => f.endsWith('Packages'));
@@ -86,10 +88,16 @@ export function ensureNodeModules() {
   const lock = path.join(ROOT, 'package-lock.json');
   const stamp = path.join(ROOT, 'node_modules', '.package-lock.json');
   const stale =
-    !fs.existsSync(stamp) || (fs.existsSync(lock) && fs.statSync(lock).mtimeMs > fs.statSync(stamp).mtimeMs + 1000);
+    !fs.existsSync(stamp) ||
+    (fs.existsSync(lock) && fs.statSync(lock).mtimeMs > fs.statSync(stamp).mtimeMs + 1000);
   if (!stale) return;
   log('installing npm dependencies (npm ci)…');
-  run('npm', [fs.existsSync(lock) ? 'ci' : 'install', '--no-audit', '--no-fund', '--loglevel=error']);
+  run('npm', [
+    fs.existsSync(lock) ? 'ci' : 'install',
+    '--no-audit',
+    '--no-fund',
+    '--loglevel=error',
+  ]);
 }
 
 export function pgBinDir() {
@@ -109,14 +117,16 @@ export function ensurePostgres() {
     aptInstall(['postgresql']);
     bin = pgBinDir();
   }
-  if (!bin) throw new Error('PostgreSQL binaries not found under /usr/lib/postgresql after install.');
+  if (!bin)
+    throw new Error('PostgreSQL binaries not found under /usr/lib/postgresql after install.');
   return bin;
 }
 
 export function ensureChromium() {
   if (fs.existsSync('/usr/bin/chromium')) return '/usr/bin/chromium';
   aptInstall(['chromium']);
-  if (!fs.existsSync('/usr/bin/chromium')) throw new Error('chromium did not install at /usr/bin/chromium');
+  if (!fs.existsSync('/usr/bin/chromium'))
+    throw new Error('chromium did not install at /usr/bin/chromium');
   return '/usr/bin/chromium';
 }
 
@@ -195,7 +205,9 @@ export class PrivateCluster {
 
   pg(tool, args, opts = {}) {
     const exe = path.join(this.bin, tool);
-    return isRoot ? run('runuser', ['-u', 'postgres', '--', exe, ...args], opts) : run(exe, args, opts);
+    return isRoot
+      ? run('runuser', ['-u', 'postgres', '--', exe, ...args], opts)
+      : run(exe, args, opts);
   }
 
   ensureDir(d, mode) {
@@ -228,29 +240,56 @@ export class PrivateCluster {
       log(`initialising PostgreSQL cluster in ${path.relative(ROOT, this.data) || this.data}`);
       this.pg(
         'initdb',
-        ['-D', this.data, '-U', 'postgres', `--pwfile=${this.pwFile}`, '--auth-local=trust',
-          '--auth-host=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8'],
+        [
+          '-D',
+          this.data,
+          '-U',
+          'postgres',
+          `--pwfile=${this.pwFile}`,
+          '--auth-local=trust',
+          '--auth-host=scram-sha-256',
+          '-E',
+          'UTF8',
+          '--locale=C.UTF-8',
+        ],
         { quiet: true },
       );
     }
     const status = this.pg('pg_ctl', ['-D', this.data, 'status'], { quiet: true, allowFail: true });
     if (status.status === 0) {
       log('PostgreSQL cluster already running; stopping it to restart on the configured port');
-      this.pg('pg_ctl', ['-D', this.data, '-m', 'fast', '-w', 'stop'], { quiet: true, allowFail: true });
+      this.pg('pg_ctl', ['-D', this.data, '-m', 'fast', '-w', 'stop'], {
+        quiet: true,
+        allowFail: true,
+      });
     }
     if (!(await portIsFree(this.port))) {
       throw new Error(`Port ${this.port} on 127.0.0.1 is in use; set PGPORT to a free port.`);
     }
     this.pg(
       'pg_ctl',
-      ['-D', this.data, '-l', path.join(this.logDir, 'server.log'), '-w', '-t', '60', '-o',
-        `-p ${this.port} -c listen_addresses=127.0.0.1 -k ${this.sock}`, 'start'],
+      [
+        '-D',
+        this.data,
+        '-l',
+        path.join(this.logDir, 'server.log'),
+        '-w',
+        '-t',
+        '60',
+        '-o',
+        `-p ${this.port} -c listen_addresses=127.0.0.1 -k ${this.sock}`,
+        'start',
+      ],
       { quiet: true },
     );
     this.started = true;
-    await waitFor('PostgreSQL', () =>
-      this.pg('pg_isready', ['-h', '127.0.0.1', '-p', String(this.port)], { quiet: true, allowFail: true })
-        .status === 0,
+    await waitFor(
+      'PostgreSQL',
+      () =>
+        this.pg('pg_isready', ['-h', '127.0.0.1', '-p', String(this.port)], {
+          quiet: true,
+          allowFail: true,
+        }).status === 0,
     );
     log(`PostgreSQL listening on 127.0.0.1:${this.port}`);
   }
@@ -259,19 +298,32 @@ export class PrivateCluster {
     if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`bad database name ${name}`);
     const q = this.pg(
       'psql',
-      ['-h', this.sock, '-p', String(this.port), '-U', 'postgres', '-tAc',
-        `SELECT 1 FROM pg_database WHERE datname = '${name}'`],
+      [
+        '-h',
+        this.sock,
+        '-p',
+        String(this.port),
+        '-U',
+        'postgres',
+        '-tAc',
+        `SELECT 1 FROM pg_database WHERE datname = '${name}'`,
+      ],
       { quiet: true },
     );
     if (q.stdout.trim() !== '1') {
-      this.pg('createdb', ['-h', this.sock, '-p', String(this.port), '-U', 'postgres', name], { quiet: true });
+      this.pg('createdb', ['-h', this.sock, '-p', String(this.port), '-U', 'postgres', name], {
+        quiet: true,
+      });
     }
   }
 
   stop() {
     if (!this.started) return;
     this.started = false;
-    this.pg('pg_ctl', ['-D', this.data, '-m', 'fast', '-w', 'stop'], { quiet: true, allowFail: true });
+    this.pg('pg_ctl', ['-D', this.data, '-m', 'fast', '-w', 'stop'], {
+      quiet: true,
+      allowFail: true,
+    });
     log('PostgreSQL stopped');
   }
 }
@@ -310,7 +362,13 @@ export function startMaildev({ smtpPort, webPort, mailDir }) {
     fs.mkdirSync(mailDir, { recursive: true });
     args.push('--mail-directory', mailDir);
   }
-  return startChild('maildev', path.join(ROOT, 'node_modules', '.bin', 'maildev'), args, {}, {
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
+  return startChild(
+    'maildev',
+    path.join(ROOT, 'node_modules', '.bin', 'maildev'),
+    args,
+    {},
+    {
+      stdio: ['ignore', 'ignore', 'inherit'],
+    },
+  );
 }

@@ -3,8 +3,22 @@
 // `npm run dev` does the same but serves the web app from Vite with hot reload.
 import path from 'node:path';
 import {
-  PrivateCluster, ROOT, buildWeb, ensureNodeModules, ensurePostgres, freePort, loadDotEnv, log,
-  portIsFree, runTs, secretFile, startChild, startMaildev, startTs, stopChild, waitForHttp,
+  PrivateCluster,
+  ROOT,
+  buildWeb,
+  ensureNodeModules,
+  ensurePostgres,
+  freePort,
+  loadDotEnv,
+  log,
+  portIsFree,
+  runTs,
+  secretFile,
+  startChild,
+  startMaildev,
+  startTs,
+  stopChild,
+  waitForHttp,
 } from './lib.mjs';
 
 const dev = process.argv.includes('--dev');
@@ -63,7 +77,9 @@ async function main() {
 
   if (!dev) buildWeb();
 
-  children.push(startMaildev({ smtpPort, webPort: mailWebPort, mailDir: path.join(dataDir, 'mail') }));
+  children.push(
+    startMaildev({ smtpPort, webPort: mailWebPort, mailDir: path.join(dataDir, 'mail') }),
+  );
   const api = startTs('api', 'api/src/server.ts', env);
   children.push(api);
   api.on('exit', () => void shutdown(1));
@@ -71,9 +87,14 @@ async function main() {
 
   let url = `http://127.0.0.1:${port}/`;
   if (dev) {
-    const vite = startChild('vite', 'npm', ['run', 'dev', '-w', 'web', '--', '--port', '5173', '--strictPort'], {
-      API_PORT: String(port),
-    });
+    const vite = startChild(
+      'vite',
+      'npm',
+      ['run', 'dev', '-w', 'web', '--', '--port', '5173', '--strictPort'],
+      {
+        API_PORT: String(port),
+      },
+    );
     children.push(vite);
     url = 'http://127.0.0.1:5173/';
   }
@@ -89,6 +110,8 @@ async function main() {
 }
 
 main().catch(async (err) => {
-  process.stderr.write(`[basinwright] start failed: ${err instanceof Error ? err.message : String(err)}\n`);
+  process.stderr.write(
+    `[basinwright] start failed: ${err instanceof Error ? err.message : String(err)}\n`,
+  );
   await shutdown(1);
 });

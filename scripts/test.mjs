@@ -6,8 +6,20 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import {
-  PrivateCluster, ROOT, buildWeb, ensureChromium, ensureNodeModules, ensurePostgres, freePort, log,
-  run, runTs, startMaildev, startTs, stopChild, waitForHttp,
+  PrivateCluster,
+  ROOT,
+  buildWeb,
+  ensureChromium,
+  ensureNodeModules,
+  ensurePostgres,
+  freePort,
+  log,
+  run,
+  runTs,
+  startMaildev,
+  startTs,
+  stopChild,
+  waitForHttp,
 } from './lib.mjs';
 
 const extra = process.argv.slice(2);
@@ -55,7 +67,9 @@ function readVitestJson(file) {
   for (const tr of report.testResults ?? []) {
     if (tr.status === 'failed' && (tr.assertionResults ?? []).length === 0) {
       f += 1;
-      process.stdout.write(`FAILED to load: ${path.relative(ROOT, tr.name)}\n${tr.message ?? ''}\n`);
+      process.stdout.write(
+        `FAILED to load: ${path.relative(ROOT, tr.name)}\n${tr.message ?? ''}\n`,
+      );
     }
   }
   return { passed: p, failed: f };
@@ -73,6 +87,7 @@ async function main() {
     check('type-check web', 'npx', ['vue-tsc', '--noEmit', '-p', 'web']);
     check('type-check web tests', 'npx', ['vue-tsc', '--noEmit', '-p', 'tests/web']);
     check('lint', 'npx', ['eslint', '.']);
+    check('format (prettier --check)', 'npx', ['prettier', '--check', '.']);
   }
 
   tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-test-'));
@@ -108,7 +123,14 @@ async function main() {
   log('running vitest (common, api, web, e2e)…');
   const res = run(
     'npx',
-    ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${jsonFile}`, ...extra],
+    [
+      'vitest',
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${jsonFile}`,
+      ...extra,
+    ],
     {
       allowFail: true,
       env: {

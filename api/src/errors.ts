@@ -69,7 +69,12 @@ export const serviceUnavailable = (message: string) =>
 export function fromEngineError(error: unknown, prefix = '', units: PhraseUnits = 'SI'): unknown {
   if (!(error instanceof RangeError)) return error;
   const named = /^([A-Za-z][\w.[\]]*)[\s:]/.exec(error.message)?.[1];
-  const field = named === undefined ? (prefix === '' ? 'body' : prefix) : `${prefix === '' ? '' : `${prefix}.`}${named}`;
+  const field =
+    named === undefined
+      ? prefix === ''
+        ? 'body'
+        : prefix
+      : `${prefix === '' ? '' : `${prefix}.`}${named}`;
   const message = phraseMessage(error.message, units);
   return validationError({ [field]: message }, message);
 }

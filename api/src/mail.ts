@@ -34,7 +34,9 @@ export async function sendMail(message: MailMessage): Promise<void> {
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     throw Object.assign(
-      serviceUnavailable('The e-mail could not be sent just now. Nothing was saved; try again shortly.'),
+      serviceUnavailable(
+        'The e-mail could not be sent just now. Nothing was saved; try again shortly.',
+      ),
       { cause: reason },
     );
   }

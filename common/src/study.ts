@@ -209,7 +209,9 @@ export const STUDY_CAUTIONS: readonly string[] = [
 /** The cautions in the wording of a unit system (the 15 m/s threshold is about 50 ft/s). */
 export function studyCautions(units: UnitSystem = 'SI'): string[] {
   if (units !== 'US') return [...STUDY_CAUTIONS];
-  return STUDY_CAUTIONS.map((c) => c.replace('inflow velocities above 15 m/s', 'inflow velocities above about 50 ft/s (15 m/s)'));
+  return STUDY_CAUTIONS.map((c) =>
+    c.replace('inflow velocities above 15 m/s', 'inflow velocities above about 50 ft/s (15 m/s)'),
+  );
 }
 
 /** Options of runStudy that do not change any number. */

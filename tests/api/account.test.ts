@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  TEST_PASSWORD,
-  bearer,
-  login,
-  signUpFirm,
-  apiForFile,
-} from '../support/api-app';
+import { TEST_PASSWORD, bearer, login, signUpFirm, apiForFile } from '../support/api-app';
 
 // A member's own account: the name, and the password (which ends every other session).
 
@@ -14,7 +8,11 @@ const h = apiForFile();
 describe('PATCH /auth/me', () => {
   it('changes the name (trimmed) and nothing else', async () => {
     const s = await signUpFirm(h, 'profile');
-    const res = await h.http().patch('/api/v1/auth/me').set(bearer(s.token)).send({ name: '  Ada Quill  ', role: 'viewer', email: 'x@y.example' });
+    const res = await h
+      .http()
+      .patch('/api/v1/auth/me')
+      .set(bearer(s.token))
+      .send({ name: '  Ada Quill  ', role: 'viewer', email: 'x@y.example' });
     expect(res.status).toBe(200);
     expect(res.body.user.name).toBe('Ada Quill');
     expect(res.body.user.role).toBe('owner');

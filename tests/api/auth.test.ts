@@ -23,15 +23,12 @@ const b64 = (value: object) => Buffer.from(JSON.stringify(value)).toString('base
 describe('POST /auth/signup', () => {
   it('creates a Concept firm and its owner in one go and signs them in', async () => {
     const email = uniqueEmail('signup');
-    const res = await h
-      .http()
-      .post('/api/v1/auth/signup')
-      .send({
-        firmName: 'Brackwater Consulting',
-        name: 'Ada Brack',
-        email: email.toUpperCase(),
-        password: TEST_PASSWORD,
-      });
+    const res = await h.http().post('/api/v1/auth/signup').send({
+      firmName: 'Brackwater Consulting',
+      name: 'Ada Brack',
+      email: email.toUpperCase(),
+      password: TEST_PASSWORD,
+    });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ name: 'Ada Brack', email, role: 'owner', active: true });
     expect(res.body.firm).toMatchObject({
@@ -58,15 +55,12 @@ describe('POST /auth/signup', () => {
   it('answers 409 for an e-mail already taken (any case) and writes nothing', async () => {
     const first = await signUpFirm(h, 'dup');
     const firmsBefore = await h.models.Firm.count();
-    const res = await h
-      .http()
-      .post('/api/v1/auth/signup')
-      .send({
-        firmName: 'Second',
-        name: 'Other',
-        email: first.email.toUpperCase(),
-        password: TEST_PASSWORD,
-      });
+    const res = await h.http().post('/api/v1/auth/signup').send({
+      firmName: 'Second',
+      name: 'Other',
+      email: first.email.toUpperCase(),
+      password: TEST_PASSWORD,
+    });
     expect(res.status).toBe(409);
     expect(res.body.code).toBe('conflict');
     expect(await h.models.Firm.count()).toBe(firmsBefore);

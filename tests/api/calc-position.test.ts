@@ -58,7 +58,8 @@ describe('POST /api/v1/calc/jump-position', () => {
     // profiles for plotting: x increasing, depths positive
     for (const profile of [r.supercriticalProfile, r.subcriticalProfile]) {
       expect(profile.length).toBeGreaterThan(1);
-      for (let i = 1; i < profile.length; i += 1) expect(profile[i].x).toBeGreaterThan(profile[i - 1].x);
+      for (let i = 1; i < profile.length; i += 1)
+        expect(profile[i].x).toBeGreaterThan(profile[i - 1].x);
     }
   });
 
@@ -84,12 +85,22 @@ describe('POST /api/v1/calc/jump-position', () => {
 
   it('needs a sign-in; bad or impossible input is a 422 with a message, never a 500', async () => {
     expect((await post({ kind: 'slopeBreak' }, null)).status).toBe(401);
-    const unknown = await post({ kind: 'waterfall', section: { shape: 'rectangular', width: 3 }, Q });
+    const unknown = await post({
+      kind: 'waterfall',
+      section: { shape: 'rectangular', width: 3 },
+      Q,
+    });
     expect(unknown.status).toBe(422);
     expect(unknown.body.details.kind).toMatch(/slopeBreak/);
-    const missing = await post({ kind: 'gateMildSlope', section: { shape: 'rectangular', width: 3 }, Q: -1 });
+    const missing = await post({
+      kind: 'gateMildSlope',
+      section: { shape: 'rectangular', width: 3 },
+      Q: -1,
+    });
     expect(missing.status).toBe(422);
-    expect(Object.keys(missing.body.details)).toEqual(expect.arrayContaining(['Q', 'opening', 'slope']));
+    expect(Object.keys(missing.body.details)).toEqual(
+      expect.arrayContaining(['Q', 'opening', 'slope']),
+    );
     // both reaches mild: no supercritical flow to jump from — the engine's RangeError as a 422
     const impossible = await post({
       kind: 'slopeBreak',

@@ -23,7 +23,10 @@ const study = (body: unknown) =>
     .send(body as object);
 
 // the demo project's design input (invented demo data, seed/designs.ts), 9 discharges
-const demo = { ...fenwickDesign, discharges: { kind: 'range', min: 5, max: 85, count: 9 } } as const;
+const demo = {
+  ...fenwickDesign,
+  discharges: { kind: 'range', min: 5, max: 85, count: 9 },
+} as const;
 
 describe('POST /api/v1/calc/jump', () => {
   it('returns the JumpResult: y1 0.2, b 5, Q 4.43 → y2 0.8, Fr1 3.16 [src: textbook problem, ±0.5 %]', async () => {
@@ -143,13 +146,22 @@ describe('POST /api/v1/calc/study', () => {
     expect(sub.body.message).toMatch(/not supercritical/);
   });
   it('passes the dissipator options through: chosen type and a default override reach the engine', async () => {
-    const res = await study({ ...demo, dissipators: { chosenType: 'usbr-2', defaults: { riprapLengthRatio: 6 } } });
+    const res = await study({
+      ...demo,
+      dissipators: { chosenType: 'usbr-2', defaults: { riprapLengthRatio: 6 } },
+    });
     expect(res.status).toBe(200);
-    expect(res.body.input.dissipators).toEqual({ chosenType: 'usbr-2', defaults: { riprapLengthRatio: 6 } });
+    expect(res.body.input.dissipators).toEqual({
+      chosenType: 'usbr-2',
+      defaults: { riprapLengthRatio: 6 },
+    });
     expect(res.body.design.type).toBe('usbr-2');
     // riprap length = ratio × y2 [from memory: 4–6·y2 habit; here the override 6]
     expectRel(res.body.design.design.riprap.length, 6 * res.body.design.design.sizing.y2, 1e-12);
-    const bad = await study({ ...demo, dissipators: { chosenType: 'moat', defaults: { colour: 1 } } });
+    const bad = await study({
+      ...demo,
+      dissipators: { chosenType: 'moat', defaults: { colour: 1 } },
+    });
     expect(bad.status).toBe(422);
     expect(bad.body.details['dissipators.chosenType']).toMatch(/must be one of/);
     expect(bad.body.details['dissipators.defaults.colour']).toMatch(/not a setting/);
@@ -160,7 +172,13 @@ describe('POST /api/v1/calc/study', () => {
       inflow: {
         kind: 'pipe',
         invertElevation: 95,
-        outlet: { kind: 'table', rows: [{ Q: 1, depth: 0.5, velocity: 5 }, { Q: 100, depth: 2, velocity: 9 }] },
+        outlet: {
+          kind: 'table',
+          rows: [
+            { Q: 1, depth: 0.5, velocity: 5 },
+            { Q: 100, depth: 2, velocity: 9 },
+          ],
+        },
       },
     });
     expect(res.status).toBe(200);

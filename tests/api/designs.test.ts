@@ -16,21 +16,39 @@ const h = apiForFile(async () => {
   token = firm.token;
   firmId = firm.firm.id;
   await setPlan(h, firmId, 'firm', 5);
-  const si = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Design SI', units: 'SI' });
-  const us = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Design US', units: 'US' });
+  const si = await h
+    .http()
+    .post('/api/v1/projects')
+    .set(bearer(token))
+    .send({ name: 'Design SI', units: 'SI' });
+  const us = await h
+    .http()
+    .post('/api/v1/projects')
+    .set(bearer(token))
+    .send({ name: 'Design US', units: 'US' });
   siProject = si.body.id;
   usProject = us.body.id;
 });
 
 const get = (id: string, t = token) => h.http().get(`/api/v1/projects/${id}/design`).set(bearer(t));
 const put = (id: string, body: unknown, t = token) =>
-  h.http().put(`/api/v1/projects/${id}/design`).set(bearer(t)).send(body as object);
+  h
+    .http()
+    .put(`/api/v1/projects/${id}/design`)
+    .set(bearer(t))
+    .send(body as object);
 
 describe('GET/PUT /projects/:id/design', () => {
   it('a project without a design answers with nulls', async () => {
     const res = await get(siProject);
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ projectId: siProject, input: null, options: null, updatedAt: null, updatedBy: null });
+    expect(res.body).toEqual({
+      projectId: siProject,
+      input: null,
+      options: null,
+      updatedAt: null,
+      updatedBy: null,
+    });
   });
 
   it('saves the input as typed and returns it unchanged, with who saved it', async () => {
@@ -86,14 +104,20 @@ describe('GET/PUT /projects/:id/design', () => {
     const res = await put(usProject, { input: { ...caldwellDesign, floorElevation: 400 } });
     expect(res.status).toBe(422);
     // 400 ft = 121.92 m exactly [NIST SP 811: 1 ft = 0.3048 m]; the engine computed it in m
-    expect(res.body.details['input.floorElevation']).toBe("floorElevation 400 ft lies above the outlet's energy line");
+    expect(res.body.details['input.floorElevation']).toBe(
+      "floorElevation 400 ft lies above the outlet's energy line",
+    );
     expect(res.body.message).not.toMatch(/\d m\b/);
   });
 
   it('schema errors come back per field', async () => {
-    const res = await put(siProject, { input: { ...fenwickDesign, basinWidth: -3, designDischarge: 'lots' } });
+    const res = await put(siProject, {
+      input: { ...fenwickDesign, basinWidth: -3, designDischarge: 'lots' },
+    });
     expect(res.status).toBe(422);
-    expect(Object.keys(res.body.details)).toEqual(expect.arrayContaining(['input.basinWidth', 'input.designDischarge']));
+    expect(Object.keys(res.body.details)).toEqual(
+      expect.arrayContaining(['input.basinWidth', 'input.designDischarge']),
+    );
   });
 
   it('a missing input, non-object options and malformed JSON are 4xx, never 500', async () => {
@@ -119,9 +143,15 @@ describe('GET/PUT /projects/:id/design', () => {
   });
 
   it('deleting the project deletes its design', async () => {
-    const p = await h.http().post('/api/v1/projects').set(bearer(token)).send({ name: 'Short-lived', units: 'SI' });
+    const p = await h
+      .http()
+      .post('/api/v1/projects')
+      .set(bearer(token))
+      .send({ name: 'Short-lived', units: 'SI' });
     expect((await put(p.body.id, { input: fenwickDesign })).status).toBe(200);
-    expect((await h.http().delete(`/api/v1/projects/${p.body.id}`).set(bearer(token))).status).toBe(204);
+    expect((await h.http().delete(`/api/v1/projects/${p.body.id}`).set(bearer(token))).status).toBe(
+      204,
+    );
     expect(await h.models.Design.count({ where: { projectId: p.body.id } })).toBe(0);
   });
 
@@ -140,16 +170,31 @@ describe('GET/PUT /projects/:id/design', () => {
     // What the server computed: the chosen type, and 2 ft = 0.6096 m exactly (NIST SP 811).
     const study = runStudy(toSI(res.body.input));
     expect(study.dissipators?.chosen).toBe('usbr-2');
-    expect(study.dissipators?.assumptions.find((a) => a.key === 'riprapMinThickness')?.value).toBe(2 * 0.3048);
+    expect(study.dissipators?.assumptions.find((a) => a.key === 'riprapMinThickness')?.value).toBe(
+      2 * 0.3048,
+    );
 
     const before = await get(usProject);
     const bad = await put(usProject, {
-      input: { ...caldwellDesign, dissipators: { ...dissipators, defaults: { freeboardCoefficient: -1 }, flotation: { safetyFactor: 0.5 } } },
+      input: {
+        ...caldwellDesign,
+        dissipators: {
+          ...dissipators,
+          defaults: { freeboardCoefficient: -1 },
+          flotation: { safetyFactor: 0.5 },
+        },
+      },
     });
     expect(bad.status).toBe(422);
-    expect(bad.body.details['input.dissipators.defaults.freeboardCoefficient']).toMatch(/must be a number not below zero/);
-    expect(bad.body.details['input.dissipators.flotation.safetyFactor']).toBe('The flotation safety factor must be at least 1.');
-    const unknown = await put(usProject, { input: { ...caldwellDesign, dissipators: { defaults: { wallColour: 3 } } } });
+    expect(bad.body.details['input.dissipators.defaults.freeboardCoefficient']).toMatch(
+      /must be a number not below zero/,
+    );
+    expect(bad.body.details['input.dissipators.flotation.safetyFactor']).toBe(
+      'The flotation safety factor must be at least 1.',
+    );
+    const unknown = await put(usProject, {
+      input: { ...caldwellDesign, dissipators: { defaults: { wallColour: 3 } } },
+    });
     expect(unknown.status).toBe(422);
     expect((await get(usProject)).body).toEqual(before.body);
   });

@@ -74,13 +74,9 @@ describe('PATCH /members/:id', () => {
     expect(off.status).toBe(200);
     expect(off.body.active).toBe(false);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(eng.token))).status).toBe(401);
-    expect(
-      (await login(h, eng.email, TEST_PASSWORD)).status,
-    ).toBe(401);
+    expect((await login(h, eng.email, TEST_PASSWORD)).status).toBe(401);
     expect((await patch(firm.token, eng.id, { active: true })).status).toBe(200);
-    expect(
-      (await login(h, eng.email, TEST_PASSWORD)).status,
-    ).toBe(200);
+    expect((await login(h, eng.email, TEST_PASSWORD)).status).toBe(200);
   });
 
   it('an admin cannot change an owner or make one', async () => {

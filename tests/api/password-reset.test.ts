@@ -46,12 +46,8 @@ describe('password reset by e-mail', () => {
     expect((await h.http().get('/api/v1/auth/me').set(bearer(reset.body.token))).status).toBe(200);
 
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(401);
-    expect(
-      (await login(h, firm.email, TEST_PASSWORD)).status,
-    ).toBe(401);
-    expect(
-      (await login(h, firm.email, NEW_PASSWORD)).status,
-    ).toBe(200);
+    expect((await login(h, firm.email, TEST_PASSWORD)).status).toBe(401);
+    expect((await login(h, firm.email, NEW_PASSWORD)).status).toBe(200);
   });
 
   it('a link works once', async () => {
@@ -68,9 +64,7 @@ describe('password reset by e-mail', () => {
       .send({ token, password: 'yet another password' });
     expect(again.status).toBe(400);
     expect(again.body.code).toBe('invalid_token');
-    expect(
-      (await login(h, firm.email, NEW_PASSWORD)).status,
-    ).toBe(200);
+    expect((await login(h, firm.email, NEW_PASSWORD)).status).toBe(200);
   });
 
   it('an expired link is refused and changes nothing', async () => {
@@ -87,9 +81,7 @@ describe('password reset by e-mail', () => {
       .send({ token, password: NEW_PASSWORD });
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('invalid_token');
-    expect(
-      (await login(h, firm.email, TEST_PASSWORD)).status,
-    ).toBe(200);
+    expect((await login(h, firm.email, TEST_PASSWORD)).status).toBe(200);
     expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(200);
   });
 

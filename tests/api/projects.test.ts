@@ -1,11 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import {
-  addMember,
-  bearer,
-  setPlan,
-  signUpFirm,
-  apiForFile,
-} from '../support/api-app';
+import { addMember, bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 const h = apiForFile();
 

@@ -23,12 +23,9 @@ const b = {
 };
 const MISSING = '7d1c9a3e-0000-4000-8000-000000000000';
 
-const h = apiForFile(
-  setUp,
-  async () => {
-    await h.models.Invitation.destroy({ where: { id: b.invitationId } });
-  },
-);
+const h = apiForFile(setUp, async () => {
+  await h.models.Invitation.destroy({ where: { id: b.invitationId } });
+});
 
 async function setUp(): Promise<void> {
   const a = await signUpFirm(h, 'tenant-a');

@@ -94,8 +94,9 @@ describe('sizeJumpBasin worked examples (width 10, Q 40, y1 0.4)', () => {
     expect(s.endSill).toMatchObject({ present: false, height: 0, length: 0 });
     expect(s.chuteBlocks).toBeUndefined();
     expect(s.baffleBlocks).toBeUndefined();
-    expectRel(s.length, 6.0 * y2 + (0.1 * (fr1 - 5)) * y2, 1e-12); // USBR curve (5, 6.0)–(6, 6.1)
-    for (const t of ['usbr-2', 'usbr-3', 'usbr-4', 'saf'] as const) expect(sizeJumpBasin(t, c).endSill.present).toBe(true);
+    expectRel(s.length, 6.0 * y2 + 0.1 * (fr1 - 5) * y2, 1e-12); // USBR curve (5, 6.0)–(6, 6.1)
+    for (const t of ['usbr-2', 'usbr-3', 'usbr-4', 'saf'] as const)
+      expect(sizeJumpBasin(t, c).endSill.present).toBe(true);
   });
 });
 
@@ -106,7 +107,8 @@ describe('SAF tailwater factor', () => {
     expectRel(safTailwaterFactor(15), 1 - 225 / 800, 1e-12);
   });
   it('continuous: the pieces join where they meet 0.85 (Fr1 √30 and √120), not at the rounded 5.5 and 11', () => {
-    for (const b of [Math.sqrt(30), Math.sqrt(120)]) expectRel(safTailwaterFactor(b - 1e-9), safTailwaterFactor(b + 1e-9), 1e-8);
+    for (const b of [Math.sqrt(30), Math.sqrt(120)])
+      expectRel(safTailwaterFactor(b - 1e-9), safTailwaterFactor(b + 1e-9), 1e-8);
     fc.assert(
       fc.property(fc.double({ min: 1.7, max: 16.99, noNaN: true }), (f) => {
         // slope of the curve is at most 2·17/800 < 0.05 per unit Fr: a step would show here
@@ -127,7 +129,11 @@ describe('SAF tailwater factor', () => {
   it('the [mem] coefficients are overridable defaults (safTailwaterMid 0.9 → C 0.9 at Fr1 8)', () => {
     expectRel(safTailwaterFactor(8, { ...BASIN_DEFAULTS, safTailwaterMid: 0.9 }), 0.9, 1e-12);
     // V1 16 m/s, Fr1 8.08: inside the middle piece, which now runs √24 = 4.90 to √80 = 8.94
-    const s = sizeJumpBasin('saf', { width: 10, Q: 64, y1: 0.4 }, { defaults: { safTailwaterMid: 0.9 } });
+    const s = sizeJumpBasin(
+      'saf',
+      { width: 10, Q: 64, y1: 0.4 },
+      { defaults: { safTailwaterMid: 0.9 } },
+    );
     expect(s.fr1).toBeGreaterThan(6);
     expectRel(s.tailwaterFactor, 0.9, 1e-12);
   });
@@ -153,7 +159,13 @@ describe('freeboard, riprap, flotation', () => {
     expectRel(culvertApronStoneSize({ Q: 3, rise: 1.2, tailwater: 2 }).d50, expected * 0.4, 1e-12);
   });
   it('flotation: floor 0, uplift 2 m, W 10, walls 0.3: 23.5·t ≥ 1.3·9.81·(2 + t) → t ≥ 25.506/10.747 = 2.373 → 2.40 m [statics; FS 1.3 from memory: USACE]', () => {
-    const r = slabFlotation({ floorElevation: 0, upliftElevation: 2, width: 10, wallThickness: 0.3, wallHeight: 0 });
+    const r = slabFlotation({
+      floorElevation: 0,
+      upliftElevation: 2,
+      width: 10,
+      wallThickness: 0.3,
+      wallHeight: 0,
+    });
     expectRel(r.requiredThickness, (1.3 * 9.81 * 2) / (23.5 - 1.3 * 9.81), 1e-12);
     expectRel(r.thickness, 2.4, 1e-12);
     expect(r.safetyFactorAchieved!).toBeGreaterThanOrEqual(1.3);
@@ -188,13 +200,17 @@ describe('sizeJumpBasin: refusals and warnings', () => {
 
 describe('sizeJumpBasin geometry invariants (fast-check)', () => {
   const types: JumpBasinType[] = ['usbr-1', 'usbr-2', 'usbr-3', 'usbr-4', 'saf'];
-  const rowFits = (b: BlockSet | { count: number; width: number; centres: number[] }, W: number) => {
+  const rowFits = (
+    b: BlockSet | { count: number; width: number; centres: number[] },
+    W: number,
+  ) => {
     expect(Number.isInteger(b.count)).toBe(true);
     expect(b.count).toBeGreaterThanOrEqual(1);
     expect(b.centres).toHaveLength(b.count);
     expect(b.count * b.width).toBeLessThanOrEqual(W * (1 + 1e-9));
     for (const x of b.centres) expect(Math.abs(x) + b.width / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
-    for (let i = 1; i < b.centres.length; i++) expect(b.centres[i]! - b.centres[i - 1]!).toBeGreaterThanOrEqual(b.width - 1e-9);
+    for (let i = 1; i < b.centres.length; i++)
+      expect(b.centres[i]! - b.centres[i - 1]!).toBeGreaterThanOrEqual(b.width - 1e-9);
   };
   it('blocks fit the width, counts are whole ≥ 1, every dimension positive and finite', () => {
     fc.assert(
@@ -215,7 +231,8 @@ describe('sizeJumpBasin geometry invariants (fast-check)', () => {
           for (const b of [s.chuteBlocks, s.baffleBlocks]) {
             if (!b) continue;
             rowFits(b, W);
-            for (const v of [b.height, b.width, b.length, b.spacing]) expect(Number.isFinite(v) && v > 0).toBe(true);
+            for (const v of [b.height, b.width, b.length, b.spacing])
+              expect(Number.isFinite(v) && v > 0).toBe(true);
             expect(b.wallSpace).toBeGreaterThanOrEqual(0);
           }
           if (s.chuteBlocks && !s.chuteBlocks.centres.length) throw new Error('no centres');

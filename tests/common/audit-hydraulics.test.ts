@@ -50,10 +50,13 @@ function firstMoment(s: Section, y: number, n = 4000): number {
   }
   return (sum * h) / 3;
 }
-const M = (s: Section, Q: number, y: number, moment = firstMoment) => Q * Q / (g * geo(s, y).A) + moment(s, y);
+const M = (s: Section, Q: number, y: number, moment = firstMoment) =>
+  (Q * Q) / (g * geo(s, y).A) + moment(s, y);
 const trapMoment = (s: Section, y: number): number =>
-  s.shape === 'trapezoidal' ? (s.bottomWidth * y * y) / 2 + (s.sideSlope * y ** 3) / 3 : firstMoment(s, y);
-const E = (s: Section, Q: number, y: number) => y + Q * Q / (2 * g * geo(s, y).A ** 2);
+  s.shape === 'trapezoidal'
+    ? (s.bottomWidth * y * y) / 2 + (s.sideSlope * y ** 3) / 3
+    : firstMoment(s, y);
+const E = (s: Section, Q: number, y: number) => y + (Q * Q) / (2 * g * geo(s, y).A ** 2);
 /** Critical depth by bisection on Q²T − gA³ (not the engine's log residual). */
 function ycIndependent(s: Section, Q: number, hi: number): number {
   return bisect((y) => Q * Q * geo(s, y).T - g * geo(s, y).A ** 3, 1e-9, hi);
@@ -66,7 +69,11 @@ function y2Independent(s: Section, Q: number, y1: number, hi: number): number {
 }
 
 const rect = (width: number): Section => ({ shape: 'rectangular', width });
-const trap = (bottomWidth: number, sideSlope: number): Section => ({ shape: 'trapezoidal', bottomWidth, sideSlope });
+const trap = (bottomWidth: number, sideSlope: number): Section => ({
+  shape: 'trapezoidal',
+  bottomWidth,
+  sideSlope,
+});
 const circ = (diameter: number): Section => ({ shape: 'circular', diameter });
 
 describe('criticalDepth', () => {
@@ -91,12 +98,20 @@ describe('normalDepth', () => {
   };
   it('rectangle b 3, S 1/500, n 0.025, Q 5 → 1.215 m [src: a university example-sheet solution, ±0.5 %]', () => {
     expectRel(normalDepth(rect(3), 5, 1 / 500, 0.025), 1.215, 0.005);
-    expectRel(normalDepth(rect(3), 5, 1 / 500, 0.025), bisect((y) => manningQ(rect(3), y, 1 / 500, 0.025) - 5, 1e-6, 50), 1e-8);
+    expectRel(
+      normalDepth(rect(3), 5, 1 / 500, 0.025),
+      bisect((y) => manningQ(rect(3), y, 1 / 500, 0.025) - 5, 1e-6, 50),
+      1e-8,
+    );
   });
   it('trapezoid b 10, z 2, n 0.035, S 0.001, Q 50 → 2.5111 m [calc, hydraulics.md §6] = bisection on Manning', () => {
     const s = trap(10, 2);
     expectRel(normalDepth(s, 50, 0.001, 0.035), 2.5111, 1e-4);
-    expectRel(normalDepth(s, 50, 0.001, 0.035), bisect((y) => manningQ(s, y, 0.001, 0.035) - 50, 1e-6, 50), 1e-8);
+    expectRel(
+      normalDepth(s, 50, 0.001, 0.035),
+      bisect((y) => manningQ(s, y, 0.001, 0.035) - 50, 1e-6, 50),
+      1e-8,
+    );
   });
 });
 
@@ -118,13 +133,18 @@ describe('froudeNumber, specificEnergy, momentumFunction', () => {
   it('momentum function: trapezoid closed form by²/2 + zy³/3; circle A·ȳ by numerical integration (Simpson)', () => {
     // trapezoid b 5, z 1, y 0.4, Q 20: A = 2.16, Q²/(gA) = 400/21.1824 = 18.8837, Aȳ = 0.4 + 0.021333
     expectRel(momentumFunction(trap(5, 1), 20, 0.4), 400 / (g * 2.16) + 0.4 + 0.064 / 3, 1e-12);
-    for (const y of [0.2, 0.75, 1.2, 1.45]) expectRel(momentumFunction(circ(1.5), 2, y), M(circ(1.5), 2, y), 2e-6);
+    for (const y of [0.2, 0.75, 1.2, 1.45])
+      expectRel(momentumFunction(circ(1.5), 2, y), M(circ(1.5), 2, y), 2e-6);
   });
 });
 
 describe('sequentDepth and hydraulicJump', () => {
   it('rectangle agrees with Bélanger y2/y1 = ½(√(1+8Fr1²) − 1) [src: Chow 1959] to 1e-9', () => {
-    for (const [Q, y1] of [[36, 0.2], [48, 0.4], [85, 0.46]] as const) {
+    for (const [Q, y1] of [
+      [36, 0.2],
+      [48, 0.4],
+      [85, 0.46],
+    ] as const) {
       const fr = Q / 12 / y1 / Math.sqrt(g * y1);
       expect(fr).toBeGreaterThan(1);
       expectRel(sequentDepth(rect(12), Q, y1), 0.5 * y1 * (Math.sqrt(1 + 8 * fr * fr) - 1), 1e-9);
@@ -143,7 +163,11 @@ describe('sequentDepth and hydraulicJump', () => {
   it('circle D 1.5, Q 2, y1 0.35 → 1.3736 m [calc] = bisection on the Simpson momentum', () => {
     const m1 = M(circ(1.5), 2, 0.35);
     const yc = ycIndependent(circ(1.5), 2, 1.5 - 1e-9);
-    const y2 = bisect((y) => M(circ(1.5), 2, y, (s, yy) => firstMoment(s, yy, 1000)) - m1, yc, 1.5 - 1e-9);
+    const y2 = bisect(
+      (y) => M(circ(1.5), 2, y, (s, yy) => firstMoment(s, yy, 1000)) - m1,
+      yc,
+      1.5 - 1e-9,
+    );
     expectRel(sequentDepth(circ(1.5), 2, 0.35), y2, 2e-5);
     // The printed 1.3736 m was computed with g = 9.81 (the same Simpson bisection with g = 9.81
     // gives 1.37356); with g = 9.80665 it is 1.37379: 1.4e-4 apart, so compare at 3e-4.
@@ -162,7 +186,13 @@ describe('sequentDepth and hydraulicJump', () => {
     expect(j.jumpClass).toBe('oscillating');
   });
   it('E2/E1 from the Bélanger identities (closed form) — §6 prints 0.90922, 0.74332, 0.55516, 0.43594, 0.27292, which differ from the closed form by up to 2e-4: the closed form rules', () => {
-    const printed: Record<number, [number, number]> = { 2: [2.37228, 0.90922], 3: [3.772, 0.74332], 4.5: [5.88359, 0.55516], 6: [8, 0.43594], 10: [13.65097, 0.27292] };
+    const printed: Record<number, [number, number]> = {
+      2: [2.37228, 0.90922],
+      3: [3.772, 0.74332],
+      4.5: [5.88359, 0.55516],
+      6: [8, 0.43594],
+      10: [13.65097, 0.27292],
+    };
     for (const [frS, [ratio, eff]] of Object.entries(printed)) {
       const fr = Number(frS);
       const r = 0.5 * (Math.sqrt(1 + 8 * fr * fr) - 1);
@@ -182,13 +212,36 @@ describe('sequentDepth and hydraulicJump', () => {
 describe('classifyJump, jump length, roller length', () => {
   it('classes by Fr1 [src: USBR via Chow]: boundaries 1, 1.7, 2.5, 4.5, 9 belong to the upper class except 9 (4.5–9 steady)', () => {
     const cases: Array<[number, string]> = [
-      [0.5, 'none'], [1, 'none'], [1.0001, 'undular'], [1.6999, 'undular'], [1.7, 'weak'], [2.4999, 'weak'],
-      [2.5, 'oscillating'], [4.4999, 'oscillating'], [4.5, 'steady'], [9, 'steady'], [9.0001, 'strong'], [30, 'strong'],
+      [0.5, 'none'],
+      [1, 'none'],
+      [1.0001, 'undular'],
+      [1.6999, 'undular'],
+      [1.7, 'weak'],
+      [2.4999, 'weak'],
+      [2.5, 'oscillating'],
+      [4.4999, 'oscillating'],
+      [4.5, 'steady'],
+      [9, 'steady'],
+      [9.0001, 'strong'],
+      [30, 'strong'],
     ];
     for (const [fr, cls] of cases) expect(classifyJump(fr), `Fr1 ${fr}`).toBe(cls);
   });
   it('USBR curve points L/y2 exactly as hydraulics.md §1 [from memory, approximate points]', () => {
-    const spec = [[1.7, 4.0], [2, 4.3], [2.5, 4.8], [3, 5.25], [3.5, 5.55], [4, 5.8], [4.5, 5.9], [5, 6.0], [6, 6.1], [8, 6.1], [10, 6.1], [12, 6.0]];
+    const spec = [
+      [1.7, 4.0],
+      [2, 4.3],
+      [2.5, 4.8],
+      [3, 5.25],
+      [3.5, 5.55],
+      [4, 5.8],
+      [4.5, 5.9],
+      [5, 6.0],
+      [6, 6.1],
+      [8, 6.1],
+      [10, 6.1],
+      [12, 6.0],
+    ];
     expect(USBR_LENGTH_CURVE.map((p) => [...p])).toEqual(spec);
     for (const [fr, r] of spec) expectRel(jumpLengthUSBR(fr!, 2), 2 * r!, 1e-12);
   });
@@ -206,7 +259,11 @@ describe('classifyJump, jump length, roller length', () => {
     expectRel(jumpLengthHager(5, 0.5), 0.5 * 220 * Math.tanh(4 / 22), 1e-12);
     expectRel(rollerLength(5, 0.5), 0.5 * (160 * Math.tanh(0.25) - 12), 1e-12);
     expect(rollerLength(1.2, 0.5)).toBe(0); // 160·tanh(0.06) − 12 < 0: never negative
-    expectRel(hydraulicJump(rect(1), 3, 0.25, { lengthMethod: 'hager' }).length, jumpLengthHager(froudeNumber(rect(1), 3, 0.25), 0.25), 1e-12);
+    expectRel(
+      hydraulicJump(rect(1), 3, 0.25, { lengthMethod: 'hager' }).length,
+      jumpLengthHager(froudeNumber(rect(1), 3, 0.25), 0.25),
+      1e-12,
+    );
   });
 });
 
@@ -237,7 +294,14 @@ describe('slopingApronJump (Rajaratnam, from memory)', () => {
 describe('jumpToeDistance', () => {
   // Independent: x = ∫ (1 − Fr²)/(S0 − Sf) dy from yStart to the toe depth (conjugate of the
   // downstream depth by Bélanger), composite Simpson in y — not the engine's direct step.
-  function toeDistance(b: number, Q: number, n: number, S0: number, yStart: number, yDown: number): number {
+  function toeDistance(
+    b: number,
+    Q: number,
+    n: number,
+    S0: number,
+    yStart: number,
+    yDown: number,
+  ): number {
     const frD = Q / b / yDown / Math.sqrt(g * yDown);
     const yToe = 0.5 * yDown * (Math.sqrt(1 + 8 * frD * frD) - 1);
     const f = (y: number) => {
@@ -259,7 +323,11 @@ describe('jumpToeDistance', () => {
     expect(x).toBeGreaterThan(0);
   });
   it('horizontal floor (H3): same check with S0 = 0', () => {
-    expectRel(jumpToeDistance(rect(2), 4, 0.015, 0, 0.12, 1.4), toeDistance(2, 4, 0.015, 0, 0.12, 1.4), 1e-4);
+    expectRel(
+      jumpToeDistance(rect(2), 4, 0.015, 0, 0.12, 1.4),
+      toeDistance(2, 4, 0.015, 0, 0.12, 1.4),
+      1e-4,
+    );
   });
   it('drowned jump → 0; yStart not supercritical, or a steep reach → RangeError naming the argument (no endless loop)', () => {
     // q 2: conjugate of 0.8 m is 0.8·½(√(1 + 8·0.8926²) − 1) = 0.686 m < 0.7 m: drowned
@@ -287,7 +355,11 @@ describe('RangeError on impossible input, naming the argument; never NaN', () =>
     ['flat slope for normal depth', () => normalDepth(rect(1), 1, 0, 0.013), /slope/],
     ['NaN Manning n', () => normalDepth(rect(1), 1, 0.001, Number.NaN), /manningN/],
     ['negative Froude for the class', () => classifyJump(-1), /fr1/],
-    ['unknown shape', () => criticalDepth({ shape: 'oval' } as unknown as Section, 1), /section\.shape/],
+    [
+      'unknown shape',
+      () => criticalDepth({ shape: 'oval' } as unknown as Section, 1),
+      /section\.shape/,
+    ],
   ];
   it.each(bad)('%s', (_n, f, re) => {
     expect(f).toThrow(RangeError);
@@ -296,47 +368,69 @@ describe('RangeError on impossible input, naming the argument; never NaN', () =>
 });
 
 describe('properties (fast-check)', () => {
-  const trapArb = fc.record({ b: fc.double({ min: 0.5, max: 30, noNaN: true }), z: fc.double({ min: 0, max: 4, noNaN: true }) });
+  const trapArb = fc.record({
+    b: fc.double({ min: 0.5, max: 30, noNaN: true }),
+    z: fc.double({ min: 0, max: 4, noNaN: true }),
+  });
   it('trapezoid: sequent of the sequent returns y1; y1 < yc < y2; head loss ≥ 0; E2 < E1', () => {
     fc.assert(
-      fc.property(trapArb, fc.double({ min: 0.5, max: 200, noNaN: true }), fc.double({ min: 0.2, max: 0.9, noNaN: true }), ({ b, z }, Q, frac) => {
-        const s = trap(b, z);
-        const yc = criticalDepth(s, Q);
-        const y1 = frac * yc;
-        const j = hydraulicJump(s, Q, y1);
-        expect(j.y1).toBeLessThan(yc);
-        expect(yc).toBeLessThan(j.y2);
-        expect(j.headLoss).toBeGreaterThanOrEqual(0);
-        expect(specificEnergy(s, Q, j.y2)).toBeLessThan(specificEnergy(s, Q, y1) * (1 + 1e-12));
-        // back from the subcritical side by bisection on the momentum function (independent)
-        const back = bisect((y) => momentumFunction(s, Q, y) - momentumFunction(s, Q, j.y2), yc * 1e-4, yc);
-        expectRel(back, y1, 1e-6);
-        for (const v of Object.values(j)) if (typeof v === 'number') expect(Number.isFinite(v)).toBe(true);
-      }),
+      fc.property(
+        trapArb,
+        fc.double({ min: 0.5, max: 200, noNaN: true }),
+        fc.double({ min: 0.2, max: 0.9, noNaN: true }),
+        ({ b, z }, Q, frac) => {
+          const s = trap(b, z);
+          const yc = criticalDepth(s, Q);
+          const y1 = frac * yc;
+          const j = hydraulicJump(s, Q, y1);
+          expect(j.y1).toBeLessThan(yc);
+          expect(yc).toBeLessThan(j.y2);
+          expect(j.headLoss).toBeGreaterThanOrEqual(0);
+          expect(specificEnergy(s, Q, j.y2)).toBeLessThan(specificEnergy(s, Q, y1) * (1 + 1e-12));
+          // back from the subcritical side by bisection on the momentum function (independent)
+          const back = bisect(
+            (y) => momentumFunction(s, Q, y) - momentumFunction(s, Q, j.y2),
+            yc * 1e-4,
+            yc,
+          );
+          expectRel(back, y1, 1e-6);
+          for (const v of Object.values(j))
+            if (typeof v === 'number') expect(Number.isFinite(v)).toBe(true);
+        },
+      ),
       { numRuns: 60 },
     );
   });
   it('circle: sequent of the sequent returns y1 whenever the conduit does not run full; y1 < yc < y2', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.3, max: 4, noNaN: true }), fc.double({ min: 0.05, max: 0.5, noNaN: true }), fc.double({ min: 0.4, max: 0.9, noNaN: true }), (D, qFrac, frac) => {
-        const s = circ(D);
-        const Q = qFrac * Math.sqrt(g) * D ** 2.5; // below the discharge that fills the crown at critical
-        const yc = criticalDepth(s, Q);
-        const y1 = frac * yc;
-        let y2: number;
-        try {
-          y2 = sequentDepth(s, Q, y1);
-        } catch (e) {
-          expect(e).toBeInstanceOf(RangeError);
-          expect((e as Error).message).toMatch(/run full/);
-          return;
-        }
-        expect(y1).toBeLessThan(yc);
-        expect(yc).toBeLessThan(y2);
-        expect(y2).toBeLessThanOrEqual(D);
-        const back = bisect((y) => momentumFunction(s, Q, y) - momentumFunction(s, Q, y2), yc * 1e-4, yc);
-        expectRel(back, y1, 1e-6);
-      }),
+      fc.property(
+        fc.double({ min: 0.3, max: 4, noNaN: true }),
+        fc.double({ min: 0.05, max: 0.5, noNaN: true }),
+        fc.double({ min: 0.4, max: 0.9, noNaN: true }),
+        (D, qFrac, frac) => {
+          const s = circ(D);
+          const Q = qFrac * Math.sqrt(g) * D ** 2.5; // below the discharge that fills the crown at critical
+          const yc = criticalDepth(s, Q);
+          const y1 = frac * yc;
+          let y2: number;
+          try {
+            y2 = sequentDepth(s, Q, y1);
+          } catch (e) {
+            expect(e).toBeInstanceOf(RangeError);
+            expect((e as Error).message).toMatch(/run full/);
+            return;
+          }
+          expect(y1).toBeLessThan(yc);
+          expect(yc).toBeLessThan(y2);
+          expect(y2).toBeLessThanOrEqual(D);
+          const back = bisect(
+            (y) => momentumFunction(s, Q, y) - momentumFunction(s, Q, y2),
+            yc * 1e-4,
+            yc,
+          );
+          expectRel(back, y1, 1e-6);
+        },
+      ),
       { numRuns: 60 },
     );
   });

@@ -26,7 +26,13 @@ function demo(over: Partial<StudyInput> = {}): StudyInput {
 }
 /** The same study typed in US customary units. */
 function inUS(si: StudyInput): StudyInput {
-  if (si.inflow.kind !== 'chute' || si.inflow.headwater.kind !== 'weir' || si.tailwater.kind !== 'manning' || si.tailwater.section.shape !== 'trapezoidal' || si.discharges.kind !== 'range')
+  if (
+    si.inflow.kind !== 'chute' ||
+    si.inflow.headwater.kind !== 'weir' ||
+    si.tailwater.kind !== 'manning' ||
+    si.tailwater.section.shape !== 'trapezoidal' ||
+    si.discharges.kind !== 'range'
+  )
     throw new Error('demo shape');
   return {
     ...si,
@@ -35,9 +41,22 @@ function inUS(si: StudyInput): StudyInput {
     basinWidth: si.basinWidth / FT,
     designDischarge: si.designDischarge / CFS,
     discharges: { ...si.discharges, min: si.discharges.min / CFS, max: si.discharges.max / CFS },
-    tailwater: { ...si.tailwater, section: { ...si.tailwater.section, bottomWidth: si.tailwater.section.bottomWidth / FT } },
-    inflow: { ...si.inflow, crestElevation: si.inflow.crestElevation / FT, headwater: { kind: 'weir', C: si.inflow.headwater.C / Math.sqrt(FT), L: si.inflow.headwater.L / FT } },
-    ...(si.dissipators ? { dissipators: inputFromSI({ ...si, dissipators: si.dissipators }, 'US').dissipators! } : {}),
+    tailwater: {
+      ...si.tailwater,
+      section: { ...si.tailwater.section, bottomWidth: si.tailwater.section.bottomWidth / FT },
+    },
+    inflow: {
+      ...si.inflow,
+      crestElevation: si.inflow.crestElevation / FT,
+      headwater: {
+        kind: 'weir',
+        C: si.inflow.headwater.C / Math.sqrt(FT),
+        L: si.inflow.headwater.L / FT,
+      },
+    },
+    ...(si.dissipators
+      ? { dissipators: inputFromSI({ ...si, dissipators: si.dissipators }, 'US').dissipators! }
+      : {}),
   };
 }
 
@@ -45,16 +64,23 @@ function inUS(si: StudyInput): StudyInput {
 function sameNumbers(a: unknown, b: unknown, rel: number, abs: number, path = ''): number {
   if (typeof a === 'number') {
     expect(typeof b, path).toBe('number');
-    expect(Math.abs(a - (b as number)) <= Math.max(rel * Math.abs(a), abs), `${path}: ${a} vs ${String(b)}`).toBe(true);
+    expect(
+      Math.abs(a - (b as number)) <= Math.max(rel * Math.abs(a), abs),
+      `${path}: ${a} vs ${String(b)}`,
+    ).toBe(true);
     return 1;
   }
   if (Array.isArray(a)) {
     expect(Array.isArray(b) && b.length === a.length, path).toBe(true);
-    return a.reduce((n: number, x, i) => n + sameNumbers(x, (b as unknown[])[i], rel, abs, `${path}[${i}]`), 0);
+    return a.reduce(
+      (n: number, x, i) => n + sameNumbers(x, (b as unknown[])[i], rel, abs, `${path}[${i}]`),
+      0,
+    );
   }
   if (a !== null && typeof a === 'object') {
     let n = 0;
-    for (const [k, v] of Object.entries(a)) n += sameNumbers(v, (b as Record<string, unknown>)[k], rel, abs, `${path}.${k}`);
+    for (const [k, v] of Object.entries(a))
+      n += sameNumbers(v, (b as Record<string, unknown>)[k], rel, abs, `${path}.${k}`);
     return n;
   }
   return 0;
@@ -62,7 +88,11 @@ function sameNumbers(a: unknown, b: unknown, rel: number, abs: number, path = ''
 const texts = (r: StudyResult): string[] => [
   ...r.warnings,
   ...(r.dissipators?.notes ?? []),
-  ...r.screening.flatMap((s) => [s.summary, ...s.criteria.map((c) => c.reason), ...s.perDischarge.flatMap((p) => p.criteria.map((c) => c.reason))]),
+  ...r.screening.flatMap((s) => [
+    s.summary,
+    ...s.criteria.map((c) => c.reason),
+    ...s.perDischarge.flatMap((p) => p.criteria.map((c) => c.reason)),
+  ]),
   ...[r.design, ...r.alternatives].flatMap((e) => (e ? e.design.warnings : [])),
 ];
 
@@ -74,7 +104,17 @@ describe('runStudy: SI and US input give the same SI result', () => {
         fc.double({ min: 40, max: 120, noNaN: true }),
         fc.double({ min: 100, max: 106, noNaN: true }),
         (b, Q, crest) => {
-          const si = demo({ basinWidth: b, designDischarge: Q, discharges: { kind: 'range', min: 5, max: Q, count: 4 }, inflow: { kind: 'chute', crestElevation: crest, headwater: { kind: 'weir', C: 2.15, L: 12 }, lossModel: { kind: 'fraction', value: 0.1 } } });
+          const si = demo({
+            basinWidth: b,
+            designDischarge: Q,
+            discharges: { kind: 'range', min: 5, max: Q, count: 4 },
+            inflow: {
+              kind: 'chute',
+              crestElevation: crest,
+              headwater: { kind: 'weir', C: 2.15, L: 12 },
+              lossModel: { kind: 'fraction', value: 0.1 },
+            },
+          });
           const a = runStudy(si);
           const c = runStudy(toSI(inUS(si)));
           const n = sameNumbers({ ...a, input: null }, { ...c, input: null }, 1e-9, 1e-7);
@@ -87,7 +127,13 @@ describe('runStudy: SI and US input give the same SI result', () => {
 });
 
 describe('fromSI: a US study reads in US units, designs included, and converts back', () => {
-  const si = demo({ dissipators: { chosenType: 'usbr-2', culvert: { shape: 'box', rise: 1.2, span: 2 }, flotation: { upliftElevation: 89 } } });
+  const si = demo({
+    dissipators: {
+      chosenType: 'usbr-2',
+      culvert: { shape: 'box', rise: 1.2, span: 2 },
+      flotation: { upliftElevation: 89 },
+    },
+  });
   const r = runStudy(toSI(inUS(si)));
   const us = fromSI(r, 'US');
   it('input options: culvert rise and uplift elevation travel through toSI / inputFromSI', () => {
@@ -99,7 +145,8 @@ describe('fromSI: a US study reads in US units, designs included, and converts b
   it('design fields: walls, slab, riprap D50, blocks, sill, water; concrete in yd³; slab loads in lbf/ft', () => {
     const d = r.design!.design;
     const u = us.design!.design;
-    if (d.family !== 'jump-basin' || u.family !== 'jump-basin') throw new Error('jump basin expected');
+    if (d.family !== 'jump-basin' || u.family !== 'jump-basin')
+      throw new Error('jump basin expected');
     expectRel(u.walls.height, d.walls.height / FT, 1e-12);
     expectRel(u.walls.thickness, d.walls.thickness / FT, 1e-12);
     expectRel(u.walls.freeboard, d.walls.freeboard / FT, 1e-12);
@@ -152,7 +199,10 @@ describe('words in the user units', () => {
       }
       for (const e of [r.design, ...r.alternatives]) {
         if (!e) continue;
-        expect(e.design.warnings.filter((w) => /cavitat/i.test(w)).length, e.type).toBeLessThanOrEqual(1);
+        expect(
+          e.design.warnings.filter((w) => /cavitat/i.test(w)).length,
+          e.type,
+        ).toBeLessThanOrEqual(1);
         expect(new Set(e.design.warnings).size).toBe(e.design.warnings.length);
       }
     }
@@ -174,20 +224,62 @@ describe('runStudy refusals name the argument', () => {
 describe('studyInputSchema', () => {
   const opts = { abortEarly: false, stripUnknown: true } as const;
   it('keeps the dissipator options (chosen type, overrides, culvert, flotation)', () => {
-    const v = studyInputSchema.validateSync(demo({ dissipators: { chosenType: 'saf', debris: 'light', defaults: { riprapLengthRatio: 6 }, culvert: { shape: 'circular', rise: 1.2 }, flotation: { safetyFactor: 1.5 }, extraFloorDepth: 0.3 } }), opts);
-    expect(v.dissipators).toEqual({ chosenType: 'saf', debris: 'light', defaults: { riprapLengthRatio: 6 }, culvert: { shape: 'circular', rise: 1.2 }, flotation: { safetyFactor: 1.5 }, extraFloorDepth: 0.3 });
+    const v = studyInputSchema.validateSync(
+      demo({
+        dissipators: {
+          chosenType: 'saf',
+          debris: 'light',
+          defaults: { riprapLengthRatio: 6 },
+          culvert: { shape: 'circular', rise: 1.2 },
+          flotation: { safetyFactor: 1.5 },
+          extraFloorDepth: 0.3,
+        },
+      }),
+      opts,
+    );
+    expect(v.dissipators).toEqual({
+      chosenType: 'saf',
+      debris: 'light',
+      defaults: { riprapLengthRatio: 6 },
+      culvert: { shape: 'circular', rise: 1.2 },
+      flotation: { safetyFactor: 1.5 },
+      extraFloorDepth: 0.3,
+    });
     expect(studyInputSchema.validateSync(demo(), opts).dissipators).toBeUndefined();
   });
   it.each([
-    ['unknown type', { chosenType: 'moat' }, 'dissipators.chosenType', /chosen basin type must be one of/],
-    ['unknown default', { defaults: { colour: 3 } }, 'dissipators.defaults.colour', /not a setting/],
-    ['negative default', { defaults: { riprapLengthRatio: -1 } }, 'dissipators.defaults.riprapLengthRatio', /not below zero/],
+    [
+      'unknown type',
+      { chosenType: 'moat' },
+      'dissipators.chosenType',
+      /chosen basin type must be one of/,
+    ],
+    [
+      'unknown default',
+      { defaults: { colour: 3 } },
+      'dissipators.defaults.colour',
+      /not a setting/,
+    ],
+    [
+      'negative default',
+      { defaults: { riprapLengthRatio: -1 } },
+      'dissipators.defaults.riprapLengthRatio',
+      /not below zero/,
+    ],
     ['box without span', { culvert: { shape: 'box', rise: 1 } }, 'dissipators.culvert', /span/],
-    ['negative extra depth', { extraFloorDepth: -0.5 }, 'dissipators.extraFloorDepth', /must not be negative/],
+    [
+      'negative extra depth',
+      { extraFloorDepth: -0.5 },
+      'dissipators.extraFloorDepth',
+      /must not be negative/,
+    ],
   ])('rejects %s with a clear message', (_n, dissipators, path, re) => {
     let err: { inner: Array<{ path?: string; message: string }> } | null = null;
     try {
-      studyInputSchema.validateSync(demo({ dissipators: dissipators as StudyInput['dissipators'] }), opts);
+      studyInputSchema.validateSync(
+        demo({ dissipators: dissipators as StudyInput['dissipators'] }),
+        opts,
+      );
     } catch (e) {
       err = e as typeof err;
     }
@@ -196,7 +288,19 @@ describe('studyInputSchema', () => {
     expect(hit?.message).toMatch(re);
   });
   it('pipe inflow: lossModel optional (the type says so; the engine takes none), still checked when given', () => {
-    const pipe = demo({ inflow: { kind: 'pipe', invertElevation: 95, outlet: { kind: 'table', rows: [{ Q: 1, depth: 0.5, velocity: 5 }, { Q: 100, depth: 2, velocity: 9 }] } } });
+    const pipe = demo({
+      inflow: {
+        kind: 'pipe',
+        invertElevation: 95,
+        outlet: {
+          kind: 'table',
+          rows: [
+            { Q: 1, depth: 0.5, velocity: 5 },
+            { Q: 100, depth: 2, velocity: 9 },
+          ],
+        },
+      },
+    });
     expect(studyInputSchema.validateSync(pipe, opts).inflow).not.toHaveProperty('lossModel');
     const bad = { ...pipe, inflow: { ...pipe.inflow, lossModel: { kind: 'guess' } } };
     expect(() => studyInputSchema.validateSync(bad, opts)).toThrow(/loss allowance must be one of/);

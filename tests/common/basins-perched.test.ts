@@ -30,7 +30,8 @@ describe('perched culvert outlet (invented demo data, seed/designs.ts)', () => {
     const D = 6 * FT;
     const Q = stone?.atQ ?? NaN; // the first discharge where the stone is too large (SI)
     const q = Q / (6 * FT);
-    const expected = 0.2 * D * Math.pow(q / (Math.sqrt(9.80665) * D ** 1.5), 4 / 3) * (D / (0.4 * D));
+    const expected =
+      0.2 * D * Math.pow(q / (Math.sqrt(9.80665) * D ** 1.5), 4 / 3) * (D / (0.4 * D));
     const shown = Number(/D50 ([\d.]+) ft/.exec(stone?.reason ?? '')?.[1]);
     expectRel(shown * FT, expected, 0.01); // the reason rounds to 0.01 ft
   });

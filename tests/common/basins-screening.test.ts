@@ -1,6 +1,12 @@
 // Screening at the edges of each published range (hydraulics.md §4). Sources beside each check.
 import { describe, expect, it } from 'vitest';
-import { DISSIPATOR_CATALOGUE, screenDissipators, type DischargeRow, type ScreeningContext, type TypeScreening } from '../../common/src/basins';
+import {
+  DISSIPATOR_CATALOGUE,
+  screenDissipators,
+  type DischargeRow,
+  type ScreeningContext,
+  type TypeScreening,
+} from '../../common/src/basins';
 
 const g = 9.80665;
 /** A consistent row from Fr1 and V1 [calc: y1 = V²/(g·Fr²), Bélanger], tailwater 1.1·y2 unless given. */
@@ -75,7 +81,11 @@ describe('velocity edges', () => {
 });
 
 describe('Type VI, Type IX, riprap apron', () => {
-  const pipe: ScreeningContext = { inflow: 'pipe', width: 3, culvert: { shape: 'circular', rise: 1.2 } };
+  const pipe: ScreeningContext = {
+    inflow: 'pipe',
+    width: 3,
+    culvert: { shape: 'circular', rise: 1.2 },
+  };
   const pipeRow = (Q: number, v: number): DischargeRow => {
     const y1 = 0.5;
     return { Q, q: Q / 3, y1, v1: v, fr1: v / Math.sqrt(g * y1), y2: 1.5, tailwaterDepth: 0.8 };
@@ -92,11 +102,19 @@ describe('Type VI, Type IX, riprap apron', () => {
     const r = { ...row(1.2, 3, 10), q: 5.6, Q: 56 };
     expect(status(screen([r]), 'usbr-9', 'unitDischarge')).toBe('pass');
     expect(status(screen([{ ...r, q: 5.61, Q: 56.1 }]), 'usbr-9', 'unitDischarge')).toBe('fail');
-    expect(status(screen([row(6, 10)], { inflow: 'gate', width: 10 }), 'usbr-9', 'froude')).toBe('fail');
+    expect(status(screen([row(6, 10)], { inflow: 'gate', width: 10 }), 'usbr-9', 'froude')).toBe(
+      'fail',
+    );
   });
   it('riprap apron: culvert rise up to 1.5 m [src: HEC-14 ch. 10]; a chute fails the inflow criterion', () => {
     expect(status(screen([pipeRow(3, 4)], pipe), 'riprap-apron', 'culvertSize')).toBe('pass');
-    expect(status(screen([pipeRow(3, 4)], { ...pipe, culvert: { shape: 'circular', rise: 1.51 } }), 'riprap-apron', 'culvertSize')).toBe('fail');
+    expect(
+      status(
+        screen([pipeRow(3, 4)], { ...pipe, culvert: { shape: 'circular', rise: 1.51 } }),
+        'riprap-apron',
+        'culvertSize',
+      ),
+    ).toBe('fail');
     expect(status(screen([row(6, 10)]), 'riprap-apron', 'inflow')).toBe('fail');
   });
 });
@@ -109,8 +127,12 @@ describe('tailwater, debris, verdicts and ranking', () => {
     expect(status(screen([row(8, 12, 10, 1.04)]), 'usbr-2', 'tailwater')).toBe('fail');
   });
   it('heavy debris fails Type III (piers catch it) [src: EM-25]', () => {
-    expect(status(screen([row(8, 12)], { ...chute, debris: 'heavy' }), 'usbr-3', 'debris')).toBe('fail');
-    expect(status(screen([row(8, 12)], { ...chute, debris: 'heavy' }), 'usbr-1', 'debris')).toBe('pass');
+    expect(status(screen([row(8, 12)], { ...chute, debris: 'heavy' }), 'usbr-3', 'debris')).toBe(
+      'fail',
+    );
+    expect(status(screen([row(8, 12)], { ...chute, debris: 'heavy' }), 'usbr-1', 'debris')).toBe(
+      'pass',
+    );
   });
   it('every type of the catalogue is screened with reasons; ranks are 1..n; one recommended', () => {
     const s = screen([row(6, 10), row(8, 12)]);
@@ -133,6 +155,8 @@ describe('tailwater, debris, verdicts and ranking', () => {
   });
   it('bad rows are refused with a RangeError', () => {
     expect(() => screen([{ ...row(6, 10), y1: -1 }])).toThrow(RangeError);
-    expect(() => screenDissipators({ rows: [], context: { inflow: 'chute', width: 0 } })).toThrow(/width/);
+    expect(() => screenDissipators({ rows: [], context: { inflow: 'chute', width: 0 } })).toThrow(
+      /width/,
+    );
   });
 });

@@ -41,7 +41,11 @@ describe('sizeJumpBasin: Froude number and sequent depth', () => {
   });
 
   it('matches HEC-14: 7 ft box, 400 cfs, y1 3.0 ft → V1 19 ft/s, Fr1 ≈ 1.9, y2 6.6–6.9 ft [src: HEC-14 older edition, chart-read ±5 %]', () => {
-    const s = sizeJumpBasin('usbr-1', { width: 7 * 0.3048, Q: 400 * 0.028316846592, y1: 3 * 0.3048 });
+    const s = sizeJumpBasin('usbr-1', {
+      width: 7 * 0.3048,
+      Q: 400 * 0.028316846592,
+      y1: 3 * 0.3048,
+    });
     expectRel(s.v1 / 0.3048, 19, 0.05);
     expectRel(s.fr1, 1.9, 0.05);
     const y2ft = s.y2 / 0.3048;
@@ -107,25 +111,31 @@ describe('USBR Type III', () => {
   });
   it('staggered piers over many basins: behind openings, inside the walls, spacing never below the rule [geometry]', () => {
     fc.assert(
-      fc.property(fc.double({ min: 3, max: 60, noNaN: true }), fc.double({ min: 0.1, max: 1.5, noNaN: true }), fc.double({ min: 4.5, max: 17, noNaN: true }), (W, y1, fr) => {
-        const chute = fitBlockRow(W, y1, y1);
-        const rule = 0.75 * type3BaffleHeight(y1, fr);
-        const row = staggerBehind(W, chute, rule, rule);
-        const w = row.width; // the rule's, or at most W/2 in a basin too narrow for one pier and its space
-        const sorted = [...row.centres].sort((a, b) => a - b);
-        expect(row.count).toBe(row.centres.length);
-        expect(row.count).toBeGreaterThanOrEqual(1);
-        for (const c of sorted) expect(Math.abs(c) + w / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
-        for (let i = 1; i < sorted.length; i++) expect(sorted[i]! - sorted[i - 1]! - w).toBeGreaterThanOrEqual(rule - 1e-9);
-        if (row.behindOpenings) {
-          expect(row.behindOpenings).toBe(row.count);
-          // each centre is midway between two neighbouring chute blocks
-          for (const c of sorted) {
-            const d = chute.centres.map((x) => x - c).sort((a, b) => Math.abs(a) - Math.abs(b));
-            expect(Math.abs(d[0]! + d[1]!)).toBeLessThan(1e-9);
-          }
-        } else expect(chute.count).toBeLessThan(3); // only when the chute row leaves no opening to use
-      }),
+      fc.property(
+        fc.double({ min: 3, max: 60, noNaN: true }),
+        fc.double({ min: 0.1, max: 1.5, noNaN: true }),
+        fc.double({ min: 4.5, max: 17, noNaN: true }),
+        (W, y1, fr) => {
+          const chute = fitBlockRow(W, y1, y1);
+          const rule = 0.75 * type3BaffleHeight(y1, fr);
+          const row = staggerBehind(W, chute, rule, rule);
+          const w = row.width; // the rule's, or at most W/2 in a basin too narrow for one pier and its space
+          const sorted = [...row.centres].sort((a, b) => a - b);
+          expect(row.count).toBe(row.centres.length);
+          expect(row.count).toBeGreaterThanOrEqual(1);
+          for (const c of sorted) expect(Math.abs(c) + w / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
+          for (let i = 1; i < sorted.length; i++)
+            expect(sorted[i]! - sorted[i - 1]! - w).toBeGreaterThanOrEqual(rule - 1e-9);
+          if (row.behindOpenings) {
+            expect(row.behindOpenings).toBe(row.count);
+            // each centre is midway between two neighbouring chute blocks
+            for (const c of sorted) {
+              const d = chute.centres.map((x) => x - c).sort((a, b) => Math.abs(a) - Math.abs(b));
+              expect(Math.abs(d[0]! + d[1]!)).toBeLessThan(1e-9);
+            }
+          } else expect(chute.count).toBeLessThan(3); // only when the chute row leaves no opening to use
+        },
+      ),
       { numRuns: 300 },
     );
   });
@@ -218,14 +228,30 @@ describe('blocks, freeboard and defaults', () => {
     expectRel(freeboard(50 * 0.3048, 15 * 0.3048), 6.5 * 0.3048, 1e-12);
   });
   it('every default has its provenance, and overrides show as overridden', () => {
-    for (const k of Object.keys(BASIN_DEFAULTS)) expect(BASIN_DEFAULT_PROVENANCE[k as keyof typeof BASIN_DEFAULTS]).toBeDefined();
+    for (const k of Object.keys(BASIN_DEFAULTS))
+      expect(BASIN_DEFAULT_PROVENANCE[k as keyof typeof BASIN_DEFAULTS]).toBeDefined();
     const d = resolveDefaults({ tailwaterFactorType2: 1.1 });
     const a = listAssumptions(d).find((x) => x.key === 'tailwaterFactorType2')!;
-    expect(a).toMatchObject({ value: 1.1, defaultValue: 1.05, overridden: true, confidence: 'mem' });
-    expect(sizeJumpBasin('usbr-2', { width: 10, Q: 88.57381102786533, y1: 0.5 }, { defaults: { tailwaterFactorType2: 1.1 } }).tailwaterFactor).toBe(1.1);
+    expect(a).toMatchObject({
+      value: 1.1,
+      defaultValue: 1.05,
+      overridden: true,
+      confidence: 'mem',
+    });
+    expect(
+      sizeJumpBasin(
+        'usbr-2',
+        { width: 10, Q: 88.57381102786533, y1: 0.5 },
+        { defaults: { tailwaterFactorType2: 1.1 } },
+      ).tailwaterFactor,
+    ).toBe(1.1);
     expect(() => resolveDefaults({ nonsense: 1 } as never)).toThrow(RangeError);
     // an appurtenance proportion recalled from memory (EM-25: piers 0.8·y2 downstream) can be overridden
-    const t3 = sizeJumpBasin('usbr-3', { width: 10, Q: 88.57381102786533, y1: 0.5 }, { defaults: { type3PierDistanceRatio: 0.9 } });
+    const t3 = sizeJumpBasin(
+      'usbr-3',
+      { width: 10, Q: 88.57381102786533, y1: 0.5 },
+      { defaults: { type3PierDistanceRatio: 0.9 } },
+    );
     expectRel(t3.baffleBlocks!.distanceFromUpstream, 0.9 * 5.412375826453062, 1e-9);
   });
 });
@@ -273,7 +299,9 @@ describe('Type VI and Type IX sizing', () => {
     expectRel(s.wallHeight, 2.8253852748405364, 1e-9);
     expect(s.rows).toBe(6); // ⌈3·√5 / 1.884⌉ + 1 buried row [calc]
     expect(s.warnings).toHaveLength(0);
-    expect(sizeBaffledApron({ Q: 30, width: 5, drop: 3 }).warnings.some((w) => /5.60/.test(w))).toBe(true);
+    expect(
+      sizeBaffledApron({ Q: 30, width: 5, drop: 3 }).warnings.some((w) => /5.60/.test(w)),
+    ).toBe(true);
   });
 });
 
@@ -287,21 +315,35 @@ describe('properties (fast-check)', () => {
         fc.double({ min: 1.8, max: 16.9, noNaN: true }),
         (type, W, y1, fr) => {
           const s = sizeJumpBasin(type, { width: W, Q: qFor(W, y1, fr), y1 });
-          for (const x of [s.fr1, s.y2, s.requiredTailwaterDepth, s.length, s.freeboard, s.wallHeight]) {
+          for (const x of [
+            s.fr1,
+            s.y2,
+            s.requiredTailwaterDepth,
+            s.length,
+            s.freeboard,
+            s.wallHeight,
+          ]) {
             expect(Number.isFinite(x) && x > 0).toBe(true);
           }
-          expect(s.wallHeight).toBeGreaterThanOrEqual(s.requiredTailwaterDepth + s.freeboard - 1e-9);
+          expect(s.wallHeight).toBeGreaterThanOrEqual(
+            s.requiredTailwaterDepth + s.freeboard - 1e-9,
+          );
           for (const b of [s.chuteBlocks, s.baffleBlocks]) {
             if (!b) continue;
             expect(b.count).toBeGreaterThanOrEqual(1);
             expect(Number.isInteger(b.count)).toBe(true);
-            for (const c of b.centres) expect(Math.abs(c) + b.width / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
-            for (const x of [b.height, b.width, b.length]) expect(Number.isFinite(x) && x > 0).toBe(true);
+            for (const c of b.centres)
+              expect(Math.abs(c) + b.width / 2).toBeLessThanOrEqual(W / 2 + 1e-9);
+            for (const x of [b.height, b.width, b.length])
+              expect(Number.isFinite(x) && x > 0).toBe(true);
           }
-          if (s.chuteBlocks) expectRel(s.chuteBlocks.count * (s.chuteBlocks.width + s.chuteBlocks.spacing), W, 1e-9);
+          if (s.chuteBlocks)
+            expectRel(s.chuteBlocks.count * (s.chuteBlocks.width + s.chuteBlocks.spacing), W, 1e-9);
           if (s.baffleBlocks && s.chuteBlocks && fr >= 4.5) {
             expect(s.baffleBlocks.distanceFromUpstream).toBeGreaterThan(s.chuteBlocks.length);
-            expect(s.baffleBlocks.distanceFromUpstream + s.baffleBlocks.length).toBeLessThan(s.length - s.endSill.length);
+            expect(s.baffleBlocks.distanceFromUpstream + s.baffleBlocks.length).toBeLessThan(
+              s.length - s.endSill.length,
+            );
           }
         },
       ),

@@ -16,7 +16,9 @@ describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => 
   const r = designDissipators(DEMO);
 
   it('screens every catalogue type with a reason per criterion and a summary', () => {
-    expect(r.screening.map((s) => s.type).sort()).toEqual(DISSIPATOR_CATALOGUE.map((m) => m.id).sort());
+    expect(r.screening.map((s) => s.type).sort()).toEqual(
+      DISSIPATOR_CATALOGUE.map((m) => m.id).sort(),
+    );
     for (const s of r.screening) {
       expect(s.criteria.length).toBeGreaterThan(0);
       expect(s.summary).not.toBe('');
@@ -31,7 +33,11 @@ describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => 
       expect(s.criteria.find((c) => c.criterion === 'froude')!.status).toBe('fail');
     }
     // Type III is also cautioned on velocity: V1 > 15 m/s at the design discharge [src: EM-25]
-    expect(r.screening.find((x) => x.type === 'usbr-3')!.criteria.find((c) => c.criterion === 'velocity')!.status).toBe('warn');
+    expect(
+      r.screening
+        .find((x) => x.type === 'usbr-3')!
+        .criteria.find((c) => c.criterion === 'velocity')!.status,
+    ).toBe('warn');
     // 85 m³/s is far above the 11 m³/s of Type VI [src: HEC-14]; q 7.1 m²/s above 5.6 for Type IX [src: DSD]
     expect(r.screening.find((x) => x.type === 'usbr-6')!.verdict).toBe('unsuitable');
     expect(r.screening.find((x) => x.type === 'usbr-9')!.verdict).toBe('unsuitable');
@@ -59,8 +65,11 @@ describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => 
     // the solved floor leaves no margin beyond C at the governing discharge, and the design says
     // so in plain words, with the way to get one [engineering judgement: a rating is uncertain]
     const sweep = d.warnings.find((w) => w.startsWith('Sweep-out margin'));
-    expect(sweep).toBe(`Sweep-out margin: at 85.0 m³/s the tailwater just meets the required ${gov.requiredDepth.toFixed(2)} m (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin`);
-    const deeper = runStudy({ ...DEMO, dissipators: { ...DEMO.dissipators, extraFloorDepth: 0.6 } }).design!.design as JumpBasinDesign;
+    expect(sweep).toBe(
+      `Sweep-out margin: at 85.0 m³/s the tailwater just meets the required ${gov.requiredDepth.toFixed(2)} m (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin`,
+    );
+    const deeper = runStudy({ ...DEMO, dissipators: { ...DEMO.dissipators, extraFloorDepth: 0.6 } })
+      .design!.design as JumpBasinDesign;
     expectRel(deeper.floorElevation, d.floorElevation - 0.6, 1e-9);
     // 0.6 m deeper leaves more than the 5 % of y2 the warning asks for [threshold: common practice, no source]
     expect(Math.min(...deeper.rows.map((x) => x.margin / x.y2))).toBeGreaterThan(0.05);
@@ -80,12 +89,17 @@ describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => 
   it('the design carries its cautions and visible assumptions (from-memory defaults marked)', () => {
     const d = r.design!.design as JumpBasinDesign;
     expect(d.warnings.some((w) => /cavitation/i.test(w))).toBe(true);
-    expect(d.assumptions.some((a) => a.confidence === 'mem' && a.key === 'tailwaterFactorType2')).toBe(true);
+    expect(
+      d.assumptions.some((a) => a.confidence === 'mem' && a.key === 'tailwaterFactorType2'),
+    ).toBe(true);
     expect(d.sources.some((s) => /from memory|\[mem/.test(s))).toBe(true);
   });
 
   it('the user may choose another type and override a from-memory default', () => {
-    const r2 = designDissipators(DEMO, { chosenType: 'usbr-1', defaults: { tailwaterFactorType2: 1.1 } });
+    const r2 = designDissipators(DEMO, {
+      chosenType: 'usbr-1',
+      defaults: { tailwaterFactorType2: 1.1 },
+    });
     expect(r2.chosen).toBe('usbr-1');
     expect(r2.design?.type).toBe('usbr-1');
     expect(r2.floors['usbr-2']!.elevation).toBeLessThan(r.floors['usbr-2']!.elevation);

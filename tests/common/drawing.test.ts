@@ -1,7 +1,26 @@
 // Drawing geometry invariants and the shared SVG renderer.
 import { describe, expect, it } from 'vitest';
-import { buildBasinDrawing, designDissipators, designJumpBasin, drawingToSvg, drawingView, formatSI, freeboard, type DesignRow, type Drawing, type JumpBasinDesign, type PolylineItem } from '../../common/src/basins';
-import { boxesOverlap, layoutDrawing, scaleBarLength, textBox, type Box, type DrawingFormatter } from '../../common/src/basins/svg';
+import {
+  buildBasinDrawing,
+  designDissipators,
+  designJumpBasin,
+  drawingToSvg,
+  drawingView,
+  formatSI,
+  freeboard,
+  type DesignRow,
+  type Drawing,
+  type JumpBasinDesign,
+  type PolylineItem,
+} from '../../common/src/basins';
+import {
+  boxesOverlap,
+  layoutDrawing,
+  scaleBarLength,
+  textBox,
+  type Box,
+  type DrawingFormatter,
+} from '../../common/src/basins/svg';
 import type { DrawingQuantity } from '../../common/src/basins/drawing';
 import { runStudy, type StudyInput } from '../../common/src/study';
 import { toSI } from '../../common/src/units';
@@ -20,12 +39,23 @@ function rows(W: number, fr: number, v: number, floor: number): DesignRow[] {
     const fr1 = fr * (1.2 - 0.2 * k);
     const y1 = (v1 * v1) / (g * fr1 * fr1);
     const y2 = (y1 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1)) / 2;
-    return { Q: v1 * y1 * W, q: v1 * y1, y1, v1, fr1, y2, tailwaterDepth: 1.05 * y2, tailwaterElevation: floor + 1.05 * y2 };
+    return {
+      Q: v1 * y1 * W,
+      q: v1 * y1,
+      y1,
+      v1,
+      fr1,
+      y2,
+      tailwaterDepth: 1.05 * y2,
+      tailwaterElevation: floor + 1.05 * y2,
+    };
   });
 }
 
 function polys(d: Drawing, view: 'plan' | 'section', role: string): PolylineItem[] {
-  return drawingView(d, view).items.filter((i): i is PolylineItem => i.kind === 'polyline' && i.role === role);
+  return drawingView(d, view).items.filter(
+    (i): i is PolylineItem => i.kind === 'polyline' && i.role === role,
+  );
 }
 function xs(p: PolylineItem): [number, number] {
   return [Math.min(...p.points.map((q) => q.x)), Math.max(...p.points.map((q) => q.x))];
@@ -34,67 +64,114 @@ function xs(p: PolylineItem): [number, number] {
 function numbersOf(o: unknown, path = ''): Array<[string, number]> {
   if (typeof o === 'number') return [[path, o]];
   if (Array.isArray(o)) return o.flatMap((x, i) => numbersOf(x, `${path}[${i}]`));
-  if (o && typeof o === 'object') return Object.entries(o).flatMap(([k, x]) => numbersOf(x, path ? `${path}.${k}` : k));
+  if (o && typeof o === 'object')
+    return Object.entries(o).flatMap(([k, x]) => numbersOf(x, path ? `${path}.${k}` : k));
   return [];
 }
 
-describe.each(['usbr-2', 'usbr-3', 'saf', 'usbr-4', 'usbr-1'] as const)('%s design and drawing invariants', (type) => {
-  const fr = type === 'usbr-4' ? 3.5 : 7;
-  const d = designJumpBasin({ type, width: 10, floorElevation: 50, channelBedElevation: 52, designQ: 1e9, rows: rows(10, fr, 12, 50), governingQ: null });
-  const dr = buildBasinDrawing(d);
+describe.each(['usbr-2', 'usbr-3', 'saf', 'usbr-4', 'usbr-1'] as const)(
+  '%s design and drawing invariants',
+  (type) => {
+    const fr = type === 'usbr-4' ? 3.5 : 7;
+    const d = designJumpBasin({
+      type,
+      width: 10,
+      floorElevation: 50,
+      channelBedElevation: 52,
+      designQ: 1e9,
+      rows: rows(10, fr, 12, 50),
+      governingQ: null,
+    });
+    const dr = buildBasinDrawing(d);
 
-  it('all dimensions finite; the geometric ones positive', () => {
-    for (const [k, v] of numbersOf({ ...d, assumptions: [] })) expect(Number.isFinite(v), k).toBe(true);
-    for (const v of [d.length, d.width, d.walls.height, d.walls.thickness, d.slab.thickness, d.riprap.d50, d.riprap.length, d.riprap.thickness, d.wingwalls.length, d.cutoffs.downstream.depth]) expect(v).toBeGreaterThan(0);
-  });
-  it('blocks fit inside the width (plan) and counts are whole numbers', () => {
-    for (const role of ['chute-block', 'baffle-pier', 'floor-block', 'sill-tooth']) {
-      for (const p of polys(dr, 'plan', role)) for (const q of p.points) expect(Math.abs(q.y)).toBeLessThanOrEqual(d.width / 2 + 1e-9);
-    }
-    for (const b of [d.chuteBlocks, d.baffleBlocks]) if (b) expect(Number.isInteger(b.count)).toBe(true);
-    if (d.chuteBlocks) expect(polys(dr, 'plan', 'chute-block')).toHaveLength(d.chuteBlocks.count);
-  });
-  it('piers and floor blocks lie downstream of the chute blocks and upstream of the sill', () => {
-    const chute = polys(dr, 'section', 'chute-block')[0];
-    const sill = polys(dr, 'section', 'end-sill')[0];
-    for (const role of ['baffle-pier', 'floor-block']) {
-      for (const p of polys(dr, 'section', role)) {
-        if (chute) expect(xs(p)[0]).toBeGreaterThan(xs(chute)[1]);
-        if (sill) expect(xs(p)[1]).toBeLessThan(xs(sill)[0]);
+    it('all dimensions finite; the geometric ones positive', () => {
+      for (const [k, v] of numbersOf({ ...d, assumptions: [] }))
+        expect(Number.isFinite(v), k).toBe(true);
+      for (const v of [
+        d.length,
+        d.width,
+        d.walls.height,
+        d.walls.thickness,
+        d.slab.thickness,
+        d.riprap.d50,
+        d.riprap.length,
+        d.riprap.thickness,
+        d.wingwalls.length,
+        d.cutoffs.downstream.depth,
+      ])
+        expect(v).toBeGreaterThan(0);
+    });
+    it('blocks fit inside the width (plan) and counts are whole numbers', () => {
+      for (const role of ['chute-block', 'baffle-pier', 'floor-block', 'sill-tooth']) {
+        for (const p of polys(dr, 'plan', role))
+          for (const q of p.points) expect(Math.abs(q.y)).toBeLessThanOrEqual(d.width / 2 + 1e-9);
       }
-    }
-  });
-  it('wall top ≥ tailwater + freeboard at every discharge [freeboard from memory: DSD; SAF y2/3 from memory: Blaisdell]', () => {
-    for (const r of d.rows) {
-      const fb = type === 'saf' ? r.y2 / 3 : freeboard(r.v1, r.y2);
-      expect(d.walls.topElevation).toBeGreaterThanOrEqual(d.floorElevation + Math.max(r.tailwaterDepth, type === 'saf' ? 0 : r.y2) + fb - 1e-9);
-    }
-  });
-  it('dimension lines carry the true distances; the section length equals the basin length', () => {
-    for (const v of dr.views) {
-      for (const it of v.items) if (it.kind === 'dimension') expect(it.value).toBeCloseTo(Math.hypot(it.to.x - it.from.x, it.to.y - it.from.y), 9);
-    }
-    const len = drawingView(dr, 'section').items.find((i) => i.kind === 'dimension' && i.role === 'basin-length');
-    expect(len && len.kind === 'dimension' && len.value).toBeCloseTo(d.length, 9);
-    const wid = drawingView(dr, 'plan').items.find((i) => i.kind === 'dimension' && i.role === 'basin-width');
-    expect(wid && wid.kind === 'dimension' && wid.value).toBeCloseTo(10, 9);
-  });
-  it('the section shows the design water surface from y1 at the toe to the tailwater', () => {
-    const w = polys(dr, 'section', 'water-design')[0]!;
-    const atToe = w.points.find((p) => p.x === 0)!;
-    expect(atToe.y).toBeCloseTo(50 + d.water.y1, 9);
-    expect(w.points[w.points.length - 1]!.y).toBeCloseTo(d.water.tailwaterElevation, 9);
-  });
-});
+      for (const b of [d.chuteBlocks, d.baffleBlocks])
+        if (b) expect(Number.isInteger(b.count)).toBe(true);
+      if (d.chuteBlocks) expect(polys(dr, 'plan', 'chute-block')).toHaveLength(d.chuteBlocks.count);
+    });
+    it('piers and floor blocks lie downstream of the chute blocks and upstream of the sill', () => {
+      const chute = polys(dr, 'section', 'chute-block')[0];
+      const sill = polys(dr, 'section', 'end-sill')[0];
+      for (const role of ['baffle-pier', 'floor-block']) {
+        for (const p of polys(dr, 'section', role)) {
+          if (chute) expect(xs(p)[0]).toBeGreaterThan(xs(chute)[1]);
+          if (sill) expect(xs(p)[1]).toBeLessThan(xs(sill)[0]);
+        }
+      }
+    });
+    it('wall top ≥ tailwater + freeboard at every discharge [freeboard from memory: DSD; SAF y2/3 from memory: Blaisdell]', () => {
+      for (const r of d.rows) {
+        const fb = type === 'saf' ? r.y2 / 3 : freeboard(r.v1, r.y2);
+        expect(d.walls.topElevation).toBeGreaterThanOrEqual(
+          d.floorElevation + Math.max(r.tailwaterDepth, type === 'saf' ? 0 : r.y2) + fb - 1e-9,
+        );
+      }
+    });
+    it('dimension lines carry the true distances; the section length equals the basin length', () => {
+      for (const v of dr.views) {
+        for (const it of v.items)
+          if (it.kind === 'dimension')
+            expect(it.value).toBeCloseTo(Math.hypot(it.to.x - it.from.x, it.to.y - it.from.y), 9);
+      }
+      const len = drawingView(dr, 'section').items.find(
+        (i) => i.kind === 'dimension' && i.role === 'basin-length',
+      );
+      expect(len && len.kind === 'dimension' && len.value).toBeCloseTo(d.length, 9);
+      const wid = drawingView(dr, 'plan').items.find(
+        (i) => i.kind === 'dimension' && i.role === 'basin-width',
+      );
+      expect(wid && wid.kind === 'dimension' && wid.value).toBeCloseTo(10, 9);
+    });
+    it('the section shows the design water surface from y1 at the toe to the tailwater', () => {
+      const w = polys(dr, 'section', 'water-design')[0]!;
+      const atToe = w.points.find((p) => p.x === 0)!;
+      expect(atToe.y).toBeCloseTo(50 + d.water.y1, 9);
+      expect(w.points[w.points.length - 1]!.y).toBeCloseTo(d.water.tailwaterElevation, 9);
+    });
+  },
+);
 
 describe('flare limited by the jet spread tanθ = 1/(3·Fr) [src: HEC-14]', () => {
   it('a 4 m outlet into a 10 m basin at Fr up to 8.4 needs (10 − 4)/2 · 3·Fr of flare', () => {
     const r = rows(10, 7, 12, 50);
-    const d = designJumpBasin({ type: 'usbr-2', width: 10, floorElevation: 50, channelBedElevation: 50, designQ: 1e9, rows: r, inflowWidth: 4 });
+    const d = designJumpBasin({
+      type: 'usbr-2',
+      width: 10,
+      floorElevation: 50,
+      channelBedElevation: 50,
+      designQ: 1e9,
+      rows: r,
+      inflowWidth: 4,
+    });
     const frMax = Math.max(...r.map((x) => x.fr1));
     expect(d.flare!.tanTheta).toBeCloseTo(1 / (3 * frMax), 12);
     expect(d.flare!.length).toBeCloseTo(3 * 3 * frMax, 9);
-    expect(polys(buildBasinDrawing(d), 'plan', 'wall')[0]!.points.some((p) => Math.abs(p.x + d.flare!.length) < 1e-9)).toBe(true);
+    expect(
+      polys(buildBasinDrawing(d), 'plan', 'wall')[0]!.points.some(
+        (p) => Math.abs(p.x + d.flare!.length) < 1e-9,
+      ),
+    ).toBe(true);
   });
 });
 
@@ -113,7 +190,15 @@ describe('drawingToSvg', () => {
     expect(svg).toContain(`${len.toFixed(2)} m`);
   });
   it('labels go through the caller’s formatter (US users see feet)', () => {
-    const ft = drawingToSvg(drawing, { format: (v, q) => (q === 'count' ? String(v) : q === 'discharge' ? `${(v / 0.028316846592).toFixed(0)} cfs` : `${(v / 0.3048).toFixed(1)} ft`), scaleUnit: { label: 'ft', metres: 0.3048 } });
+    const ft = drawingToSvg(drawing, {
+      format: (v, q) =>
+        q === 'count'
+          ? String(v)
+          : q === 'discharge'
+            ? `${(v / 0.028316846592).toFixed(0)} cfs`
+            : `${(v / 0.3048).toFixed(1)} ft`,
+      scaleUnit: { label: 'ft', metres: 0.3048 },
+    });
     const len = (demo.design!.design as JumpBasinDesign).length;
     expect(ft).toContain(`${(len / 0.3048).toFixed(1)} ft`);
     expect(ft).toContain('cfs');
@@ -126,7 +211,9 @@ describe('drawingToSvg', () => {
   });
   it('draws a north arrow when a bearing is given', () => {
     const d = buildBasinDrawing(demo.design!.design, { flowBearingDeg: 90 });
-    expect(drawingView(d, 'plan').items.some((i) => i.kind === 'arrow' && i.role === 'north')).toBe(true);
+    expect(drawingView(d, 'plan').items.some((i) => i.kind === 'arrow' && i.role === 'north')).toBe(
+      true,
+    );
     expect(drawingToSvg(d)).toContain('arrow-north');
   });
 });
@@ -135,42 +222,91 @@ describe('drawingToSvg', () => {
 // seed/designs.ts) as the web app draws them: SI in metres, US in feet.
 describe('drawing layout at the rendered size', () => {
   const FT = 0.3048; // international foot, exact by definition [src: NIST SP 811]
-  const feet: DrawingFormatter = (v, q) => (q === 'count' ? String(Math.round(v)) : q === 'discharge' ? `${(v / FT ** 3).toFixed(1)} cfs` : `${(v / FT).toFixed(2)} ft`);
+  const feet: DrawingFormatter = (v, q) =>
+    q === 'count'
+      ? String(Math.round(v))
+      : q === 'discharge'
+        ? `${(v / FT ** 3).toFixed(1)} cfs`
+        : `${(v / FT).toFixed(2)} ft`;
   const demos = [
-    { name: 'Fenwick (SI)', input: fenwickDesign, format: formatSI, unit: { label: 'm', metres: 1 } },
-    { name: 'Caldwell (US)', input: toSI(caldwellDesign), format: feet, unit: { label: 'ft', metres: FT } },
+    {
+      name: 'Fenwick (SI)',
+      input: fenwickDesign,
+      format: formatSI,
+      unit: { label: 'm', metres: 1 },
+    },
+    {
+      name: 'Caldwell (US)',
+      input: toSI(caldwellDesign),
+      format: feet,
+      unit: { label: 'ft', metres: FT },
+    },
   ];
   const jumpTypes = (['usbr-2', 'usbr-3', 'saf', 'usbr-4', 'usbr-1'] as const).map((type) => {
     const fr = type === 'usbr-4' ? 3.5 : 7;
-    return { name: type, drawing: buildBasinDrawing(designJumpBasin({ type, width: 4, floorElevation: 50, channelBedElevation: 52, designQ: 1e9, rows: rows(4, fr, 9, 50), governingQ: null })) };
+    return {
+      name: type,
+      drawing: buildBasinDrawing(
+        designJumpBasin({
+          type,
+          width: 4,
+          floorElevation: 50,
+          channelBedElevation: 52,
+          designQ: 1e9,
+          rows: rows(4, fr, 9, 50),
+          governingQ: null,
+        }),
+      ),
+    };
   });
-  const sheets = [...demos.map((d) => ({ name: d.name, drawing: runStudy(d.input).design!.drawing, format: d.format, unit: d.unit })), ...jumpTypes.map((j) => ({ ...j, format: formatSI, unit: { label: 'm', metres: 1 } }))];
+  const sheets = [
+    ...demos.map((d) => ({
+      name: d.name,
+      drawing: runStudy(d.input).design!.drawing,
+      format: d.format,
+      unit: d.unit,
+    })),
+    ...jumpTypes.map((j) => ({ ...j, format: formatSI, unit: { label: 'm', metres: 1 } })),
+  ];
 
   describe.each(sheets)('$name', ({ drawing, format, unit }) => {
-    it.each([760, 1100])('no two text boxes overlap at %i px (boxes from the layout’s own text-width estimate)', (width) => {
-      const lay = layoutDrawing(drawing, { format, width });
-      for (const { layout } of lay.views) {
-        // each label's box recomputed from its text, size, baseline and anchor
-        const boxes: Array<[string, Box]> = layout.labels.map((l) => [`label ${l.role}`, textBox(l.text, l.size, l.x, l.y, l.anchor)]);
-        for (const d of layout.dimensions) boxes.push([`dimension ${d.role}`, d.box]);
-        layout.arrowBoxes.forEach((b, i) => boxes.push([`arrow ${i}`, b]));
-        expect(layout.labels.length + layout.dimensions.length).toBeGreaterThan(0);
-        for (let i = 0; i < boxes.length; i++) {
-          for (let j = i + 1; j < boxes.length; j++) {
-            const [na, a] = boxes[i]!, [nb, b] = boxes[j]!;
-            expect(boxesOverlap(a, b), `${layout.view.id}: ${na} overlaps ${nb}`).toBe(false);
+    it.each([760, 1100])(
+      'no two text boxes overlap at %i px (boxes from the layout’s own text-width estimate)',
+      (width) => {
+        const lay = layoutDrawing(drawing, { format, width });
+        for (const { layout } of lay.views) {
+          // each label's box recomputed from its text, size, baseline and anchor
+          const boxes: Array<[string, Box]> = layout.labels.map((l) => [
+            `label ${l.role}`,
+            textBox(l.text, l.size, l.x, l.y, l.anchor),
+          ]);
+          for (const d of layout.dimensions) boxes.push([`dimension ${d.role}`, d.box]);
+          layout.arrowBoxes.forEach((b, i) => boxes.push([`arrow ${i}`, b]));
+          expect(layout.labels.length + layout.dimensions.length).toBeGreaterThan(0);
+          for (let i = 0; i < boxes.length; i++) {
+            for (let j = i + 1; j < boxes.length; j++) {
+              const [na, a] = boxes[i]!,
+                [nb, b] = boxes[j]!;
+              expect(boxesOverlap(a, b), `${layout.view.id}: ${na} overlaps ${nb}`).toBe(false);
+            }
           }
         }
-      }
-    });
+      },
+    );
     it('the scale bar is a round length (1, 2 or 5 × 10ⁿ) in the chosen unit [common practice]', () => {
       const svg = drawingToSvg(drawing, { format, width: 1100, scaleUnit: unit });
-      const m = /data-role="scale-bar" data-length="([\d.e-]+)" data-unit="([^"]+)" data-length-px="([\d.]+)"/.exec(svg);
+      const m =
+        /data-role="scale-bar" data-length="([\d.e-]+)" data-unit="([^"]+)" data-length-px="([\d.]+)"/.exec(
+          svg,
+        );
       expect(m).not.toBeNull();
       const len = Number(m![1]);
       expect(m![2]).toBe(unit.label);
       const mant = len / Math.pow(10, Math.floor(Math.log10(len) + 1e-9));
-      expect([1, 2, 5].some((k) => Math.abs(mant - k) < 1e-9), `scale bar ${len} ${unit.label}`).toBe(true);
+      expect(
+        [1, 2, 5].some((k) => Math.abs(mant - k) < 1e-9),
+        `scale bar ${len} ${unit.label}`,
+      ).toBe(true);
       // the bar is drawn to the sheet's scale: its px length is its true length times px per metre
       const scale = Number(/data-scale-px-per-m="([\d.]+)"/.exec(svg)![1]);
       expectRel(Number(m![3]), len * unit.metres * scale, 0.01);
@@ -192,46 +328,55 @@ describe('drawing layout at the rendered size', () => {
     expect(() => scaleBarLength(0)).toThrow(RangeError);
   });
 
-  it.each(demos)('$name: every dimension is positive and equals the design value it names', ({ input }) => {
-    const out = runStudy(input).design!;
-    const d = out.design as JumpBasinDesign;
-    expect(d.family).toBe('jump-basin');
-    const want: Record<string, number> = {
-      'basin-length': d.length,
-      'basin-width': d.width,
-      'wall-height': d.walls.height,
-      'riprap-length': d.riprap.length,
-      ...(d.endSill.height > 0 ? { 'sill-height': d.endSill.height } : {}),
-      ...(d.flare ? { 'flare-length': d.flare.length } : {}),
-      ...(d.baffleBlocks ? { 'baffle-distance': d.baffleBlocks.distanceFromUpstream } : {}),
-    };
-    const seen = new Set<string>();
-    for (const v of out.drawing.views) {
-      for (const it of v.items) {
-        if (it.kind !== 'dimension') continue;
-        expect(it.value, it.role).toBeGreaterThan(0);
-        const w = want[it.role];
-        expect(w, `dimension ${it.role} names a design value`).toBeDefined();
-        expectRel(it.value, w!, 1e-9);
-        seen.add(it.role);
+  it.each(demos)(
+    '$name: every dimension is positive and equals the design value it names',
+    ({ input }) => {
+      const out = runStudy(input).design!;
+      const d = out.design as JumpBasinDesign;
+      expect(d.family).toBe('jump-basin');
+      const want: Record<string, number> = {
+        'basin-length': d.length,
+        'basin-width': d.width,
+        'wall-height': d.walls.height,
+        'riprap-length': d.riprap.length,
+        ...(d.endSill.height > 0 ? { 'sill-height': d.endSill.height } : {}),
+        ...(d.flare ? { 'flare-length': d.flare.length } : {}),
+        ...(d.baffleBlocks ? { 'baffle-distance': d.baffleBlocks.distanceFromUpstream } : {}),
+      };
+      const seen = new Set<string>();
+      for (const v of out.drawing.views) {
+        for (const it of v.items) {
+          if (it.kind !== 'dimension') continue;
+          expect(it.value, it.role).toBeGreaterThan(0);
+          const w = want[it.role];
+          expect(w, `dimension ${it.role} names a design value`).toBeDefined();
+          expectRel(it.value, w!, 1e-9);
+          seen.add(it.role);
+        }
       }
-    }
-    for (const role of ['basin-length', 'basin-width', 'wall-height', 'riprap-length']) expect(seen.has(role), role).toBe(true);
-    if (d.endSill.height > 0) expect(seen.has('sill-height')).toBe(true);
-    // elevations and block call-outs carry the design's own numbers
-    const section = drawingView(out.drawing, 'section').items.filter((i) => i.kind === 'label');
-    const plan = drawingView(out.drawing, 'plan').items.filter((i) => i.kind === 'label');
-    const valueOf = (items: typeof section, role: string, k = 0): number => {
-      const l = items.find((i) => i.role === role);
-      const parts = l && l.kind === 'label' ? l.parts.filter((p): p is { value: number; quantity: DrawingQuantity } => typeof p !== 'string') : [];
-      return parts[k]!.value;
-    };
-    expectRel(valueOf(section, 'floor-elevation'), d.floorElevation, 1e-12);
-    expectRel(valueOf(section, 'wall-top-elevation'), d.walls.topElevation, 1e-12);
-    if (d.chuteBlocks) {
-      expect(valueOf(plan, 'chute-blocks', 0)).toBe(d.chuteBlocks.count);
-      expectRel(valueOf(plan, 'chute-blocks', 1), d.chuteBlocks.height, 1e-12);
-    }
-    if (d.baffleBlocks) expect(valueOf(plan, 'baffle-blocks', 0)).toBe(d.baffleBlocks.count);
-  });
+      for (const role of ['basin-length', 'basin-width', 'wall-height', 'riprap-length'])
+        expect(seen.has(role), role).toBe(true);
+      if (d.endSill.height > 0) expect(seen.has('sill-height')).toBe(true);
+      // elevations and block call-outs carry the design's own numbers
+      const section = drawingView(out.drawing, 'section').items.filter((i) => i.kind === 'label');
+      const plan = drawingView(out.drawing, 'plan').items.filter((i) => i.kind === 'label');
+      const valueOf = (items: typeof section, role: string, k = 0): number => {
+        const l = items.find((i) => i.role === role);
+        const parts =
+          l && l.kind === 'label'
+            ? l.parts.filter(
+                (p): p is { value: number; quantity: DrawingQuantity } => typeof p !== 'string',
+              )
+            : [];
+        return parts[k]!.value;
+      };
+      expectRel(valueOf(section, 'floor-elevation'), d.floorElevation, 1e-12);
+      expectRel(valueOf(section, 'wall-top-elevation'), d.walls.topElevation, 1e-12);
+      if (d.chuteBlocks) {
+        expect(valueOf(plan, 'chute-blocks', 0)).toBe(d.chuteBlocks.count);
+        expectRel(valueOf(plan, 'chute-blocks', 1), d.chuteBlocks.height, 1e-12);
+      }
+      if (d.baffleBlocks) expect(valueOf(plan, 'baffle-blocks', 0)).toBe(d.baffleBlocks.count);
+    },
+  );
 });

@@ -8,7 +8,6 @@ import { G, jumpToeDistance, locateJump, type Section } from '@basinwright/commo
 import { expectRel } from '../support/tolerance';
 import { M, bisect, conj, critical, normal, rk4Until, type Chan } from '../support/gvf-reference';
 
-
 const rect3: Section = { shape: 'rectangular', width: 3 };
 const chan = (S0: number, n = 0.014, Q = 6): Chan => ({ b: 3, z: 0, n, S0, Q });
 

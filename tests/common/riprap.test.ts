@@ -1,6 +1,14 @@
 // Exit protection and slab flotation. Sources beside each check.
 import { describe, expect, it } from 'vitest';
-import { APRON_CLASSES, culvertApronStoneSize, designCulvertApron, isbashStoneSize, riprapBelowSill, slabFlotation, velocityStoneSize } from '../../common/src/basins';
+import {
+  APRON_CLASSES,
+  culvertApronStoneSize,
+  designCulvertApron,
+  isbashStoneSize,
+  riprapBelowSill,
+  slabFlotation,
+  velocityStoneSize,
+} from '../../common/src/basins';
 import { expectRel } from '../support/tolerance';
 
 describe('riprap stone', () => {
@@ -52,7 +60,12 @@ describe('riprap stone', () => {
 
 describe('slab flotation (statics; safety factor 1.3 usual loading from memory: USACE)', () => {
   it('slab alone, 2 m uplift head: t ≥ 1.3·9.81·2/(23.5 − 1.3·9.81) = 2.3733 m → 2.40 m, factor 1.3066 [calc]', () => {
-    const r = slabFlotation({ floorElevation: 100, upliftElevation: 102, width: 10, monolithic: false });
+    const r = slabFlotation({
+      floorElevation: 100,
+      upliftElevation: 102,
+      width: 10,
+      monolithic: false,
+    });
     expectRel(r.requiredThickness, 2.373313482832419, 1e-9);
     expect(r.thickness).toBeCloseTo(2.4, 9);
     expectRel(r.safetyFactorAchieved!, 1.3066444259104806, 1e-9);
@@ -60,7 +73,13 @@ describe('slab flotation (statics; safety factor 1.3 usual loading from memory: 
     expect(r.notes.some((n) => /drains/.test(n))).toBe(true);
   });
   it('monolithic walls (0.5 × 5 m) help: t = 2.5660 m → 2.60 m, factor 1.3066 [calc]', () => {
-    const r = slabFlotation({ floorElevation: 0, upliftElevation: 3, width: 10, wallThickness: 0.5, wallHeight: 5 });
+    const r = slabFlotation({
+      floorElevation: 0,
+      upliftElevation: 3,
+      width: 10,
+      wallThickness: 0.5,
+      wallHeight: 5,
+    });
     expectRel(r.requiredThickness, 2.5660353417867148, 1e-9);
     expect(r.thickness).toBeCloseTo(2.6, 9);
     expectRel(r.safetyFactorAchieved!, 1.3066444259104808, 1e-9);
@@ -72,7 +91,11 @@ describe('slab flotation (statics; safety factor 1.3 usual loading from memory: 
     expect(r.safetyFactorAchieved).toBeNull();
   });
   it('an impossible factor is refused with a reason', () => {
-    expect(() => slabFlotation({ floorElevation: 0, upliftElevation: 2, width: 10, safetyFactor: 3 })).toThrow(/anchor/);
-    expect(() => slabFlotation({ floorElevation: Number.NaN, upliftElevation: 2, width: 10 })).toThrow(/floorElevation/);
+    expect(() =>
+      slabFlotation({ floorElevation: 0, upliftElevation: 2, width: 10, safetyFactor: 3 }),
+    ).toThrow(/anchor/);
+    expect(() =>
+      slabFlotation({ floorElevation: Number.NaN, upliftElevation: 2, width: 10 }),
+    ).toThrow(/floorElevation/);
   });
 });

@@ -346,10 +346,19 @@ describe('sweep-out distance on the basin floor', () => {
   it('equals the public jumpToeDistance (800-step direct step) on the horizontal floor', async () => {
     const { jumpToeDistance } = await import('@basinwright/common');
     const z = runStudy(demo).floor.elevation + 0.6;
-    const rows = analyseRange(demo, z, 1).filter((r) => r.sweepOutDistance !== null && r.sweepOutDistance > 0);
+    const rows = analyseRange(demo, z, 1).filter(
+      (r) => r.sweepOutDistance !== null && r.sweepOutDistance > 0,
+    );
     expect(rows.length).toBeGreaterThan(0);
     for (const r of rows) {
-      const d = jumpToeDistance({ shape: 'rectangular', width: 12 }, r.Q, 0.014, 0, r.y1, r.tailwaterDepth);
+      const d = jumpToeDistance(
+        { shape: 'rectangular', width: 12 },
+        r.Q,
+        0.014,
+        0,
+        r.y1,
+        r.tailwaterDepth,
+      );
       expectRel(r.sweepOutDistance!, d, 1e-5);
     }
   });

@@ -91,14 +91,23 @@ describe('units', () => {
 describe('engine messages in the project units (phraseMessage)', () => {
   // 1 ft = 0.3048 m exactly, so 1 ft³/s = 0.028316846592 m³/s and 1 yd³ = 0.764554857984 m³ [NIST SP 811]
   it('puts each SI quantity of a sentence in US customary', () => {
-    expect(phraseMessage('floorElevation 121.92 m lies above the outlet’s energy line', 'US')).toBe('floorElevation 400 ft lies above the outlet’s energy line');
-    expect(phraseMessage('y1 0.3048 m is not supercritical at Q 2.8316846592 m³/s over 3.048 m', 'US')).toBe('y1 1 ft is not supercritical at Q 100 cfs over 10 ft');
-    expect(phraseMessage('V1 4.572 m/s, q 0.09290304 m²/s, 0.764554857984 m³ of stone', 'US')).toBe('V1 15 ft/s, q 1 ft²/s, 1 yd³ of stone');
+    expect(phraseMessage('floorElevation 121.92 m lies above the outlet’s energy line', 'US')).toBe(
+      'floorElevation 400 ft lies above the outlet’s energy line',
+    );
+    expect(
+      phraseMessage('y1 0.3048 m is not supercritical at Q 2.8316846592 m³/s over 3.048 m', 'US'),
+    ).toBe('y1 1 ft is not supercritical at Q 100 cfs over 10 ft');
+    expect(phraseMessage('V1 4.572 m/s, q 0.09290304 m²/s, 0.764554857984 m³ of stone', 'US')).toBe(
+      'V1 15 ft/s, q 1 ft²/s, 1 yd³ of stone',
+    );
     expect(phraseMessage('a drop of -0.6096 m.', 'US')).toBe('a drop of -2 ft.');
   });
   it('leaves numbers without a length unit, other words and SI messages alone', () => {
-    const text = 'inflow.toe: Fr1 = 0.167 is not supercritical; 8 members; 5 mm; y1 must be greater than zero (got 0)';
+    const text =
+      'inflow.toe: Fr1 = 0.167 is not supercritical; 8 members; 5 mm; y1 must be greater than zero (got 0)';
     expect(phraseMessage(text, 'US')).toBe(text);
-    expect(phraseMessage('floorElevation 121.92 m lies above', 'SI')).toBe('floorElevation 121.92 m lies above');
+    expect(phraseMessage('floorElevation 121.92 m lies above', 'SI')).toBe(
+      'floorElevation 121.92 m lies above',
+    );
   });
 });

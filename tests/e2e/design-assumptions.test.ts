@@ -20,9 +20,13 @@ let pageErrors: string[] = [];
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `design-assumptions-${name}.png`), fullPage: true });
 }
-const freeboard = async (): Promise<number> => numberIn(await page.locator('[data-test="sizing-freeboard"]').textContent());
+const freeboard = async (): Promise<number> =>
+  numberIn(await page.locator('[data-test="sizing-freeboard"]').textContent());
 // ant-design-vue puts the data attribute on the <input> itself (or on its wrapper): take either.
-const numberBox = (key: string) => page.locator(`input[data-test="assumption-${key}"], [data-test="assumption-${key}"] input`).first();
+const numberBox = (key: string) =>
+  page
+    .locator(`input[data-test="assumption-${key}"], [data-test="assumption-${key}"] input`)
+    .first();
 const coefficient = () => numberBox('freeboardCoefficient');
 
 describe('design workspace: the assumptions behind the sizing', () => {
@@ -44,8 +48,12 @@ describe('design workspace: the assumptions behind the sizing', () => {
     await page.goto(`${designUrl}?step=sizing`);
     await page.locator('[data-test="sizing-freeboard"]').waitFor();
     await page.locator('[data-test="assumptions-table"]').waitFor();
-    expect(await page.locator('[data-test="assumptions-table"] tbody tr.ant-table-row').count()).toBeGreaterThan(60);
-    expect(await page.locator('[data-test="assumptions-table"]').textContent()).toContain('From memory — verify');
+    expect(
+      await page.locator('[data-test="assumptions-table"] tbody tr.ant-table-row').count(),
+    ).toBeGreaterThan(60);
+    expect(await page.locator('[data-test="assumptions-table"]').textContent()).toContain(
+      'From memory — verify',
+    );
     await expect.poll(() => coefficient().inputValue()).toBe('0.1');
   });
 
@@ -64,7 +72,9 @@ describe('design workspace: the assumptions behind the sizing', () => {
     const sill = numberBox('type2SillHeightRatio');
     await sill.fill('-1');
     await sill.blur();
-    const item = page.locator('.ant-form-item', { has: page.locator('[data-test="assumption-type2SillHeightRatio"]') });
+    const item = page.locator('.ant-form-item', {
+      has: page.locator('[data-test="assumption-type2SillHeightRatio"]'),
+    });
     await expect.poll(() => item.textContent()).toMatch(/must be a number not below zero/);
     await shot('2-refused');
     await page.locator('[data-test="assumption-reset-type2SillHeightRatio"]').click();

@@ -11,7 +11,8 @@ import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl } from '../support/e2
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const PROJECT = `Ashby Weir outlet ${Date.now().toString(36)}`; // invented
 // Invented rating for the starting values' channel (bed at 100 m, 5–50 m³/s).
-const GOOD_CSV = 'Q (m3/s),Tailwater elevation (m)\n5,100.6\n10,100.9\n20,101.4\n35,101.9\n50,102.4\n';
+const GOOD_CSV =
+  'Q (m3/s),Tailwater elevation (m)\n5,100.6\n10,100.9\n20,101.4\n35,101.9\n50,102.4\n';
 const BAD_CSV = 'Q,Tailwater elevation\n5,100.6\n10,abc\n-3,101\n20\n';
 
 let page: Page;
@@ -25,8 +26,14 @@ async function shot(name: string): Promise<void> {
 }
 
 async function goToStep(title: string): Promise<void> {
-  await page.locator('[data-test="design-steps"]').getByText(title, { exact: false }).first().click();
-  await expect.poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent()).toBe(title);
+  await page
+    .locator('[data-test="design-steps"]')
+    .getByText(title, { exact: false })
+    .first()
+    .click();
+  await expect
+    .poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent())
+    .toBe(title);
 }
 
 /** The tailwater rating table's cells, row by row, as the inputs show them. */
@@ -41,7 +48,9 @@ async function ratingRows(): Promise<string[][]> {
 }
 
 async function upload(name: string, text: string): Promise<void> {
-  await page.locator('[data-test="csv-tailwater.rows"]').setInputFiles({ name, mimeType: 'text/csv', buffer: Buffer.from(text, 'utf8') });
+  await page
+    .locator('[data-test="csv-tailwater.rows"]')
+    .setInputFiles({ name, mimeType: 'text/csv', buffer: Buffer.from(text, 'utf8') });
 }
 
 describe('a new SI project: starting values → sized basin → saved; tailwater from a CSV file', () => {
@@ -55,7 +64,10 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
     if (projectId && page) {
       await page.evaluate(async (id) => {
         const token = localStorage.getItem('basinwright.token');
-        await fetch(`/api/v1/projects/${id}`, { method: 'DELETE', headers: { Authorization: `Bearer ${token}` } });
+        await fetch(`/api/v1/projects/${id}`, {
+          method: 'DELETE',
+          headers: { Authorization: `Bearer ${token}` },
+        });
       }, projectId);
     }
     await browser?.close();
@@ -75,7 +87,9 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
     await page.waitForURL(/\/projects\/[^/]+\/design/);
     designUrl = page.url().split('?')[0]!;
     await page.locator('[data-test="starting-values"]').waitFor();
-    await expect.poll(() => page.getByLabel('Downstream channel bed elevation (m)').inputValue()).toBe('100');
+    await expect
+      .poll(() => page.getByLabel('Downstream channel bed elevation (m)').inputValue())
+      .toBe('100');
     await page.locator('[data-test="summary-floor"]').waitFor();
     await shot('1-starting-values');
   });
@@ -86,11 +100,17 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
     await goToStep('Jump check');
     const floor = await page.locator('[data-test="floor-elevation"]').textContent();
     expect(floor).toMatch(/^\d+\.\d{2} m$/);
-    expect(await page.locator('[data-test="free-jump-floor"]').textContent()).toMatch(/^\d+\.\d{2} m$/);
+    expect(await page.locator('[data-test="free-jump-floor"]').textContent()).toMatch(
+      /^\d+\.\d{2} m$/,
+    );
     await goToStep('Basin choice');
-    expect((await page.locator('[data-test="recommended-name"]').textContent())?.trim()).toMatch(/^(USBR Type|SAF)/);
+    expect((await page.locator('[data-test="recommended-name"]').textContent())?.trim()).toMatch(
+      /^(USBR Type|SAF)/,
+    );
     await goToStep('Sizing');
-    expect((await page.locator('[data-test="sizing-type"]').textContent())?.trim()).toMatch(/^(USBR Type|SAF)/);
+    expect((await page.locator('[data-test="sizing-type"]').textContent())?.trim()).toMatch(
+      /^(USBR Type|SAF)/,
+    );
     // the design floor on Sizing is the one the Jump check calls the design floor
     expect(await page.locator('[data-test="sizing-floor"]').textContent()).toBe(floor);
     expect(await page.locator('[data-test="sizing-width"]').textContent()).toBe('10.00 m');
@@ -100,7 +120,9 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
       expect(await svg.locator(`[data-role="dim-${role}"]`).count(), role).toBeGreaterThan(0);
     }
     // the scale bar is a round number of metres
-    expect(await svg.locator('[data-role="scale-bar"]').getAttribute('data-length')).toMatch(/^(1|2|5)0*$/);
+    expect(await svg.locator('[data-role="scale-bar"]').getAttribute('data-length')).toMatch(
+      /^(1|2|5)0*$/,
+    );
     await shot('2-sized');
     await page.locator('[data-test="save-design"]').click();
     await page.getByText('Design saved.').waitFor();
@@ -115,7 +137,13 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
     await page.getByText('A rating table (typed or CSV)').click();
     await page.locator('[data-test="table-tailwater.rows"]').waitFor();
     await upload('rating.csv', GOOD_CSV);
-    await expect.poll(ratingRows).toEqual([['5', '100.6'], ['10', '100.9'], ['20', '101.4'], ['35', '101.9'], ['50', '102.4']]);
+    await expect.poll(ratingRows).toEqual([
+      ['5', '100.6'],
+      ['10', '100.9'],
+      ['20', '101.4'],
+      ['35', '101.9'],
+      ['50', '102.4'],
+    ]);
     expect(await page.locator('[data-test="csv-errors"]').count()).toBe(0);
     await page.locator('[data-test="summary-floor"]').waitFor();
     await shot('4-csv-applied');
@@ -126,14 +154,26 @@ describe('a new SI project: starting values → sized basin → saved; tailwater
     const text = (await alert.textContent()) ?? '';
     expect(text).toContain('Nothing from broken.csv was applied');
     for (const row of ['Row 3', 'Row 4', 'Row 5']) expect(text).toContain(row);
-    expect(await ratingRows()).toEqual([['5', '100.6'], ['10', '100.9'], ['20', '101.4'], ['35', '101.9'], ['50', '102.4']]);
+    expect(await ratingRows()).toEqual([
+      ['5', '100.6'],
+      ['10', '100.9'],
+      ['20', '101.4'],
+      ['35', '101.9'],
+      ['50', '102.4'],
+    ]);
     await shot('5-csv-rejected');
 
     await page.keyboard.press('Control+s');
     await page.getByText('Design saved.').first().waitFor();
     await page.goto(`${designUrl}?step=flows`);
     await page.locator('[data-test="table-tailwater.rows"]').waitFor();
-    await expect.poll(ratingRows).toEqual([['5', '100.6'], ['10', '100.9'], ['20', '101.4'], ['35', '101.9'], ['50', '102.4']]);
+    await expect.poll(ratingRows).toEqual([
+      ['5', '100.6'],
+      ['10', '100.9'],
+      ['20', '101.4'],
+      ['35', '101.9'],
+      ['50', '102.4'],
+    ]);
   });
 
   it('raised no uncaught errors in the page', () => {

@@ -22,10 +22,15 @@ async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `design-${name}.png`), fullPage: true });
 }
 
-
 async function goToStep(title: string): Promise<void> {
-  await page.locator('[data-test="design-steps"]').getByText(title, { exact: false }).first().click();
-  await expect.poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent()).toBe(title);
+  await page
+    .locator('[data-test="design-steps"]')
+    .getByText(title, { exact: false })
+    .first()
+    .click();
+  await expect
+    .poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent())
+    .toBe(title);
 }
 
 describe('design workspace: the demo engineer checks, sizes and saves the demo design', () => {
@@ -57,11 +62,15 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
   it('walks Flows and Inflow with the demo values', async () => {
     await goToStep('Flows');
     await expect.poll(() => page.getByLabel('Design discharge (m³/s)').inputValue()).toBe('85');
-    await expect.poll(async () => Number(await page.getByLabel("Manning's n").inputValue())).toBe(0.03);
+    await expect
+      .poll(async () => Number(await page.getByLabel("Manning's n").inputValue()))
+      .toBe(0.03);
     await shot('2-flows');
     await goToStep('Inflow');
     await expect.poll(() => page.getByLabel('Crest elevation (m)').inputValue()).toBe('102');
-    await expect.poll(() => page.getByLabel('Weir coefficient C (m^½/s)').inputValue()).toBe('2.15');
+    await expect
+      .poll(() => page.getByLabel('Weir coefficient C (m^½/s)').inputValue())
+      .toBe('2.15');
     await shot('3-inflow');
   });
 
@@ -70,26 +79,41 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     const floor = numberIn(await page.locator('[data-test="floor-elevation"]').textContent());
     expect(floor).toBeLessThan(CHANNEL_BED);
     expect(await page.locator('[data-test="floor-elevation"]').textContent()).toContain('m');
-    expect(numberIn(await page.locator('[data-test="depth-below-bed"]').textContent())).toBeCloseTo(CHANNEL_BED - floor, 1);
+    expect(numberIn(await page.locator('[data-test="depth-below-bed"]').textContent())).toBeCloseTo(
+      CHANNEL_BED - floor,
+      1,
+    );
     // 17 discharges from 5 to 85 m³/s in the seeded input.
-    await expect.poll(() => page.locator('[data-test="range-table"] tbody tr.ant-table-row').count()).toBe(17);
+    await expect
+      .poll(() => page.locator('[data-test="range-table"] tbody tr.ant-table-row').count())
+      .toBe(17);
     const headers = await page.locator('[data-test="range-table"] thead th').allTextContents();
-    expect(headers).toEqual(expect.arrayContaining(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)']));
+    expect(headers).toEqual(
+      expect.arrayContaining(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)']),
+    );
     // Charts carry axis titles with units (SVG renderer: the titles are text in the page).
     await expect.poll(() => page.getByText('Discharge Q (m³/s)').count()).toBeGreaterThan(0);
     await expect.poll(() => page.getByText('Specific energy E (m)').count()).toBeGreaterThan(0);
     await expect.poll(() => page.getByText('Momentum function M (m³)').count()).toBeGreaterThan(0);
-    await expect.poll(() => page.locator('[data-test="cautions"]').textContent()).toContain('Concept level only');
+    await expect
+      .poll(() => page.locator('[data-test="cautions"]').textContent())
+      .toContain('Concept level only');
     designFloor = floor;
     await shot('4-jump-check');
   });
 
   it('the table downloads as a CSV file with a header and one line per discharge', async () => {
-    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-test="download-csv"]').click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-test="download-csv"]').click(),
+    ]);
     expect(download.suggestedFilename()).toBe('jump-check-design-floor.csv');
     const path = await download.path();
     const { readFile } = await import('node:fs/promises');
-    const lines = (await readFile(path, 'utf8')).replace(/^\uFEFF/, '').trim().split(/\r\n/);
+    const lines = (await readFile(path, 'utf8'))
+      .replace(/^\uFEFF/, '')
+      .trim()
+      .split(/\r\n/);
     // a comment naming the floor, the header, then the 17 discharges of the seeded input
     expect(lines[0]).toContain(`Floor elevation ${designFloor.toFixed(2)}`);
     expect(lines[1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
@@ -113,7 +137,9 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     const svg = page.locator('[data-test="design-drawing"] svg');
     await svg.waitFor();
     expect(await svg.locator('[data-role^="dim-"]').count()).toBeGreaterThan(3);
-    expect(await svg.locator('[data-role="dim-basin-length"] text').first().textContent()).toMatch(/^\d+\.\d{2} m$/);
+    expect(await svg.locator('[data-role="dim-basin-length"] text').first().textContent()).toMatch(
+      /^\d+\.\d{2} m$/,
+    );
     expect(numberIn(await page.locator('[data-test="sizing-width"]').textContent())).toBe(12);
     // the chosen basin first, beside at least one other sized type
     const alternatives = page.locator('[data-test="alternatives-table"] tbody tr.ant-table-row');
@@ -148,7 +174,13 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     const floor = page.locator('[data-test="project-design-summary"] [data-test="summary-floor"]');
     await floor.waitFor();
     expect(numberIn(await floor.textContent())).toBe(Number(designFloor.toFixed(2)));
-    await expect.poll(() => page.locator('[data-test="project-design-summary"] [data-test="design-drawing"] svg').count()).toBe(1);
+    await expect
+      .poll(() =>
+        page
+          .locator('[data-test="project-design-summary"] [data-test="design-drawing"] svg')
+          .count(),
+      )
+      .toBe(1);
     await shot('8-project-summary');
   });
 

@@ -33,7 +33,10 @@ function url(path: string): string {
 
 describe('foundation: sign up, create and find a project, sign in as the demo engineer', () => {
   beforeAll(async () => {
-    browser = await startBrowser('foundation', { viewport: { width: 1366, height: 860 }, timeoutMs: 15_000 });
+    browser = await startBrowser('foundation', {
+      viewport: { width: 1366, height: 860 },
+      timeoutMs: 15_000,
+    });
     ({ page, pageErrors } = browser);
   });
 
@@ -51,7 +54,9 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
     await page.getByRole('button', { name: 'Create account' }).click();
 
     await page.waitForURL(/\/projects$/);
-    await expect.poll(() => page.locator('[data-test="firm-name"]').textContent()).toBe(newFirm.firmName);
+    await expect
+      .poll(() => page.locator('[data-test="firm-name"]').textContent())
+      .toBe(newFirm.firmName);
     await page.locator('[data-test="empty-first-run"]').waitFor();
     await shot('02-signed-up-empty-list');
   });
@@ -68,7 +73,9 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
 
     await page.waitForURL(/\/projects\/(?!new)[^/]+$/);
     await expect.poll(() => page.locator('h1').textContent()).toContain(newProject);
-    await expect.poll(() => page.getByText('US customary', { exact: true }).count()).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByText('US customary', { exact: true }).count())
+      .toBeGreaterThan(0);
     await shot('04-project-created');
   });
 
@@ -106,7 +113,9 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
     await page.getByRole('button', { name: 'Sign in' }).click();
 
     await page.waitForURL(/\/projects$/);
-    await expect.poll(() => page.locator('[data-test="firm-name"]').textContent()).toBe('Harrow & Lune Engineering');
+    await expect
+      .poll(() => page.locator('[data-test="firm-name"]').textContent())
+      .toBe('Harrow & Lune Engineering');
     const demo = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
     await demo.waitFor();
     // The new firm's project belongs to another tenant and must not show here.

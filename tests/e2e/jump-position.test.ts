@@ -30,11 +30,17 @@ describe('where the jump forms: the demo engineer uses the jump position tool', 
     await expect.poll(distanceText).toMatch(/^[\d,]+\.\d{2} m$/);
     distanceSI = numberIn(await distanceText());
     expect(distanceSI).toBeGreaterThan(0);
-    await expect.poll(() => page.locator('[data-test="jump-sentence"]').textContent()).toContain('downstream of the slope break');
+    await expect
+      .poll(() => page.locator('[data-test="jump-sentence"]').textContent())
+      .toContain('downstream of the slope break');
     // The chart is SVG: its axis titles, with units, are text in the page.
     await expect.poll(() => page.getByText('Depth y (m)').count()).toBeGreaterThan(0);
-    await expect.poll(() => page.getByText('Distance x from the control, downstream positive (m)').count()).toBeGreaterThan(0);
-    await expect.poll(() => page.locator('[data-test="cautions"]').textContent()).toContain('Concept level only');
+    await expect
+      .poll(() => page.getByText('Distance x from the control, downstream positive (m)').count())
+      .toBeGreaterThan(0);
+    await expect
+      .poll(() => page.locator('[data-test="cautions"]').textContent())
+      .toContain('Concept level only');
     await browser!.shot('jump-position-1-opened');
   });
 
@@ -58,7 +64,9 @@ describe('where the jump forms: the demo engineer uses the jump position tool', 
     // 1 ft = 0.3048 m exactly (NIST SP 811); both figures are rounded to 0.01, and the inputs
     // were converted to four significant figures, which may move the distance by up to 0.5 %
     // [tolerance: engineering judgement; the exact figures are checked in tests/web].
-    expect(Math.abs(ft * 0.3048 - distanceSI)).toBeLessThanOrEqual(0.005 + 0.005 * 0.3048 + 0.005 * distanceSI);
+    expect(Math.abs(ft * 0.3048 - distanceSI)).toBeLessThanOrEqual(
+      0.005 + 0.005 * 0.3048 + 0.005 * distanceSI,
+    );
     await browser!.shot('jump-position-3-us-units');
   });
 
@@ -66,7 +74,9 @@ describe('where the jump forms: the demo engineer uses the jump position tool', 
     const slope = page.getByLabel('Upstream (steep) slope (rise/run)');
     await slope.fill('0.0001');
     await slope.blur();
-    await expect.poll(() => page.locator('[data-test="jump-error"]').textContent()).toContain('Upstream slope: the upstream reach is not steep');
+    await expect
+      .poll(() => page.locator('[data-test="jump-error"]').textContent())
+      .toContain('Upstream slope: the upstream reach is not steep');
     await browser!.shot('jump-position-4-refused');
     await slope.fill('0.05');
     await slope.blur();

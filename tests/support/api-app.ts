@@ -81,7 +81,10 @@ export interface ApiHarness {
  * closed after them (after `tearDown`). The object returned stands for the harness from the
  * first test on; reading it at module level, before the tests run, is an error.
  */
-export function apiForFile(setUp?: () => Promise<void>, tearDown?: () => Promise<void>): ApiHarness {
+export function apiForFile(
+  setUp?: () => Promise<void>,
+  tearDown?: () => Promise<void>,
+): ApiHarness {
   let current: ApiHarness | undefined;
   beforeAll(async () => {
     current = await startApi();
@@ -93,7 +96,8 @@ export function apiForFile(setUp?: () => Promise<void>, tearDown?: () => Promise
   });
   return new Proxy({} as ApiHarness, {
     get(_target, key) {
-      if (current === undefined) throw new Error('The API harness starts in beforeAll: use it inside hooks and tests.');
+      if (current === undefined)
+        throw new Error('The API harness starts in beforeAll: use it inside hooks and tests.');
       const value: unknown = Reflect.get(current, key);
       return typeof value === 'function' ? value.bind(current) : value;
     },

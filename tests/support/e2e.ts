@@ -75,7 +75,12 @@ export async function startBrowser(
 }
 
 /** Signs in through the sign-in page and waits for the project list. */
-export async function signIn(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+export async function signIn(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  password: string,
+): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);

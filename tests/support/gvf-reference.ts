@@ -19,10 +19,12 @@ export const A = (c: Chan, y: number): number => c.b * y + c.z * y * y;
 export const T = (c: Chan, y: number): number => c.b + 2 * c.z * y;
 export const P = (c: Chan, y: number): number => c.b + 2 * y * Math.sqrt(1 + c.z * c.z);
 /** friction slope by Manning, SI */
-export const Sf = (c: Chan, y: number): number => (c.n * c.Q) ** 2 / (A(c, y) ** 2 * (A(c, y) / P(c, y)) ** (4 / 3));
+export const Sf = (c: Chan, y: number): number =>
+  (c.n * c.Q) ** 2 / (A(c, y) ** 2 * (A(c, y) / P(c, y)) ** (4 / 3));
 export const Fr2 = (c: Chan, y: number): number => (c.Q * c.Q * T(c, y)) / (G * A(c, y) ** 3);
 /** momentum function per unit weight, m³ */
-export const M = (c: Chan, y: number): number => (c.Q * c.Q) / (G * A(c, y)) + (c.b * y * y) / 2 + (c.z * y ** 3) / 3;
+export const M = (c: Chan, y: number): number =>
+  (c.Q * c.Q) / (G * A(c, y)) + (c.b * y * y) / 2 + (c.z * y ** 3) / 3;
 export const dydx = (c: Chan, y: number): number => (c.S0 - Sf(c, y)) / (1 - Fr2(c, y));
 
 /** A root of f between a and b (f changes sign there), to the last bit by 200 halvings. */
@@ -37,13 +39,20 @@ export function bisect(f: (x: number) => number, a: number, b: number): number {
 }
 
 /** normal depth: Q = (1/n)·A·R^(2/3)·S0^(1/2) */
-export const normal = (c: Chan): number => bisect((y) => (1 / c.n) * A(c, y) * (A(c, y) / P(c, y)) ** (2 / 3) * Math.sqrt(c.S0) - c.Q, 1e-4, 50);
+export const normal = (c: Chan): number =>
+  bisect(
+    (y) => (1 / c.n) * A(c, y) * (A(c, y) / P(c, y)) ** (2 / 3) * Math.sqrt(c.S0) - c.Q,
+    1e-4,
+    50,
+  );
 /** critical depth: Fr = 1 */
 export const critical = (c: Chan): number => bisect((y) => Fr2(c, y) - 1, 1e-4, 50);
 /** the depth of equal momentum on the other side of critical */
 export function conj(c: Chan, y: number): number {
   const yc = critical(c);
-  return y < yc ? bisect((x) => M(c, x) - M(c, y), yc, 50) : bisect((x) => M(c, x) - M(c, y), 1e-5, yc);
+  return y < yc
+    ? bisect((x) => M(c, x) - M(c, y), yc, 50)
+    : bisect((x) => M(c, x) - M(c, y), 1e-5, yc);
 }
 
 /** RK4 in x from (0, y0), step h (its sign the direction), until stop(y) ≥ 0; linear in the last step. */

@@ -24,7 +24,10 @@ if (!('ResizeObserver' in window)) {
     disconnect(): void {}
   }
   Object.defineProperty(window, 'ResizeObserver', { value: ResizeObserverStandIn, writable: true });
-  Object.defineProperty(globalThis, 'ResizeObserver', { value: ResizeObserverStandIn, writable: true });
+  Object.defineProperty(globalThis, 'ResizeObserver', {
+    value: ResizeObserverStandIn,
+    writable: true,
+  });
 }
 
 // jsdom does not compute styles of pseudo-elements and logs "Not implemented" for them.

@@ -13,7 +13,6 @@ async function settle(): Promise<void> {
   await flushPromises();
 }
 
-
 beforeEach(() => {
   setActivePinia(createPinia());
   localStorage.clear();
@@ -28,7 +27,9 @@ describe('AccountPasswordForm', () => {
   it('checks the shared schema before sending (a new password under 8 characters)', async () => {
     const { calls } = stubApi({});
     const wrapper = mount(AccountPasswordForm, { attachTo: document.body });
-    await wrapper.find('[data-test="account-current-password"] input, input[autocomplete="current-password"]').setValue('whatever1');
+    await wrapper
+      .find('[data-test="account-current-password"] input, input[autocomplete="current-password"]')
+      .setValue('whatever1');
     await wrapper.find('input[autocomplete="new-password"]').setValue('short');
     await wrapper.find('form').trigger('submit');
     await settle();
@@ -41,7 +42,11 @@ describe('AccountPasswordForm', () => {
     stubApi({
       'POST /auth/change-password': {
         status: 422,
-        body: { code: 'validation_error', message: 'The current password is not right.', details: { currentPassword: 'The current password is not right.' } },
+        body: {
+          code: 'validation_error',
+          message: 'The current password is not right.',
+          details: { currentPassword: 'The current password is not right.' },
+        },
       },
     });
     const wrapper = mount(AccountPasswordForm, { attachTo: document.body });
@@ -56,14 +61,20 @@ describe('AccountPasswordForm', () => {
 
   it('on success the store carries the new token the server returned', async () => {
     const { calls } = stubApi({
-      'POST /auth/change-password': { status: 200, body: { token: 'new-token', user: demoUser('engineer'), firm: demoFirm } },
+      'POST /auth/change-password': {
+        status: 200,
+        body: { token: 'new-token', user: demoUser('engineer'), firm: demoFirm },
+      },
     });
     const wrapper = mount(AccountPasswordForm, { attachTo: document.body });
     await wrapper.find('input[autocomplete="current-password"]').setValue('my old password');
     await wrapper.find('input[autocomplete="new-password"]').setValue('a long new password');
     await wrapper.find('form').trigger('submit');
     await settle();
-    expect(JSON.parse(String(calls[0]?.init.body))).toEqual({ currentPassword: 'my old password', newPassword: 'a long new password' });
+    expect(JSON.parse(String(calls[0]?.init.body))).toEqual({
+      currentPassword: 'my old password',
+      newPassword: 'a long new password',
+    });
     expect(useAuthStore().token).toBe('new-token');
     expect(localStorage.getItem(TOKEN_KEY)).toBe('new-token');
     wrapper.unmount();
@@ -75,7 +86,10 @@ describe('AccountProfileForm', () => {
     const { calls } = stubApi({
       'PATCH /auth/me': (init) => ({
         status: 200,
-        body: { user: { ...demoUser('engineer'), name: JSON.parse(String(init.body)).name }, firm: demoFirm },
+        body: {
+          user: { ...demoUser('engineer'), name: JSON.parse(String(init.body)).name },
+          firm: demoFirm,
+        },
       }),
     });
     const wrapper = mount(AccountProfileForm, { attachTo: document.body });

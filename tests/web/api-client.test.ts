@@ -9,7 +9,11 @@ import {
 
 type FetchArgs = [input: string, init: RequestInit];
 
-function jsonResponse(status: number, body: unknown, headers: Record<string, string> = {}): Response {
+function jsonResponse(
+  status: number,
+  body: unknown,
+  headers: Record<string, string> = {},
+): Response {
   return new Response(JSON.stringify(body), {
     status,
     headers: { 'Content-Type': 'application/json', ...headers },
@@ -66,7 +70,9 @@ describe('request', () => {
 
   it('builds the query string and leaves out empty values', async () => {
     fetchMock.mockResolvedValue(jsonResponse(200, { items: [], total: 0, page: 2, pageSize: 20 }));
-    await request('/projects', { query: { search: 'mill pond', page: 2, sort: undefined, order: '' } });
+    await request('/projects', {
+      query: { search: 'mill pond', page: 2, sort: undefined, order: '' },
+    });
     expect(fetchMock.mock.calls[0]![0]).toBe('/api/v1/projects?search=mill+pond&page=2');
   });
 
@@ -87,13 +93,19 @@ describe('request', () => {
     expect(error.status).toBe(422);
     expect(error.code).toBe('validation_error');
     expect(error.message).toBe('Please correct the highlighted fields.');
-    expect(error.details).toEqual({ name: 'Enter a project name.', units: 'Choose SI or US customary units.' });
+    expect(error.details).toEqual({
+      name: 'Enter a project name.',
+      units: 'Choose SI or US customary units.',
+    });
     expect(error.isValidation).toBe(true);
   });
 
   it('keeps the code of a 403 plan limit', async () => {
     fetchMock.mockResolvedValue(
-      jsonResponse(403, { code: 'plan_limit', message: 'The Concept plan holds up to 3 projects.' }),
+      jsonResponse(403, {
+        code: 'plan_limit',
+        message: 'The Concept plan holds up to 3 projects.',
+      }),
     );
     const error = await caught(request('/projects', { method: 'POST', body: {} }));
     expect(error.status).toBe(403);
@@ -104,7 +116,11 @@ describe('request', () => {
 
   it('reads Retry-After on a 429', async () => {
     fetchMock.mockResolvedValue(
-      jsonResponse(429, { code: 'rate_limited', message: 'Too many attempts.' }, { 'Retry-After': '120' }),
+      jsonResponse(
+        429,
+        { code: 'rate_limited', message: 'Too many attempts.' },
+        { 'Retry-After': '120' },
+      ),
     );
     const error = await caught(request('/auth/login', { method: 'POST', body: {} }));
     expect(error.code).toBe('rate_limited');
@@ -131,7 +147,9 @@ describe('request', () => {
     const handler = vi.fn();
     setUnauthorizedHandler(handler);
     setTokenSource(() => 'expired');
-    fetchMock.mockResolvedValue(jsonResponse(401, { code: 'unauthorized', message: 'Please sign in again.' }));
+    fetchMock.mockResolvedValue(
+      jsonResponse(401, { code: 'unauthorized', message: 'Please sign in again.' }),
+    );
     const error = await caught(request('/projects'));
     expect(error.status).toBe(401);
     expect(handler).toHaveBeenCalledTimes(1);

@@ -23,7 +23,10 @@ describe('useAuthStore', () => {
 
   it('signs in: keeps the token in localStorage and sends it on later requests', async () => {
     const { calls } = stubApi({
-      'POST /auth/login': { status: 200, body: { token: 'tok-eng', user: demoUser('engineer'), firm: demoFirm } },
+      'POST /auth/login': {
+        status: 200,
+        body: { token: 'tok-eng', user: demoUser('engineer'), firm: demoFirm },
+      },
       'GET /projects': { status: 200, body: { items: [], total: 0, page: 1, pageSize: 20 } },
     });
     const auth = useAuthStore();
@@ -45,7 +48,10 @@ describe('useAuthStore', () => {
 
   it('leaves the session empty when sign-in fails', async () => {
     stubApi({
-      'POST /auth/login': { status: 401, body: { code: 'unauthorized', message: 'Incorrect e-mail or password.' } },
+      'POST /auth/login': {
+        status: 401,
+        body: { code: 'unauthorized', message: 'Incorrect e-mail or password.' },
+      },
     });
     const auth = useAuthStore();
     await expect(auth.signIn('x@example.com', 'wrong-password')).rejects.toBeInstanceOf(ApiError);
@@ -55,7 +61,9 @@ describe('useAuthStore', () => {
 
   it('restores a stored token and loads the person and firm once', async () => {
     localStorage.setItem(TOKEN_KEY, 'tok-kept');
-    const { calls } = stubApi({ 'GET /auth/me': { status: 200, body: { user: demoUser('viewer'), firm: demoFirm } } });
+    const { calls } = stubApi({
+      'GET /auth/me': { status: 200, body: { user: demoUser('viewer'), firm: demoFirm } },
+    });
     const auth = useAuthStore();
     expect(auth.isSignedIn).toBe(true);
     expect(auth.isLoaded).toBe(false);
@@ -67,7 +75,12 @@ describe('useAuthStore', () => {
 
   it('drops a stored token the server rejects', async () => {
     localStorage.setItem(TOKEN_KEY, 'tok-revoked');
-    stubApi({ 'GET /auth/me': { status: 401, body: { code: 'unauthorized', message: 'Please sign in again.' } } });
+    stubApi({
+      'GET /auth/me': {
+        status: 401,
+        body: { code: 'unauthorized', message: 'Please sign in again.' },
+      },
+    });
     const auth = useAuthStore();
     await expect(auth.ensureLoaded()).rejects.toBeInstanceOf(ApiError);
     expect(auth.isSignedIn).toBe(false);
@@ -76,7 +89,10 @@ describe('useAuthStore', () => {
 
   it('signs out locally even when the server call fails', async () => {
     stubApi({
-      'POST /auth/login': { status: 200, body: { token: 'tok-o', user: demoUser('owner'), firm: demoFirm } },
+      'POST /auth/login': {
+        status: 200,
+        body: { token: 'tok-o', user: demoUser('owner'), firm: demoFirm },
+      },
       'POST /auth/logout': { status: 500, body: { code: 'internal_error', message: 'Boom' } },
     });
     const auth = useAuthStore();
@@ -94,7 +110,12 @@ describe('useAuthStore', () => {
     ['estimator', { 'projects.create': false, 'members.list': false, 'invitations.create': false }],
     ['viewer', { 'projects.create': false, 'members.list': false, 'invitations.create': false }],
   ] as const)('applies the shared policy for a %s', async (role, expected) => {
-    stubApi({ 'POST /auth/login': { status: 200, body: { token: 't', user: demoUser(role), firm: demoFirm } } });
+    stubApi({
+      'POST /auth/login': {
+        status: 200,
+        body: { token: 't', user: demoUser(role), firm: demoFirm },
+      },
+    });
     const auth = useAuthStore();
     await auth.signIn(`${role}@harrow-lune.example`, 'basinwright-demo');
     for (const [action, allowed] of Object.entries(expected)) {

@@ -11,11 +11,16 @@ import { fenwickDesign } from '../../seed/designs';
 const result = runStudy(fenwickDesign);
 
 describe('Basin choice', () => {
-  const w = mount(DesignBasinChoiceStep, { props: { result, units: 'SI', chosenType: null, readOnly: false } });
-  const statuses = (type: string) => w.findAll(`[data-test="screening-${type}"] .crit-status`).map((x) => x.text());
+  const w = mount(DesignBasinChoiceStep, {
+    props: { result, units: 'SI', chosenType: null, readOnly: false },
+  });
+  const statuses = (type: string) =>
+    w.findAll(`[data-test="screening-${type}"] .crit-status`).map((x) => x.text());
 
   it('lists every catalogue type once, in rank order', () => {
-    const shown = w.findAll('[data-test^="screening-"]').map((x) => x.attributes('data-test')!.replace('screening-', ''));
+    const shown = w
+      .findAll('[data-test^="screening-"]')
+      .map((x) => x.attributes('data-test')!.replace('screening-', ''));
     expect([...shown].sort()).toEqual(DISSIPATOR_CATALOGUE.map((m) => m.id).sort());
     expect(shown).toEqual(result.screening.map((s) => s.type));
   });
@@ -26,7 +31,10 @@ describe('Basin choice', () => {
     for (const s of result.screening) {
       const words = statuses(s.type);
       expect(words).toHaveLength(s.criteria.length);
-      const allowed = s.family === 'jet' ? ['Indicates', 'Borderline', 'Not indicated'] : ['Meets', 'Caution', 'Fails'];
+      const allowed =
+        s.family === 'jet'
+          ? ['Indicates', 'Borderline', 'Not indicated']
+          : ['Meets', 'Caution', 'Fails'];
       for (const word of words) expect(allowed).toContain(word);
       // each word follows the engine's status for that criterion
       const expected = s.criteria.map((c) => allowed[['pass', 'warn', 'fail'].indexOf(c.status)]);

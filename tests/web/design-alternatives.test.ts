@@ -12,7 +12,9 @@ const result = runStudy(fenwickDesign);
 
 function tableRows(w: ReturnType<typeof mount>): Array<Record<string, string>> {
   const heads = w.findAll('thead th').map((th) => th.text());
-  return w.findAll('tbody tr.ant-table-row').map((tr) => Object.fromEntries(tr.findAll('td').map((td, i) => [heads[i] ?? '', td.text()])));
+  return w
+    .findAll('tbody tr.ant-table-row')
+    .map((tr) => Object.fromEntries(tr.findAll('td').map((td, i) => [heads[i] ?? '', td.text()])));
 }
 
 describe('the chosen basin beside the other sized types', () => {
@@ -26,7 +28,9 @@ describe('the chosen basin beside the other sized types', () => {
     entries.forEach((e, i) => {
       expect(rows[i]!['Type']).toContain(e.design.name);
       expect(rows[i]!['Length (m)']).toBe(e.design.length.toFixed(2));
-      expect(rows[i]!['Concrete (m³)']).toBe(Math.round(e.design.concrete.total).toLocaleString('en-GB'));
+      expect(rows[i]!['Concrete (m³)']).toBe(
+        Math.round(e.design.concrete.total).toLocaleString('en-GB'),
+      );
     });
     w.unmount();
   });
@@ -34,18 +38,23 @@ describe('the chosen basin beside the other sized types', () => {
   it('Type II (C = 1.05) sits lower than Type I (C = 1.00) and is shorter [relation: hydraulics.md §3; lengths from memory: EM-25]', () => {
     const t2 = [result.design!, ...result.alternatives].find((e) => e.type === 'usbr-2')!.design;
     const t1 = result.alternatives.find((e) => e.type === 'usbr-1')!.design;
-    if (t2.family !== 'jump-basin' || t1.family !== 'jump-basin') throw new Error('both are jump basins');
+    if (t2.family !== 'jump-basin' || t1.family !== 'jump-basin')
+      throw new Error('both are jump basins');
     expect(t2.floorElevation).toBeLessThan(t1.floorElevation);
     expect(t2.length).toBeLessThan(t1.length);
     const w = mount(DesignAlternativesTable, { props: { result, units: 'SI' } });
     const rows = tableRows(w);
     const byName = (n: string) => rows.find((r) => r['Type']!.includes(n))!;
-    expect(Number(byName(t2.name)['Floor elevation (m)'])).toBeLessThan(Number(byName(t1.name)['Floor elevation (m)']));
+    expect(Number(byName(t2.name)['Floor elevation (m)'])).toBeLessThan(
+      Number(byName(t1.name)['Floor elevation (m)']),
+    );
     w.unmount();
   });
 
   it('is not shown when only one type is sized', () => {
-    const w = mount(DesignAlternativesTable, { props: { result: { ...result, alternatives: [] }, units: 'SI' } });
+    const w = mount(DesignAlternativesTable, {
+      props: { result: { ...result, alternatives: [] }, units: 'SI' },
+    });
     expect(w.find('[data-test="alternatives"]').exists()).toBe(false);
     w.unmount();
   });

@@ -5,7 +5,13 @@
 import { describe, expect, it } from 'vitest';
 import { nextTick } from 'vue';
 import { mount } from '@vue/test-utils';
-import { BASIN_DEFAULTS, toSI, type JumpBasinDesign, type StudyInput, type StudyResult } from '@basinwright/common';
+import {
+  BASIN_DEFAULTS,
+  toSI,
+  type JumpBasinDesign,
+  type StudyInput,
+  type StudyResult,
+} from '@basinwright/common';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { evaluateStudy } from '../../web/src/composables/useStudy';
 import {
@@ -41,7 +47,12 @@ describe('an override changes the sizing as its relation says', () => {
   it('freeboard coefficient k: wall freeboard = k·(V1 + y2) in ft and ft/s [from memory: USBR, Design of Small Dams]', () => {
     const base = jump(run(typeII()));
     const k = 0.15;
-    const changed = jump(run({ ...typeII(), dissipators: withOverride(typeII().dissipators, 'freeboardCoefficient', k) }));
+    const changed = jump(
+      run({
+        ...typeII(),
+        dissipators: withOverride(typeII().dissipators, 'freeboardCoefficient', k),
+      }),
+    );
     // The relation, worked here in its own units at every discharge; the walls take the largest.
     const expected = (kk: number, d: JumpBasinDesign) =>
       Math.max(...d.rows.map((r) => kk * (r.v1 / FT + r.y2 / FT))) * FT;
@@ -68,19 +79,29 @@ describe('an override changes the sizing as its relation says', () => {
     expect(back).toEqual({ chosenType: 'usbr-2' });
     const again = run({ ...fenwickDesign, dissipators: back });
     expect(jump(again).endSill.height).toBe(jump(base).endSill.height);
-    const row = assumptionRows(back, 'SI', again.dissipators?.assumptions).find((r) => r.key === 'type2SillHeightRatio')!;
+    const row = assumptionRows(back, 'SI', again.dissipators?.assumptions).find(
+      (r) => r.key === 'type2SillHeightRatio',
+    )!;
     expect(row.overridden).toBe(false);
     expect(row.value).toBe(0.2);
   });
 
   it('the flotation safety factor and least thickness are edited in the flotation case the engine uses', () => {
-    const over = withOverride(withOverride(undefined, 'flotationSafetyFactor', 1.5), 'minSlabThickness', 0.6);
+    const over = withOverride(
+      withOverride(undefined, 'flotationSafetyFactor', 1.5),
+      'minSlabThickness',
+      0.6,
+    );
     expect(over).toEqual({ flotation: { safetyFactor: 1.5, minThickness: 0.6 } });
     const d = jump(run(typeII(over)));
     expect(d.slab.safetyFactorRequired).toBe(1.5);
     expect(d.slab.thickness).toBeGreaterThanOrEqual(0.6);
     const rows = assumptionRows(over, 'SI', null);
-    expect(rows.find((r) => r.key === 'flotationSafetyFactor')).toMatchObject({ value: 1.5, overridden: true, path: 'dissipators.flotation.safetyFactor' });
+    expect(rows.find((r) => r.key === 'flotationSafetyFactor')).toMatchObject({
+      value: 1.5,
+      overridden: true,
+      path: 'dissipators.flotation.safetyFactor',
+    });
   });
 });
 
@@ -110,14 +131,25 @@ describe('units: shown in the user’s, sent to the engine in SI exactly', () =>
   it('a culvert size and uplift level typed in ft reach the engine in metres', () => {
     // The demo culvert with its outlet set down at the channel bed (a perched outlet with a
     // culvert size stops the whole screening: see the engine note in the report).
-    const inflow = caldwellDesign.inflow.kind === 'pipe' ? { ...caldwellDesign.inflow, invertElevation: 308 } : caldwellDesign.inflow;
+    const inflow =
+      caldwellDesign.inflow.kind === 'pipe'
+        ? { ...caldwellDesign.inflow, invertElevation: 308 }
+        : caldwellDesign.inflow;
     const input: StudyInput = {
       ...caldwellDesign,
       inflow,
-      dissipators: { culvert: { shape: 'box', rise: 6, span: 6 }, debris: 'heavy', flotation: { upliftElevation: 312, minThickness: 1.5 } },
+      dissipators: {
+        culvert: { shape: 'box', rise: 6, span: 6 },
+        debris: 'heavy',
+        flotation: { upliftElevation: 312, minThickness: 1.5 },
+      },
     };
     const result = run(input);
-    expect(result.dissipators!.context.culvert).toEqual({ shape: 'box', rise: 6 * FT, span: 6 * FT });
+    expect(result.dissipators!.context.culvert).toEqual({
+      shape: 'box',
+      rise: 6 * FT,
+      span: 6 * FT,
+    });
     expect(result.dissipators!.context.debris).toBe('heavy');
     const slab = result.design?.design.family === 'jump-basin' ? result.design.design.slab : null;
     expect(slab?.thickness).toBeGreaterThanOrEqual(1.5 * FT - 1e-12);
@@ -126,9 +158,15 @@ describe('units: shown in the user’s, sent to the engine in SI exactly', () =>
 
 describe('out-of-bounds values', () => {
   it('are refused with the shared schema’s message, and the study reports it instead of throwing', () => {
-    expect(overrideProblem('freeboardCoefficient', -0.1)).toMatch(/Freeboard = k·\(V1 \+ y2\).*must be a number not below zero/);
-    expect(overrideProblem('flotationSafetyFactor', 0.8)).toBe('The flotation safety factor must be at least 1.');
-    expect(overrideProblem('minSlabThickness', 0)).toBe('The least slab thickness must be greater than zero.');
+    expect(overrideProblem('freeboardCoefficient', -0.1)).toMatch(
+      /Freeboard = k·\(V1 \+ y2\).*must be a number not below zero/,
+    );
+    expect(overrideProblem('flotationSafetyFactor', 0.8)).toBe(
+      'The flotation safety factor must be at least 1.',
+    );
+    expect(overrideProblem('minSlabThickness', 0)).toBe(
+      'The least slab thickness must be greater than zero.',
+    );
     expect(overrideProblem('freeboardCoefficient', 0.12)).toBeNull();
     const out = evaluateStudy(typeII({ defaults: { freeboardCoefficient: -0.1 } }));
     expect(out.result).toBeNull();
@@ -138,10 +176,16 @@ describe('out-of-bounds values', () => {
 
 describe('the chosen type lives in input.dissipators', () => {
   it('an older design’s options.chosenType is read into the input; the input’s own wins', () => {
-    expect(designFormValues(fenwickDesign, { chosenType: 'saf' }, 'SI').dissipators).toEqual({ chosenType: 'saf' });
+    expect(designFormValues(fenwickDesign, { chosenType: 'saf' }, 'SI').dissipators).toEqual({
+      chosenType: 'saf',
+    });
     const own = { ...fenwickDesign, dissipators: { chosenType: 'usbr-1' as const } };
-    expect(designFormValues(own, { chosenType: 'saf' }, 'SI').dissipators?.chosenType).toBe('usbr-1');
-    expect(run(designFormValues(fenwickDesign, { chosenType: 'saf' }, 'SI')).design?.type).toBe('saf');
+    expect(designFormValues(own, { chosenType: 'saf' }, 'SI').dissipators?.chosenType).toBe(
+      'usbr-1',
+    );
+    expect(run(designFormValues(fenwickDesign, { chosenType: 'saf' }, 'SI')).design?.type).toBe(
+      'saf',
+    );
   });
 });
 
@@ -173,18 +217,25 @@ describe('DesignAssumptionsPanel', () => {
     const rows = wrapper.findAll('[data-test="assumptions-table"] tbody tr.ant-table-row');
     expect(rows.length).toBe(Object.keys(BASIN_DEFAULTS).length);
     const text = wrapper.text();
-    for (const tag of ['Published', 'From memory — verify', 'Computed', 'Common practice']) expect(text).toContain(tag);
+    for (const tag of ['Published', 'From memory — verify', 'Computed', 'Common practice'])
+      expect(text).toContain(tag);
     expect(wrapper.find('[data-test="assumptions-changed-count"]').text()).toBe('1 changed');
     await wrapper.find('[data-test="assumption-reset-freeboardCoefficient"]').trigger('click');
     await nextTick();
     expect(form.values.dissipators).toEqual({ chosenType: 'usbr-2' });
-    expect(wrapper.find('[data-test="assumption-reset-freeboardCoefficient"]').exists()).toBe(false);
+    expect(wrapper.find('[data-test="assumption-reset-freeboardCoefficient"]').exists()).toBe(
+      false,
+    );
   });
 
   it('shows the message of an out-of-bounds value on its field', async () => {
     const input = typeII({ defaults: { type2SillHeightRatio: -1 } });
     const { wrapper } = mountPanel(input, null);
-    const cell = wrapper.find('[data-test="assumption-type2SillHeightRatio"]').element.closest('.ant-form-item')!;
-    expect(cell.textContent).toMatch(/Type II dentated sill height \/ y2 must be a number not below zero/);
+    const cell = wrapper
+      .find('[data-test="assumption-type2SillHeightRatio"]')
+      .element.closest('.ant-form-item')!;
+    expect(cell.textContent).toMatch(
+      /Type II dentated sill height \/ y2 must be a number not below zero/,
+    );
   });
 });

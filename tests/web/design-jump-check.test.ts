@@ -31,7 +31,9 @@ function tableRows(w: VueWrapper): Array<Record<string, string>> {
 }
 
 async function pick(w: VueWrapper, label: RegExp): Promise<void> {
-  const item = w.findAll('[data-test="check-floor-switch"] .ant-segmented-item').find((x) => label.test(x.text()));
+  const item = w
+    .findAll('[data-test="check-floor-switch"] .ant-segmented-item')
+    .find((x) => label.test(x.text()));
   expect(item, `switch option ${label}`).toBeDefined();
   await item!.find('input').trigger('change');
 }
@@ -63,7 +65,9 @@ describe('Jump check at the design floor', () => {
     const chart = w.findComponent(DesignRangeChart);
     expect(chart.props('rows')).toHaveLength(d.rows.length);
     expect(chart.props('rows')[0]?.requiredDepth).toBe(d.rows[0]!.requiredDepth);
-    expect(chart.props('requiredLabel')).toBe(`Required depth C·y2 (C = ${d.sizing.tailwaterFactor.toFixed(2)}, ${d.name})`);
+    expect(chart.props('requiredLabel')).toBe(
+      `Required depth C·y2 (C = ${d.sizing.tailwaterFactor.toFixed(2)}, ${d.name})`,
+    );
     w.unmount();
   });
 
@@ -89,7 +93,12 @@ describe('Jump check at the design floor', () => {
     const rows = tableRows(w);
     const tol = result.input.submergenceTolerance ?? 0.1;
     d.rows.forEach((row, i) => {
-      const expected = row.margin < 0 ? 'Swept out' : row.margin / row.requiredDepth > tol ? 'Drowned' : 'At the toe';
+      const expected =
+        row.margin < 0
+          ? 'Swept out'
+          : row.margin / row.requiredDepth > tol
+            ? 'Drowned'
+            : 'At the toe';
       expect(rows[i]!['Jump position']).toBe(expected);
     });
     // both ends occur in the demo: drowned at small flows, at the toe at the governing one
@@ -99,7 +108,9 @@ describe('Jump check at the design floor', () => {
   });
 
   it('a shortfall shows as swept out', () => {
-    const short = d.rows.map((x, i) => (i === 0 ? { ...x, tailwaterDepth: x.requiredDepth - 0.2, margin: -0.2 } : x));
+    const short = d.rows.map((x, i) =>
+      i === 0 ? { ...x, tailwaterDepth: x.requiredDepth - 0.2, margin: -0.2 } : x,
+    );
     const res: StudyResult = { ...result, design: { ...entry, design: { ...d, rows: short } } };
     const w = mountStep(res);
     const first = tableRows(w)[0]!;
@@ -114,7 +125,9 @@ describe('Jump check at the free-jump floor (reference)', () => {
     const w = mountStep(result);
     await pick(w, /Free-jump floor/);
     expect(w.find('[data-test="range-table"]').attributes('data-floor')).toBe('reference');
-    expect(w.find('[data-test="check-floor"]').text()).toBe(`${result.floor.elevation.toFixed(2)} m`);
+    expect(w.find('[data-test="check-floor"]').text()).toBe(
+      `${result.floor.elevation.toFixed(2)} m`,
+    );
     const rows = tableRows(w);
     expect(rows).toHaveLength(result.rows.length);
     const f = unitFormat('SI');
@@ -123,9 +136,23 @@ describe('Jump check at the free-jump floor (reference)', () => {
       expect(rows[i]!['Margin TW − C·y2 (m)']).toBe(f.num(row.margin, 'length', 2));
       expect(rows[i]!['Head loss (%)']).toBe(f.num(row.relativeLoss * 100, null, 1));
     });
-    expect(Object.keys(rows[0]!)).toEqual(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)', 'Tailwater depth (m)', 'Margin TW − C·y2 (m)', 'Jump position', 'Jump class', 'Head loss (%)', 'Jump length (m)']);
+    expect(Object.keys(rows[0]!)).toEqual([
+      'Q (m³/s)',
+      'y1 (m)',
+      'V1 (m/s)',
+      'Fr1',
+      'y2 (m)',
+      'Tailwater depth (m)',
+      'Margin TW − C·y2 (m)',
+      'Jump position',
+      'Jump class',
+      'Head loss (%)',
+      'Jump length (m)',
+    ]);
     expect(w.findComponent(DesignRangeChart).props('rows')).toEqual(result.rows);
-    expect(w.findComponent(DesignRangeChart).props('requiredLabel')).toBe('Required depth C·y2 (C = 1.00, free jump)');
+    expect(w.findComponent(DesignRangeChart).props('requiredLabel')).toBe(
+      'Required depth C·y2 (C = 1.00, free jump)',
+    );
     await pick(w, /Design floor/);
     expect(w.find('[data-test="range-table"]').attributes('data-floor')).toBe('design');
     w.unmount();
@@ -139,9 +166,16 @@ describe('Jump check at the free-jump floor (reference)', () => {
     const first = tableRows(w)[0]!;
     expect(first['Q (cfs)']).toBe(f.num(d.rows[0]!.Q, 'discharge', 2));
     // 1 ft = 0.3048 m exactly (NIST SP 811)
-    expect(first['Tailwater depth (ft)']).toBe((d.rows[0]!.tailwaterDepth / 0.3048).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 }));
+    expect(first['Tailwater depth (ft)']).toBe(
+      (d.rows[0]!.tailwaterDepth / 0.3048).toLocaleString('en-GB', {
+        minimumFractionDigits: 2,
+        maximumFractionDigits: 2,
+      }),
+    );
     await pick(w, /Free-jump floor/);
-    expect(tableRows(w)[0]!['Tailwater depth (ft)']).toBe(f.num(result.rows[0]!.tailwaterDepth, 'length', 2));
+    expect(tableRows(w)[0]!['Tailwater depth (ft)']).toBe(
+      f.num(result.rows[0]!.tailwaterDepth, 'length', 2),
+    );
     w.unmount();
   });
 });
@@ -151,7 +185,10 @@ describe('E–y and M–y diagrams follow the floor shown', () => {
     const d = result.design!.design;
     if (d.family !== 'jump-basin') throw new Error('jump basin expected');
     const w = mountStep(result);
-    const charts = () => w.findAllComponents(DesignDiagramChart).map((c) => c.props('diagrams') as StudyResult['diagrams']);
+    const charts = () =>
+      w
+        .findAllComponents(DesignDiagramChart)
+        .map((c) => c.props('diagrams') as StudyResult['diagrams']);
     const [onDesign] = charts();
     const g = 9.80665; // standard gravity [CGPM 1901; NIST SP 330]
     const b = d.width;
@@ -170,7 +207,8 @@ describe('E–y and M–y diagrams follow the floor shown', () => {
     // the two floors differ here, and so do the two toe depths
     expect(Math.abs(y1 - result.diagrams.y1)).toBeGreaterThan(1e-4);
     // power dissipated P = ρ·g·Q·ΔE with ρ = 1000 kg/m³ (fresh water, common practice) [Chow 1959, §15-2]
-    const power = 1000 * g * d.water.Q * (onDesign!.specificEnergy.E1 - onDesign!.specificEnergy.E2);
+    const power =
+      1000 * g * d.water.Q * (onDesign!.specificEnergy.E1 - onDesign!.specificEnergy.E2);
     expect(w.find('[data-test="design-jump-power"]').text()).toBe(`${(power / 1e6).toFixed(2)} MW`);
     await pick(w, /Free-jump floor/);
     expect(charts()[0]).toEqual(result.diagrams);
@@ -192,14 +230,27 @@ describe('the table as CSV', () => {
     const w = mountStep(result);
     const { comment, rows } = read(w);
     expect(comment).toContain(`design floor, ${d.name}`);
-    expect(rows[0]).toEqual(['Q (m³/s)', 'y1 (m)', 'V1 (m/s)', 'Fr1', 'y2 (m)', 'C', 'Required depth C·y2 (m)', 'Tailwater depth (m)', 'Margin TW − C·y2 (m)', 'Jump position', 'Basin length (m)']);
+    expect(rows[0]).toEqual([
+      'Q (m³/s)',
+      'y1 (m)',
+      'V1 (m/s)',
+      'Fr1',
+      'y2 (m)',
+      'C',
+      'Required depth C·y2 (m)',
+      'Tailwater depth (m)',
+      'Margin TW − C·y2 (m)',
+      'Jump position',
+      'Basin length (m)',
+    ]);
     expect(rows).toHaveLength(d.rows.length + 1);
     d.rows.forEach((row, i) => {
       const cells = rows[i + 1]!;
       expect(Number(cells[0])).toBe(Number(row.Q.toFixed(3)));
       expect(Number(cells[7])).toBe(Number(row.tailwaterDepth.toFixed(4)));
       // no thousands separators: every number reads back as a number
-      for (const c of [0, 1, 2, 3, 4, 5, 6, 7, 8, 10]) expect(Number.isFinite(Number(cells[c]))).toBe(true);
+      for (const c of [0, 1, 2, 3, 4, 5, 6, 7, 8, 10])
+        expect(Number.isFinite(Number(cells[c]))).toBe(true);
     });
     w.unmount();
   });
@@ -209,9 +260,16 @@ describe('the table as CSV', () => {
     const { rows } = read(w);
     expect(rows[0]![0]).toBe('Q (cfs)');
     expectRel(Number(rows[1]![0]), d.rows[0]!.Q / 0.3048 ** 3, 1e-3 / (d.rows[0]!.Q / 0.3048 ** 3));
-    expectRel(Number(rows[1]![7]), d.rows[0]!.tailwaterDepth / 0.3048, 1e-4 / (d.rows[0]!.tailwaterDepth / 0.3048));
+    expectRel(
+      Number(rows[1]![7]),
+      d.rows[0]!.tailwaterDepth / 0.3048,
+      1e-4 / (d.rows[0]!.tailwaterDepth / 0.3048),
+    );
     const created = vi.fn(() => 'blob:csv');
-    vi.stubGlobal('URL', Object.assign(URL, { createObjectURL: created, revokeObjectURL: vi.fn() }));
+    vi.stubGlobal(
+      'URL',
+      Object.assign(URL, { createObjectURL: created, revokeObjectURL: vi.fn() }),
+    );
     await w.find('[data-test="download-csv"]').trigger('click');
     expect(created).toHaveBeenCalledTimes(1);
     vi.unstubAllGlobals();
@@ -226,7 +284,12 @@ describe('SAF basin: C varies with Fr1', () => {
     if (d.family !== 'jump-basin') throw new Error('SAF is a jump basin');
     // TW/y2 = 1.10 − Fr1²/120 (Fr1 1.7–5.5), 0.85 (5.5–11), 1.00 − Fr1²/800 (11–17), pieces joined
     // where they meet [from memory: Blaisdell 1948, SAF stilling basin]
-    const blaisdell = (fr: number): number => (fr <= Math.sqrt(0.25 * 120) ? 1.1 - (fr * fr) / 120 : fr <= Math.sqrt(0.15 * 800) ? 0.85 : 1 - (fr * fr) / 800);
+    const blaisdell = (fr: number): number =>
+      fr <= Math.sqrt(0.25 * 120)
+        ? 1.1 - (fr * fr) / 120
+        : fr <= Math.sqrt(0.15 * 800)
+          ? 0.85
+          : 1 - (fr * fr) / 800;
     const w = mountStep(res);
     const rows = tableRows(w);
     const f = unitFormat('SI');
@@ -239,7 +302,9 @@ describe('SAF basin: C varies with Fr1', () => {
     const lo = f.num(Math.min(...cs), null, 2);
     const hi = f.num(Math.max(...cs), null, 2);
     expect(lo).not.toBe(hi);
-    expect(w.findComponent(DesignRangeChart).props('requiredLabel')).toBe(`Required depth C·y2 (C = ${lo}–${hi} with Fr1, ${d.name})`);
+    expect(w.findComponent(DesignRangeChart).props('requiredLabel')).toBe(
+      `Required depth C·y2 (C = ${lo}–${hi} with Fr1, ${d.name})`,
+    );
     w.unmount();
   });
 });
@@ -251,7 +316,9 @@ describe('a chosen type with no jump of its own', () => {
     const w = mountStep(res);
     expect(w.find('[data-test="check-floor-switch"]').exists()).toBe(false);
     expect(w.find('[data-test="check-floor-only"]').text()).toBe('Free-jump floor (reference)');
-    expect(w.find('[data-test="check-floor-note"]').text()).toContain(`The ${res.design!.design.name} does not hold a hydraulic jump`);
+    expect(w.find('[data-test="check-floor-note"]').text()).toContain(
+      `The ${res.design!.design.name} does not hold a hydraulic jump`,
+    );
     expect(w.find('[data-test="range-table"]').attributes('data-floor')).toBe('reference');
     expect(tableRows(w)).toHaveLength(res.rows.length);
     expect(w.findComponent(DesignRangeChart).props('rows')).toEqual(res.rows);
@@ -261,7 +328,9 @@ describe('a chosen type with no jump of its own', () => {
   it('no design at all: the reference only', () => {
     const w = mountStep({ ...result, design: null });
     expect(w.find('[data-test="check-floor-switch"]').exists()).toBe(false);
-    expect(w.find('[data-test="check-floor-note"]').text()).toContain('No basin type is designed yet');
+    expect(w.find('[data-test="check-floor-note"]').text()).toContain(
+      'No basin type is designed yet',
+    );
     expect(tableRows(w)).toHaveLength(result.rows.length);
     w.unmount();
   });

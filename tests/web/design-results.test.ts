@@ -11,7 +11,12 @@ import { governingFloor } from '../../web/src/composables/useStudy';
 import { fenwickDesign } from '../../seed/designs';
 
 // The assumptions panel needs the workspace's form around it: tested in design-assumptions.test.ts.
-const stubs = { DesignRangeChart: true, DesignDiagramChart: true, DesignDrawing: true, DesignAssumptionsPanel: true };
+const stubs = {
+  DesignRangeChart: true,
+  DesignDiagramChart: true,
+  DesignDrawing: true,
+  DesignAssumptionsPanel: true,
+};
 // The demo study of product.md (invented scenario): a USBR Type II basin is recommended.
 const result: StudyResult = runStudy(fenwickDesign);
 
@@ -24,10 +29,14 @@ describe('Jump check floor', () => {
     expect(Math.abs(zf - result.floor.elevation)).toBeGreaterThan(0.005);
     const w = mount(DesignJumpCheckStep, { props: { result, units: 'SI' }, global: { stubs } });
     expect(w.find('[data-test="floor-elevation"]').text()).toBe(`${zf.toFixed(2)} m`);
-    expect(w.find('[data-test="free-jump-floor"]').text()).toBe(`${result.floor.elevation.toFixed(2)} m`);
+    expect(w.find('[data-test="free-jump-floor"]').text()).toBe(
+      `${result.floor.elevation.toFixed(2)} m`,
+    );
     expect(w.text()).toContain(`Design floor — ${d.name}`);
     expect(w.find('[data-test="floor-explained"]').text()).toMatch(/lower|higher/);
-    expect(w.find('[data-test="depth-below-bed"]').text()).toBe(`${(fenwickDesign.channelBedElevation - zf).toFixed(2)} m`);
+    expect(w.find('[data-test="depth-below-bed"]').text()).toBe(
+      `${(fenwickDesign.channelBedElevation - zf).toFixed(2)} m`,
+    );
     w.unmount();
   });
 
@@ -45,28 +54,60 @@ describe('warnings are shown once, under the floor they were found on', () => {
     const line = 'Check the tailwater rating at low flows.';
     const d = result.design!.design;
     if (d.family !== 'jump-basin') throw new Error('jump basin expected');
-    const dup: StudyResult = { ...result, warnings: [line, line, `${line} `, 'Only in the study.'], design: { ...result.design!, design: { ...d, warnings: [line, 'Only under sizing.', 'Only under sizing.'] } } };
-    const notes = mount(DesignResultNotes, { props: { result: dup, engineError: null, inputProblems: [], stale: false, units: 'SI' } });
+    const dup: StudyResult = {
+      ...result,
+      warnings: [line, line, `${line} `, 'Only in the study.'],
+      design: {
+        ...result.design!,
+        design: { ...d, warnings: [line, 'Only under sizing.', 'Only under sizing.'] },
+      },
+    };
+    const notes = mount(DesignResultNotes, {
+      props: { result: dup, engineError: null, inputProblems: [], stale: false, units: 'SI' },
+    });
     const all = notes.findAll('[data-test="engine-warnings"] li').map((li) => li.text());
     expect(all.filter((t) => t === line)).toHaveLength(1);
     expect(new Set(all).size).toBe(all.length);
     // the design's list comes first, headed by its basin and floor; a line in both stays with the design
-    expect(notes.find('[data-test="warnings-design"]').text()).toBe(`${d.name}, on its floor at ${d.floorElevation.toFixed(2)} m`);
-    expect(notes.findAll('[data-test="warnings-design-list"] li').map((li) => li.text())).toEqual([line, 'Only under sizing.']);
-    expect(notes.find('[data-test="warnings-study"]').text()).toBe(`The study, on the free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`);
-    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual(['Only in the study.']);
-    expect(notes.find('[data-test="engine-warnings"]').text()).toContain(`Engine warnings (${all.length})`);
+    expect(notes.find('[data-test="warnings-design"]').text()).toBe(
+      `${d.name}, on its floor at ${d.floorElevation.toFixed(2)} m`,
+    );
+    expect(notes.findAll('[data-test="warnings-design-list"] li').map((li) => li.text())).toEqual([
+      line,
+      'Only under sizing.',
+    ]);
+    expect(notes.find('[data-test="warnings-study"]').text()).toBe(
+      `The study, on the free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`,
+    );
+    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual([
+      'Only in the study.',
+    ]);
+    expect(notes.find('[data-test="engine-warnings"]').text()).toContain(
+      `Engine warnings (${all.length})`,
+    );
     notes.unmount();
     // the Sizing step does not list them a second time
-    const sizing = mount(DesignSizingStep, { props: { result: dup, units: 'SI' }, global: { stubs } });
+    const sizing = mount(DesignSizingStep, {
+      props: { result: dup, units: 'SI' },
+      global: { stubs },
+    });
     expect(sizing.text()).not.toContain('Only under sizing.');
     sizing.unmount();
   });
 
   it('without a chosen design the study’s warnings stand alone, with no floor heading', () => {
-    const notes = mount(DesignResultNotes, { props: { result: { ...result, design: null, warnings: ['A study warning.'] }, engineError: null, inputProblems: [], stale: false } });
+    const notes = mount(DesignResultNotes, {
+      props: {
+        result: { ...result, design: null, warnings: ['A study warning.'] },
+        engineError: null,
+        inputProblems: [],
+        stale: false,
+      },
+    });
     expect(notes.find('[data-test="warnings-study"]').exists()).toBe(false);
-    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toContain('A study warning.');
+    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toContain(
+      'A study warning.',
+    );
     notes.unmount();
   });
 });
@@ -82,7 +123,9 @@ describe('Live results name one floor and stay on it', () => {
     const fr1 = d.water.Q / (d.width * y1) / Math.sqrt(9.80665 * y1);
     expect(w.find('[data-test="summary-y1"]').text()).toBe(`${y1.toFixed(3)} m`);
     expect(w.find('[data-test="summary-fr1"]').text()).toBe(fr1.toFixed(2));
-    expect(w.find('[data-test="summary-tailwater"]').text()).toBe(`${(d.water.tailwaterElevation - d.floorElevation).toFixed(2)} m`);
+    expect(w.find('[data-test="summary-tailwater"]').text()).toBe(
+      `${(d.water.tailwaterElevation - d.floorElevation).toFixed(2)} m`,
+    );
     // not the free-jump floor's toe, which differs here
     expect(Math.abs(y1 - result.designJump.jump.y1)).toBeGreaterThan(5e-4);
     w.unmount();
@@ -90,7 +133,9 @@ describe('Live results name one floor and stay on it', () => {
   it('with a type that holds no jump chosen: the study’s jump, and the chosen type named beside the recommended one', () => {
     const res = runStudy({ ...fenwickDesign, dissipators: { chosenType: 'usbr-6' } });
     const w = mount(DesignResultSummary, { props: { result: res, units: 'SI', pending: false } });
-    expect(w.find('[data-test="summary-y1"]').text()).toBe(`${res.designJump.jump.y1.toFixed(3)} m`);
+    expect(w.find('[data-test="summary-y1"]').text()).toBe(
+      `${res.designJump.jump.y1.toFixed(3)} m`,
+    );
     expect(w.find('[data-test="summary-chosen"]').text()).toContain(res.design!.design.name);
     w.unmount();
   });

@@ -4,7 +4,12 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { defineComponent, h, nextTick, ref, type Ref } from 'vue';
 import { mount } from '@vue/test-utils';
 import type { StudyInput } from '@basinwright/common';
-import { STUDY_DEBOUNCE_MS, evaluateStudy, readableEngineError, useStudy } from '../../web/src/composables/useStudy';
+import {
+  STUDY_DEBOUNCE_MS,
+  evaluateStudy,
+  readableEngineError,
+  useStudy,
+} from '../../web/src/composables/useStudy';
 import { fenwickDesign } from '../../seed/designs';
 
 // the demo design of product.md (invented scenario), as seeded
@@ -30,7 +35,9 @@ describe('evaluateStudy', () => {
   it('turns the engine RangeError for a subcritical toe into a readable message', () => {
     const out = evaluateStudy(subcritical);
     expect(out.result).toBeNull();
-    expect(out.engineError).toMatch(/^The study cannot be computed with these inputs\. Toe conditions: Fr1 = 0\.22\d is not supercritical: no jump forms/);
+    expect(out.engineError).toMatch(
+      /^The study cannot be computed with these inputs\. Toe conditions: Fr1 = 0\.22\d is not supercritical: no jump forms/,
+    );
     expect(out.inputProblems).toEqual([]);
   });
 
@@ -42,14 +49,26 @@ describe('evaluateStudy', () => {
   });
 
   it('names the field in words for a top-level argument', () => {
-    expect(readableEngineError(new RangeError('basinWidth must be greater than zero (got 0)'))).toContain('Basin width must be greater than zero');
-    expect(readableEngineError(new TypeError('x is undefined'))).toBe('The calculation failed unexpectedly: x is undefined');
+    expect(
+      readableEngineError(new RangeError('basinWidth must be greater than zero (got 0)')),
+    ).toContain('Basin width must be greater than zero');
+    expect(readableEngineError(new TypeError('x is undefined'))).toBe(
+      'The calculation failed unexpectedly: x is undefined',
+    );
     // On a US project the engine's metres are put in feet (1 ft = 0.3048 m exactly, NIST SP 811);
     // a bare SI number is said to be SI.
-    const us = readableEngineError(new RangeError('floorElevation 121.92 m lies above the outlet’s energy line'), 'US');
+    const us = readableEngineError(
+      new RangeError('floorElevation 121.92 m lies above the outlet’s energy line'),
+      'US',
+    );
     expect(us).toContain('Floor elevation 400 ft lies above');
     expect(us).not.toContain('SI');
-    expect(readableEngineError(new RangeError('basinWidth must be greater than zero (got -1.524)'), 'US')).toContain('(The value quoted is in SI units.)');
+    expect(
+      readableEngineError(
+        new RangeError('basinWidth must be greater than zero (got -1.524)'),
+        'US',
+      ),
+    ).toContain('(The value quoted is in SI units.)');
   });
 });
 

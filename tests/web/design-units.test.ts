@@ -21,14 +21,25 @@ const demoUS: StudyInput = {
   basinWidth: 12 / FT,
   designDischarge: 85 / CFS,
   discharges: { kind: 'range', min: 5 / CFS, max: 85 / CFS, count: 17 },
-  tailwater: { kind: 'manning', section: { shape: 'trapezoidal', bottomWidth: 14 / FT, sideSlope: 2 }, slope: 0.0015, manningN: 0.03 },
+  tailwater: {
+    kind: 'manning',
+    section: { shape: 'trapezoidal', bottomWidth: 14 / FT, sideSlope: 2 },
+    slope: 0.0015,
+    manningN: 0.03,
+  },
   // Q = C·L·H^1.5 → C scales with √length: C_US = C_SI / √0.3048 (ft^½/s).
-  inflow: { kind: 'chute', crestElevation: 102 / FT, headwater: { kind: 'weir', C: 2.15 / Math.sqrt(FT), L: 12 / FT }, lossModel: { kind: 'fraction', value: 0.1 } },
+  inflow: {
+    kind: 'chute',
+    crestElevation: 102 / FT,
+    headwater: { kind: 'weir', C: 2.15 / Math.sqrt(FT), L: 12 / FT },
+    lossModel: { kind: 'fraction', value: 0.1 },
+  },
 };
 
 function numbers(node: unknown, path = ''): Array<[string, number]> {
   if (typeof node === 'number') return [[path, node]];
-  if (node && typeof node === 'object') return Object.entries(node).flatMap(([k, v]) => numbers(v, path ? `${path}.${k}` : k));
+  if (node && typeof node === 'object')
+    return Object.entries(node).flatMap(([k, v]) => numbers(v, path ? `${path}.${k}` : k));
   return [];
 }
 
@@ -64,12 +75,15 @@ describe('design form units', () => {
     expect(inputForForm(demoUS, 'US').basinWidth).toBe(Number((12 / FT).toPrecision(10)));
   });
 
-  it.each(['SI', 'US'] as const)('the starting input in %s runs through the engine with a floor below the bed', (units) => {
-    const input = startingInput(units);
-    expect(input.units).toBe(units);
-    const r = runStudy(inputForEngine(input));
-    const bedSI = units === 'US' ? input.channelBedElevation * FT : input.channelBedElevation;
-    expect(r.floor.elevation).toBeLessThan(bedSI);
-    expect(r.recommendedType).not.toBeNull();
-  });
+  it.each(['SI', 'US'] as const)(
+    'the starting input in %s runs through the engine with a floor below the bed',
+    (units) => {
+      const input = startingInput(units);
+      expect(input.units).toBe(units);
+      const r = runStudy(inputForEngine(input));
+      const bedSI = units === 'US' ? input.channelBedElevation * FT : input.channelBedElevation;
+      expect(r.floor.elevation).toBeLessThan(bedSI);
+      expect(r.recommendedType).not.toBeNull();
+    },
+  );
 });

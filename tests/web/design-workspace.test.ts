@@ -26,11 +26,20 @@ const project = {
 };
 // the demo design of product.md (invented scenario), as seeded
 const input: StudyInput = fenwickDesign;
-const design = { projectId: 'p1', input, options: null, updatedAt: '2025-01-02T00:00:00.000Z', updatedBy: { id: 'u-engineer', name: 'Demo engineer' } };
+const design = {
+  projectId: 'p1',
+  input,
+  options: null,
+  updatedAt: '2025-01-02T00:00:00.000Z',
+  updatedBy: { id: 'u-engineer', name: 'Demo engineer' },
+};
 
 afterEach(() => vi.unstubAllGlobals());
 
-async function mountAs(role: 'engineer' | 'viewer' | 'estimator', put?: (init: RequestInit) => Reply) {
+async function mountAs(
+  role: 'engineer' | 'viewer' | 'estimator',
+  put?: (init: RequestInit) => Reply,
+) {
   localStorage.setItem(TOKEN_KEY, `tok-${role}`);
   setActivePinia(createPinia());
   const api = stubApi({
@@ -41,29 +50,39 @@ async function mountAs(role: 'engineer' | 'viewer' | 'estimator', put?: (init: R
   });
   const router = createAppRouter(createMemoryHistory());
   await router.push('/projects/p1/design');
-  const wrapper = mount(DesignWorkspaceView, { props: { id: 'p1' }, global: { plugins: [router] }, attachTo: document.body });
+  const wrapper = mount(DesignWorkspaceView, {
+    props: { id: 'p1' },
+    global: { plugins: [router] },
+    attachTo: document.body,
+  });
   await vi.waitFor(() => expect(wrapper.find('#design-basinWidth').exists()).toBe(true));
   await flushPromises();
   return { wrapper, api };
 }
 
 describe('DesignWorkspaceView', () => {
-  it.each(['viewer', 'estimator'] as const)('is read-only for a %s: no save, inputs disabled, results shown', async (role) => {
-    const { wrapper, api } = await mountAs(role);
-    expect(wrapper.find('[data-test="read-only"]').exists()).toBe(true);
-    expect(wrapper.find('[data-test="save-design"]').exists()).toBe(false);
-    const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
-    expect(width.element.value).toBe('12');
-    expect(width.element.disabled).toBe(true);
-    expect(wrapper.find('[data-test="summary-floor"]').text()).toMatch(/^\d+\.\d{2} m$/);
-    window.dispatchEvent(new KeyboardEvent('keydown', { key: 's', ctrlKey: true }));
-    await flushPromises();
-    expect(api.calls.some((c) => c.method === 'PUT')).toBe(false);
-    wrapper.unmount();
-  });
+  it.each(['viewer', 'estimator'] as const)(
+    'is read-only for a %s: no save, inputs disabled, results shown',
+    async (role) => {
+      const { wrapper, api } = await mountAs(role);
+      expect(wrapper.find('[data-test="read-only"]').exists()).toBe(true);
+      expect(wrapper.find('[data-test="save-design"]').exists()).toBe(false);
+      const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
+      expect(width.element.value).toBe('12');
+      expect(width.element.disabled).toBe(true);
+      expect(wrapper.find('[data-test="summary-floor"]').text()).toMatch(/^\d+\.\d{2} m$/);
+      window.dispatchEvent(new KeyboardEvent('keydown', { key: 's', ctrlKey: true }));
+      await flushPromises();
+      expect(api.calls.some((c) => c.method === 'PUT')).toBe(false);
+      wrapper.unmount();
+    },
+  );
 
   it('lets an engineer save with Ctrl-S, sending the input in the project units', async () => {
-    const { wrapper, api } = await mountAs('engineer', (init) => ({ status: 200, body: { ...design, input: JSON.parse(String(init.body)).input } }));
+    const { wrapper, api } = await mountAs('engineer', (init) => ({
+      status: 200,
+      body: { ...design, input: JSON.parse(String(init.body)).input },
+    }));
     const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
     expect(width.element.disabled).toBe(false);
     await width.setValue('12.5');
@@ -83,12 +102,18 @@ describe('DesignWorkspaceView', () => {
   it("puts a server 422's field message under the field", async () => {
     const { wrapper } = await mountAs('engineer', () => ({
       status: 422,
-      body: { code: 'validation_error', message: 'The basin is too wide for this site.', details: { 'input.basinWidth': 'Basin width exceeds the site limit.' } },
+      body: {
+        code: 'validation_error',
+        message: 'The basin is too wide for this site.',
+        details: { 'input.basinWidth': 'Basin width exceeds the site limit.' },
+      },
     }));
     await wrapper.find('[data-test="save-design"]').trigger('click');
     await vi.waitFor(() => expect(wrapper.find('[data-test="design-error"]').exists()).toBe(true));
     await flushPromises();
-    expect(wrapper.find('[data-test="design-error"]').text()).toContain('The basin is too wide for this site.');
+    expect(wrapper.find('[data-test="design-error"]').text()).toContain(
+      'The basin is too wide for this site.',
+    );
     const item = wrapper.find('#design-basinWidth').element.closest('.ant-form-item')!;
     const fieldMessage = () => item.querySelector('.ant-form-item-explain-error')?.textContent;
     await vi.waitFor(() => expect(fieldMessage()).toBe('Basin width exceeds the site limit.'));

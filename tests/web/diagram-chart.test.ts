@@ -20,7 +20,16 @@ const M = (y: number) => (b * y * y) / 2 + (Q * Q) / (g * b * y); // [Chow 1959,
 const diagrams = jumpDiagrams({ shape: 'rectangular', width: b }, Q, y1, y2, 4.99);
 
 interface Option {
-  series: Array<{ markLine?: { data: Array<{ xAxis?: number; yAxis?: number; label: { formatter: string; position?: string } }> }; data: number[][] }>;
+  series: Array<{
+    markLine?: {
+      data: Array<{
+        xAxis?: number;
+        yAxis?: number;
+        label: { formatter: string; position?: string };
+      }>;
+    };
+    data: number[][];
+  }>;
 }
 function chartOption(w: ReturnType<typeof mount>): Option {
   return w.findComponent(VChart).props('option') as unknown as Option;
@@ -29,8 +38,13 @@ function chartOption(w: ReturnType<typeof mount>): Option {
 describe('DesignDiagramChart', () => {
   it('writes the y2 and tailwater labels on the sides of their lines away from each other', () => {
     const position = (dg: typeof diagrams, starts: string) => {
-      const w = mount(DesignDiagramChart, { props: { diagrams: dg, which: 'energy', units: 'SI' }, global: { stubs: { VChart: true } } });
-      const p = chartOption(w).series[0]!.markLine!.data.find((m) => m.label.formatter.startsWith(starts))!.label.position;
+      const w = mount(DesignDiagramChart, {
+        props: { diagrams: dg, which: 'energy', units: 'SI' },
+        global: { stubs: { VChart: true } },
+      });
+      const p = chartOption(w).series[0]!.markLine!.data.find((m) =>
+        m.label.formatter.startsWith(starts),
+      )!.label.position;
       w.unmount();
       return p;
     };
@@ -46,9 +60,14 @@ describe('DesignDiagramChart', () => {
   it('energy: ΔE = E1 − E2 in words, E1 and E2 and the tailwater marked', () => {
     expectRel(diagrams.specificEnergy.E1, E(y1), 1e-9);
     expectRel(diagrams.specificEnergy.E2, E(y2), 1e-9);
-    const w = mount(DesignDiagramChart, { props: { diagrams, which: 'energy', units: 'SI' }, global: { stubs: { VChart: true } } });
+    const w = mount(DesignDiagramChart, {
+      props: { diagrams, which: 'energy', units: 'SI' },
+      global: { stubs: { VChart: true } },
+    });
     const dE = E(y1) - E(y2);
-    expect(w.find('[data-test="diagram-note"]').text()).toContain(`ΔE = E1 − E2 = ${dE.toFixed(2)} m (${((dE / E(y1)) * 100).toFixed(0)} % of E1)`);
+    expect(w.find('[data-test="diagram-note"]').text()).toContain(
+      `ΔE = E1 − E2 = ${dE.toFixed(2)} m (${((dE / E(y1)) * 100).toFixed(0)} % of E1)`,
+    );
     const marks = chartOption(w).series[0]!.markLine!.data.map((m) => m.label.formatter);
     expect(marks).toContain(`E1 = ${E(y1).toFixed(2)} m`);
     expect(marks).toContain(`E2 = ${E(y2).toFixed(2)} m`);
@@ -63,9 +82,14 @@ describe('DesignDiagramChart', () => {
 
   it('momentum: the two depths carry one momentum, M1 = M2; US units in ft³', () => {
     expectRel(M(y1), M(y2), 1e-9); // the jump conserves momentum [Chow 1959, §15-2]
-    const w = mount(DesignDiagramChart, { props: { diagrams, which: 'momentum', units: 'US' }, global: { stubs: { VChart: true } } });
+    const w = mount(DesignDiagramChart, {
+      props: { diagrams, which: 'momentum', units: 'US' },
+      global: { stubs: { VChart: true } },
+    });
     const ft3 = M(y1) / 0.3048 ** 3; // 1 ft = 0.3048 m exactly [NIST SP 811]
-    expect(w.find('[data-test="diagram-note"]').text()).toContain(`M1 = M2 = ${ft3.toLocaleString('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 })} ft³`);
+    expect(w.find('[data-test="diagram-note"]').text()).toContain(
+      `M1 = M2 = ${ft3.toLocaleString('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 })} ft³`,
+    );
     w.unmount();
   });
 });

@@ -14,7 +14,10 @@ describe.each([
 ])('%s: every designed type draws as well-formed XML', (_name, result) => {
   const entries = [result.design!, ...result.alternatives];
   it.each(entries.map((e) => [e.type, e] as const))('%s', (_type, entry) => {
-    const svg = drawingToSvg(entry.drawing, { width: 900, scaleUnit: { label: 'ft', metres: 0.3048 } });
+    const svg = drawingToSvg(entry.drawing, {
+      width: 900,
+      scaleUnit: { label: 'ft', metres: 0.3048 },
+    });
     const doc = parser.parseFromString(svg, 'image/svg+xml');
     expect(doc.getElementsByTagName('parsererror')).toHaveLength(0);
     expect(doc.documentElement.tagName).toBe('svg');

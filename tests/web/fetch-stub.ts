@@ -11,7 +11,10 @@ export function stubApi(routes: Routes) {
     const path = input.replace(/^\/api\/v1/, '').split('?')[0] ?? '';
     calls.push({ method, path, init });
     const route = routes[`${method} ${path}`];
-    if (!route) return new Response(JSON.stringify({ code: 'not_found', message: 'No such route.' }), { status: 404 });
+    if (!route)
+      return new Response(JSON.stringify({ code: 'not_found', message: 'No such route.' }), {
+        status: 404,
+      });
     const reply = typeof route === 'function' ? route(init) : route;
     if (reply.status === 204) return new Response(null, { status: 204 });
     return new Response(JSON.stringify(reply.body ?? {}), {
@@ -23,7 +26,12 @@ export function stubApi(routes: Routes) {
   return { calls, fetchMock };
 }
 
-export const demoFirm = { id: 'f1', name: 'Harrow & Lune Engineering', plan: 'firm' as const, seats: 5 };
+export const demoFirm = {
+  id: 'f1',
+  name: 'Harrow & Lune Engineering',
+  plan: 'firm' as const,
+  seats: 5,
+};
 
 export function demoUser(role: 'owner' | 'admin' | 'engineer' | 'estimator' | 'viewer') {
   return {

@@ -33,7 +33,12 @@ function slopeBreakReference() {
   const yn1 = normal(up);
   const yn2 = normal(dn);
   const target = mom(dn, yn2);
-  return { x: rk4Until(dn, yn1, 0.01, (y) => target - mom(dn, y)), yToe: superConj(dn, yn2), ySequent: yn2, yc: critical(dn) };
+  return {
+    x: rk4Until(dn, yn1, 0.01, (y) => target - mom(dn, y)),
+    yToe: superConj(dn, yn2),
+    ySequent: yn2,
+    yc: critical(dn),
+  };
 }
 /** Sluice gate a = 0.3 m, Cc = 0.61 on S0 = 0.0005: the M3 profile from the vena contracta Cc·a. */
 function gateMildReference() {
@@ -45,7 +50,11 @@ function gateMildReference() {
 function gateSteepReference() {
   const c = chan(0.02);
   // the pool above the gate from q = Cd·a·√(2g·y0), Cd = Cc/√(1 + Cc·a/y0) [Henderson 1966, §6.3]
-  const y0 = bisect((y) => (0.61 / Math.sqrt(1 + (0.61 * 0.3) / y)) * 0.3 * Math.sqrt(2 * G * y) - 2, 0.31, 50);
+  const y0 = bisect(
+    (y) => (0.61 / Math.sqrt(1 + (0.61 * 0.3) / y)) * 0.3 * Math.sqrt(2 * G * y) - 2,
+    0.31,
+    50,
+  );
   const y2 = subConj(c, normal(c));
   return { x: -rk4Until(c, y0, -0.01, (y) => y2 - y) };
 }
@@ -72,15 +81,21 @@ interface ChartOption {
   yAxis: { name: string };
   series: Array<{ name: string; data: Array<[number, number]> }>;
 }
-const chartOption = (w: VueWrapper) => w.findComponent({ name: 'ChartStandIn' }).props('option') as ChartOption;
+const chartOption = (w: VueWrapper) =>
+  w.findComponent({ name: 'ChartStandIn' }).props('option') as ChartOption;
 
 async function mountPage(role: 'engineer' | 'viewer' = 'engineer') {
   localStorage.setItem(TOKEN_KEY, `tok-${role}`);
   setActivePinia(createPinia());
-  const api = stubApi({ 'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } } });
+  const api = stubApi({
+    'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } },
+  });
   const router = createAppRouter(createMemoryHistory());
   await router.push('/tools/jump-position');
-  const wrapper = mount(JumpPositionView, { global: { plugins: [router] }, attachTo: document.body });
+  const wrapper = mount(JumpPositionView, {
+    global: { plugins: [router] },
+    attachTo: document.body,
+  });
   await vi.waitFor(() => expect(wrapper.find('[data-test="jump-sentence"]').exists()).toBe(true));
   await flushPromises();
   return { wrapper, api, router };
@@ -101,7 +116,10 @@ async function type(w: VueWrapper, fields: Record<string, number | string>): Pro
 
 async function settle(w: VueWrapper): Promise<void> {
   await flushPromises();
-  await vi.waitFor(() => expect(w.find('[data-test="jump-result"] .pending').exists()).toBe(false), { timeout: 3000 });
+  await vi.waitFor(
+    () => expect(w.find('[data-test="jump-result"] .pending').exists()).toBe(false),
+    { timeout: 3000 },
+  );
   await flushPromises();
 }
 
@@ -136,7 +154,9 @@ describe('Where the jump forms — the page', () => {
     expect(shown(wrapper, 'jump-distance').unit).toBe('m');
     expect(shown(wrapper, 'jump-distance').value).toBeGreaterThan(0);
     expect(wrapper.find('[data-test="cautions"]').text()).toContain('Concept level only.');
-    expect(wrapper.find('[data-test="cautions"]').text()).toContain('licensed professional engineer');
+    expect(wrapper.find('[data-test="cautions"]').text()).toContain(
+      'licensed professional engineer',
+    );
     await vi.waitFor(() => expect(wrapper.findComponent(JumpPositionChart).exists()).toBe(true));
     await vi.waitFor(() => expect(wrapper.find('[data-test="jump-chart"]').exists()).toBe(true));
     // Only the sign-in check of the router; the calculation runs in the browser.
@@ -147,12 +167,20 @@ describe('Where the jump forms — the page', () => {
   it('slope break 0.08 → 0.001: the distance, depths and chart agree with the RK4 reference', async () => {
     const ref = slopeBreakReference();
     const { wrapper } = await mountPage();
-    await type(wrapper, { ...rect3Slopes, 'upstream.slope': 0.08, 'upstream.manningN': 0.014, 'downstream.slope': 0.001, 'downstream.manningN': 0.014 });
+    await type(wrapper, {
+      ...rect3Slopes,
+      'upstream.slope': 0.08,
+      'upstream.manningN': 0.014,
+      'downstream.slope': 0.001,
+      'downstream.manningN': 0.014,
+    });
     expect(wrapper.find('[data-test="jump-error"]').exists()).toBe(false);
     const d = shown(wrapper, 'jump-distance');
     expect(d.unit).toBe('m');
     expectRel(d.value, ref.x, shownTol(ref.x)); // ≈ 42.4 m, RK4 reference above
-    expect(wrapper.find('[data-test="jump-sentence"]').text()).toBe(`The jump forms ${d.value.toFixed(2)} m downstream of the slope break.`);
+    expect(wrapper.find('[data-test="jump-sentence"]').text()).toBe(
+      `The jump forms ${d.value.toFixed(2)} m downstream of the slope break.`,
+    );
     expect(wrapper.find('[data-test="jump-place"]').text()).toBe('Downstream of the control');
     // depths to 0.001 m: normal depth of the mild reach (Manning), its supercritical conjugate, yc = (q²/g)^(1/3)
     expectRel(shown(wrapper, 'jump-sequent-depth').value, ref.ySequent, 0.0005 / ref.ySequent);
@@ -164,7 +192,12 @@ describe('Where the jump forms — the page', () => {
     expect(option.xAxis.name).toBe('Distance x from the control, downstream positive (m)');
     expect(option.yAxis.name).toBe('Depth y (m)');
     const series = Object.fromEntries(option.series.map((s) => [s.name, s.data]));
-    expect(Object.keys(series)).toEqual(['Supercritical profile', 'Subcritical profile', 'Critical depth yc', 'Jump toe']);
+    expect(Object.keys(series)).toEqual([
+      'Supercritical profile',
+      'Subcritical profile',
+      'Critical depth yc',
+      'Jump toe',
+    ]);
     expectRel(series['Jump toe']![0]![0], ref.x, 5e-4);
     expectRel(series['Supercritical profile']!.at(-1)![0], ref.x, 5e-4);
     expectRel(series['Supercritical profile']![0]![1], normal(chan(0.08)), 1e-6); // starts at the steep normal depth
@@ -180,9 +213,13 @@ describe('Where the jump forms — the page', () => {
     await type(wrapper, { ...rect3Slopes, opening: 0.3, Cc: 0.61, slope: 0.0005, manningN: 0.014 });
     const d = shown(wrapper, 'jump-distance');
     expectRel(d.value, ref.x, shownTol(ref.x)); // ≈ 29.4 m, RK4 reference above
-    expect(wrapper.find('[data-test="jump-sentence"]').text()).toContain('downstream of the vena contracta below the gate');
+    expect(wrapper.find('[data-test="jump-sentence"]').text()).toContain(
+      'downstream of the vena contracta below the gate',
+    );
     expectRel(shown(wrapper, 'jump-sequent-depth').value, ref.ySequent, 0.0005 / ref.ySequent);
-    expect(wrapper.find('[data-test="jump-notes"]').text()).toContain('Distance measured from the vena contracta');
+    expect(wrapper.find('[data-test="jump-notes"]').text()).toContain(
+      'Distance measured from the vena contracta',
+    );
     wrapper.unmount();
   });
 
@@ -218,7 +255,9 @@ describe('Where the jump forms — the page', () => {
     const d = shown(wrapper, 'jump-distance');
     expect(d.unit).toBe('ft');
     expectRel(d.value, ref.x / FT, shownTol(ref.x / FT)); // ≈ 96.6 ft
-    expect(wrapper.find('[data-test="jump-sentence"]').text()).toContain(' ft downstream of the vena contracta');
+    expect(wrapper.find('[data-test="jump-sentence"]').text()).toContain(
+      ' ft downstream of the vena contracta',
+    );
     const option = chartOption(wrapper);
     expect(option.yAxis.name).toBe('Depth y (ft)');
     expectRel(option.series.find((s) => s.name === 'Jump toe')!.data[0]![0], ref.x / FT, 5e-4);
@@ -251,7 +290,9 @@ describe('Where the jump forms — the page', () => {
     const c = chan(0.0005);
     expect(mom(c, 0.366)).toBeLessThan(mom(c, normal(c)));
     expect(wrapper.find('[data-test="jump-place"]').text()).toBe('Drowned at the structure');
-    expect(wrapper.find('[data-test="jump-sentence"]').text()).toBe('The jump is drowned: the tailwater holds it against the gate.');
+    expect(wrapper.find('[data-test="jump-sentence"]').text()).toBe(
+      'The jump is drowned: the tailwater holds it against the gate.',
+    );
     expect(shown(wrapper, 'jump-distance').value).toBe(0);
     expectRel(shown(wrapper, 'jump-toe-depth').value, 0.366, 0.0005 / 0.366); // Cc·a
     expect(wrapper.find('[data-test="jump-notes"]').text()).toContain('submerged');
@@ -290,8 +331,14 @@ describe('Where the jump forms — the page', () => {
     const { wrapper } = await mountPage();
     await type(wrapper, { Q: -6 });
     const item = wrapper.find(idOf('Q')).element.closest('.ant-form-item')!;
-    await vi.waitFor(() => expect(item.querySelector('.ant-form-item-explain-error')?.textContent).toBe('The discharge Q must be greater than zero.'));
-    expect(wrapper.find('[data-test="jump-input-problems"]').text()).toContain('The discharge Q must be greater than zero.');
+    await vi.waitFor(() =>
+      expect(item.querySelector('.ant-form-item-explain-error')?.textContent).toBe(
+        'The discharge Q must be greater than zero.',
+      ),
+    );
+    expect(wrapper.find('[data-test="jump-input-problems"]').text()).toContain(
+      'The discharge Q must be greater than zero.',
+    );
     expect(wrapper.find('[data-test="jump-error"]').exists()).toBe(false);
     // typing a good value again brings the result back
     await type(wrapper, { Q: 12 });
@@ -335,17 +382,23 @@ describe('the side navigation', () => {
     ['engineer', ['Projects', 'Where the jump forms', 'Account']],
     ['owner', ['Projects', 'Where the jump forms', 'Team', 'Account']],
     ['viewer', ['Projects', 'Where the jump forms', 'Account']],
-  ] as const)('lists the jump position tool for a %s, between Projects and Team', async (role, labels) => {
-    localStorage.setItem(TOKEN_KEY, `tok-${role}`);
-    setActivePinia(createPinia());
-    stubApi({ 'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } } });
-    const router = createAppRouter(createMemoryHistory());
-    await router.push('/tools/jump-position');
-    const wrapper = mount(AppShell, { global: { plugins: [router] }, slots: { default: '<p>page</p>' } });
-    await flushPromises();
-    const items = wrapper.findAll('nav .ant-menu-item').map((li) => li.text().trim());
-    expect(items).toEqual(labels);
-    expect(wrapper.find('nav .ant-menu-item-selected').text()).toContain('Where the jump forms');
-    wrapper.unmount();
-  });
+  ] as const)(
+    'lists the jump position tool for a %s, between Projects and Team',
+    async (role, labels) => {
+      localStorage.setItem(TOKEN_KEY, `tok-${role}`);
+      setActivePinia(createPinia());
+      stubApi({ 'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } } });
+      const router = createAppRouter(createMemoryHistory());
+      await router.push('/tools/jump-position');
+      const wrapper = mount(AppShell, {
+        global: { plugins: [router] },
+        slots: { default: '<p>page</p>' },
+      });
+      await flushPromises();
+      const items = wrapper.findAll('nav .ant-menu-item').map((li) => li.text().trim());
+      expect(items).toEqual(labels);
+      expect(wrapper.find('nav .ant-menu-item-selected').text()).toContain('Where the jump forms');
+      wrapper.unmount();
+    },
+  );
 });

@@ -12,13 +12,30 @@ afterEach(() => vi.unstubAllGlobals());
 
 const saved = (input: StudyInput | null) => ({
   status: 200,
-  body: { projectId: 'p1', input, options: null, updatedAt: '2025-01-02T00:00:00.000Z', updatedBy: { id: 'u1', name: 'Demo engineer' } },
+  body: {
+    projectId: 'p1',
+    input,
+    options: null,
+    updatedAt: '2025-01-02T00:00:00.000Z',
+    updatedBy: { id: 'u1', name: 'Demo engineer' },
+  },
 });
 
 async function mountWith(input: StudyInput | null, units: 'SI' | 'US' = 'SI') {
   stubApi({ 'GET /projects/p1/design': saved(input) });
-  const w = mount(ProjectDesignSummary, { props: { projectId: 'p1', units }, global: { stubs: { DesignDrawing: true } } });
-  await vi.waitFor(() => expect(w.find('[data-test="summary-basin"], [data-test="summary-empty"], [data-test="summary-problem"]').exists()).toBe(true));
+  const w = mount(ProjectDesignSummary, {
+    props: { projectId: 'p1', units },
+    global: { stubs: { DesignDrawing: true } },
+  });
+  await vi.waitFor(() =>
+    expect(
+      w
+        .find(
+          '[data-test="summary-basin"], [data-test="summary-empty"], [data-test="summary-problem"]',
+        )
+        .exists(),
+    ).toBe(true),
+  );
   await flushPromises();
   return w;
 }
@@ -31,7 +48,9 @@ describe('Design at a glance', () => {
     const w = await mountWith(fenwickDesign);
     expect(w.find('[data-test="summary-basin"]').text()).toBe(d.name);
     expect(w.find('[data-test="summary-floor"]').text()).toBe(`${d.floorElevation.toFixed(2)} m`);
-    expect(w.find('[data-test="summary-size"]').text()).toBe(`${d.length.toFixed(2)} m × ${d.width.toFixed(2)} m`);
+    expect(w.find('[data-test="summary-size"]').text()).toBe(
+      `${d.length.toFixed(2)} m × ${d.width.toFixed(2)} m`,
+    );
     expect(w.text()).toContain('Concept level only.');
     w.unmount();
   });
@@ -41,7 +60,9 @@ describe('Design at a glance', () => {
     const d = r.design!.design;
     if (d.family !== 'jump-basin') throw new Error('the US demo designs a jump basin');
     const w = await mountWith(caldwellDesign, 'US');
-    expect(w.find('[data-test="summary-floor"]').text()).toBe(`${(d.floorElevation / 0.3048).toFixed(2)} ft`);
+    expect(w.find('[data-test="summary-floor"]').text()).toBe(
+      `${(d.floorElevation / 0.3048).toFixed(2)} ft`,
+    );
     w.unmount();
   });
 
@@ -50,7 +71,10 @@ describe('Design at a glance', () => {
     expect(empty.find('[data-test="summary-empty"]').text()).toContain('No design saved yet');
     empty.unmount();
     // a toe at 3 m and 1 m/s is subcritical: no jump forms (Fr1 = 1/√(9.81·3) ≈ 0.18 < 1)
-    const refused = await mountWith({ ...fenwickDesign, inflow: { kind: 'known', toe: { y1: 3, v1: 1 } } });
+    const refused = await mountWith({
+      ...fenwickDesign,
+      inflow: { kind: 'known', toe: { y1: 3, v1: 1 } },
+    });
     expect(refused.find('[data-test="summary-problem"]').text()).toContain('not supercritical');
     refused.unmount();
   });

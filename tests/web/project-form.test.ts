@@ -6,10 +6,12 @@ import { ApiError } from '../../web/src/api/client';
 import type { ProjectBody } from '../../web/src/api/projects';
 import { helpFor } from './form-help';
 
-function mountForm(save: (values: ProjectBody) => Promise<unknown>, initial?: Partial<ProjectBody>) {
+function mountForm(
+  save: (values: ProjectBody) => Promise<unknown>,
+  initial?: Partial<ProjectBody>,
+) {
   return mount(ProjectForm, { props: { save, initial }, attachTo: document.body });
 }
-
 
 async function settle(): Promise<void> {
   // vee-validate validates asynchronously and antd animates the help text in.
@@ -65,10 +67,18 @@ describe('ProjectForm with the shared project schema', () => {
 
   it('starts from the given values when editing', async () => {
     const save = vi.fn().mockResolvedValue(undefined);
-    const wrapper = mountForm(save, { name: 'Caldwell Run culvert outlet', units: 'US', status: 'in review' });
+    const wrapper = mountForm(save, {
+      name: 'Caldwell Run culvert outlet',
+      units: 'US',
+      status: 'in review',
+    });
     await wrapper.find('form').trigger('submit');
     await settle();
-    expect(save.mock.calls[0]![0]).toMatchObject({ name: 'Caldwell Run culvert outlet', units: 'US', status: 'in review' });
+    expect(save.mock.calls[0]![0]).toMatchObject({
+      name: 'Caldwell Run culvert outlet',
+      units: 'US',
+      status: 'in review',
+    });
     wrapper.unmount();
   });
 
@@ -76,7 +86,9 @@ describe('ProjectForm with the shared project schema', () => {
     const save = vi
       .fn()
       .mockRejectedValue(
-        new ApiError(422, 'validation_error', 'Please check the form.', { location: 'Location is not recognised.' }),
+        new ApiError(422, 'validation_error', 'Please check the form.', {
+          location: 'Location is not recognised.',
+        }),
       );
     const wrapper = mountForm(save, { name: 'Weir outlet' });
     await wrapper.find('form').trigger('submit');
@@ -88,11 +100,15 @@ describe('ProjectForm with the shared project schema', () => {
   });
 
   it('shows other server failures above the form', async () => {
-    const save = vi.fn().mockRejectedValue(new ApiError(500, 'internal_error', 'Something went wrong on our side.'));
+    const save = vi
+      .fn()
+      .mockRejectedValue(new ApiError(500, 'internal_error', 'Something went wrong on our side.'));
     const wrapper = mountForm(save, { name: 'Weir outlet' });
     await wrapper.find('form').trigger('submit');
     await settle();
-    expect(wrapper.find('[data-test="form-error"]').text()).toContain('Something went wrong on our side.');
+    expect(wrapper.find('[data-test="form-error"]').text()).toContain(
+      'Something went wrong on our side.',
+    );
     wrapper.unmount();
   });
 });

@@ -35,7 +35,10 @@ async function mountAs(role: Role, items: unknown[], path = '/projects') {
   });
   const router = createAppRouter(createMemoryHistory());
   await router.push(path);
-  const wrapper = mount(ProjectListView, { global: { plugins: [router] }, attachTo: document.body });
+  const wrapper = mount(ProjectListView, {
+    global: { plugins: [router] },
+    attachTo: document.body,
+  });
   await flushPromises();
   await vi.waitFor(() => expect(api.calls.some((c) => c.path === '/projects')).toBe(true));
   await flushPromises();
@@ -46,7 +49,9 @@ describe('ProjectListView', () => {
   it.each(['owner', 'admin', 'engineer'] as const)('offers "New project" to a %s', async (role) => {
     const { wrapper } = await mountAs(role, []);
     expect(wrapper.find('[data-test="new-project"]').exists()).toBe(true);
-    expect(wrapper.find('[data-test="empty-first-run"]').text()).toContain('Create your first project');
+    expect(wrapper.find('[data-test="empty-first-run"]').text()).toContain(
+      'Create your first project',
+    );
     wrapper.unmount();
   });
 
@@ -72,7 +77,11 @@ describe('ProjectListView', () => {
   });
 
   it('passes the search, sort and page from the address to the API', async () => {
-    const { wrapper, api } = await mountAs('viewer', [fenwick], '/projects?search=mill&sort=name&order=asc&page=2');
+    const { wrapper, api } = await mountAs(
+      'viewer',
+      [fenwick],
+      '/projects?search=mill&sort=name&order=asc&page=2',
+    );
     const call = api.fetchMock.mock.calls.find((c) => String(c[0]).startsWith('/api/v1/projects'));
     const url = new URL(String(call![0]), 'http://localhost');
     expect(url.searchParams.get('search')).toBe('mill');

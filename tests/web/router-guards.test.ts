@@ -103,7 +103,12 @@ describe('router guards', () => {
     localStorage.setItem(TOKEN_KEY, 'tok-revoked');
     setActivePinia(createPinia());
     router = createAppRouter(createMemoryHistory());
-    stubApi({ 'GET /auth/me': { status: 401, body: { code: 'unauthorized', message: 'Please sign in again.' } } });
+    stubApi({
+      'GET /auth/me': {
+        status: 401,
+        body: { code: 'unauthorized', message: 'Please sign in again.' },
+      },
+    });
     expect(await land('/team')).toBe('/sign-in?redirect=/team');
     expect(localStorage.getItem(TOKEN_KEY)).toBeNull();
   });
@@ -117,7 +122,9 @@ describe('router guards', () => {
     signedInAs('engineer');
     installUnauthorizedHandler(router);
     expect(await land('/projects?search=mill')).toBe('/projects?search=mill');
-    stubApi({ 'GET /projects': { status: 401, body: { code: 'unauthorized', message: 'Session ended.' } } });
+    stubApi({
+      'GET /projects': { status: 401, body: { code: 'unauthorized', message: 'Session ended.' } },
+    });
     await expect(request('/projects')).rejects.toMatchObject({ status: 401 });
     await vi.waitFor(() => expect(router.currentRoute.value.name).toBe('sign-in'));
     expect(router.currentRoute.value.query.redirect).toBe('/projects?search=mill');

@@ -14,7 +14,8 @@ describe('tailwater rating points', () => {
     const result = runStudy(fenwickDesign);
     const p = ratingPoints(result)!;
     const tw = fenwickDesign.tailwater;
-    if (tw.kind !== 'manning' || tw.section.shape !== 'trapezoidal') throw new Error('demo tailwater is a trapezoidal Manning channel');
+    if (tw.kind !== 'manning' || tw.section.shape !== 'trapezoidal')
+      throw new Error('demo tailwater is a trapezoidal Manning channel');
     const { bottomWidth: b, sideSlope: z } = tw.section;
     expect(p.curve.length).toBeGreaterThan(50);
     for (const pt of p.curve) {
@@ -25,7 +26,8 @@ describe('tailwater rating points', () => {
       expectRel((1 / tw.manningN) * A * Math.pow(A / P, 2 / 3) * Math.sqrt(tw.slope), pt.Q, 1e-6);
     }
     // the curve rises with Q (a rating is monotone) and spans the discharges checked
-    for (let i = 1; i < p.curve.length; i++) expect(p.curve[i]!.elevation).toBeGreaterThan(p.curve[i - 1]!.elevation);
+    for (let i = 1; i < p.curve.length; i++)
+      expect(p.curve[i]!.elevation).toBeGreaterThan(p.curve[i - 1]!.elevation);
     expect(p.checked.map((c) => c.elevation)).toEqual(result.rows.map((r) => r.tailwaterElevation));
     expect(p.outside).toEqual([]);
     expect(p.bed).toBe(90);
@@ -34,23 +36,43 @@ describe('tailwater rating points', () => {
   it('rating table: its points are kept and the discharges beyond it are named', () => {
     const input: StudyInput = {
       ...fenwickDesign,
-      tailwater: { kind: 'table', rows: [{ Q: 5, elevation: 91.2 }, { Q: 40, elevation: 92.9 }, { Q: 60, elevation: 93.6 }] },
+      tailwater: {
+        kind: 'table',
+        rows: [
+          { Q: 5, elevation: 91.2 },
+          { Q: 40, elevation: 92.9 },
+          { Q: 60, elevation: 93.6 },
+        ],
+      },
     };
     const result = runStudy(input);
     const p = ratingPoints(result)!;
-    expect(p.table).toEqual([{ Q: 5, elevation: 91.2 }, { Q: 40, elevation: 92.9 }, { Q: 60, elevation: 93.6 }]);
+    expect(p.table).toEqual([
+      { Q: 5, elevation: 91.2 },
+      { Q: 40, elevation: 92.9 },
+      { Q: 60, elevation: 93.6 },
+    ]);
     // the study checks 5–85 m³/s in 5 m³/s steps: 65 … 85 lie above the table
     expect(p.outside).toEqual([65, 70, 75, 80, 85]);
     // the curve passes through the table's points (monotone interpolation keeps the data) [Fritsch & Carlson 1980]
-    const at = (Q: number) => p.curve.reduce((a, c) => (Math.abs(c.Q - Q) < Math.abs(a.Q - Q) ? c : a));
+    const at = (Q: number) =>
+      p.curve.reduce((a, c) => (Math.abs(c.Q - Q) < Math.abs(a.Q - Q) ? c : a));
     expect(at(5).elevation).toBe(91.2);
-    const w = mount(DesignTailwaterChart, { props: { result, units: 'SI' }, global: { stubs: { VChart: true } } });
-    expect(w.find('[data-test="tailwater-outside"]').text()).toContain('5 discharge(s) lie outside the rating table');
+    const w = mount(DesignTailwaterChart, {
+      props: { result, units: 'SI' },
+      global: { stubs: { VChart: true } },
+    });
+    expect(w.find('[data-test="tailwater-outside"]').text()).toContain(
+      '5 discharge(s) lie outside the rating table',
+    );
     w.unmount();
   });
 
   it('shows nothing before there is a result', () => {
-    const w = mount(DesignTailwaterChart, { props: { result: null, units: 'SI' }, global: { stubs: { VChart: true } } });
+    const w = mount(DesignTailwaterChart, {
+      props: { result: null, units: 'SI' },
+      global: { stubs: { VChart: true } },
+    });
     expect(w.find('[data-test="tailwater-chart"]').exists()).toBe(false);
     w.unmount();
   });

@@ -74,19 +74,23 @@ describe('TeamView', () => {
     await invRow.find('button').trigger('click');
     // The confirmation opens in a popover attached to the document body.
     const confirm = await vi.waitFor(() => {
-      const button = Array.from(document.querySelectorAll<HTMLButtonElement>('.ant-popover button')).find(
-        (b) => b.textContent?.trim() === 'Withdraw',
-      );
+      const button = Array.from(
+        document.querySelectorAll<HTMLButtonElement>('.ant-popover button'),
+      ).find((b) => b.textContent?.trim() === 'Withdraw');
       if (!button) throw new Error('confirmation not open yet');
       return button;
     });
     expect(api.calls.some((c) => c.method === 'DELETE')).toBe(false);
     confirm.click();
     await vi.waitFor(() =>
-      expect(api.calls.some((c) => c.method === 'DELETE' && c.path === '/members/invitations/inv-1')).toBe(true),
+      expect(
+        api.calls.some((c) => c.method === 'DELETE' && c.path === '/members/invitations/inv-1'),
+      ).toBe(true),
     );
     await flushPromises();
-    expect(wrapper.find('[data-test="invitation-table"] tr[data-row-key="inv-1"]').exists()).toBe(false);
+    expect(wrapper.find('[data-test="invitation-table"] tr[data-row-key="inv-1"]').exists()).toBe(
+      false,
+    );
     wrapper.unmount();
   });
 });

@@ -12,7 +12,8 @@ import { fenwickDesign } from '../../seed/designs';
 interface Option {
   series: Array<{ data: number[][] }>;
 }
-const optionOf = (w: ReturnType<typeof mount>) => w.findComponent(VChart).props('option') as unknown as Option;
+const optionOf = (w: ReturnType<typeof mount>) =>
+  w.findComponent(VChart).props('option') as unknown as Option;
 
 describe('the jump-class bands', () => {
   it('follow the classification: each band holds its class, and the classes change at its edges', () => {
@@ -31,7 +32,10 @@ describe('DesignToeChart', () => {
     const result = runStudy(fenwickDesign);
     const d = result.design!.design;
     if (d.family !== 'jump-basin') throw new Error('jump basin expected');
-    const w = mount(DesignToeChart, { props: { result, units: 'US' }, global: { stubs: { VChart: true } } });
+    const w = mount(DesignToeChart, {
+      props: { result, units: 'US' },
+      global: { stubs: { VChart: true } },
+    });
     expect(w.text()).toContain(`on the ${d.name}'s floor`);
     const [fr, v] = optionOf(w).series;
     expect(fr!.data.map((p) => p[1])).toEqual(d.rows.map((r) => r.fr1));
@@ -43,7 +47,10 @@ describe('DesignToeChart', () => {
 
   it('with a type that holds no jump chosen: the study’s rows on the free-jump floor', () => {
     const result = runStudy({ ...fenwickDesign, dissipators: { chosenType: 'usbr-6' } });
-    const w = mount(DesignToeChart, { props: { result, units: 'SI' }, global: { stubs: { VChart: true } } });
+    const w = mount(DesignToeChart, {
+      props: { result, units: 'SI' },
+      global: { stubs: { VChart: true } },
+    });
     expect(w.text()).toContain('on the free-jump floor');
     expect(optionOf(w).series[0]!.data.map((p) => p[1])).toEqual(result.rows.map((r) => r.fr1));
     w.unmount();

@@ -24,7 +24,8 @@ export function provideNumberForm(ctx: NumberFormContext): void {
 
 export function useNumberForm(): NumberFormContext {
   const ctx = inject(NUMBER_FORM_KEY);
-  if (!ctx) throw new Error('A number field needs a form that provides its context (provideNumberForm)');
+  if (!ctx)
+    throw new Error('A number field needs a form that provides its context (provideNumberForm)');
   return ctx;
 }
 
@@ -44,7 +45,12 @@ export function getPath(obj: unknown, path: string): unknown {
  */
 export function lazyField(state: Pick<PublicPathState, 'errors'>) {
   const live = state.errors.length > 0;
-  return { validateOnBlur: true, validateOnChange: live, validateOnInput: live, validateOnModelUpdate: live };
+  return {
+    validateOnBlur: true,
+    validateOnChange: live,
+    validateOnInput: live,
+    validateOnModelUpdate: live,
+  };
 }
 
 /** Props for `a-form-item` from one field's error message. */

@@ -1,6 +1,17 @@
 // The words the UI shows for enum values, in one place.
 import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
-import type { Confidence, CriterionId, CriterionStatus, DebrisLevel, DissipatorFamily, JumpClass, JumpLocation, JumpPosition, JumpSituation, Verdict } from '@basinwright/common';
+import type {
+  Confidence,
+  CriterionId,
+  CriterionStatus,
+  DebrisLevel,
+  DissipatorFamily,
+  JumpClass,
+  JumpLocation,
+  JumpPosition,
+  JumpSituation,
+  Verdict,
+} from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -28,7 +39,8 @@ export const roleLabel = (role: Role): string => roles[role];
 export const planLabel = (plan: Plan): string => plans[plan];
 export const statusLabel = (status: ProjectStatus): string => statuses[status].label;
 export const statusColor = (status: ProjectStatus): string => statuses[status].color;
-export const unitsLabel = (units: Units): string => (units === 'SI' ? 'SI (metric)' : 'US customary');
+export const unitsLabel = (units: Units): string =>
+  units === 'SI' ? 'SI (metric)' : 'US customary';
 
 export const roleDescriptions: Record<Role, string> = {
   owner: 'Everything, including billing and closing the firm account',
@@ -41,7 +53,11 @@ export const roleDescriptions: Record<Role, string> = {
 export const projectStatuses: readonly ProjectStatus[] = PROJECT_STATUSES;
 export const invitableRoles: readonly Role[] = INVITABLE_ROLES;
 
-const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+});
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
   day: 'numeric',
   month: 'short',
@@ -58,7 +74,8 @@ function formatIso(format: Intl.DateTimeFormat, iso: string | null | undefined):
 }
 
 export const formatDate = (iso: string | null | undefined): string => formatIso(dateFormat, iso);
-export const formatDateTime = (iso: string | null | undefined): string => formatIso(dateTimeFormat, iso);
+export const formatDateTime = (iso: string | null | undefined): string =>
+  formatIso(dateTimeFormat, iso);
 
 // Design workspace: jump positions, jump classes, screening verdicts and criteria in our words.
 
@@ -88,10 +105,18 @@ const verdicts: Record<Verdict, string> = {
 };
 export const verdictLabel = (v: Verdict): string => verdicts[v];
 
-const criterionStatuses: Record<CriterionStatus, string> = { pass: 'Meets', warn: 'Caution', fail: 'Fails' };
+const criterionStatuses: Record<CriterionStatus, string> = {
+  pass: 'Meets',
+  warn: 'Caution',
+  fail: 'Fails',
+};
 // A jet structure (flip or slotted bucket) is screened for whether the site points to it, not
 // for limits it must stay within: its criteria read as indications.
-const jetCriterionStatuses: Record<CriterionStatus, string> = { pass: 'Indicates', warn: 'Borderline', fail: 'Not indicated' };
+const jetCriterionStatuses: Record<CriterionStatus, string> = {
+  pass: 'Indicates',
+  warn: 'Borderline',
+  fail: 'Not indicated',
+};
 export const criterionStatusLabel = (s: CriterionStatus, family?: DissipatorFamily): string =>
   (family === 'jet' ? jetCriterionStatuses : criterionStatuses)[s];
 
@@ -112,9 +137,17 @@ export const criterionLabel = (c: CriterionId): string => criteria[c] ?? c;
 // How sure a default is, in words (the engine's provenance tags src, mem, calc, practice).
 const confidences: Record<Confidence, { label: string; color: string; help: string }> = {
   src: { label: 'Published', color: 'cyan', help: 'Read in the named publication.' },
-  mem: { label: 'From memory — verify', color: 'gold', help: 'Recalled from the named publication, not re-read: check it before relying on it.' },
+  mem: {
+    label: 'From memory — verify',
+    color: 'gold',
+    help: 'Recalled from the named publication, not re-read: check it before relying on it.',
+  },
   calc: { label: 'Computed', color: 'blue', help: 'Follows from physics or a standard constant.' },
-  practice: { label: 'Common practice', color: 'default', help: 'A habit of the trade with no single source.' },
+  practice: {
+    label: 'Common practice',
+    color: 'default',
+    help: 'A habit of the trade with no single source.',
+  },
 };
 export const confidenceLabel = (c: Confidence): string => confidences[c].label;
 export const confidenceColor = (c: Confidence): string => confidences[c].color;
@@ -147,12 +180,29 @@ export const JUMP_TOOL_SUBTITLE =
 
 export type JumpSituationKind = JumpSituation['kind'];
 const jumpSituations: Record<JumpSituationKind, { label: string; help: string }> = {
-  slopeBreak: { label: 'Steep reach onto a mild one', help: 'A chute or steep channel meets a flatter channel at a break in the bed slope.' },
-  gateMildSlope: { label: 'Sluice gate on a mild slope', help: 'Flow issues under a gate onto a mild bed; the fast flow deepens downstream until the jump.' },
-  gateSteepSlope: { label: 'Gate on a steep slope', help: 'A gate across a steep channel backs the water up; the jump forms upstream of the gate.' },
-  weirToMildSlope: { label: 'Weir or drop onto a mild slope', help: 'Flow passes critical depth on a crest, falls to the bed below and runs onto a mild reach.' },
+  slopeBreak: {
+    label: 'Steep reach onto a mild one',
+    help: 'A chute or steep channel meets a flatter channel at a break in the bed slope.',
+  },
+  gateMildSlope: {
+    label: 'Sluice gate on a mild slope',
+    help: 'Flow issues under a gate onto a mild bed; the fast flow deepens downstream until the jump.',
+  },
+  gateSteepSlope: {
+    label: 'Gate on a steep slope',
+    help: 'A gate across a steep channel backs the water up; the jump forms upstream of the gate.',
+  },
+  weirToMildSlope: {
+    label: 'Weir or drop onto a mild slope',
+    help: 'Flow passes critical depth on a crest, falls to the bed below and runs onto a mild reach.',
+  },
 };
-export const JUMP_SITUATION_KINDS: readonly JumpSituationKind[] = ['slopeBreak', 'gateMildSlope', 'gateSteepSlope', 'weirToMildSlope'];
+export const JUMP_SITUATION_KINDS: readonly JumpSituationKind[] = [
+  'slopeBreak',
+  'gateMildSlope',
+  'gateSteepSlope',
+  'weirToMildSlope',
+];
 export const jumpSituationLabel = (k: JumpSituationKind): string => jumpSituations[k].label;
 export const jumpSituationHelp = (k: JumpSituationKind): string => jumpSituations[k].help;
 
@@ -209,7 +259,12 @@ export const CONCEPT_CAUTION_TEXT =
  * the engine's classifyJump]: undular 1–1.7, weak 1.7–2.5, oscillating 2.5–4.5, steady 4.5–9,
  * strong above 9.
  */
-export const JUMP_CLASS_BANDS: ReadonlyArray<{ jumpClass: JumpClass; from: number; to: number | null; color: string }> = [
+export const JUMP_CLASS_BANDS: ReadonlyArray<{
+  jumpClass: JumpClass;
+  from: number;
+  to: number | null;
+  color: string;
+}> = [
   { jumpClass: 'undular', from: 1, to: 1.7, color: '#f1f5f9' },
   { jumpClass: 'weak', from: 1.7, to: 2.5, color: '#e2e8f0' },
   { jumpClass: 'oscillating', from: 2.5, to: 4.5, color: '#fde68a' },

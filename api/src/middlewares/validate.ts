@@ -39,10 +39,7 @@ export function detailsOf(error: ValidationError, source: ValidationSource): Err
  * unknown keys dropped. The cast body replaces req.body; a cast query goes to
  * res.locals.query (Express 5's req.query cannot be reassigned).
  */
-export function validate(
-  schema: Schema,
-  source: ValidationSource = 'body',
-): RequestHandler {
+export function validate(schema: Schema, source: ValidationSource = 'body'): RequestHandler {
   return async (req, res, next) => {
     const raw: unknown = source === 'body' ? (req.body ?? {}) : req.query;
     if (!isPlainObject(raw)) throw validationError({ [source]: 'Send a JSON object.' });

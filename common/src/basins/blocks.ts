@@ -36,13 +36,30 @@ export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: num
   const s = reqPositive('spacing', spacing);
   if (w + s > W * (1 + 1e-9)) {
     const bw = Math.min(w, W / 2);
-    return { count: 1, width: bw, spacing: W - bw, nominalSpacing: s, wallSpace: (W - bw) / 2, centres: [0], widthFraction: bw / W, narrow: true };
+    return {
+      count: 1,
+      width: bw,
+      spacing: W - bw,
+      nominalSpacing: s,
+      wallSpace: (W - bw) / 2,
+      centres: [0],
+      widthFraction: bw / W,
+      narrow: true,
+    };
   }
   const count = Math.max(1, Math.floor(W / (w + s) + 1e-9));
   const asBuilt = W / count - w;
   const centres: number[] = [];
   for (let k = 0; k < count; k++) centres.push(-W / 2 + asBuilt / 2 + w / 2 + k * (w + asBuilt));
-  return { count, width: w, spacing: asBuilt, nominalSpacing: s, wallSpace: asBuilt / 2, centres, widthFraction: (count * w) / W };
+  return {
+    count,
+    width: w,
+    spacing: asBuilt,
+    nominalSpacing: s,
+    wallSpace: asBuilt / 2,
+    centres,
+    widthFraction: (count * w) / W,
+  };
 }
 
 /**
@@ -50,7 +67,11 @@ export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: num
  * floor blocks, Type III baffle piers placed "staggered" with the chute blocks). Blocks that
  * would overlap a neighbour or a wall are dropped.
  */
-export function staggeredRow(basinWidth: number, reference: BlockRow, blockWidth: number): BlockRow {
+export function staggeredRow(
+  basinWidth: number,
+  reference: BlockRow,
+  blockWidth: number,
+): BlockRow {
   const W = reqPositive('basinWidth', basinWidth);
   const w = reqPositive('blockWidth', blockWidth);
   const centres: number[] = [];
@@ -85,7 +106,12 @@ export function staggeredRow(basinWidth: number, reference: BlockRow, blockWidth
  * chute-block pitches less the pier width, so it can exceed the rule's, as the fitted rows' do.
  * Falls back to the rule's own fit (`behindOpenings` 0) when there is no opening to stand behind.
  */
-export function staggerBehind(basinWidth: number, reference: BlockRow, blockWidth: number, spacing: number): BlockRow {
+export function staggerBehind(
+  basinWidth: number,
+  reference: BlockRow,
+  blockWidth: number,
+  spacing: number,
+): BlockRow {
   const W = reqPositive('basinWidth', basinWidth);
   const w = reqPositive('blockWidth', blockWidth);
   const s = reqPositive('spacing', spacing);
@@ -103,7 +129,10 @@ export function staggerBehind(basinWidth: number, reference: BlockRow, blockWidt
   for (let start = 0; start < Math.min(m, openings.length); start++) {
     const centres = openings.filter((_, k) => k >= start && (k - start) % m === 0);
     const imbalance = Math.abs(W / 2 + centres[0]! - (W / 2 - centres[centres.length - 1]!));
-    if (centres.length > best.length || (centres.length === best.length && imbalance < bestImbalance - 1e-12)) {
+    if (
+      centres.length > best.length ||
+      (centres.length === best.length && imbalance < bestImbalance - 1e-12)
+    ) {
       best = centres;
       bestImbalance = imbalance;
     }

@@ -23,7 +23,13 @@ export const DISSIPATOR_CATALOGUE: readonly DissipatorModule[] = [
   slottedBucket,
 ];
 
-export const JUMP_BASIN_TYPES: readonly JumpBasinType[] = ['usbr-1', 'usbr-2', 'usbr-3', 'usbr-4', 'saf'];
+export const JUMP_BASIN_TYPES: readonly JumpBasinType[] = [
+  'usbr-1',
+  'usbr-2',
+  'usbr-3',
+  'usbr-4',
+  'saf',
+];
 
 /** The module of a type; RangeError naming the argument for an unknown type. */
 export function getDissipator(id: DissipatorTypeId): DissipatorModule {

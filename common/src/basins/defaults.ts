@@ -16,9 +16,11 @@ export interface Provenance {
 }
 
 const DSD = 'USBR, Design of Small Dams';
-const EM25 = 'USBR EM-25 (Peterka 1958), Hydraulic Design of Stilling Basins and Energy Dissipators';
+const EM25 =
+  'USBR EM-25 (Peterka 1958), Hydraulic Design of Stilling Basins and Energy Dissipators';
 const SAF = 'Blaisdell 1948, SAF stilling basin (via USBR / USDA)';
-const HEC14 = 'FHWA HEC-14 (2006), Hydraulic Design of Energy Dissipators for Culverts and Channels';
+const HEC14 =
+  'FHWA HEC-14 (2006), Hydraulic Design of Energy Dissipators for Culverts and Channels';
 
 /** Overridable defaults of the dissipator engine (SI: m, s, m³/s, kN/m³). */
 export const BASIN_DEFAULTS = {
@@ -104,82 +106,410 @@ export type BasinDefaultKey = keyof BasinDefaults;
 
 /** Where each default comes from; a test checks every key has one. */
 export const BASIN_DEFAULT_PROVENANCE: Record<BasinDefaultKey, Provenance> = {
-  tailwaterFactorType1: { source: EM25, confidence: 'src', label: 'Type I tailwater factor C (TW ≥ C·y2)', unit: '-' },
-  tailwaterFactorType2: { source: EM25, confidence: 'mem', label: 'Type II tailwater factor C', unit: '-' },
-  tailwaterFactorType3: { source: EM25, confidence: 'mem', label: 'Type III tailwater factor C', unit: '-' },
-  tailwaterFactorType4: { source: EM25, confidence: 'mem', label: 'Type IV tailwater factor C', unit: '-' },
-  type2LengthRatioAtFr4_5: { source: EM25, confidence: 'mem', label: 'Type II basin length / y2 at Fr1 = 4.5', unit: '-' },
-  type2LengthRatioAtFr14: { source: EM25, confidence: 'mem', label: 'Type II basin length / y2 at Fr1 ≥ 14', unit: '-' },
-  type3LengthRatioAtFr4_5: { source: EM25, confidence: 'mem', label: 'Type III basin length / y2 at Fr1 = 4.5', unit: '-' },
-  type3LengthRatioAtFr10: { source: EM25, confidence: 'mem', label: 'Type III basin length / y2 at Fr1 ≥ 10', unit: '-' },
-  safTailwaterLowIntercept: { source: SAF, confidence: 'mem', label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 1.7–5.5: a', unit: '-' },
-  safTailwaterLowDivisor: { source: SAF, confidence: 'mem', label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 1.7–5.5: b', unit: '-' },
-  safTailwaterMid: { source: SAF, confidence: 'mem', label: 'SAF tailwater factor C for Fr1 5.5–11', unit: '-' },
-  safTailwaterHighIntercept: { source: SAF, confidence: 'mem', label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 11–17: a', unit: '-' },
-  safTailwaterHighDivisor: { source: SAF, confidence: 'mem', label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 11–17: b', unit: '-' },
-  safLengthCoefficient: { source: SAF, confidence: 'mem', label: 'SAF length L = a·y2/Fr1^b: a', unit: '-' },
-  safLengthExponent: { source: SAF, confidence: 'mem', label: 'SAF length L = a·y2/Fr1^b: b', unit: '-' },
-  type2MaxUnitDischarge: { source: EM25, confidence: 'mem', label: 'Type II largest tested unit discharge', unit: 'm²/s' },
-  type3MaxUnitDischarge: { source: EM25, confidence: 'mem', label: 'Type III largest unit discharge', unit: 'm²/s' },
-  type3VelocityWarn: { source: EM25, confidence: 'src', label: 'Type III inflow velocity above which to take care (cavitation on piers)', unit: 'm/s' },
-  type3VelocityFail: { source: EM25, confidence: 'mem', label: 'Type III inflow velocity above which baffle piers are not used', unit: 'm/s' },
-  safVelocityFail: { source: SAF, confidence: 'src', label: 'SAF inflow velocity above which chute blocks are not advised', unit: 'm/s' },
-  type6MaxDischarge: { source: HEC14, confidence: 'src', label: 'Type VI largest discharge', unit: 'm³/s' },
-  type6MaxVelocity: { source: HEC14, confidence: 'src', label: 'Type VI largest entering velocity', unit: 'm/s' },
-  type9MaxUnitDischarge: { source: DSD, confidence: 'src', label: 'Type IX largest unit discharge', unit: 'm²/s' },
-  type9MaxApproachFroude: { source: 'common practice', confidence: 'practice', label: 'Type IX: largest Froude number still "near critical" at entry', unit: '-' },
-  apronMaxRise: { source: HEC14, confidence: 'src', label: 'Riprap apron: largest culvert rise', unit: 'm' },
-  apronMaxFroude: { source: HEC14, confidence: 'mem', label: 'Riprap apron: largest outlet Froude number', unit: '-' },
-  cavitationVelocity: { source: EM25, confidence: 'src', label: 'Inflow velocity above which blocks risk cavitation (model study advised)', unit: 'm/s' },
-  excessSubmergenceRatio: { source: 'common practice', confidence: 'practice', label: 'Tailwater / required depth above which submergence is called excessive', unit: '-' },
-  specialistVelocity: { source: EM25, confidence: 'mem', label: 'Inflow velocity beyond which a jet structure is the likely answer', unit: 'm/s' },
-  specialistHead: { source: 'common practice', confidence: 'practice', label: 'Head above the floor beyond which a jet structure is the likely answer', unit: 'm' },
-  slottedBucketTailwaterRatio: { source: EM25, confidence: 'mem', label: 'Tailwater / sequent depth at bed level above which a submerged bucket is indicated', unit: '-' },
-  type2SillHeightRatio: { source: EM25, confidence: 'mem', label: 'Type II dentated sill height / y2', unit: '-' },
-  type2ToothRatio: { source: EM25, confidence: 'mem', label: 'Type II sill tooth width and gap / y2', unit: '-' },
-  type3PierDistanceRatio: { source: EM25, confidence: 'mem', label: 'Type III distance from the chute blocks to the baffle piers / y2', unit: '-' },
-  type4DeflectorHeightRatio: { source: EM25, confidence: 'mem', label: 'Type IV deflector block height / y1', unit: '-' },
-  type4DeflectorSpacingRatio: { source: EM25, confidence: 'mem', label: 'Type IV space between deflector blocks / block width', unit: '-' },
-  safBlockRatio: { source: SAF, confidence: 'mem', label: 'SAF chute and floor block width and spacing / y1', unit: '-' },
+  tailwaterFactorType1: {
+    source: EM25,
+    confidence: 'src',
+    label: 'Type I tailwater factor C (TW ≥ C·y2)',
+    unit: '-',
+  },
+  tailwaterFactorType2: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II tailwater factor C',
+    unit: '-',
+  },
+  tailwaterFactorType3: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III tailwater factor C',
+    unit: '-',
+  },
+  tailwaterFactorType4: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type IV tailwater factor C',
+    unit: '-',
+  },
+  type2LengthRatioAtFr4_5: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II basin length / y2 at Fr1 = 4.5',
+    unit: '-',
+  },
+  type2LengthRatioAtFr14: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II basin length / y2 at Fr1 ≥ 14',
+    unit: '-',
+  },
+  type3LengthRatioAtFr4_5: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III basin length / y2 at Fr1 = 4.5',
+    unit: '-',
+  },
+  type3LengthRatioAtFr10: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III basin length / y2 at Fr1 ≥ 10',
+    unit: '-',
+  },
+  safTailwaterLowIntercept: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 1.7–5.5: a',
+    unit: '-',
+  },
+  safTailwaterLowDivisor: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 1.7–5.5: b',
+    unit: '-',
+  },
+  safTailwaterMid: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF tailwater factor C for Fr1 5.5–11',
+    unit: '-',
+  },
+  safTailwaterHighIntercept: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 11–17: a',
+    unit: '-',
+  },
+  safTailwaterHighDivisor: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF tailwater factor C = a − Fr1²/b for Fr1 11–17: b',
+    unit: '-',
+  },
+  safLengthCoefficient: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF length L = a·y2/Fr1^b: a',
+    unit: '-',
+  },
+  safLengthExponent: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF length L = a·y2/Fr1^b: b',
+    unit: '-',
+  },
+  type2MaxUnitDischarge: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II largest tested unit discharge',
+    unit: 'm²/s',
+  },
+  type3MaxUnitDischarge: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III largest unit discharge',
+    unit: 'm²/s',
+  },
+  type3VelocityWarn: {
+    source: EM25,
+    confidence: 'src',
+    label: 'Type III inflow velocity above which to take care (cavitation on piers)',
+    unit: 'm/s',
+  },
+  type3VelocityFail: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III inflow velocity above which baffle piers are not used',
+    unit: 'm/s',
+  },
+  safVelocityFail: {
+    source: SAF,
+    confidence: 'src',
+    label: 'SAF inflow velocity above which chute blocks are not advised',
+    unit: 'm/s',
+  },
+  type6MaxDischarge: {
+    source: HEC14,
+    confidence: 'src',
+    label: 'Type VI largest discharge',
+    unit: 'm³/s',
+  },
+  type6MaxVelocity: {
+    source: HEC14,
+    confidence: 'src',
+    label: 'Type VI largest entering velocity',
+    unit: 'm/s',
+  },
+  type9MaxUnitDischarge: {
+    source: DSD,
+    confidence: 'src',
+    label: 'Type IX largest unit discharge',
+    unit: 'm²/s',
+  },
+  type9MaxApproachFroude: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Type IX: largest Froude number still "near critical" at entry',
+    unit: '-',
+  },
+  apronMaxRise: {
+    source: HEC14,
+    confidence: 'src',
+    label: 'Riprap apron: largest culvert rise',
+    unit: 'm',
+  },
+  apronMaxFroude: {
+    source: HEC14,
+    confidence: 'mem',
+    label: 'Riprap apron: largest outlet Froude number',
+    unit: '-',
+  },
+  cavitationVelocity: {
+    source: EM25,
+    confidence: 'src',
+    label: 'Inflow velocity above which blocks risk cavitation (model study advised)',
+    unit: 'm/s',
+  },
+  excessSubmergenceRatio: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Tailwater / required depth above which submergence is called excessive',
+    unit: '-',
+  },
+  specialistVelocity: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Inflow velocity beyond which a jet structure is the likely answer',
+    unit: 'm/s',
+  },
+  specialistHead: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Head above the floor beyond which a jet structure is the likely answer',
+    unit: 'm',
+  },
+  slottedBucketTailwaterRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Tailwater / sequent depth at bed level above which a submerged bucket is indicated',
+    unit: '-',
+  },
+  type2SillHeightRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II dentated sill height / y2',
+    unit: '-',
+  },
+  type2ToothRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type II sill tooth width and gap / y2',
+    unit: '-',
+  },
+  type3PierDistanceRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type III distance from the chute blocks to the baffle piers / y2',
+    unit: '-',
+  },
+  type4DeflectorHeightRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type IV deflector block height / y1',
+    unit: '-',
+  },
+  type4DeflectorSpacingRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type IV space between deflector blocks / block width',
+    unit: '-',
+  },
+  safBlockRatio: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF chute and floor block width and spacing / y1',
+    unit: '-',
+  },
   safSillRatio: { source: SAF, confidence: 'mem', label: 'SAF end sill height / y2', unit: '-' },
-  safFloorBlockPosition: { source: SAF, confidence: 'mem', label: 'SAF floor blocks: distance from the chute blocks / basin length', unit: '-' },
-  type4SillHeightRatio: { source: EM25, confidence: 'mem', label: 'Type IV optional solid sill height / y1', unit: '-' },
-  chuteBlockLengthRatio: { source: 'common practice', confidence: 'practice', label: 'Chute or deflector block length along the flow / height (drawing and quantities)', unit: '-' },
-  type6WidthCoefficient: { source: HEC14, confidence: 'mem', label: 'Type VI width curve W/ye = a·Fr^b: a', unit: '-' },
-  type6WidthExponent: { source: HEC14, confidence: 'mem', label: 'Type VI width curve W/ye = a·Fr^b: b', unit: '-' },
-  type9BaffleHeightRatio: { source: DSD, confidence: 'mem', label: 'Type IX baffle height / critical depth', unit: '-' },
-  type9BaffleWidthRatio: { source: DSD, confidence: 'mem', label: 'Type IX baffle width and space / baffle height', unit: '-' },
-  type9RowSpacingRatio: { source: DSD, confidence: 'mem', label: 'Type IX row spacing along the slope / baffle height', unit: '-' },
-  type9WallHeightRatio: { source: DSD, confidence: 'mem', label: 'Type IX wall height (normal to the slope) / baffle height', unit: '-' },
-  type9MinRows: { source: DSD, confidence: 'mem', label: 'Type IX least number of baffle rows', unit: '-' },
-  type9ChuteSlope: { source: DSD, confidence: 'mem', label: 'Type IX apron slope, horizontal per 1 vertical', unit: '-' },
-  freeboardCoefficient: { source: DSD, confidence: 'mem', label: 'Freeboard = k·(V1 + y2) in ft and ft/s: k', unit: '-' },
-  stoneSpecificGravity: { source: 'common practice', confidence: 'practice', label: 'Specific gravity of riprap stone', unit: '-' },
-  isbashCoefficient: { source: 'Isbash (via HEC-14 / USACE)', confidence: 'src', label: 'Isbash coefficient C (0.86 turbulent, 1.20 low turbulence)', unit: '-' },
-  riprapLengthRatio: { source: EM25, confidence: 'mem', label: 'Length of riprap below the end sill / y2', unit: '-' },
-  riprapMinThickness: { source: 'common practice', confidence: 'practice', label: 'Least riprap layer thickness', unit: 'm' },
-  flotationSafetyFactor: { source: 'USACE (usual loading)', confidence: 'mem', label: 'Safety factor against flotation, usual loading', unit: '-' },
-  minSlabThickness: { source: 'common practice', confidence: 'practice', label: 'Least floor slab thickness', unit: 'm' },
-  minWallThickness: { source: 'hydraulics.md §4 (concept structure)', confidence: 'practice', label: 'Least wall thickness', unit: 'm' },
-  wallThicknessRatio: { source: 'common practice', confidence: 'practice', label: 'Wall thickness / wall height (concept cantilever walls)', unit: '-' },
-  upliftFactor: { source: 'common practice', confidence: 'practice', label: 'Share of the full uplift head acting under the slab (1 = no drains)', unit: '-' },
-  concreteUnitWeight: { source: 'common practice', confidence: 'practice', label: 'Unit weight of reinforced concrete', unit: 'kN/m³' },
-  waterUnitWeight: { source: 'standard (ρ·g)', confidence: 'calc', label: 'Unit weight of water', unit: 'kN/m³' },
-  wingwallAngleDeg: { source: SAF, confidence: 'mem', label: 'Wingwall angle to the basin axis', unit: '°' },
-  wingwallLengthRatio: { source: 'common practice', confidence: 'practice', label: 'Wingwall length / wall height', unit: '-' },
-  upstreamCutoffDepth: { source: 'common practice', confidence: 'practice', label: 'Upstream cutoff depth below the slab', unit: 'm' },
-  downstreamCutoffDepth: { source: 'common practice', confidence: 'practice', label: 'Downstream cutoff depth below the slab', unit: 'm' },
-  exitSlopeHorizontal: { source: 'common practice', confidence: 'practice', label: 'Exit slope from the end sill up to the channel bed, horizontal per 1 vertical', unit: '-' },
+  safFloorBlockPosition: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'SAF floor blocks: distance from the chute blocks / basin length',
+    unit: '-',
+  },
+  type4SillHeightRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Type IV optional solid sill height / y1',
+    unit: '-',
+  },
+  chuteBlockLengthRatio: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Chute or deflector block length along the flow / height (drawing and quantities)',
+    unit: '-',
+  },
+  type6WidthCoefficient: {
+    source: HEC14,
+    confidence: 'mem',
+    label: 'Type VI width curve W/ye = a·Fr^b: a',
+    unit: '-',
+  },
+  type6WidthExponent: {
+    source: HEC14,
+    confidence: 'mem',
+    label: 'Type VI width curve W/ye = a·Fr^b: b',
+    unit: '-',
+  },
+  type9BaffleHeightRatio: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX baffle height / critical depth',
+    unit: '-',
+  },
+  type9BaffleWidthRatio: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX baffle width and space / baffle height',
+    unit: '-',
+  },
+  type9RowSpacingRatio: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX row spacing along the slope / baffle height',
+    unit: '-',
+  },
+  type9WallHeightRatio: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX wall height (normal to the slope) / baffle height',
+    unit: '-',
+  },
+  type9MinRows: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX least number of baffle rows',
+    unit: '-',
+  },
+  type9ChuteSlope: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Type IX apron slope, horizontal per 1 vertical',
+    unit: '-',
+  },
+  freeboardCoefficient: {
+    source: DSD,
+    confidence: 'mem',
+    label: 'Freeboard = k·(V1 + y2) in ft and ft/s: k',
+    unit: '-',
+  },
+  stoneSpecificGravity: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Specific gravity of riprap stone',
+    unit: '-',
+  },
+  isbashCoefficient: {
+    source: 'Isbash (via HEC-14 / USACE)',
+    confidence: 'src',
+    label: 'Isbash coefficient C (0.86 turbulent, 1.20 low turbulence)',
+    unit: '-',
+  },
+  riprapLengthRatio: {
+    source: EM25,
+    confidence: 'mem',
+    label: 'Length of riprap below the end sill / y2',
+    unit: '-',
+  },
+  riprapMinThickness: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Least riprap layer thickness',
+    unit: 'm',
+  },
+  flotationSafetyFactor: {
+    source: 'USACE (usual loading)',
+    confidence: 'mem',
+    label: 'Safety factor against flotation, usual loading',
+    unit: '-',
+  },
+  minSlabThickness: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Least floor slab thickness',
+    unit: 'm',
+  },
+  minWallThickness: {
+    source: 'hydraulics.md §4 (concept structure)',
+    confidence: 'practice',
+    label: 'Least wall thickness',
+    unit: 'm',
+  },
+  wallThicknessRatio: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Wall thickness / wall height (concept cantilever walls)',
+    unit: '-',
+  },
+  upliftFactor: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Share of the full uplift head acting under the slab (1 = no drains)',
+    unit: '-',
+  },
+  concreteUnitWeight: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Unit weight of reinforced concrete',
+    unit: 'kN/m³',
+  },
+  waterUnitWeight: {
+    source: 'standard (ρ·g)',
+    confidence: 'calc',
+    label: 'Unit weight of water',
+    unit: 'kN/m³',
+  },
+  wingwallAngleDeg: {
+    source: SAF,
+    confidence: 'mem',
+    label: 'Wingwall angle to the basin axis',
+    unit: '°',
+  },
+  wingwallLengthRatio: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Wingwall length / wall height',
+    unit: '-',
+  },
+  upstreamCutoffDepth: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Upstream cutoff depth below the slab',
+    unit: 'm',
+  },
+  downstreamCutoffDepth: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Downstream cutoff depth below the slab',
+    unit: 'm',
+  },
+  exitSlopeHorizontal: {
+    source: 'common practice',
+    confidence: 'practice',
+    label: 'Exit slope from the end sill up to the channel bed, horizontal per 1 vertical',
+    unit: '-',
+  },
 };
 
 /** The defaults with the user's overrides applied; rejects unknown keys and bad numbers. */
 export function resolveDefaults(overrides: Partial<BasinDefaults> = {}): BasinDefaults {
   const out: BasinDefaults = { ...BASIN_DEFAULTS };
   for (const [key, value] of Object.entries(overrides)) {
-    if (!(key in BASIN_DEFAULTS)) throw new RangeError(`defaults.${key} is not a known dissipator default`);
+    if (!(key in BASIN_DEFAULTS))
+      throw new RangeError(`defaults.${key} is not a known dissipator default`);
     if (value === undefined) continue;
     if (typeof value !== 'number' || !Number.isFinite(value) || value < 0) {
-      throw new RangeError(`defaults.${key} must be a non-negative finite number (got ${String(value)})`);
+      throw new RangeError(
+        `defaults.${key} must be a non-negative finite number (got ${String(value)})`,
+      );
     }
     out[key as BasinDefaultKey] = value;
   }
@@ -196,8 +526,11 @@ export interface Assumption extends Provenance {
 }
 
 /** Every default in force, with its source and whether the user changed it. */
-export function listAssumptions(defaults: BasinDefaults, keys?: readonly BasinDefaultKey[]): Assumption[] {
-  const all = (keys ?? (Object.keys(BASIN_DEFAULTS) as BasinDefaultKey[]));
+export function listAssumptions(
+  defaults: BasinDefaults,
+  keys?: readonly BasinDefaultKey[],
+): Assumption[] {
+  const all = keys ?? (Object.keys(BASIN_DEFAULTS) as BasinDefaultKey[]);
   return all.map((key) => ({
     key,
     value: defaults[key],

@@ -6,8 +6,20 @@ import { slabFlotation, type FlotationResult } from './flotation';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqFinite, reqPositive, roundUp } from './guards';
 import { jumpRules, jumpWarningItems, sizeJumpBasin, type JumpWarning } from './jumpBasin';
-import { designCulvertApron, riprapBelowSill, type CulvertApron, type RiprapProtection } from './riprap';
-import type { BaffleSet, BlockSet, DischargeRow, EndSill, JumpBasinSizing, JumpBasinType } from './types';
+import {
+  designCulvertApron,
+  riprapBelowSill,
+  type CulvertApron,
+  type RiprapProtection,
+} from './riprap';
+import type {
+  BaffleSet,
+  BlockSet,
+  DischargeRow,
+  EndSill,
+  JumpBasinSizing,
+  JumpBasinType,
+} from './types';
 import { n3, phraser, type Phraser, type PhraseUnits } from '../units/phrase';
 import { sizeImpactBasin, type ImpactBasinSizing } from './types/usbr6';
 import { sizeBaffledApron, type BaffledApronSizing } from './types/usbr9';
@@ -21,7 +33,13 @@ export interface DesignRow extends DischargeRow {
 export interface DesignOptions {
   defaults?: Partial<BasinDefaults>;
   /** flotation case: uplift level (default: tailwater at the smallest discharge), water on slab, factor */
-  flotation?: { upliftElevation?: number; waterOnSlabDepth?: number; safetyFactor?: number; minThickness?: number; monolithic?: boolean };
+  flotation?: {
+    upliftElevation?: number;
+    waterOnSlabDepth?: number;
+    safetyFactor?: number;
+    minThickness?: number;
+    monolithic?: boolean;
+  };
   /** extra depth to set the floor below the solved one, m (a margin against sweep-out) */
   extraFloorDepth?: number;
   /** unit system of warnings, notes and reasons (numbers stay SI); default SI, in a study the input's units */
@@ -60,18 +78,51 @@ export interface JumpBasinDesign {
   chuteBlocks?: BlockSet;
   baffleBlocks?: BaffleSet;
   endSill: EndSill & { topElevation: number };
-  flare: { fromWidth: number; toWidth: number; tanTheta: number; angleDeg: number; length: number } | null;
-  walls: { height: number; topElevation: number; thickness: number; freeboard: number; maxTailwaterElevation: number };
+  flare: {
+    fromWidth: number;
+    toWidth: number;
+    tanTheta: number;
+    angleDeg: number;
+    length: number;
+  } | null;
+  walls: {
+    height: number;
+    topElevation: number;
+    thickness: number;
+    freeboard: number;
+    maxTailwaterElevation: number;
+  };
   wingwalls: { angleDeg: number; length: number; height: number };
-  cutoffs: { upstream: { depth: number; thickness: number }; downstream: { depth: number; thickness: number } };
+  cutoffs: {
+    upstream: { depth: number; thickness: number };
+    downstream: { depth: number; thickness: number };
+  };
   /** exit slope from the sill top up to the channel bed (0 when the sill reaches the bed) */
   exit: { rise: number; length: number };
   slab: FlotationResult;
   riprap: RiprapProtection;
   /** water surfaces at the design discharge (for the drawing) */
-  water: { Q: number; y1: number; y2: number; v1: number; fr1: number; tailwaterElevation: number; jumpLength: number };
+  water: {
+    Q: number;
+    y1: number;
+    y2: number;
+    v1: number;
+    fr1: number;
+    tailwaterElevation: number;
+    jumpLength: number;
+  };
   /** per discharge: required and available tailwater, margin, basin length */
-  rows: Array<{ Q: number; fr1: number; v1: number; y1: number; y2: number; tailwaterDepth: number; requiredDepth: number; margin: number; length: number }>;
+  rows: Array<{
+    Q: number;
+    fr1: number;
+    v1: number;
+    y1: number;
+    y2: number;
+    tailwaterDepth: number;
+    requiredDepth: number;
+    margin: number;
+    length: number;
+  }>;
   concrete: ConcreteQuantities;
   warnings: string[];
   sources: string[];
@@ -103,14 +154,18 @@ function pickDesignRow<T extends DischargeRow>(rows: readonly T[], Q: number): T
  * freeboard, flare by the jet spread tanθ = 1/(3·Fr) [src: HEC-14], slab by flotation, riprap
  * below the sill, cutoffs and wingwalls (common practice), concrete by element, warnings.
  */
-export function designJumpBasin(input: JumpDesignInput, options: DesignOptions = {}): JumpBasinDesign {
+export function designJumpBasin(
+  input: JumpDesignInput,
+  options: DesignOptions = {},
+): JumpBasinDesign {
   const d = resolveDefaults(options.defaults);
   const units = options.units ?? 'SI';
   const P = phraser(units);
   const W = reqPositive('width', input.width);
   const zf = reqFinite('floorElevation', input.floorElevation);
   const zb = reqFinite('channelBedElevation', input.channelBedElevation);
-  if (!Array.isArray(input.rows) || input.rows.length === 0) throw new RangeError('rows must hold at least one discharge');
+  if (!Array.isArray(input.rows) || input.rows.length === 0)
+    throw new RangeError('rows must hold at least one discharge');
   const m = getDissipator(input.type);
   const rules = jumpRules(input.type);
   const dr = pickDesignRow(input.rows, input.designQ);
@@ -118,21 +173,47 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     const s = sizeJumpBasin(input.type, { width: W, Q: r.Q, y1: r.y1 }, { defaults: d });
     const tw = r.tailwaterElevation - zf;
     const req = s.requiredTailwaterDepth;
-    return { Q: r.Q, fr1: s.fr1, v1: s.v1, y1: r.y1, y2: s.y2, tailwaterDepth: tw, requiredDepth: req, margin: tw - req, length: s.length, s };
+    return {
+      Q: r.Q,
+      fr1: s.fr1,
+      v1: s.v1,
+      y1: r.y1,
+      y2: s.y2,
+      tailwaterDepth: tw,
+      requiredDepth: req,
+      margin: tw - req,
+      length: s.length,
+      s,
+    };
   });
   const maxTw = Math.max(...rows.map((r) => r.tailwaterDepth));
-  const sizing = sizeJumpBasin(input.type, { width: W, Q: dr.Q, y1: dr.y1 }, { defaults: d, maxTailwaterDepth: Math.max(0, maxTw), units });
+  const sizing = sizeJumpBasin(
+    input.type,
+    { width: W, Q: dr.Q, y1: dr.y1 },
+    { defaults: d, maxTailwaterDepth: Math.max(0, maxTw), units },
+  );
   const longest = rows.reduce((a, r) => (r.length > a.length ? r : a));
   const length = Math.max(longest.length, sizing.length);
-  const app = rules.appurtenances({ fr1: sizing.fr1, y1: sizing.y1, y2: sizing.y2, width: W, length, d });
+  const app = rules.appurtenances({
+    fr1: sizing.fr1,
+    y1: sizing.y1,
+    y2: sizing.y2,
+    width: W,
+    length,
+    d,
+  });
 
   // Walls: above the largest tailwater (and the jump) plus freeboard at every discharge.
   let wallHeight = sizing.wallHeight;
   let fbMax = sizing.freeboard;
   for (const r of rows) {
-    const fb = rules.freeboardRule === 'saf' ? r.y2 / 3 : usbrFreeboard(r.v1, r.y2, d.freeboardCoefficient);
+    const fb =
+      rules.freeboardRule === 'saf' ? r.y2 / 3 : usbrFreeboard(r.v1, r.y2, d.freeboardCoefficient);
     fbMax = Math.max(fbMax, fb);
-    const top = rules.freeboardRule === 'saf' ? Math.max(0, r.tailwaterDepth) + fb : Math.max(r.y2, r.tailwaterDepth) + fb;
+    const top =
+      rules.freeboardRule === 'saf'
+        ? Math.max(0, r.tailwaterDepth) + fb
+        : Math.max(r.y2, r.tailwaterDepth) + fb;
     wallHeight = Math.max(wallHeight, top);
   }
   wallHeight = roundUp(wallHeight, 0.05);
@@ -143,7 +224,13 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
   if (input.inflowWidth !== undefined && reqPositive('inflowWidth', input.inflowWidth) < W) {
     const frMax = Math.max(...rows.map((r) => r.fr1));
     const tan = 1 / (3 * frMax);
-    flare = { fromWidth: input.inflowWidth, toWidth: W, tanTheta: tan, angleDeg: (Math.atan(tan) * 180) / Math.PI, length: (W - input.inflowWidth) / 2 / tan };
+    flare = {
+      fromWidth: input.inflowWidth,
+      toWidth: W,
+      tanTheta: tan,
+      angleDeg: (Math.atan(tan) * 180) / Math.PI,
+      length: (W - input.inflowWidth) / 2 / tan,
+    };
   }
 
   // Slab by flotation.
@@ -176,21 +263,45 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     const depth = Math.min(overSill, zb > zf ? overBed : overSill);
     if (depth > 0) vExit = Math.max(vExit, r.Q / (W * depth));
   }
-  const riprap = riprapBelowSill({ velocity: vExit > 0 ? vExit : 0.5, y2: sizing.y2, width: W + 2 * wallT, lengthRatio: d.riprapLengthRatio, minThickness: d.riprapMinThickness, specificGravity: d.stoneSpecificGravity, coefficient: d.isbashCoefficient });
+  const riprap = riprapBelowSill({
+    velocity: vExit > 0 ? vExit : 0.5,
+    y2: sizing.y2,
+    width: W + 2 * wallT,
+    lengthRatio: d.riprapLengthRatio,
+    minThickness: d.riprapMinThickness,
+    specificGravity: d.stoneSpecificGravity,
+    coefficient: d.isbashCoefficient,
+  });
 
   const wingLen = d.wingwallLengthRatio * wallHeight;
   // Cutoffs below the slab (common practice): the downstream one reaches below the riprap.
   const cutUp = { depth: d.upstreamCutoffDepth, thickness: wallT };
-  const cutDown = { depth: Math.max(d.downstreamCutoffDepth, riprap.thickness + 0.5), thickness: wallT };
+  const cutDown = {
+    depth: Math.max(d.downstreamCutoffDepth, riprap.thickness + 0.5),
+    thickness: wallT,
+  };
 
   // Concrete by element (m³).
-  const blockVol = (b: BlockSet | undefined, shape: number): number => (b ? b.count * b.height * b.width * b.length * shape : 0);
-  const sillVol = app.endSill.height > 0 ? (app.endSill.kind === 'dentated' ? 0.6 : 1) * 0.5 * (app.endSill.height * (app.endSill.length + Math.max(0, app.endSill.length - app.endSill.upstreamSlope * app.endSill.height))) * W : 0;
+  const blockVol = (b: BlockSet | undefined, shape: number): number =>
+    b ? b.count * b.height * b.width * b.length * shape : 0;
+  const sillVol =
+    app.endSill.height > 0
+      ? (app.endSill.kind === 'dentated' ? 0.6 : 1) *
+        0.5 *
+        (app.endSill.height *
+          (app.endSill.length +
+            Math.max(0, app.endSill.length - app.endSill.upstreamSlope * app.endSill.height))) *
+        W
+      : 0;
   const slabVol = length * (W + 2 * wallT) * slab.thickness;
-  const wallsVol = 2 * length * wallHeight * wallT + (flare ? 2 * flare.length * wallHeight * wallT : 0);
+  const wallsVol =
+    2 * length * wallHeight * wallT + (flare ? 2 * flare.length * wallHeight * wallT : 0);
   const wingVol = 2 * wingLen * (wallHeight / 2) * wallT;
-  const cutVol = (cutUp.depth * cutUp.thickness + cutDown.depth * cutDown.thickness) * (W + 2 * wallT);
-  const blocks = blockVol(app.chuteBlocks, 1) + blockVol(app.baffleBlocks, app.baffleBlocks?.kind === 'baffle-piers' ? 0.6 : 1);
+  const cutVol =
+    (cutUp.depth * cutUp.thickness + cutDown.depth * cutDown.thickness) * (W + 2 * wallT);
+  const blocks =
+    blockVol(app.chuteBlocks, 1) +
+    blockVol(app.baffleBlocks, app.baffleBlocks?.kind === 'baffle-piers' ? 0.6 : 1);
   const concrete: ConcreteQuantities = {
     slab: slabVol,
     walls: wallsVol,
@@ -199,10 +310,17 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     cutoffs: cutVol,
     wingwalls: wingVol,
     total: slabVol + wallsVol + blocks + sillVol + cutVol + wingVol,
-    basis: 'neat-line volumes of the concept geometry (slab under the walls, walls full height over the basin length, wingwalls tapering to half height, blocks as prisms, sill by its section)',
+    basis:
+      'neat-line volumes of the concept geometry (slab under the walls, walls full height over the basin length, wingwalls tapering to half height, blocks as prisms, sill by its section)',
   };
 
-  const items = jumpWarningItems(input.type, { fr1: sizing.fr1, v1: sizing.v1, q: sizing.q, y2: sizing.y2, length: sizing.length }, rules, d, units);
+  const items = jumpWarningItems(
+    input.type,
+    { fr1: sizing.fr1, v1: sizing.v1, q: sizing.q, y2: sizing.y2, length: sizing.length },
+    rules,
+    d,
+    units,
+  );
   const own = new Set(items.map((w) => w.text));
   for (const text of sizing.warnings) if (!own.has(text)) items.push({ topic: 'narrow', text });
   const warnings = designWarnings(input.type, rows, items, d, rules.froudeRange, P);
@@ -231,13 +349,27 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
     sizing,
     endSill: { ...app.endSill, topElevation: sillTop },
     flare,
-    walls: { height: wallHeight, topElevation: zf + wallHeight, thickness: wallT, freeboard: fbMax, maxTailwaterElevation: zf + maxTw },
+    walls: {
+      height: wallHeight,
+      topElevation: zf + wallHeight,
+      thickness: wallT,
+      freeboard: fbMax,
+      maxTailwaterElevation: zf + maxTw,
+    },
     wingwalls: { angleDeg: d.wingwallAngleDeg, length: wingLen, height: wallHeight },
     cutoffs: { upstream: cutUp, downstream: cutDown },
     exit: { rise, length: rise * d.exitSlopeHorizontal },
     slab,
     riprap,
-    water: { Q: dr.Q, y1: sizing.y1, y2: sizing.y2, v1: sizing.v1, fr1: sizing.fr1, tailwaterElevation: dr.tailwaterElevation, jumpLength },
+    water: {
+      Q: dr.Q,
+      y1: sizing.y1,
+      y2: sizing.y2,
+      v1: sizing.v1,
+      fr1: sizing.fr1,
+      tailwaterElevation: dr.tailwaterElevation,
+      jumpLength,
+    },
     rows: rows.map(({ s: _s, ...r }) => r),
     concrete,
     warnings,
@@ -261,32 +393,62 @@ export function designJumpBasin(input: JumpDesignInput, options: DesignOptions =
  */
 function designWarnings(
   type: JumpBasinType,
-  rows: ReadonlyArray<{ Q: number; fr1: number; v1: number; y2: number; tailwaterDepth: number; requiredDepth: number }>,
+  rows: ReadonlyArray<{
+    Q: number;
+    fr1: number;
+    v1: number;
+    y2: number;
+    tailwaterDepth: number;
+    requiredDepth: number;
+  }>,
   sizing: readonly JumpWarning[],
   d: BasinDefaults,
   range: readonly [number, number],
   P: Phraser,
 ): string[] {
-  const ranged: Array<{ topic: JumpWarning['topic'] | 'submergence' | 'sweepOut'; text: string }> = [];
+  const ranged: Array<{ topic: JumpWarning['topic'] | 'submergence' | 'sweepOut'; text: string }> =
+    [];
   const vMax = rows.reduce((a, r) => (r.v1 > a.v1 ? r : a));
   const strongVelocity = sizing.some((w) => w.topic === 'velocity');
   if (type !== 'usbr-1' && vMax.v1 > d.cavitationVelocity && !strongVelocity) {
-    ranged.push({ topic: 'cavitation', text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${P.vel(d.cavitationVelocity)}); model study advised` });
+    ranged.push({
+      topic: 'cavitation',
+      text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${P.vel(d.cavitationVelocity)}); model study advised`,
+    });
   }
   const osc = rows.filter((r) => r.fr1 >= 2.5 && r.fr1 < 4.5);
-  if (osc.length > 0) ranged.push({ topic: 'oscillating', text: `Oscillating jump (Fr1 2.5–4.5) at ${osc.length} discharge(s) from ${P.Q(osc[0]!.Q)}: waves downstream; wave suppressors may be needed` });
+  if (osc.length > 0)
+    ranged.push({
+      topic: 'oscillating',
+      text: `Oscillating jump (Fr1 2.5–4.5) at ${osc.length} discharge(s) from ${P.Q(osc[0]!.Q)}: waves downstream; wave suppressors may be needed`,
+    });
   const out = rows.filter((r) => r.fr1 < range[0] || r.fr1 > range[1]);
-  if (out.length > 0) ranged.push({ topic: 'froude', text: `Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${P.Q(out[0]!.Q)}): model study` });
+  if (out.length > 0)
+    ranged.push({
+      topic: 'froude',
+      text: `Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${P.Q(out[0]!.Q)}): model study`,
+    });
   const excess = rows.filter((r) => r.tailwaterDepth > d.excessSubmergenceRatio * r.requiredDepth);
   if (excess.length > 0) {
-    const worst = excess.reduce((a, r) => (r.tailwaterDepth / r.requiredDepth > a.tailwaterDepth / a.requiredDepth ? r : a));
-    ranged.push({ topic: 'submergence', text: `Excess submergence at ${excess.length} discharge(s): tailwater up to ${n3(worst.tailwaterDepth / worst.requiredDepth)}× the required depth (at ${P.Q(worst.Q)}); the jump is drowned and dissipates less` });
+    const worst = excess.reduce((a, r) =>
+      r.tailwaterDepth / r.requiredDepth > a.tailwaterDepth / a.requiredDepth ? r : a,
+    );
+    ranged.push({
+      topic: 'submergence',
+      text: `Excess submergence at ${excess.length} discharge(s): tailwater up to ${n3(worst.tailwaterDepth / worst.requiredDepth)}× the required depth (at ${P.Q(worst.Q)}); the jump is drowned and dissipates less`,
+    });
   }
   const short = rows.filter((r) => r.tailwaterDepth < r.requiredDepth - 1e-6);
-  if (short.length > 0) ranged.push({ topic: 'sweepOut', text: `Tailwater short of the required depth at ${short.length} discharge(s) from ${P.Q(short[0]!.Q)}: the jump sweeps out` });
+  if (short.length > 0)
+    ranged.push({
+      topic: 'sweepOut',
+      text: `Tailwater short of the required depth at ${short.length} discharge(s) from ${P.Q(short[0]!.Q)}: the jump sweeps out`,
+    });
   const covered = new Set(ranged.map((r) => r.topic));
   // A velocity "not advised" at the design discharge also covers a cavitation caution there.
-  const keep = sizing.filter((w) => !covered.has(w.topic) && !(w.topic === 'cavitation' && strongVelocity));
+  const keep = sizing.filter(
+    (w) => !covered.has(w.topic) && !(w.topic === 'cavitation' && strongVelocity),
+  );
   return [...new Set([...keep.map((w) => w.text), ...ranged.map((r) => r.text)])];
 }
 
@@ -312,17 +474,34 @@ export interface ImpactBasinDesign {
 
 /** Type VI in a study: sized at the design discharge with its own rules; floor at the outlet invert. */
 export function designImpactBasin(
-  c: { floorElevation: number; channelBedElevation: number; designQ: number; rows: readonly DesignRow[] },
+  c: {
+    floorElevation: number;
+    channelBedElevation: number;
+    designQ: number;
+    rows: readonly DesignRow[];
+  },
   options: DesignOptions = {},
 ): ImpactBasinDesign {
   const d = resolveDefaults(options.defaults);
   const zf = reqFinite('floorElevation', c.floorElevation);
   const dr = pickDesignRow(c.rows, c.designQ);
   const maxTw = Math.max(...c.rows.map((r) => r.tailwaterElevation - zf));
-  const s = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) }, d, options.units ?? 'SI');
+  const s = sizeImpactBasin(
+    { Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) },
+    d,
+    options.units ?? 'SI',
+  );
   const t = roundUp(Math.max(d.minWallThickness, s.width / 12), 0.05);
-  const vExit = dr.Q / (s.width * Math.max(s.endSill.height, dr.tailwaterElevation - zf - s.endSill.height, 0.1));
-  const riprap = riprapBelowSill({ velocity: vExit, y2: s.wallHeight, width: s.width, lengthRatio: d.riprapLengthRatio, minThickness: d.riprapMinThickness });
+  const vExit =
+    dr.Q /
+    (s.width * Math.max(s.endSill.height, dr.tailwaterElevation - zf - s.endSill.height, 0.1));
+  const riprap = riprapBelowSill({
+    velocity: vExit,
+    y2: s.wallHeight,
+    width: s.width,
+    lengthRatio: d.riprapLengthRatio,
+    minThickness: d.riprapMinThickness,
+  });
   const slab = s.length * (s.width + 2 * t) * t;
   const walls = 2 * s.length * s.wallHeight * t + s.width * s.wallHeight * t;
   const baffle = s.width * s.baffleHeight * t;
@@ -341,7 +520,17 @@ export function designImpactBasin(
     walls: { height: s.wallHeight, topElevation: zf + s.wallHeight, thickness: t },
     riprap,
     water: { Q: dr.Q, tailwaterElevation: dr.tailwaterElevation },
-    concrete: { slab, walls, blocks: baffle, sill, cutoffs: 0, wingwalls: 0, total: slab + walls + baffle + sill, basis: 'neat-line volumes; wall, floor and baffle thickness W/12 (at least the minimum wall thickness)' },
+    concrete: {
+      slab,
+      walls,
+      blocks: baffle,
+      sill,
+      cutoffs: 0,
+      wingwalls: 0,
+      total: slab + walls + baffle + sill,
+      basis:
+        'neat-line volumes; wall, floor and baffle thickness W/12 (at least the minimum wall thickness)',
+    },
     warnings: [...s.warnings],
     sources: s.sources,
     assumptions: listAssumptions(d),
@@ -371,12 +560,19 @@ export function designBaffledApron(
   options: DesignOptions = {},
 ): BaffledApronDesign {
   const d = resolveDefaults(options.defaults);
-  const drop = reqFinite('crestElevation', c.crestElevation) - reqFinite('channelBedElevation', c.channelBedElevation);
-  const s = sizeBaffledApron({ Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) }, d, options.units ?? 'SI');
+  const drop =
+    reqFinite('crestElevation', c.crestElevation) -
+    reqFinite('channelBedElevation', c.channelBedElevation);
+  const s = sizeBaffledApron(
+    { Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) },
+    d,
+    options.units ?? 'SI',
+  );
   const t = options.flotation?.minThickness ?? d.minSlabThickness;
   const slab = s.slopeLength * (c.width + 2 * d.minWallThickness) * t;
   const walls = 2 * s.slopeLength * s.wallHeight * d.minWallThickness;
-  const baffles = s.rows * ((s.rowA.count + s.rowB.count) / 2) * s.baffleHeight * s.baffleWidth * s.baffleHeight;
+  const baffles =
+    s.rows * ((s.rowA.count + s.rowB.count) / 2) * s.baffleHeight * s.baffleWidth * s.baffleHeight;
   return {
     family: 'baffled-apron',
     type: 'usbr-9',
@@ -388,7 +584,16 @@ export function designBaffledApron(
     sizing: s,
     width: c.width,
     length: s.length,
-    concrete: { slab, walls, blocks: baffles, sill: 0, cutoffs: 0, wingwalls: 0, total: slab + walls + baffles, basis: 'neat-line volumes; slab and walls at the minimum thickness' },
+    concrete: {
+      slab,
+      walls,
+      blocks: baffles,
+      sill: 0,
+      cutoffs: 0,
+      wingwalls: 0,
+      total: slab + walls + baffles,
+      basis: 'neat-line volumes; slab and walls at the minimum thickness',
+    },
     warnings: [...s.warnings],
     sources: s.sources,
     assumptions: listAssumptions(d),
@@ -412,11 +617,19 @@ export interface RiprapApronDesign {
 }
 
 export function designRiprapApron(
-  c: { invertElevation: number; designQ: number; culvert: { shape: 'circular' | 'box'; rise: number; span?: number }; tailwaterElevation?: number },
+  c: {
+    invertElevation: number;
+    designQ: number;
+    culvert: { shape: 'circular' | 'box'; rise: number; span?: number };
+    tailwaterElevation?: number;
+  },
   options: DesignOptions = {},
 ): RiprapApronDesign {
   const d = resolveDefaults(options.defaults);
-  const tw = c.tailwaterElevation !== undefined ? Math.max(0, c.tailwaterElevation - c.invertElevation) : undefined;
+  const tw =
+    c.tailwaterElevation !== undefined
+      ? Math.max(0, c.tailwaterElevation - c.invertElevation)
+      : undefined;
   const a = designCulvertApron({
     Q: c.designQ,
     rise: c.culvert.rise,
@@ -435,11 +648,21 @@ export function designRiprapApron(
     apron: a,
     width: a.widthAtEnd,
     length: a.length,
-    concrete: { slab: 0, walls: 0, blocks: 0, sill: 0, cutoffs: 0, wingwalls: 0, total: 0, basis: 'no concrete: riprap only' },
+    concrete: {
+      slab: 0,
+      walls: 0,
+      blocks: 0,
+      sill: 0,
+      cutoffs: 0,
+      wingwalls: 0,
+      total: 0,
+      basis: 'no concrete: riprap only',
+    },
     warnings: [...a.warnings],
     sources: a.sources,
     assumptions: listAssumptions(d, ['apronMaxRise', 'apronMaxFroude']),
   };
 }
 
-export type DissipatorDesign = JumpBasinDesign | ImpactBasinDesign | BaffledApronDesign | RiprapApronDesign;
+export type DissipatorDesign =
+  JumpBasinDesign | ImpactBasinDesign | BaffledApronDesign | RiprapApronDesign;

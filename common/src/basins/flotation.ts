@@ -64,11 +64,16 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const W = reqPositive('width', c.width);
   const d = reqNonNegative('waterOnSlabDepth', c.waterOnSlabDepth ?? 0);
   const mono = c.monolithic ?? true;
-  const tw = mono ? reqNonNegative('wallThickness', c.wallThickness ?? BASIN_DEFAULTS.minWallThickness) : 0;
+  const tw = mono
+    ? reqNonNegative('wallThickness', c.wallThickness ?? BASIN_DEFAULTS.minWallThickness)
+    : 0;
   const hw = mono ? reqNonNegative('wallHeight', c.wallHeight ?? 0) : 0;
   const FS = reqPositive('safetyFactor', c.safetyFactor ?? BASIN_DEFAULTS.flotationSafetyFactor);
   const tMin = reqPositive('minThickness', c.minThickness ?? BASIN_DEFAULTS.minSlabThickness);
-  const gc = reqPositive('concreteUnitWeight', c.concreteUnitWeight ?? BASIN_DEFAULTS.concreteUnitWeight);
+  const gc = reqPositive(
+    'concreteUnitWeight',
+    c.concreteUnitWeight ?? BASIN_DEFAULTS.concreteUnitWeight,
+  );
   const gw = reqPositive('waterUnitWeight', c.waterUnitWeight ?? BASIN_DEFAULTS.waterUnitWeight);
   const k = reqNonNegative('upliftFactor', c.upliftFactor ?? BASIN_DEFAULTS.upliftFactor);
   const step = reqPositive('step', c.step ?? 0.05);
@@ -89,7 +94,10 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const uplift = gw * k * B * upliftHead;
   const resisting = gc * B * thickness + walls + water;
   const P = phraser(c.units ?? 'SI');
-  if (need > 1.0) notes.push(`Flotation needs a slab of ${P.len(need)} (${P.len(thickness)} used): consider underdrains (pressure relief) or anchors, which reduce the uplift`);
+  if (need > 1.0)
+    notes.push(
+      `Flotation needs a slab of ${P.len(need)} (${P.len(thickness)} used): consider underdrains (pressure relief) or anchors, which reduce the uplift`,
+    );
   if (H <= 0) notes.push('The uplift level is below the floor: no flotation beyond the slab depth');
   return {
     thickness,

@@ -10,7 +10,11 @@ const FT = 0.3048; // m per ft, exact [standard]
  * units: V1 and y2 are converted to ft/s and ft, the result back to metres.
  * @example freeboard(50 * 0.3048, 15 * 0.3048) // 6.5 ft = 1.9812 m
  */
-export function freeboard(v1: number, y2: number, k: number = BASIN_DEFAULTS.freeboardCoefficient): number {
+export function freeboard(
+  v1: number,
+  y2: number,
+  k: number = BASIN_DEFAULTS.freeboardCoefficient,
+): number {
   reqNonNegative('v1 (inflow velocity)', v1);
   reqNonNegative('y2 (sequent depth)', y2);
   reqNonNegative('freeboard coefficient', k);

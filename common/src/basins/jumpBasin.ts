@@ -18,7 +18,8 @@ export interface SizeJumpBasinOptions {
 }
 
 /** What a sizing warning is about: a range-wide design says each topic once (design.ts). */
-export type JumpWarningTopic = 'froude' | 'oscillating' | 'cavitation' | 'velocity' | 'unitDischarge' | 'length' | 'narrow';
+export type JumpWarningTopic =
+  'froude' | 'oscillating' | 'cavitation' | 'velocity' | 'unitDischarge' | 'length' | 'narrow';
 
 /** A sizing warning with its topic. */
 export interface JumpWarning {
@@ -45,8 +46,12 @@ export function sizeJumpBasin(
   c: { width: number; Q: number; y1: number },
   options: SizeJumpBasinOptions = {},
 ): JumpBasinSizing {
-  if (!isJumpBasinType(type)) throw new RangeError(`type "${String(type)}" is not a jump basin (usbr-1, usbr-2, usbr-3, usbr-4, saf)`);
-  if (c === null || typeof c !== 'object') throw new RangeError('sizing input must be an object { width, Q, y1 }');
+  if (!isJumpBasinType(type))
+    throw new RangeError(
+      `type "${String(type)}" is not a jump basin (usbr-1, usbr-2, usbr-3, usbr-4, saf)`,
+    );
+  if (c === null || typeof c !== 'object')
+    throw new RangeError('sizing input must be an object { width, Q, y1 }');
   const width = reqPositive('width', c.width);
   const Q = reqPositive('Q (discharge)', c.Q);
   const y1 = reqPositive('y1', c.y1);
@@ -55,18 +60,34 @@ export function sizeJumpBasin(
   const q = Q / width;
   const v1 = q / y1;
   const fr1 = v1 / Math.sqrt(G * y1);
-  if (fr1 <= 1) throw new RangeError(`y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`);
+  if (fr1 <= 1)
+    throw new RangeError(
+      `y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
+    );
   const y2 = y1 * belangerRatio(fr1);
   const factor = rules.tailwaterFactor(fr1, d);
   const requiredTailwaterDepth = factor * y2;
   const length = rules.length(fr1, y1, y2, d);
   const app = rules.appurtenances({ fr1, y1, y2, width, length, d });
-  const tw = Math.max(requiredTailwaterDepth, options.maxTailwaterDepth !== undefined ? reqNonNegative('maxTailwaterDepth', options.maxTailwaterDepth) : 0);
+  const tw = Math.max(
+    requiredTailwaterDepth,
+    options.maxTailwaterDepth !== undefined
+      ? reqNonNegative('maxTailwaterDepth', options.maxTailwaterDepth)
+      : 0,
+  );
   const fb = rules.freeboardRule === 'saf' ? y2 / 3 : usbrFreeboard(v1, y2, d.freeboardCoefficient);
   const wallHeight = rules.freeboardRule === 'saf' ? tw + fb : Math.max(y2, tw) + fb;
   const items = jumpWarningItems(type, { fr1, v1, q, y2, length }, rules, d, options.units);
-  for (const [what, row] of [['chute or deflector blocks', app.chuteBlocks], ['baffle or floor blocks', app.baffleBlocks], ['sill teeth', app.endSill.teeth]] as const) {
-    if (row && 'narrow' in row && row.narrow) items.push({ topic: 'narrow', text: `the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin` });
+  for (const [what, row] of [
+    ['chute or deflector blocks', app.chuteBlocks],
+    ['baffle or floor blocks', app.baffleBlocks],
+    ['sill teeth', app.endSill.teeth],
+  ] as const) {
+    if (row && 'narrow' in row && row.narrow)
+      items.push({
+        topic: 'narrow',
+        text: `the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin`,
+      });
   }
   const warnings = items.map((w) => w.text);
   const sizing: JumpBasinSizing = {
@@ -113,24 +134,47 @@ export function jumpWarningItems(
   };
   const [lo, hi] = rules.froudeRange;
   if (r.fr1 < lo || r.fr1 > hi) {
-    add('froude', `Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`);
+    add(
+      'froude',
+      `Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`,
+    );
   }
   if (r.fr1 >= 2.5 && r.fr1 < 4.5 && (type === 'usbr-1' || type === 'usbr-4' || type === 'saf')) {
-    add('oscillating', `Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`);
+    add(
+      'oscillating',
+      `Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`,
+    );
   }
   const hasBlocks = type !== 'usbr-1';
   // One velocity caution per type: the stronger "not advised" replaces the cavitation caution.
   if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) {
-    add('velocity', `V1 ${P.vel(r.v1)} > ${P.vel(d.type3VelocityFail)}: baffle piers would cavitate and are not advised; use Type II`);
+    add(
+      'velocity',
+      `V1 ${P.vel(r.v1)} > ${P.vel(d.type3VelocityFail)}: baffle piers would cavitate and are not advised; use Type II`,
+    );
   } else if (type === 'saf' && r.v1 > d.safVelocityFail) {
-    add('velocity', `V1 ${P.vel(r.v1)} > ${P.vel(d.safVelocityFail)}: cavitation on the chute blocks; not advised for an SAF basin`);
+    add(
+      'velocity',
+      `V1 ${P.vel(r.v1)} > ${P.vel(d.safVelocityFail)}: cavitation on the chute blocks; not advised for an SAF basin`,
+    );
   } else if (hasBlocks && r.v1 > d.cavitationVelocity) {
-    add('cavitation', `V1 ${P.vel(r.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the blocks; model study advised`);
+    add(
+      'cavitation',
+      `V1 ${P.vel(r.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the blocks; model study advised`,
+    );
   }
-  if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge) add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type3MaxUnitDischarge)} of Type III`);
-  if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge) add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type2MaxUnitDischarge)} tested for Type II`);
+  if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge)
+    add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type3MaxUnitDischarge)} of Type III`);
+  if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge)
+    add(
+      'unitDischarge',
+      `q ${P.q(r.q)} above the ${P.q(d.type2MaxUnitDischarge)} tested for Type II`,
+    );
   if (type === 'usbr-1' && r.fr1 > 9) {
-    add('length', `Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${P.len(r.length)}); a basin with blocks is shorter`);
+    add(
+      'length',
+      `Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${P.len(r.length)}); a basin with blocks is shorter`,
+    );
   }
   return w;
 }

@@ -14,9 +14,13 @@ export function isbashStoneSize(
   opts: { coefficient?: number; specificGravity?: number; g?: number } = {},
 ): number {
   const V = reqPositive('velocity', velocity);
-  const C = reqPositive('coefficient (Isbash C)', opts.coefficient ?? BASIN_DEFAULTS.isbashCoefficient);
+  const C = reqPositive(
+    'coefficient (Isbash C)',
+    opts.coefficient ?? BASIN_DEFAULTS.isbashCoefficient,
+  );
   const Gs = opts.specificGravity ?? BASIN_DEFAULTS.stoneSpecificGravity;
-  if (!Number.isFinite(Gs) || Gs <= 1) throw new RangeError(`specificGravity must be greater than 1 (got ${Gs})`);
+  if (!Number.isFinite(Gs) || Gs <= 1)
+    throw new RangeError(`specificGravity must be greater than 1 (got ${Gs})`);
   const g = reqPositive('g', opts.g ?? G);
   return (V * V) / (2 * g * C * C * (Gs - 1));
 }
@@ -64,9 +68,12 @@ export function culvertApronStoneSize(c: {
   let tw: number;
   if (c.tailwater === undefined) {
     tw = 0.4 * D;
-    warnings.push('Tailwater not known: taken as 0.4·D, the low bound of the relation (conservative)');
+    warnings.push(
+      'Tailwater not known: taken as 0.4·D, the low bound of the relation (conservative)',
+    );
   } else {
-    if (!Number.isFinite(c.tailwater) || c.tailwater < 0) throw new RangeError(`tailwater must be a non-negative finite number (got ${c.tailwater})`);
+    if (!Number.isFinite(c.tailwater) || c.tailwater < 0)
+      throw new RangeError(`tailwater must be a non-negative finite number (got ${c.tailwater})`);
     tw = Math.min(D, Math.max(0.4 * D, c.tailwater));
     if (tw !== c.tailwater) {
       warnings.push(
@@ -85,7 +92,12 @@ export function culvertApronStoneSize(c: {
 }
 
 /** Riprap apron classes [mem: HEC-14 Table 10.1]: D50 limit (m), length (× D), thickness (× D50). */
-export const APRON_CLASSES: ReadonlyArray<{ cls: number; d50: number; lengthRatio: number; thicknessRatio: number }> = [
+export const APRON_CLASSES: ReadonlyArray<{
+  cls: number;
+  d50: number;
+  lengthRatio: number;
+  thicknessRatio: number;
+}> = [
   { cls: 1, d50: 0.125, lengthRatio: 4, thicknessRatio: 3.5 },
   { cls: 2, d50: 0.15, lengthRatio: 4, thicknessRatio: 3.3 },
   { cls: 3, d50: 0.25, lengthRatio: 5, thicknessRatio: 2.4 },
@@ -191,7 +203,10 @@ export function designCulvertApron(c: {
   const warnings = [...stone.warnings];
   const klass = APRON_CLASSES.find((k) => stone.d50 <= k.d50 + 1e-12);
   const use = klass ?? APRON_CLASSES[APRON_CLASSES.length - 1]!;
-  if (!klass) warnings.push(`Stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`);
+  if (!klass)
+    warnings.push(
+      `Stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`,
+    );
   const D = c.rise;
   const length = use.lengthRatio * D;
   const outlet = Math.max(3 * D, c.span ?? 0);

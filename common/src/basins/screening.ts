@@ -67,7 +67,10 @@ export interface ScreeningInput {
 const ORDER: Record<CriterionStatus, number> = { pass: 0, warn: 1, fail: 2 };
 
 /** One entry per criterion: the worst status over the discharges, first discharge where it occurs. */
-export function aggregateCriteria(perRow: readonly CriterionResult[][], fixed: readonly CriterionResult[]): CriterionResult[] {
+export function aggregateCriteria(
+  perRow: readonly CriterionResult[][],
+  fixed: readonly CriterionResult[],
+): CriterionResult[] {
   const byId = new Map<CriterionId, CriterionResult[]>();
   for (const list of [...perRow, fixed]) {
     for (const c of list) {
@@ -81,14 +84,23 @@ export function aggregateCriteria(perRow: readonly CriterionResult[][], fixed: r
     const worst = Math.max(...list.map((c) => ORDER[c.status]));
     const hits = list.filter((c) => ORDER[c.status] === worst);
     // For a pass, show the largest discharge (the design case); for a problem, the first where it occurs.
-    const pick = worst === 0 ? hits.reduce((a, b) => ((b.atQ ?? 0) > (a.atQ ?? 0) ? b : a)) : hits[0]!;
-    const more = worst > 0 && hits.length > 1 ? ` (and at ${hits.length - 1} other discharge${hits.length > 2 ? 's' : ''})` : '';
+    const pick =
+      worst === 0 ? hits.reduce((a, b) => ((b.atQ ?? 0) > (a.atQ ?? 0) ? b : a)) : hits[0]!;
+    const more =
+      worst > 0 && hits.length > 1
+        ? ` (and at ${hits.length - 1} other discharge${hits.length > 2 ? 's' : ''})`
+        : '';
     out.push({ ...pick, reason: pick.reason + more });
   }
   return out;
 }
 
-function roughMeasures(m: DissipatorModule, rows: readonly DischargeRow[], ctx: ScreeningContext, d: BasinDefaults): { length?: number; concreteVolume?: number } {
+function roughMeasures(
+  m: DissipatorModule,
+  rows: readonly DischargeRow[],
+  ctx: ScreeningContext,
+  d: BasinDefaults,
+): { length?: number; concreteVolume?: number } {
   const dr = designRow(rows);
   if (!dr) return {};
   try {
@@ -96,21 +108,36 @@ function roughMeasures(m: DissipatorModule, rows: readonly DischargeRow[], ctx: 
       const s = sizeJumpBasin(m.id, { width: ctx.width, Q: dr.Q, y1: dr.y1 }, { defaults: d });
       const t = d.minSlabThickness;
       const tw = d.minWallThickness;
-      return { length: s.length, concreteVolume: s.length * (ctx.width + 2 * tw) * t + 2 * s.length * s.wallHeight * tw };
+      return {
+        length: s.length,
+        concreteVolume: s.length * (ctx.width + 2 * tw) * t + 2 * s.length * s.wallHeight * tw,
+      };
     }
     if (m.id === 'usbr-6') {
       const s = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);
       const tw = d.minWallThickness;
-      return { length: s.length, concreteVolume: s.length * s.width * tw + 2 * s.length * s.wallHeight * tw };
+      return {
+        length: s.length,
+        concreteVolume: s.length * s.width * tw + 2 * s.length * s.wallHeight * tw,
+      };
     }
     if (m.id === 'usbr-9') {
       const drop = dr.head ?? dr.y1 + (dr.v1 * dr.v1) / 19.6133;
       const s = sizeBaffledApron({ Q: dr.Q, width: ctx.width, drop }, d);
       const tw = d.minWallThickness;
-      return { length: s.length, concreteVolume: s.slopeLength * ctx.width * d.minSlabThickness + 2 * s.slopeLength * s.wallHeight * tw };
+      return {
+        length: s.length,
+        concreteVolume:
+          s.slopeLength * ctx.width * d.minSlabThickness + 2 * s.slopeLength * s.wallHeight * tw,
+      };
     }
     if (m.id === 'riprap-apron' && ctx.culvert) {
-      const a = designCulvertApron({ Q: dr.Q, rise: ctx.culvert.rise, shape: ctx.culvert.shape, ...(ctx.culvert.span !== undefined ? { span: ctx.culvert.span } : {}) });
+      const a = designCulvertApron({
+        Q: dr.Q,
+        rise: ctx.culvert.rise,
+        shape: ctx.culvert.shape,
+        ...(ctx.culvert.span !== undefined ? { span: ctx.culvert.span } : {}),
+      });
       return { length: a.length, concreteVolume: 0 };
     }
   } catch (e) {
@@ -119,7 +146,13 @@ function roughMeasures(m: DissipatorModule, rows: readonly DischargeRow[], ctx: 
   return {};
 }
 
-const VERDICT_ORDER: Record<Verdict, number> = { recommended: 0, suitable: 0, marginal: 1, specialist: 2, unsuitable: 3 };
+const VERDICT_ORDER: Record<Verdict, number> = {
+  recommended: 0,
+  suitable: 0,
+  marginal: 1,
+  specialist: 2,
+  unsuitable: 3,
+};
 
 /**
  * Screens every type of the catalogue at every discharge (hydraulics.md §4) and ranks them:
@@ -128,15 +161,19 @@ const VERDICT_ORDER: Record<Verdict, number> = { recommended: 0, suitable: 0, ma
  * @example screenDissipators({ rows, context: { inflow: 'chute', width: 12 } })[0].verdict
  */
 export function screenDissipators(input: ScreeningInput): TypeScreening[] {
-  if (input === null || typeof input !== 'object') throw new RangeError('screening input must be an object');
+  if (input === null || typeof input !== 'object')
+    throw new RangeError('screening input must be an object');
   if (!Array.isArray(input.rows)) throw new RangeError('rows must be an array of discharges');
   const ctx = input.context;
-  if (!ctx || typeof ctx !== 'object') throw new RangeError('context must be given (inflow kind and width)');
+  if (!ctx || typeof ctx !== 'object')
+    throw new RangeError('context must be given (inflow kind and width)');
   if (!(typeof ctx.width === 'number' && Number.isFinite(ctx.width) && ctx.width > 0)) {
     throw new RangeError(`context.width must be greater than zero (got ${String(ctx.width)})`);
   }
   const d = resolveDefaults(input.defaults);
-  const modules = input.types ? DISSIPATOR_CATALOGUE.filter((m) => input.types!.includes(m.id)) : DISSIPATOR_CATALOGUE;
+  const modules = input.types
+    ? DISSIPATOR_CATALOGUE.filter((m) => input.types!.includes(m.id))
+    : DISSIPATOR_CATALOGUE;
   const results: TypeScreening[] = modules.map((m) => {
     const rows = input.rowsByType?.[m.id] ?? input.rows;
     for (const r of rows) checkRow(r);
@@ -147,8 +184,18 @@ export function screenDissipators(input: ScreeningInput): TypeScreening[] {
     const warnCount = criteria.filter((c) => c.status === 'warn').length;
     let verdict: Verdict;
     if (m.specialist) verdict = m.indicated?.(criteria) ? 'specialist' : 'unsuitable';
-    else verdict = rows.length === 0 ? 'unsuitable' : failCount > 0 ? 'unsuitable' : warnCount > 0 ? 'marginal' : 'suitable';
-    const measures = input.measures?.[m.id] ?? (verdict === 'unsuitable' && !isJumpBasinType(m.id) ? {} : roughMeasures(m, rows, ctx, d));
+    else
+      verdict =
+        rows.length === 0
+          ? 'unsuitable'
+          : failCount > 0
+            ? 'unsuitable'
+            : warnCount > 0
+              ? 'marginal'
+              : 'suitable';
+    const measures =
+      input.measures?.[m.id] ??
+      (verdict === 'unsuitable' && !isJumpBasinType(m.id) ? {} : roughMeasures(m, rows, ctx, d));
     const res: TypeScreening = {
       type: m.id,
       name: m.name,
@@ -184,7 +231,8 @@ export function screenDissipators(input: ScreeningInput): TypeScreening[] {
 function checkRow(r: DischargeRow): void {
   for (const k of ['Q', 'q', 'y1', 'v1', 'fr1', 'y2'] as const) {
     const v = r[k];
-    if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) throw new RangeError(`row.${k} must be a positive finite number (got ${String(v)})`);
+    if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0)
+      throw new RangeError(`row.${k} must be a positive finite number (got ${String(v)})`);
   }
 }
 
@@ -206,7 +254,8 @@ function summarise(r: TypeScreening, best: TypeScreening | undefined, P: Phraser
       return `Likely answer: ${why.join('; ')}. Needs a specialist study (usually with a physical model); not sized here.`;
     }
     case 'unsuitable':
-      if (r.family === 'jet') return `Not indicated: ${r.criteria.map((c) => c.reason).join('; ')}.`;
+      if (r.family === 'jet')
+        return `Not indicated: ${r.criteria.map((c) => c.reason).join('; ')}.`;
       return `Unsuitable: ${fails.map((f) => f.reason).join('; ')}.`;
   }
 }

@@ -4,7 +4,8 @@ import { analyseRange, solveFloorElevation, type StudyInput, type StudyRow } fro
 import { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, isJumpBasinType } from './catalogue';
 
 /** The published name of a type, for sentences (never the code id). */
-const nameOf = (id: DissipatorTypeId): string => DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'the chosen type';
+const nameOf = (id: DissipatorTypeId): string =>
+  DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'the chosen type';
 import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
 import {
   designBaffledApron,
@@ -49,7 +50,9 @@ export interface DissipatorStudyResult {
   design: DesignEntry | null;
   alternatives: DesignEntry[];
   /** floor solved per jump-basin type, m, with the governing discharge */
-  floors: Partial<Record<JumpBasinType, { elevation: number; governingQ: number | null; depthBelowBed: number }>>;
+  floors: Partial<
+    Record<JumpBasinType, { elevation: number; governingQ: number | null; depthBelowBed: number }>
+  >;
   context: ScreeningContext;
   /** every default in force (from memory, common practice, sources) */
   assumptions: Assumption[];
@@ -72,14 +75,21 @@ function toRow(r: StudyRow): DesignRow {
 }
 
 /** The screening context from the study input and the user's options. */
-export function screeningContext(input: StudyInput, opts: DissipatorStudyOptions = {}): ScreeningContext {
+export function screeningContext(
+  input: StudyInput,
+  opts: DissipatorStudyOptions = {},
+): ScreeningContext {
   const inflow = input.inflow;
   let culvert = opts.culvert;
   if (!culvert && inflow.kind === 'pipe' && inflow.outlet.kind === 'barrel') {
     const s = inflow.outlet.section;
     if (s.shape === 'circular') culvert = { shape: 'circular', rise: s.diameter };
   }
-  const ctx: ScreeningContext = { inflow: inflow.kind, width: input.basinWidth, units: opts.units ?? input.units };
+  const ctx: ScreeningContext = {
+    inflow: inflow.kind,
+    width: input.basinWidth,
+    units: opts.units ?? input.units,
+  };
   if (opts.debris) ctx.debris = opts.debris;
   if (culvert) ctx.culvert = culvert;
   return ctx;
@@ -97,17 +107,30 @@ function outletWidth(input: StudyInput): number | undefined {
  * alternatives (each jump basin on its own floor, solved with its tailwater factor over the
  * whole range) and draws them. Pure; SI.
  */
-export function designDissipators(input: StudyInput, options: DissipatorStudyOptions = {}): DissipatorStudyResult {
+export function designDissipators(
+  input: StudyInput,
+  options: DissipatorStudyOptions = {},
+): DissipatorStudyResult {
   // Words in the user's units unless told otherwise; every number stays SI.
-  const opts: DissipatorStudyOptions = { ...options, units: options.units ?? (input.units === 'US' ? 'US' : 'SI') };
+  const opts: DissipatorStudyOptions = {
+    ...options,
+    units: options.units ?? (input.units === 'US' ? 'US' : 'SI'),
+  };
   const d: BasinDefaults = resolveDefaults(opts.defaults);
-  for (const t of [...(opts.chosenType !== undefined ? [opts.chosenType] : []), ...(opts.alternatives ?? [])]) {
-    if (!DISSIPATOR_CATALOGUE.some((m) => m.id === t)) throw new RangeError(`dissipators.chosenType: "${String(t)}" is not a type of the catalogue`);
+  for (const t of [
+    ...(opts.chosenType !== undefined ? [opts.chosenType] : []),
+    ...(opts.alternatives ?? []),
+  ]) {
+    if (!DISSIPATOR_CATALOGUE.some((m) => m.id === t))
+      throw new RangeError(`dissipators.chosenType: "${String(t)}" is not a type of the catalogue`);
   }
   const ctx = screeningContext(input, opts);
   const notes: string[] = [];
   const extra = opts.extraFloorDepth ?? 0;
-  if (!(Number.isFinite(extra) && extra >= 0)) throw new RangeError(`dissipators.extraFloorDepth (extra floor depth) must be a non-negative number (got ${extra})`);
+  if (!(Number.isFinite(extra) && extra >= 0))
+    throw new RangeError(
+      `dissipators.extraFloorDepth (extra floor depth) must be a non-negative number (got ${extra})`,
+    );
   const fixedFloor = input.floorElevation;
   const bed = input.channelBedElevation;
 
@@ -155,34 +178,67 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
 
   // Types with their own rules, where the study describes what they need.
   try {
-    designs['usbr-6'] = designImpactBasin({ floorElevation: naturalFloor, channelBedElevation: bed, designQ: input.designDischarge, rows: bedRows }, opts);
+    designs['usbr-6'] = designImpactBasin(
+      {
+        floorElevation: naturalFloor,
+        channelBedElevation: bed,
+        designQ: input.designDischarge,
+        rows: bedRows,
+      },
+      opts,
+    );
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
     notes.push(`${nameOf('usbr-6')}: not sized (${e.message})`);
   }
   if (input.inflow.kind === 'chute') {
     try {
-      designs['usbr-9'] = designBaffledApron({ crestElevation: input.inflow.crestElevation, channelBedElevation: bed, width: input.basinWidth, designQ: input.designDischarge }, opts);
+      designs['usbr-9'] = designBaffledApron(
+        {
+          crestElevation: input.inflow.crestElevation,
+          channelBedElevation: bed,
+          width: input.basinWidth,
+          designQ: input.designDischarge,
+        },
+        opts,
+      );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
       notes.push(`${nameOf('usbr-9')}: not sized (${e.message})`);
     }
   }
   if (ctx.culvert) {
-    const dr = bedRows.reduce((a, r) => (Math.abs(r.Q - input.designDischarge) < Math.abs(a.Q - input.designDischarge) ? r : a));
+    const dr = bedRows.reduce((a, r) =>
+      Math.abs(r.Q - input.designDischarge) < Math.abs(a.Q - input.designDischarge) ? r : a,
+    );
     try {
-      designs['riprap-apron'] = designRiprapApron({ invertElevation: naturalFloor, designQ: dr.Q, culvert: ctx.culvert, tailwaterElevation: dr.tailwaterElevation }, opts);
+      designs['riprap-apron'] = designRiprapApron(
+        {
+          invertElevation: naturalFloor,
+          designQ: dr.Q,
+          culvert: ctx.culvert,
+          tailwaterElevation: dr.tailwaterElevation,
+        },
+        opts,
+      );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
       notes.push(`${nameOf('riprap-apron')}: not sized (${e.message})`);
     }
   }
 
-  const measures: Partial<Record<DissipatorTypeId, { length?: number; concreteVolume?: number }>> = {};
+  const measures: Partial<Record<DissipatorTypeId, { length?: number; concreteVolume?: number }>> =
+    {};
   for (const [id, des] of Object.entries(designs) as Array<[DissipatorTypeId, DissipatorDesign]>) {
     measures[id] = { length: des.length, concreteVolume: des.concrete.total };
   }
-  const screening = screenDissipators({ rows: bedRows, rowsByType, context: ctx, defaults: d, measures });
+  const screening = screenDissipators({
+    rows: bedRows,
+    rowsByType,
+    context: ctx,
+    defaults: d,
+    measures,
+  });
   const recommended = screening.find((s) => s.verdict === 'recommended')?.type ?? null;
   if (!recommended) {
     const sp = screening.filter((s) => s.verdict === 'specialist').map((s) => s.name);
@@ -193,7 +249,9 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
     );
   }
   if (screening.some((s) => s.verdict === 'specialist') && recommended) {
-    notes.push('A jet structure is also indicated (see the specialist types): compare with a specialist study.');
+    notes.push(
+      'A jet structure is also indicated (see the specialist types): compare with a specialist study.',
+    );
   }
   const chosen = opts.chosenType ?? recommended;
   const entry = (type: DissipatorTypeId): DesignEntry | null => {
@@ -205,10 +263,19 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
   let design: DesignEntry | null = null;
   if (chosen) {
     design = entry(chosen);
-    if (!design) notes.push(`${nameOf(chosen)}: cannot be designed from this study (not sized, or its inputs are missing)`);
+    if (!design)
+      notes.push(
+        `${nameOf(chosen)}: cannot be designed from this study (not sized, or its inputs are missing)`,
+      );
   }
   const altIds = new Set<DissipatorTypeId>([
-    ...screening.filter((s) => (s.verdict === 'suitable' || s.verdict === 'marginal' || s.verdict === 'recommended') && s.type !== chosen).map((s) => s.type),
+    ...screening
+      .filter(
+        (s) =>
+          (s.verdict === 'suitable' || s.verdict === 'marginal' || s.verdict === 'recommended') &&
+          s.type !== chosen,
+      )
+      .map((s) => s.type),
     ...(opts.alternatives ?? []).filter((t) => t !== chosen),
   ]);
   const alternatives = [...altIds].map(entry).filter((x): x is DesignEntry => x !== null);
@@ -223,8 +290,12 @@ export function designDissipators(input: StudyInput, options: DissipatorStudyOpt
     // The flotation case, when given, takes the place of its two defaults: list what is in force.
     assumptions: listAssumptions({
       ...d,
-      ...(opts.flotation?.safetyFactor !== undefined ? { flotationSafetyFactor: opts.flotation.safetyFactor } : {}),
-      ...(opts.flotation?.minThickness !== undefined ? { minSlabThickness: opts.flotation.minThickness } : {}),
+      ...(opts.flotation?.safetyFactor !== undefined
+        ? { flotationSafetyFactor: opts.flotation.safetyFactor }
+        : {}),
+      ...(opts.flotation?.minThickness !== undefined
+        ? { minSlabThickness: opts.flotation.minThickness }
+        : {}),
     }),
     notes,
   };

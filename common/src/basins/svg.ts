@@ -4,7 +4,18 @@
 // drawing, so placement that was fixed in metres collided on small basins. The layout below is
 // greedy: dimensions first (stacked outwards until their values are clear), then labels, each
 // moved to the nearest free spot and tied back to its feature by a leader when moved far.
-import type { Drawing, DrawingItem, DrawingQuantity, DrawingView, DimensionItem, LabelItem, LabelPart, LineStyle, FillStyle, Pt } from './drawing';
+import type {
+  Drawing,
+  DrawingItem,
+  DrawingQuantity,
+  DrawingView,
+  DimensionItem,
+  LabelItem,
+  LabelPart,
+  LineStyle,
+  FillStyle,
+  Pt,
+} from './drawing';
 
 export type DrawingFormatter = (value: number, quantity: DrawingQuantity) => string;
 
@@ -39,7 +50,14 @@ export const formatSI: DrawingFormatter = (value, quantity) => {
 };
 
 /** Font sizes in px at the rendered width. 11 px is the smallest text kept on the sheet. */
-export const DRAWING_FONT = { title: 15, view: 12.5, label: 11, labelNormal: 12, dimension: 11, note: 10.5 } as const;
+export const DRAWING_FONT = {
+  title: 15,
+  view: 12.5,
+  label: 11,
+  labelNormal: 12,
+  dimension: 11,
+  note: 10.5,
+} as const;
 
 const STROKE: Record<LineStyle, { stroke: string; width: number; dash?: string }> = {
   concrete: { stroke: '#0f6e6e', width: 1.4 },
@@ -59,7 +77,11 @@ const FILL: Record<FillStyle, string> = {
 };
 
 function esc(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  return s
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;');
 }
 const f = (x: number): string => (Math.round(x * 100) / 100).toString();
 
@@ -75,10 +97,11 @@ function text(parts: readonly LabelPart[], format: DrawingFormatter): string {
 export function estimateTextWidth(s: string, fontSize: number): number {
   let em = 0;
   for (const ch of s) {
-    if (' .,:;\'!|ilIjft()[]1'.includes(ch)) em += 0.3;
+    if (" .,:;'!|ilIjft()[]1".includes(ch)) em += 0.3;
     else if ('mwMW—'.includes(ch)) em += 0.86;
     else if (ch >= 'A' && ch <= 'Z') em += 0.68;
-    else if ((ch >= '0' && ch <= '9') || ch === '=' || ch === '+' || ch === '−' || ch === '-') em += 0.57;
+    else if ((ch >= '0' && ch <= '9') || ch === '=' || ch === '+' || ch === '−' || ch === '-')
+      em += 0.57;
     else if (ch === '³' || ch === '²') em += 0.36;
     else em += 0.54;
   }
@@ -94,7 +117,13 @@ export interface Box {
 }
 
 /** Box of a line of text whose baseline starts (start), centres (middle) or ends (end) at x, y. */
-export function textBox(s: string, size: number, x: number, y: number, anchor: 'start' | 'middle' | 'end'): Box {
+export function textBox(
+  s: string,
+  size: number,
+  x: number,
+  y: number,
+  anchor: 'start' | 'middle' | 'end',
+): Box {
   const w = estimateTextWidth(s, size);
   const x0 = anchor === 'start' ? x : anchor === 'middle' ? x - w / 2 : x - w;
   return { x0, y0: y - 0.78 * size, x1: x0 + w, y1: y + 0.24 * size };
@@ -106,16 +135,28 @@ export function boxesOverlap(a: Box, b: Box, gap = 0): boolean {
 
 function segmentHitsBox(p: Pt, q: Pt, b: Box): boolean {
   // Liang–Barsky clipping: does any part of p→q lie inside b?
-  let t0 = 0, t1 = 1;
-  const dx = q.x - p.x, dy = q.y - p.y;
-  const tests: [number, number][] = [[-dx, p.x - b.x0], [dx, b.x1 - p.x], [-dy, p.y - b.y0], [dy, b.y1 - p.y]];
+  let t0 = 0,
+    t1 = 1;
+  const dx = q.x - p.x,
+    dy = q.y - p.y;
+  const tests: [number, number][] = [
+    [-dx, p.x - b.x0],
+    [dx, b.x1 - p.x],
+    [-dy, p.y - b.y0],
+    [dy, b.y1 - p.y],
+  ];
   for (const [pp, qq] of tests) {
     if (pp === 0) {
       if (qq < 0) return false;
     } else {
       const r = qq / pp;
-      if (pp < 0) { if (r > t1) return false; if (r > t0) t0 = r; }
-      else { if (r < t0) return false; if (r < t1) t1 = r; }
+      if (pp < 0) {
+        if (r > t1) return false;
+        if (r > t0) t0 = r;
+      } else {
+        if (r < t0) return false;
+        if (r < t1) t1 = r;
+      }
     }
   }
   return true;
@@ -163,17 +204,28 @@ function rotatedTextBox(s: string, size: number, at: Pt, angleDeg: number): Box 
   // Text centred on `at` horizontally, baseline at `at`, then rotated about `at`.
   const w = estimateTextWidth(s, size);
   const corners: Pt[] = [
-    { x: -w / 2, y: -0.78 * size }, { x: w / 2, y: -0.78 * size },
-    { x: w / 2, y: 0.24 * size }, { x: -w / 2, y: 0.24 * size },
+    { x: -w / 2, y: -0.78 * size },
+    { x: w / 2, y: -0.78 * size },
+    { x: w / 2, y: 0.24 * size },
+    { x: -w / 2, y: 0.24 * size },
   ];
-  const a = (angleDeg * Math.PI) / 180, c = Math.cos(a), sn = Math.sin(a);
+  const a = (angleDeg * Math.PI) / 180,
+    c = Math.cos(a),
+    sn = Math.sin(a);
   const pts = corners.map((p) => ({ x: at.x + p.x * c - p.y * sn, y: at.y + p.x * sn + p.y * c }));
-  return { x0: Math.min(...pts.map((p) => p.x)), y0: Math.min(...pts.map((p) => p.y)), x1: Math.max(...pts.map((p) => p.x)), y1: Math.max(...pts.map((p) => p.y)) };
+  return {
+    x0: Math.min(...pts.map((p) => p.x)),
+    y0: Math.min(...pts.map((p) => p.y)),
+    x1: Math.max(...pts.map((p) => p.x)),
+    y1: Math.max(...pts.map((p) => p.y)),
+  };
 }
 
 function grow(e: Box, b: Box): void {
-  e.x0 = Math.min(e.x0, b.x0); e.y0 = Math.min(e.y0, b.y0);
-  e.x1 = Math.max(e.x1, b.x1); e.y1 = Math.max(e.y1, b.y1);
+  e.x0 = Math.min(e.x0, b.x0);
+  e.y0 = Math.min(e.y0, b.y0);
+  e.x1 = Math.max(e.x1, b.x1);
+  e.y1 = Math.max(e.y1, b.y1);
 }
 
 /**
@@ -181,7 +233,12 @@ function grow(e: Box, b: Box): void {
  * frame (x = (x − minX)·scale, y = (maxY − y)·scale). Greedy: each text takes the cheapest
  * free spot near its feature; no two text boxes overlap.
  */
-export function layoutView(view: DrawingView, minX: number, scale: number, format: DrawingFormatter): ViewLayout {
+export function layoutView(
+  view: DrawingView,
+  minX: number,
+  scale: number,
+  format: DrawingFormatter,
+): ViewLayout {
   const X = (x: number): number => (x - minX) * scale;
   const Y = (y: number): number => (view.bounds.maxY - y) * scale;
   const PX = (p: Pt): Pt => ({ x: X(p.x), y: Y(p.y) });
@@ -194,17 +251,25 @@ export function layoutView(view: DrawingView, minX: number, scale: number, forma
       const pts = it.points.map(PX);
       pts.forEach((p) => grow(extent, { x0: p.x, y0: p.y, x1: p.x, y1: p.y }));
       const n = it.closed ? pts.length : pts.length - 1;
-      for (let i = 0; i < n; i++) lines.push([pts[i]!, pts[(i + 1) % pts.length]!, it.style === 'concrete']);
+      for (let i = 0; i < n; i++)
+        lines.push([pts[i]!, pts[(i + 1) % pts.length]!, it.style === 'concrete']);
     } else if (it.kind === 'arrow') {
-      const a = PX(it.from), b = PX(it.to);
+      const a = PX(it.from),
+        b = PX(it.to);
       lines.push([a, b]);
-      grow(extent, { x0: Math.min(a.x, b.x), y0: Math.min(a.y, b.y), x1: Math.max(a.x, b.x), y1: Math.max(a.y, b.y) });
+      grow(extent, {
+        x0: Math.min(a.x, b.x),
+        y0: Math.min(a.y, b.y),
+        x1: Math.max(a.x, b.x),
+        y1: Math.max(a.y, b.y),
+      });
     }
   }
   const arrowBoxes: Box[] = [];
   for (const it of view.items) {
     if (it.kind !== 'arrow') continue;
-    const a = PX(it.from), b = PX(it.to);
+    const a = PX(it.from),
+      b = PX(it.to);
     const at = it.role === 'north' ? b : { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
     const bx = textBox(it.text, DRAWING_FONT.label, at.x, Math.min(a.y, b.y, at.y) - 6, 'middle');
     arrowBoxes.push(bx);
@@ -226,7 +291,12 @@ export function layoutView(view: DrawingView, minX: number, scale: number, forma
   const labels: PlacedLabel[] = [];
   for (const it of view.items) {
     if (it.kind !== 'label') continue;
-    const pl = placeLabel(it, PX, format, taken, lines, dimLines, { x0: X(view.bounds.minX), y0: 0, x1: X(view.bounds.maxX), y1: Y(view.bounds.minY) });
+    const pl = placeLabel(it, PX, format, taken, lines, dimLines, {
+      x0: X(view.bounds.minX),
+      y0: 0,
+      x1: X(view.bounds.maxX),
+      y1: Y(view.bounds.minY),
+    });
     labels.push(pl);
     taken.push(pl.box);
     grow(extent, pl.box);
@@ -234,12 +304,22 @@ export function layoutView(view: DrawingView, minX: number, scale: number, forma
   return { view, labels, dimensions, arrowBoxes, extent };
 }
 
-function placeDimension(it: DimensionItem, PX: (p: Pt) => Pt, scale: number, format: DrawingFormatter, taken: Box[], lines: Seg[]): PlacedDimension {
+function placeDimension(
+  it: DimensionItem,
+  PX: (p: Pt) => Pt,
+  scale: number,
+  format: DrawingFormatter,
+  taken: Box[],
+  lines: Seg[],
+): PlacedDimension {
   const size = DRAWING_FONT.dimension;
-  const a = PX(it.from), b = PX(it.to);
-  const dx = it.to.x - it.from.x, dy = it.to.y - it.from.y, len = Math.hypot(dx, dy) || 1;
+  const a = PX(it.from),
+    b = PX(it.to);
+  const dx = it.to.x - it.from.x,
+    dy = it.to.y - it.from.y,
+    len = Math.hypot(dx, dy) || 1;
   // unit normal to the left of from→to in drawing axes (y up), turned into px (y down)
-  const n = { x: (-dy / len), y: -(dx / len) };
+  const n = { x: -dy / len, y: -(dx / len) };
   const side = it.offset < 0 ? -1 : 1;
   const label = format(it.value, it.quantity);
   const w = estimateTextWidth(label, size);
@@ -250,21 +330,27 @@ function placeDimension(it: DimensionItem, PX: (p: Pt) => Pt, scale: number, for
   const base = it.offset === 0 ? 0 : Math.max(Math.abs(it.offset) * scale, size + 10);
   for (let step = 0; step < 10; step++) {
     const off = side * (base + step * (size + 4));
-    const a2 = { x: a.x + n.x * off, y: a.y + n.y * off }, b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
+    const a2 = { x: a.x + n.x * off, y: a.y + n.y * off },
+      b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
     let ang = (Math.atan2(b2.y - a2.y, b2.x - a2.x) * 180) / Math.PI;
     if (ang > 90) ang -= 180;
     if (ang < -90) ang += 180;
     const lenPx = Math.hypot(b2.x - a2.x, b2.y - a2.y);
-    const ux = (b2.x - a2.x) / (lenPx || 1), uy = (b2.y - a2.y) / (lenPx || 1);
+    const ux = (b2.x - a2.x) / (lenPx || 1),
+      uy = (b2.y - a2.y) / (lenPx || 1);
     const mid = { x: (a2.x + b2.x) / 2, y: (a2.y + b2.y) / 2 };
     // text sits on the reading side of the line ("above" it once rotated upright)
     const r = (ang * Math.PI) / 180;
-    const upx = Math.sin(r) * 3, upy = -Math.cos(r) * 3;
+    const upx = Math.sin(r) * 3,
+      upy = -Math.cos(r) * 3;
     const spots: Pt[] = [];
     if (w + 14 < lenPx) spots.push(mid);
     // too short for its value (or crowded): the value goes beyond either end, as drafters do
     const along = lenPx / 2 + w / 2 + 10;
-    spots.push({ x: mid.x + ux * along, y: mid.y + uy * along }, { x: mid.x - ux * along, y: mid.y - uy * along });
+    spots.push(
+      { x: mid.x + ux * along, y: mid.y + uy * along },
+      { x: mid.x - ux * along, y: mid.y - uy * along },
+    );
     for (const [k, s] of spots.entries()) {
       const at = { x: s.x + upx, y: s.y + upy };
       const box = rotatedTextBox(label, size, at, ang);
@@ -273,26 +359,65 @@ function placeDimension(it: DimensionItem, PX: (p: Pt) => Pt, scale: number, for
       const cost = step * 10 + k * 22 + crossings * 12;
       if (cost < bestCost) {
         bestCost = cost;
-        best = { role: it.role, value: it.value, text: label, a, b, a2, b2, textAt: at, angle: ang, box };
+        best = {
+          role: it.role,
+          value: it.value,
+          text: label,
+          a,
+          b,
+          a2,
+          b2,
+          textAt: at,
+          angle: ang,
+          box,
+        };
       }
     }
     if (best && bestCost < (step + 1) * 10) break;
   }
   if (!best) {
     // every spot tried is taken: push the dimension out past everything already placed
-    const far = taken.reduce((m, t) => Math.max(m, Math.abs((t.x0 + t.x1) / 2 - a.x) * Math.abs(n.x) + Math.abs((t.y0 + t.y1) / 2 - a.y) * Math.abs(n.y)), 0);
+    const far = taken.reduce(
+      (m, t) =>
+        Math.max(
+          m,
+          Math.abs((t.x0 + t.x1) / 2 - a.x) * Math.abs(n.x) +
+            Math.abs((t.y0 + t.y1) / 2 - a.y) * Math.abs(n.y),
+        ),
+      0,
+    );
     const off = side * (far + 3 * size);
-    const a2 = { x: a.x + n.x * off, y: a.y + n.y * off }, b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
+    const a2 = { x: a.x + n.x * off, y: a.y + n.y * off },
+      b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
     let ang = (Math.atan2(b2.y - a2.y, b2.x - a2.x) * 180) / Math.PI;
     if (ang > 90) ang -= 180;
     if (ang < -90) ang += 180;
     const at = { x: (a2.x + b2.x) / 2, y: (a2.y + b2.y) / 2 };
-    best = { role: it.role, value: it.value, text: label, a, b, a2, b2, textAt: at, angle: ang, box: rotatedTextBox(label, size, at, ang) };
+    best = {
+      role: it.role,
+      value: it.value,
+      text: label,
+      a,
+      b,
+      a2,
+      b2,
+      textAt: at,
+      angle: ang,
+      box: rotatedTextBox(label, size, at, ang),
+    };
   }
   return best;
 }
 
-function placeLabel(it: LabelItem, PX: (p: Pt) => Pt, format: DrawingFormatter, taken: Box[], lines: Seg[], dimLines: Seg[], frame: Box): PlacedLabel {
+function placeLabel(
+  it: LabelItem,
+  PX: (p: Pt) => Pt,
+  format: DrawingFormatter,
+  taken: Box[],
+  lines: Seg[],
+  dimLines: Seg[],
+  frame: Box,
+): PlacedLabel {
   const size = it.size === 'normal' ? DRAWING_FONT.labelNormal : DRAWING_FONT.label;
   const s = text(it.parts, format);
   const w = estimateTextWidth(s, size);
@@ -302,7 +427,9 @@ function placeLabel(it: LabelItem, PX: (p: Pt) => Pt, format: DrawingFormatter, 
   const place = it.place ?? 'above';
   // natural box (top-left corner) on the preferred side of the feature point; a label with a
   // leader may also hang the other way from its point when that side is clearer
-  const anchors: LabelItem['anchor'][] = it.target ? [it.anchor, ...(['start', 'end', 'middle'] as const).filter((a) => a !== it.anchor)] : [it.anchor];
+  const anchors: LabelItem['anchor'][] = it.target
+    ? [it.anchor, ...(['start', 'end', 'middle'] as const).filter((a) => a !== it.anchor)]
+    : [it.anchor];
   const natural = (anchor: LabelItem['anchor']): Pt => {
     const ax = anchor === 'start' ? A.x : anchor === 'middle' ? A.x - w / 2 : A.x - w;
     if (place === 'below') return { x: ax, y: A.y + gap };
@@ -326,21 +453,32 @@ function placeLabel(it: LabelItem, PX: (p: Pt) => Pt, format: DrawingFormatter, 
       const n = natural(anchor);
       for (const c of cands) {
         // steps: part of the text width sideways, one line height up or down
-        const ox = c.x * Math.min(w / 2, 40), oy = c.y * (h + 2);
+        const ox = c.x * Math.min(w / 2, 40),
+          oy = c.y * (h + 2);
         const box = { x0: n.x + ox, y0: n.y + oy, x1: n.x + ox + w, y1: n.y + oy + h };
         if (taken.some((t) => boxesOverlap(t, box, 1.5))) continue;
-        const hits = lines.reduce((k, [p, q, heavy]) => (segmentHitsBox(p, q, box) ? k + (heavy ? 1.4 : 1) : k), 0);
+        const hits = lines.reduce(
+          (k, [p, q, heavy]) => (segmentHitsBox(p, q, box) ? k + (heavy ? 1.4 : 1) : k),
+          0,
+        );
         const dimHits = dimLines.filter(([p, q]) => segmentHitsBox(p, q, box)).length;
         // moving away from the feature on the preferred side is cheaper than crossing it
         const against = dirY !== 0 && Math.sign(oy) === -dirY ? 1.6 : 1;
         // text past the ends of the geometry would shrink the whole drawing to fit the sheet
         const overflow = Math.max(0, frame.x0 - box.x0) + Math.max(0, box.x1 - frame.x1);
-        const cost = ai * 12 + Math.abs(ox) * 0.4 + Math.abs(oy) * against + (place === 'on' ? 0.5 : 1) * hits * 28 + dimHits * 40 + overflow * 3;
+        const cost =
+          ai * 12 +
+          Math.abs(ox) * 0.4 +
+          Math.abs(oy) * against +
+          (place === 'on' ? 0.5 : 1) * hits * 28 +
+          dimHits * 40 +
+          overflow * 3;
         if (!best || cost < best.cost) best = { box, cost, anchor, n };
       }
     }
   }
-  const nx = best?.n.x ?? natural(it.anchor).x, ny = best?.n.y ?? natural(it.anchor).y;
+  const nx = best?.n.x ?? natural(it.anchor).x,
+    ny = best?.n.y ?? natural(it.anchor).y;
   const anchor = best?.anchor ?? it.anchor;
   const box = best?.box ?? { x0: nx, y0: ny, x1: nx + w, y1: ny + h };
   const x = anchor === 'start' ? box.x0 : anchor === 'middle' ? (box.x0 + box.x1) / 2 : box.x1;
@@ -348,8 +486,19 @@ function placeLabel(it: LabelItem, PX: (p: Pt) => Pt, format: DrawingFormatter, 
   const moved = Math.hypot(box.x0 - nx, box.y0 - ny);
   const target = it.target ? PX(it.target) : moved > h * 1.2 ? A : null;
   const out: PlacedLabel = { role: it.role, text: s, size, x, y, anchor, box };
-  if (target && !(target.x >= box.x0 - 2 && target.x <= box.x1 + 2 && target.y >= box.y0 - 2 && target.y <= box.y1 + 2)) {
-    const from = { x: Math.min(Math.max(target.x, box.x0), box.x1), y: target.y < box.y0 ? box.y0 : target.y > box.y1 ? box.y1 : (box.y0 + box.y1) / 2 };
+  if (
+    target &&
+    !(
+      target.x >= box.x0 - 2 &&
+      target.x <= box.x1 + 2 &&
+      target.y >= box.y0 - 2 &&
+      target.y <= box.y1 + 2
+    )
+  ) {
+    const from = {
+      x: Math.min(Math.max(target.x, box.x0), box.x1),
+      y: target.y < box.y0 ? box.y0 : target.y > box.y1 ? box.y1 : (box.y0 + box.y1) / 2,
+    };
     out.leader = { from, to: target };
   }
   return out;
@@ -357,10 +506,13 @@ function placeLabel(it: LabelItem, PX: (p: Pt) => Pt, format: DrawingFormatter, 
 
 /** Length of the scale bar: a 1, 2 or 5 × 10ⁿ value near a fifth of `span` (same unit). */
 export function scaleBarLength(span: number): number {
-  if (!(Number.isFinite(span) && span > 0)) throw new RangeError(`span must be a positive length (got ${span})`);
+  if (!(Number.isFinite(span) && span > 0))
+    throw new RangeError(`span must be a positive length (got ${span})`);
   const target = span / 5;
   const pow = Math.pow(10, Math.floor(Math.log10(target)));
-  return [1, 2, 5, 10].map((k) => k * pow).reduce((a, b) => (Math.abs(b - target) < Math.abs(a - target) ? b : a));
+  return [1, 2, 5, 10]
+    .map((k) => k * pow)
+    .reduce((a, b) => (Math.abs(b - target) < Math.abs(a - target) ? b : a));
 }
 
 /** Words of `s` broken into lines no wider than `maxWidth` px. */
@@ -369,7 +521,10 @@ function wrap(s: string, size: number, maxWidth: number): string[] {
   let line = '';
   for (const word of s.split(/\s+/)) {
     const next = line ? `${line} ${word}` : word;
-    if (line && estimateTextWidth(next, size) > maxWidth) { out.push(line); line = word; } else line = next;
+    if (line && estimateTextWidth(next, size) > maxWidth) {
+      out.push(line);
+      line = word;
+    } else line = next;
   }
   if (line) out.push(line);
   return out;
@@ -391,10 +546,12 @@ const MARGIN = 24;
  * chosen so that the geometry and the text around it fit the width.
  */
 export function layoutDrawing(drawing: Drawing, opts: SvgOptions = {}): DrawingLayout {
-  if (!drawing || !Array.isArray(drawing.views) || drawing.views.length === 0) throw new RangeError('drawing must hold at least one view');
+  if (!drawing || !Array.isArray(drawing.views) || drawing.views.length === 0)
+    throw new RangeError('drawing must hold at least one view');
   const format = opts.format ?? formatSI;
   const width = opts.width ?? 960;
-  if (!(Number.isFinite(width) && width > 100)) throw new RangeError(`width must be more than 100 px (got ${width})`);
+  if (!(Number.isFinite(width) && width > 100))
+    throw new RangeError(`width must be more than 100 px (got ${width})`);
   const minX = Math.min(...drawing.views.map((v) => v.bounds.minX));
   const spanX = Math.max(...drawing.views.map((v) => v.bounds.maxX)) - minX;
   if (!(spanX > 0)) throw new RangeError('drawing views must have a positive extent');
@@ -435,7 +592,8 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
   const width = lay.width;
   const font = esc(opts.fontFamily ?? 'Lato, Helvetica, Arial, sans-serif');
   const unit = opts.scaleUnit ?? { label: 'm', metres: 1 };
-  if (!(Number.isFinite(unit.metres) && unit.metres > 0)) throw new RangeError(`scaleUnit.metres must be positive (got ${unit.metres})`);
+  if (!(Number.isFinite(unit.metres) && unit.metres > 0))
+    throw new RangeError(`scaleUnit.metres must be positive (got ${unit.metres})`);
   const out: string[] = [];
   // One fill per text: an attribute written twice makes the file unreadable as XML (PDF, files).
   const T = (x: number, y: number, size: number, s: string, extra = '', fill = '#0f172a'): string =>
@@ -445,7 +603,9 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
     const l = v.layout;
     const X = (x: number): number => (x - lay.minX) * lay.scale;
     const Y = (yy: number): number => (l.view.bounds.maxY - yy) * lay.scale;
-    out.push(T(MARGIN, v.titleY, DRAWING_FONT.view, l.view.title, ' font-weight="bold"', '#334155'));
+    out.push(
+      T(MARGIN, v.titleY, DRAWING_FONT.view, l.view.title, ' font-weight="bold"', '#334155'),
+    );
     out.push(`<g data-view="${l.view.id}" transform="translate(${f(v.dx)} ${f(v.dy)})">`);
     for (const it of order(l.view.items)) {
       if (it.kind === 'polyline') out.push(polyline(it, X, Y, opts.accent));
@@ -459,21 +619,40 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
   const spanUnits = (width - 2 * MARGIN) / lay.scale / unit.metres;
   const bar = scaleBarLength(spanUnits);
   const bw = bar * unit.metres * lay.scale;
-  const bx = MARGIN, by = lay.bottom + 4;
+  const bx = MARGIN,
+    by = lay.bottom + 4;
   const barText = `${Number.isInteger(bar) ? bar : bar.toPrecision(1)} ${unit.label}`;
-  out.push(`<g data-role="scale-bar" data-length="${bar}" data-unit="${esc(unit.label)}" data-length-px="${f(bw)}">`);
-  for (let i = 0; i < 4; i++) out.push(`<rect x="${f(bx + (i * bw) / 4)}" y="${f(by)}" width="${f(bw / 4)}" height="5" fill="${i % 2 === 0 ? '#0f172a' : '#ffffff'}" stroke="#0f172a" stroke-width="0.8"/>`);
-  out.push(T(bx, by + 18, DRAWING_FONT.note, '0', ' text-anchor="middle"'), T(bx + bw, by + 18, DRAWING_FONT.note, barText, ' text-anchor="middle"'), '</g>');
+  out.push(
+    `<g data-role="scale-bar" data-length="${bar}" data-unit="${esc(unit.label)}" data-length-px="${f(bw)}">`,
+  );
+  for (let i = 0; i < 4; i++)
+    out.push(
+      `<rect x="${f(bx + (i * bw) / 4)}" y="${f(by)}" width="${f(bw / 4)}" height="5" fill="${i % 2 === 0 ? '#0f172a' : '#ffffff'}" stroke="#0f172a" stroke-width="0.8"/>`,
+    );
+  out.push(
+    T(bx, by + 18, DRAWING_FONT.note, '0', ' text-anchor="middle"'),
+    T(bx + bw, by + 18, DRAWING_FONT.note, barText, ' text-anchor="middle"'),
+    '</g>',
+  );
   // Title block: what the sheet is, its units and the cautions, in a frame along the bottom.
   const tbTop = by + 32;
   const innerW = width - 2 * MARGIN - 16;
   const lines: { s: string; size: number; bold?: boolean; colour?: string }[] = [
     { s: drawing.title, size: DRAWING_FONT.labelNormal, bold: true },
-    { s: `Dimensions and elevations in ${unit.label === 'm' ? 'metres' : unit.label === 'ft' ? 'feet' : unit.label}. Drawn to the scale of the bar; do not scale from a print.`, size: DRAWING_FONT.note, colour: '#334155' },
+    {
+      s: `Dimensions and elevations in ${unit.label === 'm' ? 'metres' : unit.label === 'ft' ? 'feet' : unit.label}. Drawn to the scale of the bar; do not scale from a print.`,
+      size: DRAWING_FONT.note,
+      colour: '#334155',
+    },
   ];
-  for (const n of drawing.notes) for (const s of wrap(n, DRAWING_FONT.note, innerW)) lines.push({ s, size: DRAWING_FONT.note, colour: '#475569' });
-  const caution = drawing.caution ?? 'Concept level only; to be reviewed and sealed by a licensed professional engineer and to follow local codes.';
-  for (const s of wrap(caution, DRAWING_FONT.note, innerW)) lines.push({ s, size: DRAWING_FONT.note, bold: true, colour: '#7c2d12' });
+  for (const n of drawing.notes)
+    for (const s of wrap(n, DRAWING_FONT.note, innerW))
+      lines.push({ s, size: DRAWING_FONT.note, colour: '#475569' });
+  const caution =
+    drawing.caution ??
+    'Concept level only; to be reviewed and sealed by a licensed professional engineer and to follow local codes.';
+  for (const s of wrap(caution, DRAWING_FONT.note, innerW))
+    lines.push({ s, size: DRAWING_FONT.note, bold: true, colour: '#7c2d12' });
   let ty = tbTop + 18;
   const tb: string[] = [];
   for (const ln of lines) {
@@ -481,7 +660,9 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
     ty += ln.size + 5;
   }
   const tbH = ty - tbTop;
-  out.push(`<g data-role="title-block"><rect x="${MARGIN}" y="${f(tbTop)}" width="${f(width - 2 * MARGIN)}" height="${f(tbH)}" fill="#f8fafc" stroke="#334155" stroke-width="0.8"/>${tb.join('')}</g>`);
+  out.push(
+    `<g data-role="title-block"><rect x="${MARGIN}" y="${f(tbTop)}" width="${f(width - 2 * MARGIN)}" height="${f(tbH)}" fill="#f8fafc" stroke="#334155" stroke-width="0.8"/>${tb.join('')}</g>`,
+  );
   const height = Math.ceil(tbTop + tbH + MARGIN);
   const W = Math.round(width);
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${height}" viewBox="0 0 ${W} ${height}" data-scale-px-per-m="${f(lay.scale)}"><rect x="0" y="0" width="${W}" height="${height}" fill="#ffffff"/><rect x="6" y="6" width="${W - 12}" height="${height - 12}" fill="none" stroke="#94a3b8" stroke-width="0.8"/>${out.join('')}</svg>`;
@@ -489,18 +670,36 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
 
 /** Fills first, then outlines, then dimensions and text on top. */
 function order(items: readonly DrawingItem[]): DrawingItem[] {
-  const rank = (it: DrawingItem): number => (it.kind === 'polyline' ? (it.style === 'riprap' ? 0 : it.style === 'concrete' ? 2 : 1) : it.kind === 'dimension' ? 3 : 4);
+  const rank = (it: DrawingItem): number =>
+    it.kind === 'polyline'
+      ? it.style === 'riprap'
+        ? 0
+        : it.style === 'concrete'
+          ? 2
+          : 1
+      : it.kind === 'dimension'
+        ? 3
+        : 4;
   return [...items].sort((a, b) => rank(a) - rank(b));
 }
 
 function head(tip: Pt, from: Pt, size: number): string {
-  const dx = tip.x - from.x, dy = tip.y - from.y, len = Math.hypot(dx, dy) || 1;
-  const ux = dx / len, uy = dy / len;
-  const bx = tip.x - ux * size, by = tip.y - uy * size;
+  const dx = tip.x - from.x,
+    dy = tip.y - from.y,
+    len = Math.hypot(dx, dy) || 1;
+  const ux = dx / len,
+    uy = dy / len;
+  const bx = tip.x - ux * size,
+    by = tip.y - uy * size;
   return `${f(tip.x)},${f(tip.y)} ${f(bx - uy * size * 0.35)},${f(by + ux * size * 0.35)} ${f(bx + uy * size * 0.35)},${f(by - ux * size * 0.35)}`;
 }
 
-function polyline(it: Extract<DrawingItem, { kind: 'polyline' }>, X: (x: number) => number, Y: (y: number) => number, accent?: string): string {
+function polyline(
+  it: Extract<DrawingItem, { kind: 'polyline' }>,
+  X: (x: number) => number,
+  Y: (y: number) => number,
+  accent?: string,
+): string {
   const s = STROKE[it.style];
   const stroke = it.style === 'concrete' && accent ? accent : s.stroke;
   const pts = it.points.map((p) => `${f(X(p.x))},${f(Y(p.y))}`).join(' ');
@@ -513,29 +712,38 @@ function dimension(d: PlacedDimension, font: string): string {
   const lenPx = Math.hypot(d.b2.x - d.a2.x, d.b2.y - d.a2.y);
   // witness lines start a little off the object and run just past the dimension line
   const ext = (p: Pt, q: Pt): string => {
-    const L = Math.hypot(q.x - p.x, q.y - p.y) || 1, ux = (q.x - p.x) / L, uy = (q.y - p.y) / L;
+    const L = Math.hypot(q.x - p.x, q.y - p.y) || 1,
+      ux = (q.x - p.x) / L,
+      uy = (q.y - p.y) / L;
     return `<line x1="${f(p.x + ux * 2)}" y1="${f(p.y + uy * 2)}" x2="${f(q.x + ux * 3)}" y2="${f(q.y + uy * 3)}" stroke="#64748b" stroke-width="0.5"/>`;
   };
-  const arrows = lenPx > 14
-    ? `<polygon points="${head(d.a2, d.b2, 6)}" fill="#334155"/><polygon points="${head(d.b2, d.a2, 6)}" fill="#334155"/>`
-    : `<circle cx="${f(d.a2.x)}" cy="${f(d.a2.y)}" r="1.4" fill="#334155"/><circle cx="${f(d.b2.x)}" cy="${f(d.b2.y)}" r="1.4" fill="#334155"/>`;
+  const arrows =
+    lenPx > 14
+      ? `<polygon points="${head(d.a2, d.b2, 6)}" fill="#334155"/><polygon points="${head(d.b2, d.a2, 6)}" fill="#334155"/>`
+      : `<circle cx="${f(d.a2.x)}" cy="${f(d.a2.y)}" r="1.4" fill="#334155"/><circle cx="${f(d.b2.x)}" cy="${f(d.b2.y)}" r="1.4" fill="#334155"/>`;
   // a value set beyond the end gets the dimension line extended to reach it
   const c = { x: (d.box.x0 + d.box.x1) / 2, y: (d.box.y0 + d.box.y1) / 2 };
   const mid = { x: (d.a2.x + d.b2.x) / 2, y: (d.a2.y + d.b2.y) / 2 };
   const outside = Math.hypot(c.x - mid.x, c.y - mid.y) > lenPx / 2 + 2;
   const tail = outside
     ? (() => {
-        const near = Math.hypot(c.x - d.a2.x, c.y - d.a2.y) < Math.hypot(c.x - d.b2.x, c.y - d.b2.y) ? d.a2 : d.b2;
-        const ux = (d.b2.x - d.a2.x) / (lenPx || 1), uy = (d.b2.y - d.a2.y) / (lenPx || 1);
+        const near =
+          Math.hypot(c.x - d.a2.x, c.y - d.a2.y) < Math.hypot(c.x - d.b2.x, c.y - d.b2.y)
+            ? d.a2
+            : d.b2;
+        const ux = (d.b2.x - d.a2.x) / (lenPx || 1),
+          uy = (d.b2.y - d.a2.y) / (lenPx || 1);
         const t = (c.x - near.x) * ux + (c.y - near.y) * uy;
         return `<line x1="${f(near.x)}" y1="${f(near.y)}" x2="${f(near.x + ux * t)}" y2="${f(near.y + uy * t)}" stroke="#334155" stroke-width="0.5"/>`;
       })()
     : '';
   return (
     `<g data-role="dim-${esc(d.role)}" data-value="${d.value}">` +
-    ext(d.a, d.a2) + ext(d.b, d.b2) +
+    ext(d.a, d.a2) +
+    ext(d.b, d.b2) +
     `<line x1="${f(d.a2.x)}" y1="${f(d.a2.y)}" x2="${f(d.b2.x)}" y2="${f(d.b2.y)}" stroke="#334155" stroke-width="0.7"/>` +
-    arrows + tail +
+    arrows +
+    tail +
     `<text x="${f(d.textAt.x)}" y="${f(d.textAt.y)}" transform="rotate(${f(d.angle)} ${f(d.textAt.x)} ${f(d.textAt.y)})" font-family="${font}" font-size="${DRAWING_FONT.dimension}" text-anchor="middle" fill="#0f172a">${esc(d.text)}</text></g>`
   );
 }
@@ -548,8 +756,14 @@ function labelSvg(p: PlacedLabel, font: string): string {
   return `<g data-role="label-${esc(p.role)}">${leader}<text data-role="${esc(p.role)}" x="${f(p.x)}" y="${f(p.y)}" font-family="${font}" font-size="${p.size}" text-anchor="${p.anchor}" fill="#0f172a" stroke="#ffffff" stroke-width="3" stroke-linejoin="round" paint-order="stroke">${esc(p.text)}</text></g>`;
 }
 
-function arrow(it: Extract<DrawingItem, { kind: 'arrow' }>, X: (x: number) => number, Y: (y: number) => number, font: string): string {
-  const a = { x: X(it.from.x), y: Y(it.from.y) }, b = { x: X(it.to.x), y: Y(it.to.y) };
+function arrow(
+  it: Extract<DrawingItem, { kind: 'arrow' }>,
+  X: (x: number) => number,
+  Y: (y: number) => number,
+  font: string,
+): string {
+  const a = { x: X(it.from.x), y: Y(it.from.y) },
+    b = { x: X(it.to.x), y: Y(it.to.y) };
   const at = it.role === 'north' ? b : { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
   return (
     `<g data-role="arrow-${it.role}"><line x1="${f(a.x)}" y1="${f(a.y)}" x2="${f(b.x)}" y2="${f(b.y)}" stroke="#0f172a" stroke-width="1.2"/>` +

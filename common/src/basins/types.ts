@@ -6,14 +6,10 @@ export type JumpBasinType = 'usbr-1' | 'usbr-2' | 'usbr-3' | 'usbr-4' | 'saf';
 
 /** Every type in the catalogue. */
 export type DissipatorTypeId =
-  | JumpBasinType
-  | 'usbr-6'
-  | 'usbr-9'
-  | 'riprap-apron'
-  | 'flip-bucket'
-  | 'slotted-bucket';
+  JumpBasinType | 'usbr-6' | 'usbr-9' | 'riprap-apron' | 'flip-bucket' | 'slotted-bucket';
 
-export type DissipatorFamily = 'jump-basin' | 'impact-basin' | 'baffled-apron' | 'riprap-apron' | 'jet';
+export type DissipatorFamily =
+  'jump-basin' | 'impact-basin' | 'baffled-apron' | 'riprap-apron' | 'jet';
 
 /** What a screening criterion looks at. */
 export type CriterionId =
@@ -134,7 +130,14 @@ export interface EndSill {
   upstreamSlope: number;
   /** length of the sill along the flow, m */
   length: number;
-  teeth?: { count: number; width: number; spacing: number; wallSpace: number; centres: number[]; narrow?: boolean };
+  teeth?: {
+    count: number;
+    width: number;
+    spacing: number;
+    wallSpace: number;
+    centres: number[];
+    narrow?: boolean;
+  };
 }
 
 /** What sizeJumpBasin returns (hydraulics.md public API); extra fields are additive. */
@@ -172,7 +175,14 @@ export interface JumpRules {
   /** basin length, m */
   length(fr1: number, y1: number, y2: number, d: BasinDefaults): number;
   lengthTag: string;
-  appurtenances(c: { fr1: number; y1: number; y2: number; width: number; length: number; d: BasinDefaults }): {
+  appurtenances(c: {
+    fr1: number;
+    y1: number;
+    y2: number;
+    width: number;
+    length: number;
+    d: BasinDefaults;
+  }): {
     chuteBlocks?: BlockSet;
     baffleBlocks?: BaffleSet;
     endSill: EndSill;
@@ -196,9 +206,18 @@ export interface DissipatorModule {
   limits: LimitEntry[];
   jump?: JumpRules;
   /** criteria that vary with the discharge */
-  screenRow(row: DischargeRow, ctx: ScreeningContext, d: BasinDefaults, rows: readonly DischargeRow[]): CriterionResult[];
+  screenRow(
+    row: DischargeRow,
+    ctx: ScreeningContext,
+    d: BasinDefaults,
+    rows: readonly DischargeRow[],
+  ): CriterionResult[];
   /** criteria that do not */
-  screenFixed(ctx: ScreeningContext, d: BasinDefaults, rows: readonly DischargeRow[]): CriterionResult[];
+  screenFixed(
+    ctx: ScreeningContext,
+    d: BasinDefaults,
+    rows: readonly DischargeRow[],
+  ): CriterionResult[];
   /** jet types only: no sizing; the screening says when a specialist study is the answer */
   specialist?: boolean;
   /** jet types only: whether the criteria point to this type */

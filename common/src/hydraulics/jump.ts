@@ -104,7 +104,10 @@ export interface SlopingApronJump {
  */
 export function slopingApronJump(fr1: number, y1: number, slope: number): SlopingApronJump {
   requirePositive('fr1 (inflow Froude number)', fr1);
-  if (!(fr1 > 1)) throw new RangeError(`fr1 (inflow Froude number) ${fr1} is not supercritical (≤ 1): no jump forms`);
+  if (!(fr1 > 1))
+    throw new RangeError(
+      `fr1 (inflow Froude number) ${fr1} is not supercritical (≤ 1): no jump forms`,
+    );
   requirePositive('y1', y1);
   requireNonNegative('slope (floor slope, rise over run)', slope);
   const angleDeg = (Math.atan(slope) * 180) / Math.PI;
@@ -113,7 +116,9 @@ export function slopingApronJump(fr1: number, y1: number, slope: number): Slopin
   const Gf = gamma * fr1;
   const ratio = 0.5 * (Math.sqrt(1 + 8 * Gf * Gf) - 1);
   const notes = flat
-    ? [`floor slope ${(slope * 100).toFixed(1)} % is at most 10 %: treated as horizontal (Bélanger) [src: HEC-14 ch. 6]`]
+    ? [
+        `floor slope ${(slope * 100).toFixed(1)} % is at most 10 %: treated as horizontal (Bélanger) [src: HEC-14 ch. 6]`,
+      ]
     : [
         `floor slope ${(slope * 100).toFixed(1)} % exceeds 10 %: sloping-apron jump, Γ = 10^(0.027·${angleDeg.toFixed(2)}°) = ${gamma.toFixed(3)} (Rajaratnam, from memory)`,
       ];

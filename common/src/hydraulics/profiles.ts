@@ -405,9 +405,7 @@ export function locateJump(situation: JumpSituation): JumpLocation {
         situation.tailwaterDepth,
         'gateMildSlope',
       );
-      notes.push(
-        'distance measured from the vena contracta, where the depth is Cc·a',
-      );
+      notes.push('distance measured from the vena contracta, where the depth is Cc·a');
       const r = downstreamJump(
         s,
         Q,

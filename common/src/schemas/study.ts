@@ -1,7 +1,17 @@
 // Shared yup schemas for the engine's requests: the jump calculator and the whole study.
 // Numbers are in the units named by `units` (the engine converts with toSI); limits here
 // only reject what can never be a valid problem — the engine's RangeErrors cover physics.
-import { array, boolean, lazy, mixed, number, object, string, type ObjectSchema, type Schema } from 'yup';
+import {
+  array,
+  boolean,
+  lazy,
+  mixed,
+  number,
+  object,
+  string,
+  type ObjectSchema,
+  type Schema,
+} from 'yup';
 import type { Section } from '../hydraulics/sections';
 import type { JumpSituation } from '../hydraulics/profiles';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
@@ -97,7 +107,9 @@ const manningN = num("Manning's n")
   .max(0.2, "Manning's n must not exceed 0.2.")
   .required("Enter Manning's n.");
 const optionalPositive = (label: string) =>
-  num(label).positive(`${cap(label)} must be greater than zero.`).optional();
+  num(label)
+    .positive(`${cap(label)} must be greater than zero.`)
+    .optional();
 
 /** POST /calc/jump-position: where the jump forms below a control, SI. */
 export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the situation', {
@@ -348,7 +360,9 @@ export const dissipatorOptionsSchema = object({
       .oneOf(['circular', 'box'], 'The culvert shape must be circular or box.')
       .required('Choose the culvert shape.'),
     rise: positive('the culvert rise (diameter or height)'),
-    span: num('the culvert span').positive('The culvert span must be greater than zero.').optional(),
+    span: num('the culvert span')
+      .positive('The culvert span must be greater than zero.')
+      .optional(),
   })
     .test(
       'box-span',
@@ -380,7 +394,9 @@ export const dissipatorOptionsSchema = object({
     minThickness: num('the least slab thickness')
       .positive('The least slab thickness must be greater than zero.')
       .optional(),
-    monolithic: boolean().typeError('Say whether the walls are cast with the slab (true or false).').optional(),
+    monolithic: boolean()
+      .typeError('Say whether the walls are cast with the slab (true or false).')
+      .optional(),
   })
     .default(undefined)
     .optional(),

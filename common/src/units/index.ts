@@ -267,10 +267,20 @@ function walk(
   if (node !== null && typeof node === 'object') {
     const rec = node as Record<string, unknown>;
     // An assumption { key, value, defaultValue, unit }: converted by its own unit, relabelled.
-    if (to && typeof rec.unit === 'string' && typeof rec.value === 'number' && typeof rec.defaultValue === 'number') {
-      const kind = assumptionKind(rec.unit) ?? (UNIT_LABELS_SI_TO_KIND.get(rec.unit) ?? null);
+    if (
+      to &&
+      typeof rec.unit === 'string' &&
+      typeof rec.value === 'number' &&
+      typeof rec.defaultValue === 'number'
+    ) {
+      const kind = assumptionKind(rec.unit) ?? UNIT_LABELS_SI_TO_KIND.get(rec.unit) ?? null;
       if (!kind) return { ...rec };
-      return { ...rec, value: f(rec.value, kind), defaultValue: f(rec.defaultValue, kind), unit: UNIT_LABELS[kind][to] };
+      return {
+        ...rec,
+        value: f(rec.value, kind),
+        defaultValue: f(rec.defaultValue, kind),
+        unit: UNIT_LABELS[kind][to],
+      };
     }
     const out: Record<string, unknown> = {};
     for (const [k, v] of Object.entries(rec)) {

@@ -77,7 +77,10 @@ export function phraser(units: PhraseUnits = 'SI'): Phraser {
   const value = (si: number, kind: PhraseKind): number => (u === 'SI' ? si : si / US_FACTOR[kind]);
   const unit = (kind: PhraseKind): string => LABEL[kind][u];
   const num = (si: number, kind: PhraseKind): string => n3(value(si, kind));
-  const withUnit = (kind: PhraseKind) => (si: number): string => `${num(si, kind)} ${unit(kind)}`;
+  const withUnit =
+    (kind: PhraseKind) =>
+    (si: number): string =>
+      `${num(si, kind)} ${unit(kind)}`;
   const p: Phraser = {
     units: u,
     value,
@@ -111,7 +114,8 @@ const SI_IN_TEXT: ReadonlyArray<[string, PhraseKind]> = [
   ['m³', 'volume'],
   ['m', 'length'],
 ];
-const QUANTITY_IN_TEXT = /(?<![\w.])(-?\d+(?:\.\d+)?(?:e[-+]?\d+)?)\s?(m³\/s|m²\/s|m\/s|m³|m)(?![\w²³/])/g;
+const QUANTITY_IN_TEXT =
+  /(?<![\w.])(-?\d+(?:\.\d+)?(?:e[-+]?\d+)?)\s?(m³\/s|m²\/s|m\/s|m³|m)(?![\w²³/])/g;
 
 /**
  * An engine message (SI) phrased for a unit system: every number followed by an SI unit of a

@@ -99,7 +99,9 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
   }
   const message =
     FALLBACK_MESSAGES[status] ??
-    (status >= 500 ? 'Something went wrong on our side. Please try again.' : `Request failed (${status}).`);
+    (status >= 500
+      ? 'Something went wrong on our side. Please try again.'
+      : `Request failed (${status}).`);
   return new ApiError(status, fallbackCode(status), message, undefined, retryAfter);
 }
 
@@ -137,7 +139,11 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError(0, 'network_error', 'Could not reach the server. Check your connection and try again.');
+    throw new ApiError(
+      0,
+      'network_error',
+      'Could not reach the server. Check your connection and try again.',
+    );
   }
 
   if (!response.ok) {
@@ -151,7 +157,11 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   try {
     return JSON.parse(text) as T;
   } catch {
-    throw new ApiError(response.status, 'bad_response', 'The server sent a reply we could not read.');
+    throw new ApiError(
+      response.status,
+      'bad_response',
+      'The server sent a reply we could not read.',
+    );
   }
 }
 

@@ -28,5 +28,6 @@ const path = (projectId: string) => `/projects/${encodeURIComponent(projectId)}/
 
 export const designsApi = {
   get: (projectId: string) => request<Design>(path(projectId)),
-  save: (projectId: string, body: DesignBody) => request<Design>(path(projectId), { method: 'PUT', body }),
+  save: (projectId: string, body: DesignBody) =>
+    request<Design>(path(projectId), { method: 'PUT', body }),
 };

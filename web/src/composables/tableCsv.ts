@@ -13,8 +13,14 @@ export interface CsvColumn<Row> {
 }
 
 /** The CSV text of `rows`, headed "Title (unit)", numbers converted from SI to `units`. */
-export function tableCsv<Row>(rows: readonly Row[], columns: readonly CsvColumn<Row>[], units: UnitSystem): string {
-  const head = columns.map((c) => (c.kind ? `${c.title} (${UNIT_LABELS[c.kind][units]})` : c.title));
+export function tableCsv<Row>(
+  rows: readonly Row[],
+  columns: readonly CsvColumn<Row>[],
+  units: UnitSystem,
+): string {
+  const head = columns.map((c) =>
+    c.kind ? `${c.title} (${UNIT_LABELS[c.kind][units]})` : c.title,
+  );
   const body = rows.map((row) =>
     columns.map((c) => {
       const v = c.value(row);
@@ -27,7 +33,11 @@ export function tableCsv<Row>(rows: readonly Row[], columns: readonly CsvColumn<
 }
 
 /** Offers `text` to the browser as a file download. */
-export function downloadText(fileName: string, text: string, type = 'text/csv;charset=utf-8'): void {
+export function downloadText(
+  fileName: string,
+  text: string,
+  type = 'text/csv;charset=utf-8',
+): void {
   const url = URL.createObjectURL(new Blob(['\uFEFF', text], { type }));
   const a = document.createElement('a');
   a.href = url;

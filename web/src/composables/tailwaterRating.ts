@@ -17,7 +17,10 @@ export function ratingPoints(result: StudyResult | null, count = 80): RatingPoin
   if (!result) return null;
   const input = result.input;
   const rating = makeTailwaterRating(input.tailwater, input.channelBedElevation);
-  const table = input.tailwater.kind === 'table' ? input.tailwater.rows.map((r) => ({ Q: r.Q, elevation: r.elevation })) : [];
+  const table =
+    input.tailwater.kind === 'table'
+      ? input.tailwater.rows.map((r) => ({ Q: r.Q, elevation: r.elevation }))
+      : [];
   const qs = [...result.rows.map((r) => r.Q), ...table.map((r) => r.Q)];
   const lo = Math.min(...qs);
   const hi = Math.max(...qs);

@@ -100,7 +100,11 @@ export function inputForForm(saved: StudyInput, units: UnitSystem): StudyInput {
  * chosen basin type inside `input.dissipators`. Designs saved before the type moved there kept
  * it in `options.chosenType`: that is still read (the input's own choice wins).
  */
-export function designFormValues(saved: StudyInput | null, options: DesignOptions | null, units: UnitSystem): StudyInput {
+export function designFormValues(
+  saved: StudyInput | null,
+  options: DesignOptions | null,
+  units: UnitSystem,
+): StudyInput {
   const input = saved ? inputForForm(saved, units) : startingInput(units);
   const legacy = options?.chosenType;
   if (input.dissipators?.chosenType !== undefined || legacy === undefined) return input;
@@ -124,13 +128,17 @@ export function useDesign(projectId: Ref<string>) {
     busy.value = true;
     error.value = null;
     try {
-      const [p, d] = await Promise.all([projectsApi.get(projectId.value), designsApi.get(projectId.value)]);
+      const [p, d] = await Promise.all([
+        projectsApi.get(projectId.value),
+        designsApi.get(projectId.value),
+      ]);
       project.value = p;
       design.value = d;
     } catch (e) {
       project.value = null;
       design.value = null;
-      error.value = e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the design.');
+      error.value =
+        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the design.');
     } finally {
       busy.value = false;
     }
@@ -232,7 +240,12 @@ export function assumptionRows(
     const engine = byKey.get(key);
     const defaultValue = show(BASIN_DEFAULTS[key]);
     // The flotation case's value is what the engine uses, not the listed default.
-    const value = typeof typed === 'number' && Number.isFinite(typed) ? typed : engine ? show(engine.value) : defaultValue;
+    const value =
+      typeof typed === 'number' && Number.isFinite(typed)
+        ? typed
+        : engine
+          ? show(engine.value)
+          : defaultValue;
     return {
       key,
       label: p.label,
@@ -308,23 +321,30 @@ export interface CsvColumn {
 }
 
 export type CsvOutcome =
-  | { ok: true; rows: Array<Record<string, number>> }
-  | { ok: false; errors: string[] };
+  { ok: true; rows: Array<Record<string, number>> } | { ok: false; errors: string[] };
 
 /**
  * Parses a CSV table of numbers with the given columns in order (a header row is recognised
  * and skipped). Any bad row makes the whole table fail, with the row numbers as they appear in
  * the file; nothing partial is returned. `increasingKey` must rise from row to row.
  */
-export function parseCsvTable(text: string, columns: readonly CsvColumn[], increasingKey?: string): CsvOutcome {
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', comments: '#' });
+export function parseCsvTable(
+  text: string,
+  columns: readonly CsvColumn[],
+  increasingKey?: string,
+): CsvOutcome {
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+    skipEmptyLines: 'greedy',
+    comments: '#',
+  });
   // A guessed delimiter is not an error of the file (a one-column row makes papaparse guess).
   const errors: string[] = parsed.errors
     .filter((e) => e.type !== 'Delimiter')
     .map((e) => `Row ${(e.row ?? 0) + 1}: ${e.message.replace(/\.$/, '')}.`);
   const lines = parsed.data;
   if (lines.length === 0) return { ok: false, errors: ['The file holds no rows.'] };
-  const isNumber = (s: string | undefined) => s !== undefined && s.trim() !== '' && Number.isFinite(Number(s.trim()));
+  const isNumber = (s: string | undefined) =>
+    s !== undefined && s.trim() !== '' && Number.isFinite(Number(s.trim()));
   const first = lines[0]!;
   const hasHeader = !first.every((c) => isNumber(c));
   const rows: Array<Record<string, number>> = [];
@@ -334,7 +354,9 @@ export function parseCsvTable(text: string, columns: readonly CsvColumn[], incre
     const used = cells.map((c) => c.trim());
     while (used.length > columns.length && used[used.length - 1] === '') used.pop();
     if (used.length !== columns.length) {
-      errors.push(`Row ${rowNo}: expected ${columns.length} values (${columns.map((c) => c.label).join(', ')}), found ${used.length}.`);
+      errors.push(
+        `Row ${rowNo}: expected ${columns.length} values (${columns.map((c) => c.label).join(', ')}), found ${used.length}.`,
+      );
       return;
     }
     const row: Record<string, number> = {};
@@ -355,13 +377,16 @@ export function parseCsvTable(text: string, columns: readonly CsvColumn[], incre
       const prev = rows[rows.length - 1]![increasingKey]!;
       if (!(row[increasingKey]! > prev)) {
         const col = columns.find((c) => c.key === increasingKey)!;
-        errors.push(`Row ${rowNo}: ${col.label} ${row[increasingKey]} does not increase from the row before (${prev}).`);
+        errors.push(
+          `Row ${rowNo}: ${col.label} ${row[increasingKey]} does not increase from the row before (${prev}).`,
+        );
       }
     }
     rows.push(row);
   });
   if (errors.length > 0) return { ok: false, errors };
-  if (rows.length < 2) return { ok: false, errors: ['A rating table needs at least two rows of numbers.'] };
+  if (rows.length < 2)
+    return { ok: false, errors: ['A rating table needs at least two rows of numbers.'] };
   return { ok: true, rows };
 }
 

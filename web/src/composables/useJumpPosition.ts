@@ -36,14 +36,21 @@ const FIELD_KINDS: Record<string, QuantityKind> = {
   Q: 'discharge',
 };
 
-function convertNode(node: unknown, units: UnitSystem, dir: 'toSI' | 'fromSI', key?: string): unknown {
+function convertNode(
+  node: unknown,
+  units: UnitSystem,
+  dir: 'toSI' | 'fromSI',
+  key?: string,
+): unknown {
   if (typeof node === 'number') {
     const kind = key ? FIELD_KINDS[key] : undefined;
     if (!kind || units === 'SI' || !Number.isFinite(node)) return node;
     return dir === 'toSI' ? toSIValue(node, kind, units) : fromSIValue(node, kind, units);
   }
   if (node !== null && typeof node === 'object' && !Array.isArray(node)) {
-    return Object.fromEntries(Object.entries(node).map(([k, v]) => [k, convertNode(v, units, dir, k)]));
+    return Object.fromEntries(
+      Object.entries(node).map(([k, v]) => [k, convertNode(v, units, dir, k)]),
+    );
   }
   return node;
 }
@@ -86,8 +93,13 @@ const START_SECTIONS: Record<SectionShape, Section> = {
   circular: { shape: 'circular', diameter: 3 },
 };
 const START_Q = 12;
-const START_FIELDS: { [K in JumpKind]: Omit<Extract<JumpSituation, { kind: K }>, 'kind' | 'section' | 'Q'> } = {
-  slopeBreak: { upstream: { slope: 0.05, manningN: 0.014 }, downstream: { slope: 0.0008, manningN: 0.014 } },
+const START_FIELDS: {
+  [K in JumpKind]: Omit<Extract<JumpSituation, { kind: K }>, 'kind' | 'section' | 'Q'>;
+} = {
+  slopeBreak: {
+    upstream: { slope: 0.05, manningN: 0.014 },
+    downstream: { slope: 0.0008, manningN: 0.014 },
+  },
   gateMildSlope: { opening: 0.35, Cc: 0.61, slope: 0.0008, manningN: 0.014 },
   gateSteepSlope: { slope: 0.03, manningN: 0.014, opening: 0.5, Cc: 0.61 },
   weirToMildSlope: { crestHeight: 2.5, slope: 0.0008, manningN: 0.014 },
@@ -100,7 +112,10 @@ export function startingSection(shape: SectionShape, units: UnitSystem): Section
 
 /** The starting fields of one situation (all but kind, section and Q), in `units`. */
 export function startingFields(kind: JumpKind, units: UnitSystem): Record<string, unknown> {
-  return situationFromSI(JSON.parse(JSON.stringify(START_FIELDS[kind])) as Record<string, unknown>, units);
+  return situationFromSI(
+    JSON.parse(JSON.stringify(START_FIELDS[kind])) as Record<string, unknown>,
+    units,
+  );
 }
 
 /** A depth above a gate on a steep slope that backs the water up far enough for a jump. */
@@ -142,7 +157,9 @@ const ENGINE_WORDS: Array<[RegExp, string]> = [
 
 /** Engine numbers in SI come with every digit; four significant figures are enough to read. */
 function shortNumbers(text: string): string {
-  return text.replace(/(?<![\w.])(-?\d+\.\d{5,})(?=\s?m\b|\s?m³\/s|\s?m²\/s)/g, (n) => String(Number(Number(n).toPrecision(4))));
+  return text.replace(/(?<![\w.])(-?\d+\.\d{5,})(?=\s?m\b|\s?m³\/s|\s?m²\/s)/g, (n) =>
+    String(Number(Number(n).toPrecision(4))),
+  );
 }
 
 const JUMP_ERROR_LEAD = 'The jump position cannot be worked out with these inputs.';
@@ -151,19 +168,28 @@ const JUMP_ERROR_LEAD = 'The jump position cannot be worked out with these input
  * A refusal of the engine as a sentence for the page: the argument it names in the form's
  * words, the quantities in the user's units (through readableEngineError), and our own lead.
  */
-export function readableJumpError(error: unknown, units: UnitSystem, situation?: JumpSituation): string {
+export function readableJumpError(
+  error: unknown,
+  units: UnitSystem,
+  situation?: JumpSituation,
+): string {
   const kind = situation?.kind;
   if (!(error instanceof RangeError)) return readableEngineError(error, units);
   let text = shortNumbers(error.message.trim());
   // "slope:" names the reach the profile runs on: the downstream one below a slope break.
   const words: Array<[RegExp, string]> =
-    kind === 'slopeBreak' ? [[/^slope\b/, 'Downstream slope'], ...ENGINE_WORDS] : [[/^slope\b/, 'Bed slope'], ...ENGINE_WORDS];
+    kind === 'slopeBreak'
+      ? [[/^slope\b/, 'Downstream slope'], ...ENGINE_WORDS]
+      : [[/^slope\b/, 'Bed slope'], ...ENGINE_WORDS];
   const hit = words.find(([re]) => re.test(text));
   if (hit) text = text.replace(hit[0], hit[1]);
   let sentence = readableEngineError(new RangeError(text), units, JUMP_ERROR_LEAD);
   // A "mild" reach that is steep for this discharge shows up as a subcritical depth that is not.
   if (/^yDownstream\b.*not subcritical/.test(error.message)) {
-    const given = situation !== undefined && 'tailwaterDepth' in situation && situation.tailwaterDepth !== undefined;
+    const given =
+      situation !== undefined &&
+      'tailwaterDepth' in situation &&
+      situation.tailwaterDepth !== undefined;
     sentence += given
       ? ' A jump needs a tailwater depth above critical depth.'
       : ' On a mild reach normal depth lies above critical depth: check the bed slope, or give the tailwater depth.';
@@ -184,7 +210,9 @@ export interface JumpOutcome {
 function finiteLocation(r: JumpLocation): boolean {
   const nums = [r.distance, r.yToe, r.ySequent, r.criticalDepth];
   const pts = [...r.supercriticalProfile, ...r.subcriticalProfile];
-  return nums.every(Number.isFinite) && pts.every((p) => Number.isFinite(p.x) && Number.isFinite(p.y));
+  return (
+    nums.every(Number.isFinite) && pts.every((p) => Number.isFinite(p.x) && Number.isFinite(p.y))
+  );
 }
 
 /** One evaluation, no debounce: schema (user's units) → SI → locateJump. Never throws. */
@@ -193,18 +221,40 @@ export function evaluateJumpPosition(raw: unknown, units: UnitSystem): JumpOutco
   try {
     typed = jumpSituationSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
   } catch (e) {
-    if (e instanceof ValidationError) return { location: null, situation: null, engineError: null, inputProblems: [...new Set(e.errors)] };
-    return { location: null, situation: null, engineError: readableJumpError(e, units), inputProblems: [] };
+    if (e instanceof ValidationError)
+      return {
+        location: null,
+        situation: null,
+        engineError: null,
+        inputProblems: [...new Set(e.errors)],
+      };
+    return {
+      location: null,
+      situation: null,
+      engineError: readableJumpError(e, units),
+      inputProblems: [],
+    };
   }
   try {
     const si = situationToSI(typed, units);
     const location = locateJump(si);
     if (!finiteLocation(location)) {
-      return { location: null, situation: si, engineError: 'The jump position cannot be worked out with these inputs: the calculation gave no finite answer.', inputProblems: [] };
+      return {
+        location: null,
+        situation: si,
+        engineError:
+          'The jump position cannot be worked out with these inputs: the calculation gave no finite answer.',
+        inputProblems: [],
+      };
     }
     return { location, situation: si, engineError: null, inputProblems: [] };
   } catch (e) {
-    return { location: null, situation: null, engineError: readableJumpError(e, units, typed), inputProblems: [] };
+    return {
+      location: null,
+      situation: null,
+      engineError: readableJumpError(e, units, typed),
+      inputProblems: [],
+    };
   }
 }
 
@@ -212,7 +262,11 @@ export function evaluateJumpPosition(raw: unknown, units: UnitSystem): JumpOutco
  * Runs `evaluateJumpPosition` on `source` whenever it or the units change, after a pause in
  * typing. The last good answer stays on the page (marked stale) while the input is refused.
  */
-export function useJumpPosition(source: Ref<unknown>, units: Ref<UnitSystem>, debounceMs = JUMP_DEBOUNCE_MS) {
+export function useJumpPosition(
+  source: Ref<unknown>,
+  units: Ref<UnitSystem>,
+  debounceMs = JUMP_DEBOUNCE_MS,
+) {
   const live = useLiveResult<JumpLocation>(() => {
     const out = evaluateJumpPosition(source.value, units.value);
     return { value: out.location, engineError: out.engineError, inputProblems: out.inputProblems };
@@ -221,7 +275,6 @@ export function useJumpPosition(source: Ref<unknown>, units: Ref<UnitSystem>, de
   const { value: location, engineError, inputProblems, stale, pending, runNow } = live;
   return { location, engineError, inputProblems, stale, pending, runNow };
 }
-
 
 /** What the form's fields share: values, errors and the units of the numbers typed. */
 export interface JumpFormContext {
@@ -258,7 +311,10 @@ export interface JumpChartLines {
 }
 
 /** At most about `max` points of a profile, the ends kept (the step method gives ~800). */
-function thin(points: readonly { x: number; y: number }[], max = 240): Array<{ x: number; y: number }> {
+function thin(
+  points: readonly { x: number; y: number }[],
+  max = 240,
+): Array<{ x: number; y: number }> {
   if (points.length <= max) return [...points];
   const step = Math.ceil(points.length / max);
   const out = points.filter((_, i) => i % step === 0);
@@ -274,7 +330,12 @@ export function jumpChartLines(location: JumpLocation, units: UnitSystem): JumpC
   const sup = thin(location.supercriticalProfile).map(pair);
   const sub = thin(location.subcriticalProfile).map(pair);
   // Upstream jumps stand at negative x (the engine's profiles run from upstream to the control).
-  const toeSI = location.position === 'downstream' ? location.distance : location.position === 'upstream' ? -location.distance : 0;
+  const toeSI =
+    location.position === 'downstream'
+      ? location.distance
+      : location.position === 'upstream'
+        ? -location.distance
+        : 0;
   const xs = [...sup, ...sub].map((p) => p[0]);
   const ys = [...sup, ...sub].map((p) => p[1]);
   const xMin = Math.min(...xs, L(toeSI));

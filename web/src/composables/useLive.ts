@@ -24,7 +24,10 @@ export interface LiveResult<T> {
 }
 
 /** `evaluate` never throws (it turns failures into messages); the caller decides what triggers it. */
-export function useLiveResult<T>(evaluate: () => LiveOutcome<T>, debounceMs: number): LiveResult<T> {
+export function useLiveResult<T>(
+  evaluate: () => LiveOutcome<T>,
+  debounceMs: number,
+): LiveResult<T> {
   const value = shallowRef<T | null>(null);
   const engineError = ref<string | null>(null);
   const inputProblems = ref<string[]>([]);

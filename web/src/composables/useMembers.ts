@@ -18,7 +18,8 @@ export function useMembers() {
       members.value = m.items;
       invitations.value = i.items;
     } catch (e) {
-      error.value = e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the team.');
+      error.value =
+        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the team.');
     } finally {
       busy.value = false;
     }

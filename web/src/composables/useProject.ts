@@ -17,7 +17,8 @@ export function useProject(id: Ref<string>) {
       project.value = await projectsApi.get(id.value);
     } catch (e) {
       project.value = null;
-      error.value = e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the project.');
+      error.value =
+        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the project.');
     } finally {
       busy.value = false;
     }

@@ -24,7 +24,8 @@ export function useProjectList(query: Ref<ProjectQuery>) {
       total.value = page.total;
     } catch (e) {
       if (own.signal.aborted) return;
-      error.value = e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load projects.');
+      error.value =
+        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load projects.');
     } finally {
       if (controller === own) busy.value = false;
     }

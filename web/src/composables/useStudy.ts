@@ -45,7 +45,11 @@ const FIELD_WORDS: Array<[RegExp, string]> = [
  * field's label, and the quantities it quotes (the engine computes in SI) are put in the
  * project's units. A bare number the engine names without a unit stays in SI, and then says so.
  */
-export function readableEngineError(error: unknown, units: UnitSystem = 'SI', lead = 'The study cannot be computed with these inputs.'): string {
+export function readableEngineError(
+  error: unknown,
+  units: UnitSystem = 'SI',
+  lead = 'The study cannot be computed with these inputs.',
+): string {
   if (error instanceof RangeError) {
     let text = phraseMessage(error.message.trim(), units);
     const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);
@@ -82,14 +86,17 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
   try {
     input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
   } catch (e) {
-    if (e instanceof ValidationError) return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
+    if (e instanceof ValidationError)
+      return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
     return { result: null, engineError: readableEngineError(e, unitsOf(raw)), inputProblems: [] };
   }
   try {
     const si = inputForEngine(input);
     // A choice passed beside the input wins over the one stored in it; the rest of the
     // dissipator options (overrides, flotation, debris, culvert) always go with the input.
-    const result = runStudy(chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si);
+    const result = runStudy(
+      chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si,
+    );
     return { result, engineError: null, inputProblems: [] };
   } catch (e) {
     return { result: null, engineError: readableEngineError(e, input.units), inputProblems: [] };
@@ -98,7 +105,9 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
 
 /** The unit system a raw form value declares, SI unless it says US. */
 function unitsOf(raw: unknown): UnitSystem {
-  return raw !== null && typeof raw === 'object' && (raw as { units?: unknown }).units === 'US' ? 'US' : 'SI';
+  return raw !== null && typeof raw === 'object' && (raw as { units?: unknown }).units === 'US'
+    ? 'US'
+    : 'SI';
 }
 
 /**
@@ -127,10 +136,15 @@ export function unitFormat(units: UnitSystem) {
   const num = (si: number | null | undefined, kind: QuantityKind | null, digits = 2): string => {
     if (si === null || si === undefined || !Number.isFinite(si)) return '—';
     const v = kind ? value(si, kind) : si;
-    return v.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+    return v.toLocaleString('en-GB', {
+      minimumFractionDigits: digits,
+      maximumFractionDigits: digits,
+    });
   };
   const withUnit = (si: number | null | undefined, kind: QuantityKind, digits = 2): string =>
-    si === null || si === undefined || !Number.isFinite(si) ? '—' : `${num(si, kind, digits)} ${label(kind)}`;
+    si === null || si === undefined || !Number.isFinite(si)
+      ? '—'
+      : `${num(si, kind, digits)} ${label(kind)}`;
   return { label, value, num, withUnit };
 }
 export type UnitFormat = ReturnType<typeof unitFormat>;
@@ -153,7 +167,11 @@ export function governingFloor(result: StudyResult | null): GoverningFloor | nul
   if (!result || !entry) return null;
   const d = entry.design;
   const elevation =
-    d.family === 'jump-basin' || d.family === 'impact-basin' ? d.floorElevation : d.family === 'riprap-apron' ? d.invertElevation : null;
+    d.family === 'jump-basin' || d.family === 'impact-basin'
+      ? d.floorElevation
+      : d.family === 'riprap-apron'
+        ? d.invertElevation
+        : null;
   return {
     elevation,
     basin: d.name,

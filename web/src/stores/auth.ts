@@ -88,7 +88,11 @@ export const useAuthStore = defineStore('auth', () => {
     setSession(await authApi.resetPassword({ token: resetToken, password }));
   }
 
-  async function acceptInvitation(inviteToken: string, name: string, password: string): Promise<void> {
+  async function acceptInvitation(
+    inviteToken: string,
+    name: string,
+    password: string,
+  ): Promise<void> {
     setSession(await authApi.acceptInvitation({ token: inviteToken, name, password }));
   }
 

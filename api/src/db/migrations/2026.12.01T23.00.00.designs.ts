@@ -38,8 +38,16 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
           onDelete: 'SET NULL',
           onUpdate: 'CASCADE',
         },
-        created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.literal('now()') },
-        updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.literal('now()') },
+        created_at: {
+          type: DataTypes.DATE,
+          allowNull: false,
+          defaultValue: Sequelize.literal('now()'),
+        },
+        updated_at: {
+          type: DataTypes.DATE,
+          allowNull: false,
+          defaultValue: Sequelize.literal('now()'),
+        },
       },
       { transaction },
     );

@@ -72,7 +72,8 @@ const VERIFIED_MAX = 5000;
 /** Verifies signature (HS256 only), issuer, audience and expiry; throws 401 otherwise. */
 export function verifyToken(token: string): TokenClaims {
   const hit = verified.get(token);
-  if (hit !== undefined && Date.now() < hit.expMs) return { sub: hit.sub, fid: hit.fid, tv: hit.tv };
+  if (hit !== undefined && Date.now() < hit.expMs)
+    return { sub: hit.sub, fid: hit.fid, tv: hit.tv };
   if (hit !== undefined) verified.delete(token);
   const claims = verifyUncached(token);
   if (verified.size >= VERIFIED_MAX) {

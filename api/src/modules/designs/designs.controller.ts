@@ -11,6 +11,11 @@ export async function read(req: Request<{ id: string }>, res: Response): Promise
 
 export async function save(req: Request<{ id: string }>, res: Response): Promise<void> {
   const { user, firm } = authOf(req);
-  const design = await designs.saveDesign(firm.id, req.params.id, user.id, req.body as DesignSaveInput);
+  const design = await designs.saveDesign(
+    firm.id,
+    req.params.id,
+    user.id,
+    req.body as DesignSaveInput,
+  );
   res.json(presentDesign(req.params.id, design));
 }

@@ -34,7 +34,11 @@ export async function saveDesign(
     throw fromEngineError(error, 'input', project.units);
   }
   const id = await sequelize.transaction(async (transaction) => {
-    const existing = await Design.findOne({ where: { firmId, projectId }, transaction, lock: true });
+    const existing = await Design.findOne({
+      where: { firmId, projectId },
+      transaction,
+      lock: true,
+    });
     const values = { input: body.input, options: body.options ?? null, updatedById: userId };
     const saved = existing
       ? await existing.update(values, { transaction })

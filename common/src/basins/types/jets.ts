@@ -6,18 +6,43 @@ import type { BasinDefaults } from '../defaults';
 import type { ScreeningContext } from '../types';
 import { crit, designRow, headOf, n3, ph } from './shared';
 
-function energyCriteria(rows: readonly DischargeRow[], d: BasinDefaults, velocityLimit: number, ctx: ScreeningContext): CriterionResult[] {
+function energyCriteria(
+  rows: readonly DischargeRow[],
+  d: BasinDefaults,
+  velocityLimit: number,
+  ctx: ScreeningContext,
+): CriterionResult[] {
   const P = ph(ctx);
   const dr = designRow(rows);
   if (!dr) return [crit('velocity', 'fail', 'no discharges to screen')];
   const h = headOf(dr);
   return [
     dr.v1 > velocityLimit
-      ? crit('velocity', 'pass', `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${P.vel(velocityLimit)}, where basins with blocks become doubtful`, dr.Q)
-      : crit('velocity', 'fail', `V1 ${P.vel(dr.v1)} ≤ ${P.vel(velocityLimit)}: a stilling basin can serve`, dr.Q),
+      ? crit(
+          'velocity',
+          'pass',
+          `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${P.vel(velocityLimit)}, where basins with blocks become doubtful`,
+          dr.Q,
+        )
+      : crit(
+          'velocity',
+          'fail',
+          `V1 ${P.vel(dr.v1)} ≤ ${P.vel(velocityLimit)}: a stilling basin can serve`,
+          dr.Q,
+        ),
     h > d.specialistHead
-      ? crit('head', 'pass', `head ${P.len(h)} above the floor exceeds ${P.len(d.specialistHead)} (common practice)`, dr.Q)
-      : crit('head', 'fail', `head ${P.len(h)} ≤ ${P.len(d.specialistHead)} (common practice)`, dr.Q),
+      ? crit(
+          'head',
+          'pass',
+          `head ${P.len(h)} above the floor exceeds ${P.len(d.specialistHead)} (common practice)`,
+          dr.Q,
+        )
+      : crit(
+          'head',
+          'fail',
+          `head ${P.len(h)} ≤ ${P.len(d.specialistHead)} (common practice)`,
+          dr.Q,
+        ),
   ];
 }
 
@@ -27,13 +52,19 @@ export const flipBucket: DissipatorModule = {
   source: 'USBR EM-25 and Design of Small Dams (trajectory buckets); specialist design',
   family: 'jet',
   specialist: true,
-  description: 'Throws the jet clear of the structure into a plunge pool; for high heads where sound rock lies downstream. Not sized here.',
+  description:
+    'Throws the jet clear of the structure into a plunge pool; for high heads where sound rock lies downstream. Not sized here.',
   limits: [
-    { criterion: 'velocity', text: 'indicated when inflow velocity is too high for block basins (> ≈ 18 m/s)', tag: '[mem: EM-25]' },
+    {
+      criterion: 'velocity',
+      text: 'indicated when inflow velocity is too high for block basins (> ≈ 18 m/s)',
+      tag: '[mem: EM-25]',
+    },
     { criterion: 'head', text: 'or when the head is large (> ≈ 50 m)', tag: '(common practice)' },
   ],
   screenRow: () => [],
-  indicated: (c) => c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass'),
+  indicated: (c) =>
+    c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass'),
   screenFixed(ctx, d, rows) {
     return energyCriteria(rows, d, d.specialistVelocity, ctx);
   },
@@ -45,10 +76,15 @@ export const slottedBucket: DissipatorModule = {
   source: 'USBR EM-25 (Peterka 1958), Basin VII; specialist design',
   family: 'jet',
   specialist: true,
-  description: 'A submerged roller bucket for high heads where the tailwater is too deep for a jump basin. Not sized here.',
+  description:
+    'A submerged roller bucket for high heads where the tailwater is too deep for a jump basin. Not sized here.',
   limits: [
     { criterion: 'velocity', text: 'high-velocity inflow (> ≈ 15 m/s)', tag: '[src: EM-25]' },
-    { criterion: 'tailwater', text: 'tailwater deeper than the sequent depth at bed level (≥ ≈ 1.1·y2)', tag: '[mem: EM-25]' },
+    {
+      criterion: 'tailwater',
+      text: 'tailwater deeper than the sequent depth at bed level (≥ ≈ 1.1·y2)',
+      tag: '[mem: EM-25]',
+    },
   ],
   screenRow: () => [],
   indicated: (c) =>
@@ -70,8 +106,18 @@ export const slottedBucket: DissipatorModule = {
     const tw = !worst
       ? crit('tailwater', 'fail', 'tailwater not known')
       : worstRatio >= d.slottedBucketTailwaterRatio
-        ? crit('tailwater', 'pass', `tailwater at bed level is ≥ ${n3(worstRatio)}× the sequent depth at every discharge: deep tailwater suits a submerged bucket [mem: EM-25]`, worst.Q)
-        : crit('tailwater', 'fail', `tailwater at bed level is only ${n3(worstRatio)}× the sequent depth at ${P.Q(worst.Q)}: a submerged bucket needs deeper tailwater [mem: EM-25]`, worst.Q);
+        ? crit(
+            'tailwater',
+            'pass',
+            `tailwater at bed level is ≥ ${n3(worstRatio)}× the sequent depth at every discharge: deep tailwater suits a submerged bucket [mem: EM-25]`,
+            worst.Q,
+          )
+        : crit(
+            'tailwater',
+            'fail',
+            `tailwater at bed level is only ${n3(worstRatio)}× the sequent depth at ${P.Q(worst.Q)}: a submerged bucket needs deeper tailwater [mem: EM-25]`,
+            worst.Q,
+          );
     return [velocity!, head!, tw];
   },
 };

@@ -4,13 +4,24 @@ import { fitBlockRow, staggeredRow } from '../blocks';
 import type { BasinDefaults } from '../defaults';
 import type { DissipatorModule } from '../types';
 import { BASIN_DEFAULTS } from '../defaults';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
+import {
+  crit,
+  debrisCriterion,
+  froudeInRange,
+  jumpTailwater,
+  noDischargeLimit,
+  ph,
+} from './shared';
 
 const TAG = '[src: Blaisdell 1948]';
 
 type SafFactorDefaults = Pick<
   BasinDefaults,
-  'safTailwaterLowIntercept' | 'safTailwaterLowDivisor' | 'safTailwaterMid' | 'safTailwaterHighIntercept' | 'safTailwaterHighDivisor'
+  | 'safTailwaterLowIntercept'
+  | 'safTailwaterLowDivisor'
+  | 'safTailwaterMid'
+  | 'safTailwaterHighIntercept'
+  | 'safTailwaterHighDivisor'
 >;
 
 /**
@@ -24,21 +35,40 @@ type SafFactorDefaults = Pick<
  * @example safTailwaterFactor(8) // 0.85
  */
 export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEFAULTS): number {
-  if (!Number.isFinite(fr1)) throw new RangeError(`fr1 (inflow Froude number) must be a finite number (got ${fr1})`);
+  if (!Number.isFinite(fr1))
+    throw new RangeError(`fr1 (inflow Froude number) must be a finite number (got ${fr1})`);
   const f = Math.min(17, Math.max(1.7, fr1));
   const mid = d.safTailwaterMid;
-  const low = (x: number): number => d.safTailwaterLowIntercept - (x * x) / d.safTailwaterLowDivisor;
-  const high = (x: number): number => d.safTailwaterHighIntercept - (x * x) / d.safTailwaterHighDivisor;
+  const low = (x: number): number =>
+    d.safTailwaterLowIntercept - (x * x) / d.safTailwaterLowDivisor;
+  const high = (x: number): number =>
+    d.safTailwaterHighIntercept - (x * x) / d.safTailwaterHighDivisor;
   // Where each curve meets the middle value (continuity), kept in order within 1.7–17.
-  const b1 = Math.min(17, Math.max(1.7, Math.sqrt(Math.max(0, (d.safTailwaterLowIntercept - mid) * d.safTailwaterLowDivisor))));
-  const b2 = Math.min(17, Math.max(b1, Math.sqrt(Math.max(0, (d.safTailwaterHighIntercept - mid) * d.safTailwaterHighDivisor))));
+  const b1 = Math.min(
+    17,
+    Math.max(
+      1.7,
+      Math.sqrt(Math.max(0, (d.safTailwaterLowIntercept - mid) * d.safTailwaterLowDivisor)),
+    ),
+  );
+  const b2 = Math.min(
+    17,
+    Math.max(
+      b1,
+      Math.sqrt(Math.max(0, (d.safTailwaterHighIntercept - mid) * d.safTailwaterHighDivisor)),
+    ),
+  );
   if (f <= b1) return low(f);
   if (f <= b2) return mid;
   return high(f);
 }
 
 /** SAF basin length L = 4.5·y2/Fr1^0.76 [mem: Blaisdell 1948]. */
-export function safLength(fr1: number, y2: number, d: Pick<BasinDefaults, 'safLengthCoefficient' | 'safLengthExponent'>): number {
+export function safLength(
+  fr1: number,
+  y2: number,
+  d: Pick<BasinDefaults, 'safLengthCoefficient' | 'safLengthExponent'>,
+): number {
   return (d.safLengthCoefficient * y2) / Math.pow(fr1, d.safLengthExponent);
 }
 
@@ -47,16 +77,22 @@ export const saf: DissipatorModule = {
   name: 'SAF basin',
   source: 'Blaisdell 1948, St. Anthony Falls Hydraulic Laboratory (via USDA SCS and USBR)',
   family: 'jump-basin',
-  description: 'Chute blocks, staggered floor blocks and a low end sill: a short basin for small spillways, canals and outlets, tailwater below the sequent depth.',
+  description:
+    'Chute blocks, staggered floor blocks and a low end sill: a short basin for small spillways, canals and outlets, tailwater below the sequent depth.',
   limits: [
     { criterion: 'froude', text: 'Fr1 1.7–17', tag: TAG },
     { criterion: 'velocity', text: 'V1 above 18 m/s not advised with chute blocks', tag: TAG },
-    { criterion: 'tailwater', text: 'TW = C·y2, C = 1.10 − Fr²/120 (1.7–5.5), 0.85 (5.5–11), 1.00 − Fr²/800 (11–17)', tag: '[mem: Blaisdell 1948]' },
+    {
+      criterion: 'tailwater',
+      text: 'TW = C·y2, C = 1.10 − Fr²/120 (1.7–5.5), 0.85 (5.5–11), 1.00 − Fr²/800 (11–17)',
+      tag: '[mem: Blaisdell 1948]',
+    },
   ],
   jump: {
     froudeRange: [1.7, 17],
     tailwaterFactor: (fr, d) => safTailwaterFactor(fr, d),
-    tailwaterFactorTag: '[mem: Blaisdell 1948] C = 1.10 − Fr²/120, 0.85, 1.00 − Fr²/800, pieces joined where they meet (continuous), held outside Fr1 1.7–17',
+    tailwaterFactorTag:
+      '[mem: Blaisdell 1948] C = 1.10 − Fr²/120, 0.85, 1.00 − Fr²/800, pieces joined where they meet (continuous), held outside Fr1 1.7–17',
     length: (fr1, _y1, y2, d) => safLength(fr1, y2, d),
     lengthTag: '[mem: Blaisdell 1948] L = 4.5·y2/Fr1^0.76',
     appurtenances: ({ y1, y2, width, length, d }) => {
@@ -68,7 +104,13 @@ export const saf: DissipatorModule = {
       const sill = d.safSillRatio * y2;
       return {
         chuteBlocks: { ...chute, height: y1, length: d.chuteBlockLengthRatio * y1 },
-        baffleBlocks: { ...floor, height: y1, length: b, distanceFromUpstream: d.safFloorBlockPosition * length, kind: 'floor-blocks' },
+        baffleBlocks: {
+          ...floor,
+          height: y1,
+          length: b,
+          distanceFromUpstream: d.safFloorBlockPosition * length,
+          kind: 'floor-blocks',
+        },
         endSill: { kind: 'solid', height: sill, upstreamSlope: 1, length: sill, present: true },
       };
     },
@@ -86,12 +128,27 @@ export const saf: DissipatorModule = {
       v <= d.cavitationVelocity
         ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
         : v <= d.safVelocityFail
-          ? crit('velocity', 'warn', `V1 ${P.vel(v)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the chute blocks, model study`, row.Q)
-          : crit('velocity', 'fail', `V1 ${P.vel(v)} > ${P.vel(d.safVelocityFail)}: chute blocks not advised ${TAG}`, row.Q);
+          ? crit(
+              'velocity',
+              'warn',
+              `V1 ${P.vel(v)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the chute blocks, model study`,
+              row.Q,
+            )
+          : crit(
+              'velocity',
+              'fail',
+              `V1 ${P.vel(v)} > ${P.vel(d.safVelocityFail)}: chute blocks not advised ${TAG}`,
+              row.Q,
+            );
     return [
       froudeInRange(row, 1.7, 17, TAG),
       velocity,
-      crit('unitDischarge', 'pass', `q ${P.q(row.q)}: no published limit (the type is meant for small structures)`, row.Q),
+      crit(
+        'unitDischarge',
+        'pass',
+        `q ${P.q(row.q)}: no published limit (the type is meant for small structures)`,
+        row.Q,
+      ),
       noDischargeLimit(row, ctx),
       jumpTailwater(row, safTailwaterFactor(row.fr1, d), d, rows, ctx),
     ];

@@ -22,12 +22,36 @@ export function crit(
 }
 
 /** Froude number inside an inclusive published range: pass; outside: fail. */
-export function froudeInRange(row: DischargeRow, lo: number, hi: number, tag: string): CriterionResult {
+export function froudeInRange(
+  row: DischargeRow,
+  lo: number,
+  hi: number,
+  tag: string,
+): CriterionResult {
   const f = row.fr1;
   const range = hi === Infinity ? `Fr1 ≥ ${lo}` : `${lo}–${hi}`;
-  if (f < lo) return crit('froude', 'fail', `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${range} ${tag}`, row.Q);
-  if (f > hi) return crit('froude', 'fail', `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${range} ${tag}`, row.Q);
-  return crit('froude', 'pass', hi === Infinity ? `Fr1 ${n3(f)} is at least ${lo} ${tag}` : `Fr1 ${n3(f)} is within ${range} ${tag}`, row.Q);
+  if (f < lo)
+    return crit(
+      'froude',
+      'fail',
+      `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${range} ${tag}`,
+      row.Q,
+    );
+  if (f > hi)
+    return crit(
+      'froude',
+      'fail',
+      `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${range} ${tag}`,
+      row.Q,
+    );
+  return crit(
+    'froude',
+    'pass',
+    hi === Infinity
+      ? `Fr1 ${n3(f)} is at least ${lo} ${tag}`
+      : `Fr1 ${n3(f)} is within ${range} ${tag}`,
+    row.Q,
+  );
 }
 
 /** Jump basins: the tailwater against C·y2 (need) and against excess (submergence). */
@@ -41,9 +65,20 @@ export function jumpTailwater(
   const P = ph(ctx);
   const need = factor * row.y2;
   const tw = row.tailwaterDepth;
-  if (tw === undefined) return crit('tailwater', 'warn', `tailwater not known: this basin needs ${P.len(need)} (C ${n3(factor)} × y2)`, row.Q);
+  if (tw === undefined)
+    return crit(
+      'tailwater',
+      'warn',
+      `tailwater not known: this basin needs ${P.len(need)} (C ${n3(factor)} × y2)`,
+      row.Q,
+    );
   if (tw < need - 1e-6) {
-    return crit('tailwater', 'fail', `tailwater ${P.len(tw)} is short of the ${P.len(need)} needed (C ${n3(factor)} × y2 ${P.len(row.y2)}): the jump would sweep out`, row.Q);
+    return crit(
+      'tailwater',
+      'fail',
+      `tailwater ${P.len(tw)} is short of the ${P.len(need)} needed (C ${n3(factor)} × y2 ${P.len(row.y2)}): the jump would sweep out`,
+      row.Q,
+    );
   }
   const ratio = tw / need;
   if (ratio > d.excessSubmergenceRatio) {
@@ -58,17 +93,33 @@ export function jumpTailwater(
       row.Q,
     );
   }
-  return crit('tailwater', 'pass', `tailwater ${P.len(tw)} holds the jump (needs ${P.len(need)} = C ${n3(factor)} × y2)`, row.Q);
+  return crit(
+    'tailwater',
+    'pass',
+    `tailwater ${P.len(tw)} holds the jump (needs ${P.len(need)} = C ${n3(factor)} × y2)`,
+    row.Q,
+  );
 }
 
-export function debrisCriterion(ctx: ScreeningContext, heavy: 'pass' | 'warn' | 'fail', light: 'pass' | 'warn', what: string): CriterionResult {
+export function debrisCriterion(
+  ctx: ScreeningContext,
+  heavy: 'pass' | 'warn' | 'fail',
+  light: 'pass' | 'warn',
+  what: string,
+): CriterionResult {
   const level: DebrisLevel | undefined = ctx.debris;
-  if (level === undefined || level === 'none') return crit('debris', 'pass', level === undefined ? 'no debris stated' : 'no debris expected');
+  if (level === undefined || level === 'none')
+    return crit('debris', 'pass', level === undefined ? 'no debris stated' : 'no debris expected');
   return crit('debris', level === 'heavy' ? heavy : light, `${level} debris: ${what}`);
 }
 
 export function noDischargeLimit(row: DischargeRow, ctx?: ScreeningContext): CriterionResult {
-  return crit('discharge', 'pass', `no published limit on total discharge (Q ${ph(ctx).Q(row.Q)})`, row.Q);
+  return crit(
+    'discharge',
+    'pass',
+    `no published limit on total discharge (Q ${ph(ctx).Q(row.Q)})`,
+    row.Q,
+  );
 }
 
 /** Total head above the floor: given, or at least the specific energy at the toe. */

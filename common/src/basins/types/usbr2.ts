@@ -2,7 +2,14 @@
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
+import {
+  crit,
+  debrisCriterion,
+  froudeInRange,
+  jumpTailwater,
+  noDischargeLimit,
+  ph,
+} from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -11,18 +18,29 @@ export const usbr2: DissipatorModule = {
   name: 'USBR Type II basin',
   source: 'USBR EM-25 (Peterka 1958); Design of Small Dams',
   family: 'jump-basin',
-  description: 'Chute blocks and a dentated end sill, no baffle piers: for inflow velocities too high for piers (high dams, large chutes).',
+  description:
+    'Chute blocks and a dentated end sill, no baffle piers: for inflow velocities too high for piers (high dams, large chutes).',
   limits: [
     { criterion: 'froude', text: 'Fr1 ≥ 4.5', tag: TAG },
     { criterion: 'unitDischarge', text: 'tested to q ≈ 46 m²/s', tag: '[mem: EM-25]' },
-    { criterion: 'tailwater', text: 'tailwater ≥ 1.05 × sequent depth (safety margin)', tag: '[mem: EM-25]' },
+    {
+      criterion: 'tailwater',
+      text: 'tailwater ≥ 1.05 × sequent depth (safety margin)',
+      tag: '[mem: EM-25]',
+    },
   ],
   jump: {
     froudeRange: [4.5, Infinity],
     tailwaterFactor: (_fr, d) => d.tailwaterFactorType2,
     tailwaterFactorTag: '[mem: EM-25] C = 1.05',
     length: (fr1, _y1, y2, d) =>
-      interpolate([[4.5, d.type2LengthRatioAtFr4_5], [14, d.type2LengthRatioAtFr14]], fr1) * y2,
+      interpolate(
+        [
+          [4.5, d.type2LengthRatioAtFr4_5],
+          [14, d.type2LengthRatioAtFr14],
+        ],
+        fr1,
+      ) * y2,
     lengthTag: '[mem: EM-25] L ≈ 4.0·y2 at Fr1 4.5 rising to 4.4·y2 at Fr1 ≥ 14',
     appurtenances: ({ y1, y2, width, d }) => {
       // [mem: EM-25] chute blocks h = w = s = y1, half space at walls; dentated sill h = 0.2·y2,
@@ -38,7 +56,14 @@ export const usbr2: DissipatorModule = {
           height: sillH,
           upstreamSlope: 2,
           length: 2 * sillH + 0.02 * y2,
-          teeth: { count: teeth.count, width: teeth.width, spacing: teeth.spacing, wallSpace: teeth.wallSpace, centres: teeth.centres, ...(teeth.narrow ? { narrow: true } : {}) },
+          teeth: {
+            count: teeth.count,
+            width: teeth.width,
+            spacing: teeth.spacing,
+            wallSpace: teeth.wallSpace,
+            centres: teeth.centres,
+            ...(teeth.narrow ? { narrow: true } : {}),
+          },
         },
       };
     },
@@ -52,15 +77,32 @@ export const usbr2: DissipatorModule = {
     const P = ph(ctx);
     return [
       froudeInRange(row, 4.5, Infinity, TAG),
-      crit('velocity', 'pass', `no baffle piers: suits high inflow velocity (V1 ${P.vel(row.v1)})`, row.Q),
+      crit(
+        'velocity',
+        'pass',
+        `no baffle piers: suits high inflow velocity (V1 ${P.vel(row.v1)})`,
+        row.Q,
+      ),
       row.q <= d.type2MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} is within the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]`, row.Q)
-        : crit('unitDischarge', 'warn', `q ${P.q(row.q)} exceeds the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]: model study`, row.Q),
+        ? crit(
+            'unitDischarge',
+            'pass',
+            `q ${P.q(row.q)} is within the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]`,
+            row.Q,
+          )
+        : crit(
+            'unitDischarge',
+            'warn',
+            `q ${P.q(row.q)} exceeds the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]: model study`,
+            row.Q,
+          ),
       noDischargeLimit(row, ctx),
       jumpTailwater(row, d.tailwaterFactorType2, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'warn', 'pass', 'chute blocks and sill teeth can snag large debris')];
+    return [
+      debrisCriterion(ctx, 'warn', 'pass', 'chute blocks and sill teeth can snag large debris'),
+    ];
   },
 };

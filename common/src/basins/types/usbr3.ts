@@ -3,7 +3,14 @@
 import { fitBlockRow, staggerBehind } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
+import {
+  crit,
+  debrisCriterion,
+  froudeInRange,
+  jumpTailwater,
+  noDischargeLimit,
+  ph,
+} from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -22,10 +29,15 @@ export const usbr3: DissipatorModule = {
   name: 'USBR Type III basin',
   source: 'USBR EM-25 (Peterka 1958); Design of Small Dams',
   family: 'jump-basin',
-  description: 'Chute blocks, baffle piers and a solid end sill: the shortest USBR jump basin, for moderate inflow velocity and no heavy debris.',
+  description:
+    'Chute blocks, baffle piers and a solid end sill: the shortest USBR jump basin, for moderate inflow velocity and no heavy debris.',
   limits: [
     { criterion: 'froude', text: 'Fr1 4.5–17', tag: TAG },
-    { criterion: 'velocity', text: 'V1 ≤ 15 m/s; 15–18 m/s with care; above 18 m/s baffle piers cavitate', tag: '[src/mem: EM-25]' },
+    {
+      criterion: 'velocity',
+      text: 'V1 ≤ 15 m/s; 15–18 m/s with care; above 18 m/s baffle piers cavitate',
+      tag: '[src/mem: EM-25]',
+    },
     { criterion: 'unitDischarge', text: 'q ≤ ≈ 18.6 m²/s', tag: '[mem: EM-25]' },
     { criterion: 'debris', text: 'no heavy debris (piers catch it)', tag: TAG },
   ],
@@ -34,7 +46,13 @@ export const usbr3: DissipatorModule = {
     tailwaterFactor: (_fr, d) => d.tailwaterFactorType3,
     tailwaterFactorTag: '[mem: EM-25] C = 1.0',
     length: (fr1, _y1, y2, d) =>
-      interpolate([[4.5, d.type3LengthRatioAtFr4_5], [10, d.type3LengthRatioAtFr10]], fr1) * y2,
+      interpolate(
+        [
+          [4.5, d.type3LengthRatioAtFr4_5],
+          [10, d.type3LengthRatioAtFr10],
+        ],
+        fr1,
+      ) * y2,
     lengthTag: '[mem: EM-25] L ≈ 2.3·y2 at Fr1 4.5 rising to 2.8·y2 at Fr1 ≥ 10',
     appurtenances: ({ fr1, y1, y2, width, d }) => {
       const chute = fitBlockRow(width, y1, y1);
@@ -70,14 +88,34 @@ export const usbr3: DissipatorModule = {
       v <= d.type3VelocityWarn
         ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.type3VelocityWarn)} ${TAG}`, row.Q)
         : v <= d.type3VelocityFail
-          ? crit('velocity', 'warn', `V1 ${P.pair('velocity', v, d.type3VelocityWarn)[0]} is above ${P.pair('velocity', v, d.type3VelocityWarn)[1]}: cavitation risk on the baffle piers, model study [src: EM-25]`, row.Q)
-          : crit('velocity', 'fail', `V1 ${P.pair('velocity', v, d.type3VelocityFail)[0]} is above ${P.pair('velocity', v, d.type3VelocityFail)[1]}: baffle piers would cavitate; use Type II [mem: EM-25]`, row.Q);
+          ? crit(
+              'velocity',
+              'warn',
+              `V1 ${P.pair('velocity', v, d.type3VelocityWarn)[0]} is above ${P.pair('velocity', v, d.type3VelocityWarn)[1]}: cavitation risk on the baffle piers, model study [src: EM-25]`,
+              row.Q,
+            )
+          : crit(
+              'velocity',
+              'fail',
+              `V1 ${P.pair('velocity', v, d.type3VelocityFail)[0]} is above ${P.pair('velocity', v, d.type3VelocityFail)[1]}: baffle piers would cavitate; use Type II [mem: EM-25]`,
+              row.Q,
+            );
     return [
       froudeInRange(row, 4.5, 17, TAG),
       velocity,
       row.q <= d.type3MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} ≤ ${P.q(d.type3MaxUnitDischarge)} [mem: EM-25]`, row.Q)
-        : crit('unitDischarge', 'fail', `q ${P.q(row.q)} is above the ${P.q(d.type3MaxUnitDischarge)} of the tests [mem: EM-25]`, row.Q),
+        ? crit(
+            'unitDischarge',
+            'pass',
+            `q ${P.q(row.q)} ≤ ${P.q(d.type3MaxUnitDischarge)} [mem: EM-25]`,
+            row.Q,
+          )
+        : crit(
+            'unitDischarge',
+            'fail',
+            `q ${P.q(row.q)} is above the ${P.q(d.type3MaxUnitDischarge)} of the tests [mem: EM-25]`,
+            row.Q,
+          ),
       noDischargeLimit(row, ctx),
       jumpTailwater(row, d.tailwaterFactorType3, d, rows, ctx),
     ];

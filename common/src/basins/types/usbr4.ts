@@ -2,7 +2,14 @@
 import { jumpLengthUSBR } from '../../hydraulics';
 import { fitBlockRow } from '../blocks';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, froudeInRange, jumpTailwater, noDischargeLimit, ph } from './shared';
+import {
+  crit,
+  debrisCriterion,
+  froudeInRange,
+  jumpTailwater,
+  noDischargeLimit,
+  ph,
+} from './shared';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -11,10 +18,15 @@ export const usbr4: DissipatorModule = {
   name: 'USBR Type IV basin',
   source: 'USBR EM-25 (Peterka 1958)',
   family: 'jump-basin',
-  description: 'Large deflector blocks that break up the oscillating jump (Fr1 2.5–4.5); for small unit discharges, with wave suppressors if waves persist.',
+  description:
+    'Large deflector blocks that break up the oscillating jump (Fr1 2.5–4.5); for small unit discharges, with wave suppressors if waves persist.',
   limits: [
     { criterion: 'froude', text: 'Fr1 2.5–4.5', tag: TAG },
-    { criterion: 'unitDischarge', text: 'small unit discharges (canal and diversion structures)', tag: TAG },
+    {
+      criterion: 'unitDischarge',
+      text: 'small unit discharges (canal and diversion structures)',
+      tag: TAG,
+    },
     { criterion: 'tailwater', text: 'tailwater ≈ 1.1 × sequent depth', tag: '[mem: EM-25]' },
   ],
   jump: {
@@ -30,7 +42,13 @@ export const usbr4: DissipatorModule = {
       const h = d.type4DeflectorHeightRatio * y1;
       return {
         chuteBlocks: { ...row, height: h, length: d.chuteBlockLengthRatio * h },
-        endSill: { kind: 'solid', height: sill, upstreamSlope: 2, length: 2 * sill, present: sill > 0 },
+        endSill: {
+          kind: 'solid',
+          height: sill,
+          upstreamSlope: 2,
+          length: 2 * sill,
+          present: sill > 0,
+        },
       };
     },
     freeboardRule: 'usbr',
@@ -45,8 +63,18 @@ export const usbr4: DissipatorModule = {
       froudeInRange(row, 2.5, 4.5, TAG),
       row.v1 <= d.cavitationVelocity
         ? crit('velocity', 'pass', `V1 ${P.vel(row.v1)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
-        : crit('velocity', 'warn', `V1 ${P.vel(row.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the deflector blocks [src: EM-25]`, row.Q),
-      crit('unitDischarge', 'pass', `q ${P.q(row.q)}: the type suits small unit discharges; no figure is published`, row.Q),
+        : crit(
+            'velocity',
+            'warn',
+            `V1 ${P.vel(row.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the deflector blocks [src: EM-25]`,
+            row.Q,
+          ),
+      crit(
+        'unitDischarge',
+        'pass',
+        `q ${P.q(row.q)}: the type suits small unit discharges; no figure is published`,
+        row.Q,
+      ),
       noDischargeLimit(row, ctx),
       jumpTailwater(row, d.tailwaterFactorType4, d, rows, ctx),
     ];

@@ -55,14 +55,22 @@ export function sizeImpactBasin(
   const warnings: string[] = [
     'the Type VI width comes from a fit of the HEC-14 design curve recalled from memory: check W against the published curve',
   ];
-  if (W < curveWidth * 0.999) warnings.push(`Width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
-  if (Q > d.type6MaxDischarge) warnings.push(`Q ${P.Q(Q)} exceeds the ${P.Q(d.type6MaxDischarge)} limit of the type ${TAG}`);
-  if (V > d.type6MaxVelocity) warnings.push(`Entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
+  if (W < curveWidth * 0.999)
+    warnings.push(`Width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
+  if (Q > d.type6MaxDischarge)
+    warnings.push(`Q ${P.Q(Q)} exceeds the ${P.Q(d.type6MaxDischarge)} limit of the type ${TAG}`);
+  if (V > d.type6MaxVelocity)
+    warnings.push(`Entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
   const baffleHeight = 0.375 * W;
   const baffleClearance = W / 6;
   const maxTw = baffleClearance + baffleHeight / 2;
-  if (c.tailwaterDepth !== undefined && reqNonNegative('tailwaterDepth', c.tailwaterDepth) > maxTw) {
-    warnings.push(`Tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`);
+  if (
+    c.tailwaterDepth !== undefined &&
+    reqNonNegative('tailwaterDepth', c.tailwaterDepth) > maxTw
+  ) {
+    warnings.push(
+      `Tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`,
+    );
   }
   return {
     type: 'usbr-6',
@@ -93,11 +101,16 @@ export const usbr6: DissipatorModule = {
   name: 'USBR Type VI impact basin',
   source: 'USBR (Beichley 1957, ASCE); FHWA HEC-14 (2006) §9.4',
   family: 'impact-basin',
-  description: 'A compact box with a hanging baffle at a pipe or small chute outlet; works without tailwater.',
+  description:
+    'A compact box with a hanging baffle at a pipe or small chute outlet; works without tailwater.',
   limits: [
     { criterion: 'discharge', text: 'Q up to 11 m³/s', tag: TAG },
     { criterion: 'velocity', text: 'entering velocity up to 15 m/s', tag: TAG },
-    { criterion: 'tailwater', text: 'needs no tailwater; tailwater above the baffle reduces dissipation', tag: TAG },
+    {
+      criterion: 'tailwater',
+      text: 'needs no tailwater; tailwater above the baffle reduces dissipation',
+      tag: TAG,
+    },
     { criterion: 'inflow', text: 'pipe or culvert outlets (also small open chutes)', tag: TAG },
   ],
   screenRow(row, ctx, d, rows) {
@@ -105,18 +118,44 @@ export const usbr6: DissipatorModule = {
     const out = [
       row.Q <= d.type6MaxDischarge
         ? crit('discharge', 'pass', `Q ${P.Q(row.Q)} ≤ ${P.Q(d.type6MaxDischarge)} ${TAG}`, row.Q)
-        : crit('discharge', 'fail', `Q ${P.pair('discharge', row.Q, d.type6MaxDischarge)[0]} exceeds the ${P.pair('discharge', row.Q, d.type6MaxDischarge)[1]} of the type ${TAG}`, row.Q),
+        : crit(
+            'discharge',
+            'fail',
+            `Q ${P.pair('discharge', row.Q, d.type6MaxDischarge)[0]} exceeds the ${P.pair('discharge', row.Q, d.type6MaxDischarge)[1]} of the type ${TAG}`,
+            row.Q,
+          ),
       row.v1 <= d.type6MaxVelocity
-        ? crit('velocity', 'pass', `V ${P.vel(row.v1)} ≤ ${P.vel(d.type6MaxVelocity)} ${TAG}`, row.Q)
-        : crit('velocity', 'fail', `V ${P.pair('velocity', row.v1, d.type6MaxVelocity)[0]} exceeds ${P.pair('velocity', row.v1, d.type6MaxVelocity)[1]} ${TAG}`, row.Q),
+        ? crit(
+            'velocity',
+            'pass',
+            `V ${P.vel(row.v1)} ≤ ${P.vel(d.type6MaxVelocity)} ${TAG}`,
+            row.Q,
+          )
+        : crit(
+            'velocity',
+            'fail',
+            `V ${P.pair('velocity', row.v1, d.type6MaxVelocity)[0]} exceeds ${P.pair('velocity', row.v1, d.type6MaxVelocity)[1]} ${TAG}`,
+            row.Q,
+          ),
     ];
     const dr = designRow(rows) ?? row;
     const size = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);
     const tw = row.tailwaterDepth;
     out.push(
       tw === undefined || tw <= size.maxTailwaterDepth
-        ? crit('tailwater', 'pass', 'needs no tailwater' + (tw === undefined ? '' : ` (tailwater ${P.len(tw)} stays below the baffle)`), row.Q)
-        : crit('tailwater', 'warn', `tailwater ${P.len(tw)} overtops the baffle zone (> ${P.len(size.maxTailwaterDepth)}): less dissipation [mem: HEC-14]`, row.Q),
+        ? crit(
+            'tailwater',
+            'pass',
+            'needs no tailwater' +
+              (tw === undefined ? '' : ` (tailwater ${P.len(tw)} stays below the baffle)`),
+            row.Q,
+          )
+        : crit(
+            'tailwater',
+            'warn',
+            `tailwater ${P.len(tw)} overtops the baffle zone (> ${P.len(size.maxTailwaterDepth)}): less dissipation [mem: HEC-14]`,
+            row.Q,
+          ),
     );
     return out;
   },
@@ -125,8 +164,24 @@ export const usbr6: DissipatorModule = {
       ctx.inflow === 'pipe' || ctx.inflow === 'culvert'
         ? crit('inflow', 'pass', `a ${ctx.inflow} outlet: the type was developed for it ${TAG}`)
         : ctx.inflow === 'chute' || ctx.inflow === 'known'
-          ? crit('inflow', 'warn', 'developed for pipe outlets; usable with a small open chute ' + TAG)
-          : crit('inflow', 'fail', `a ${ctx.inflow} inflow: the type needs a pipe, culvert or small chute entering the box`);
-    return [inflow, debrisCriterion(ctx, 'warn', 'pass', 'debris can clog the space under the baffle (the flow then passes over it)')];
+          ? crit(
+              'inflow',
+              'warn',
+              'developed for pipe outlets; usable with a small open chute ' + TAG,
+            )
+          : crit(
+              'inflow',
+              'fail',
+              `a ${ctx.inflow} inflow: the type needs a pipe, culvert or small chute entering the box`,
+            );
+    return [
+      inflow,
+      debrisCriterion(
+        ctx,
+        'warn',
+        'pass',
+        'debris can clog the space under the baffle (the flow then passes over it)',
+      ),
+    ];
   },
 };

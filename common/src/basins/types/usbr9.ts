@@ -64,7 +64,8 @@ export function sizeBaffledApron(
   const rows = Math.max(d.type9MinRows, Math.ceil(above / spacing) + 2);
   const slopeLength = (rows - 1) * spacing + spacing / 2;
   const warnings: string[] = [];
-  if (q > d.type9MaxUnitDischarge) warnings.push(`q ${P.q(q)} exceeds the ${P.q(d.type9MaxUnitDischarge)} of the type ${TAG}`);
+  if (q > d.type9MaxUnitDischarge)
+    warnings.push(`q ${P.q(q)} exceeds the ${P.q(d.type9MaxUnitDischarge)} of the type ${TAG}`);
   const rowA = fitBlockRow(W, Math.min(bw, W), bw);
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
   return {
@@ -96,25 +97,54 @@ export const usbr9: DissipatorModule = {
   name: 'USBR Type IX baffled apron',
   source: 'USBR, Design of Small Dams; EM-25 (Peterka 1958) Basin IX',
   family: 'baffled-apron',
-  description: 'Rows of baffle piers on a 2:1 apron that carries the flow down a drop; entry near critical, no tailwater needed.',
+  description:
+    'Rows of baffle piers on a 2:1 apron that carries the flow down a drop; entry near critical, no tailwater needed.',
   limits: [
     { criterion: 'unitDischarge', text: 'q ≤ 5.6 m²/s', tag: TAG },
-    { criterion: 'froude', text: 'flow enters near critical depth (upstream of the drop)', tag: TAG },
-    { criterion: 'tailwater', text: 'needs no tailwater; rows continue below the channel bed', tag: TAG },
+    {
+      criterion: 'froude',
+      text: 'flow enters near critical depth (upstream of the drop)',
+      tag: TAG,
+    },
+    {
+      criterion: 'tailwater',
+      text: 'needs no tailwater; rows continue below the channel bed',
+      tag: TAG,
+    },
   ],
   screenRow(row, ctx, d) {
     const P = ph(ctx);
     const approach =
       ctx.inflow === 'chute' || ctx.inflow === 'drop'
-        ? crit('froude', 'pass', 'the flow would enter the baffled apron over the crest near critical depth (the apron replaces the smooth chute)', row.Q)
+        ? crit(
+            'froude',
+            'pass',
+            'the flow would enter the baffled apron over the crest near critical depth (the apron replaces the smooth chute)',
+            row.Q,
+          )
         : row.fr1 <= d.type9MaxApproachFroude
           ? crit('froude', 'pass', `entry Fr ${n3(row.fr1)} is near critical`, row.Q)
-          : crit('froude', 'fail', `entry Fr ${n3(row.fr1)} is well above critical: the type needs a near-critical approach ${TAG}`, row.Q);
+          : crit(
+              'froude',
+              'fail',
+              `entry Fr ${n3(row.fr1)} is well above critical: the type needs a near-critical approach ${TAG}`,
+              row.Q,
+            );
     return [
       approach,
       row.q <= d.type9MaxUnitDischarge
-        ? crit('unitDischarge', 'pass', `q ${P.q(row.q)} ≤ ${P.q(d.type9MaxUnitDischarge)} ${TAG}`, row.Q)
-        : crit('unitDischarge', 'fail', `q ${P.q(row.q)} exceeds ${P.q(d.type9MaxUnitDischarge)} ${TAG}`, row.Q),
+        ? crit(
+            'unitDischarge',
+            'pass',
+            `q ${P.q(row.q)} ≤ ${P.q(d.type9MaxUnitDischarge)} ${TAG}`,
+            row.Q,
+          )
+        : crit(
+            'unitDischarge',
+            'fail',
+            `q ${P.q(row.q)} exceeds ${P.q(d.type9MaxUnitDischarge)} ${TAG}`,
+            row.Q,
+          ),
       crit('tailwater', 'pass', 'needs no tailwater', row.Q),
     ];
   },
