@@ -83,13 +83,11 @@ describe('ProjectForm with the shared project schema', () => {
   });
 
   it("puts a server 422's field messages under the fields", async () => {
-    const save = vi
-      .fn()
-      .mockRejectedValue(
-        new ApiError(422, 'validation_error', 'Please check the form.', {
-          location: 'Location is not recognised.',
-        }),
-      );
+    const save = vi.fn().mockRejectedValue(
+      new ApiError(422, 'validation_error', 'Please check the form.', {
+        location: 'Location is not recognised.',
+      }),
+    );
     const wrapper = mountForm(save, { name: 'Weir outlet' });
     await wrapper.find('form').trigger('submit');
     await settle();
