@@ -6,6 +6,7 @@ import type { AddressInfo } from 'node:net';
 import express from 'express';
 import { createApp } from '../api/src/app';
 import { sequelize } from '../api/src/db/sequelize';
+import { calcRouter } from '../api/src/modules/calc/calc.routes';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
@@ -52,10 +53,17 @@ const real = await listen(
   createApp({
     webDist: null,
     // The same app's stack (helmet, request log, JSON parser) with nothing behind it.
-    extraRoutes: (api) =>
+    extraRoutes: (api) => {
       api.post('/bench-bare', (req, res) => {
         res.json({ ok: true, echo: req.body as unknown });
-      }),
+      });
+      // The same calc routes with no authentication at all: what the token and revocation
+      // check cost is the difference to /calc/jump.
+      api.use(
+        '/bench-open-calc',
+        calcRouter((_req, _res, next) => next()),
+      );
+    },
   }),
 );
 const plain = await listen(bare);
@@ -93,9 +101,10 @@ const targets = {
   plain: () => load(`${plain.url}/bare`, 'POST', jumpBody, {}),
   stack: () => load(`${real.url}/api/v1/bench-bare`, 'POST', jumpBody, {}),
   jump: () => load(`${real.url}/api/v1/calc/jump`, 'POST', jumpBody, auth),
+  open: () => load(`${real.url}/api/v1/bench-open-calc/jump`, 'POST', jumpBody, {}),
 };
 for (const run of Object.values(targets)) await run(); // warm-up
-const rps: Record<keyof typeof targets, number[]> = { plain: [], stack: [], jump: [] };
+const rps: Record<keyof typeof targets, number[]> = { plain: [], stack: [], jump: [], open: [] };
 const cpuPer: Record<string, number[]> = {};
 let errors = 0;
 for (let round = 0; round < ROUNDS; round += 1) {
@@ -112,7 +121,7 @@ for (let round = 0; round < ROUNDS; round += 1) {
   }
 }
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
-const ratioOf = (name: 'plain' | 'stack') =>
+const ratioOf = (name: 'plain' | 'stack' | 'open') =>
   median(rps.jump.map((j, i) => j / (rps[name][i] ?? NaN)));
 console.log(
   `bare route, plain Express (nothing else):       ${median(rps.plain).toFixed(0)} req/s`,
@@ -127,6 +136,10 @@ console.log(
 const target = ratioOf('stack');
 console.log(
   `calc/jump ÷ bare route in the same app = ${target.toFixed(3)} (target ≥ 0.6) ${target >= 0.6 ? 'MET' : 'NOT MET'}`,
+);
+const authRatio = ratioOf('open');
+console.log(
+  `calc/jump with token + revocation check ÷ the same route unauthenticated = ${authRatio.toFixed(3)} (target ≥ 0.8) ${authRatio >= 0.8 ? 'MET' : 'NOT MET'}`,
 );
 console.log(
   `server CPU per request: ${Object.entries(cpuPer)

@@ -64,6 +64,7 @@ export function errorHandler(
     return;
   }
   const apiError = toApiError(error);
-  if (apiError.status >= 500) logger().error({ err: error, reqId: req.id }, 'request failed');
+  if (apiError.status >= 500)
+    (req.log ?? logger()).error({ err: error, reqId: req.id }, 'request failed');
   res.status(apiError.status).json(apiError.toJSON());
 }
