@@ -8,6 +8,7 @@ import { httpLogger } from './logger';
 import { errorHandler } from './middlewares/error-handler';
 import { notFoundHandler, spaRouter } from './middlewares/not-found';
 import { createRateLimits } from './middlewares/rate-limit';
+import { jsonBody, wellFormedPath } from './middlewares/request-shape';
 import { authRouter } from './modules/auth/auth.routes';
 import { healthRouter } from './modules/health/health.routes';
 import { invitationsRouter } from './modules/invitations/invitations.routes';
@@ -60,6 +61,7 @@ export function createApp(options: AppOptions = {}): express.Express {
     }),
   );
   app.use(httpLogger(options.logger));
+  app.use(wellFormedPath);
 
   const limits = createRateLimits(defaultSequelize);
   const api = express.Router();
@@ -68,7 +70,7 @@ export function createApp(options: AppOptions = {}): express.Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  api.use(express.json({ limit: '1mb' }));
+  api.use(jsonBody());
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
   });

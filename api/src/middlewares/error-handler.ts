@@ -37,6 +37,9 @@ export function toApiError(error: unknown): ApiError {
     if (parser.status >= 400 && parser.status < 500)
       return badRequest('The request body could not be read.');
   }
+  // A parameter whose percent-escapes do not decode (wellFormedPath catches the path first).
+  if (error instanceof URIError)
+    return badRequest('The address contains a malformed percent-escape.');
   // A race that slipped past a service check (two sign-ups with one e-mail at the same time).
   if (error instanceof UniqueConstraintError) return conflict('That already exists.');
   if (error instanceof SequelizeValidationError) {
@@ -66,5 +69,6 @@ export function errorHandler(
   const apiError = toApiError(error);
   if (apiError.status >= 500)
     (req.log ?? logger()).error({ err: error, reqId: req.id }, 'request failed');
+  if (apiError.retryAfter !== undefined) res.setHeader('Retry-After', String(apiError.retryAfter));
   res.status(apiError.status).json(apiError.toJSON());
 }

@@ -17,7 +17,8 @@ export async function signup(req: Request, res: Response): Promise<void> {
 }
 
 export async function login(req: Request, res: Response): Promise<void> {
-  const session = await auth.login(req.body as LoginInput);
+  // req.ip follows the 'trust proxy' setting; without an address all share one bucket.
+  const session = await auth.login(req.body as LoginInput, req.ip ?? '');
   res.json(presentSession(session.token, session.user, session.firm));
 }
 

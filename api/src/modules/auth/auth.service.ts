@@ -15,6 +15,7 @@ import { Firm, PasswordReset, sequelize, User } from '../../models';
 import { hashEmailToken, hashPassword, newEmailToken, verifyPassword } from '../../security';
 import { logger } from '../../logger';
 import { issueToken } from './auth.tokens';
+import * as throttle from './auth.throttle';
 
 export interface Session {
   token: string;
@@ -57,15 +58,22 @@ export async function signup(input: SignupInput): Promise<Session> {
   }
 }
 
-/** Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated member. */
-export async function login(input: LoginInput): Promise<Session> {
+/**
+ * Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated
+ * member. Guesses are throttled per account and address (auth.throttle.ts), never per account.
+ */
+export async function login(input: LoginInput, address: string): Promise<Session> {
+  await throttle.beforeLogin(input.email, address);
   const user = await User.findOne({
     where: { email: input.email },
     include: [{ model: Firm, as: 'firm' }],
   });
   const ok = await verifyPassword(input.password, user?.passwordHash ?? null);
-  if (user === null || !ok || !user.active || user.firm === undefined)
+  if (user === null || !ok || !user.active || user.firm === undefined) {
+    await throttle.loginFailed(input.email, address);
     throw unauthorized(WRONG_CREDENTIALS);
+  }
+  await throttle.loginSucceeded(input.email, address);
   await user.update({ lastLoginAt: new Date() });
   return { token: issueToken(user), user, firm: user.firm };
 }
@@ -136,11 +144,14 @@ export async function changePassword(
   firm: Firm,
   input: ChangePasswordInput,
 ): Promise<Session> {
-  if (!(await verifyPassword(input.currentPassword, user.passwordHash)))
+  await throttle.beforePasswordChange(user.id);
+  if (!(await verifyPassword(input.currentPassword, user.passwordHash))) {
+    await throttle.passwordChangeFailed(user.id);
     throw validationError(
       { currentPassword: 'The current password is not right.' },
       'The current password is not right.',
     );
+  }
   const passwordHash = await hashPassword(input.newPassword);
   await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 });
   return { token: issueToken(user), user, firm };
