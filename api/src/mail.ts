@@ -95,3 +95,23 @@ export function invitationMail(
       `<p>The invitation expires in 7 days.</p>`,
   };
 }
+
+/** To the owner of an address someone tried to sign up (or be invited) with. */
+export function accountExistsMail(to: string, name: string): MailMessage {
+  const signIn = new URL('sign-in', `${getConfig().appUrl}/`).toString();
+  const reset = new URL('forgot-password', `${getConfig().appUrl}/`).toString();
+  return {
+    to,
+    subject: 'Someone tried to create a Basinwright account with your address',
+    text:
+      `Hello ${name},\n\n` +
+      `Someone tried to create a new Basinwright account with this e-mail address, which already has one. ` +
+      `Nothing was changed. To sign in, open ${signIn}; if you forgot your password, open ${reset}.\n\n` +
+      `If this was not you, you can ignore this e-mail.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>Someone tried to create a new Basinwright account with this e-mail address, which already has one. Nothing was changed.</p>` +
+      `<p><a href="${escapeHtml(signIn)}">Sign in</a> or <a href="${escapeHtml(reset)}">choose a new password</a>.</p>` +
+      `<p>If this was not you, you can ignore this e-mail.</p>`,
+  };
+}

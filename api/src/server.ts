@@ -16,6 +16,7 @@ async function main(): Promise<void> {
   const { createApp } = await import('./app');
   const { createMigrator } = await import('./db/umzug');
   const { closeMail } = await import('./mail');
+  const { startMailWorker, stopJobs } = await import('./jobs');
   const { logger } = await import('./logger');
   const log = logger();
 
@@ -31,6 +32,10 @@ async function main(): Promise<void> {
     const applied = await createMigrator(sequelize).up();
     for (const migration of applied) log.info({ migration: migration.name }, 'migration applied');
   }
+
+  // Mail queued by any API process (password resets, account notices) is sent by whichever
+  // worker takes it; a failure here leaves the jobs queued for another process or a restart.
+  startMailWorker().catch((error: unknown) => log.error({ err: error }, 'mail worker not started'));
 
   const app = createApp();
   const server = app.listen(config.port, config.host);
@@ -53,8 +58,9 @@ async function main(): Promise<void> {
     force.unref();
     server.close(() => {
       closeMail();
-      sequelize
-        .close()
+      stopJobs()
+        .catch(() => undefined)
+        .then(() => sequelize.close())
         .then(() => process.exit(0))
         .catch(() => process.exit(1));
     });

@@ -140,6 +140,7 @@ export async function startApi(): Promise<ApiHarness> {
   const models = await import('../../api/src/models');
   const { issueToken } = await import('../../api/src/modules/auth/auth.tokens');
   const { closeMail } = await import('../../api/src/mail');
+  const { stopJobs } = await import('../../api/src/jobs');
   const app = createApp();
 
   return {
@@ -161,6 +162,7 @@ export async function startApi(): Promise<ApiHarness> {
       }
     },
     async close() {
+      await stopJobs();
       closeMail();
       await capture.close();
       await models.sequelize.close();

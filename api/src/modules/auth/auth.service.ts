@@ -1,6 +1,5 @@
 import {
   PLAN_LIMITS,
-  TOKEN_TTL_MS,
   type ChangePasswordInput,
   type ForgotPasswordInput,
   type ProfileUpdateInput,
@@ -10,10 +9,9 @@ import {
 } from '@basinwright/common';
 import { Op, UniqueConstraintError } from 'sequelize';
 import { conflict, invalidToken, unauthorized, validationError } from '../../errors';
-import { passwordResetMail, sendMail } from '../../mail';
 import { Firm, PasswordReset, sequelize, User } from '../../models';
-import { hashEmailToken, hashPassword, newEmailToken, verifyPassword } from '../../security';
-import { logger } from '../../logger';
+import { hashEmailToken, hashPassword, verifyPassword } from '../../security';
+import { queueMail } from '../../jobs';
 import { issueToken } from './auth.tokens';
 import * as throttle from './auth.throttle';
 
@@ -87,21 +85,11 @@ export const FORGOT_PASSWORD_MESSAGE =
   'If an account exists for that e-mail, we have sent a link to choose a new password. It expires in 1 hour.';
 
 /**
- * Records a reset request and e-mails its link when the member exists and is active. The
- * reply never says which: the mail goes out after the response so timing does not tell either.
+ * Queues the reset mail for any address, known or not: the request path does the same work
+ * either way (one job queued), and the job alone decides whether there is anyone to write to.
  */
 export async function forgotPassword(input: ForgotPasswordInput): Promise<void> {
-  const user = await User.findOne({ where: { email: input.email, active: true } });
-  if (user === null) return;
-  const { token, tokenHash } = newEmailToken();
-  await PasswordReset.create({
-    userId: user.id,
-    tokenHash,
-    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
-  });
-  sendMail(passwordResetMail(user.email, user.name, token)).catch((error: unknown) => {
-    logger().error({ err: error }, 'password reset e-mail failed');
-  });
+  await queueMail({ kind: 'password-reset', email: input.email });
 }
 
 /** Sets a new password from a single-use, unexpired token; ends every other session. */
