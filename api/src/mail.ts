@@ -115,3 +115,26 @@ export function accountExistsMail(to: string, name: string): MailMessage {
       `<p>If this was not you, you can ignore this e-mail.</p>`,
   };
 }
+
+/** To an address invited by one firm while it has an account in another (one address, one firm). */
+export function invitedElsewhereMail(
+  to: string,
+  name: string,
+  firmName: string,
+  inviterName: string,
+): MailMessage {
+  return {
+    to,
+    subject: `${firmName} invited you to Basinwright`,
+    text:
+      `Hello ${name},\n\n${inviterName} invited this address to join ${firmName} on Basinwright. ` +
+      `This address already belongs to an account in another firm, and an address can belong to one firm only, ` +
+      `so the invitation cannot be accepted with it. If you want to join ${firmName}, ask ${inviterName} to invite another address.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>${escapeHtml(inviterName)} invited this address to join <strong>${escapeHtml(firmName)}</strong> on Basinwright. ` +
+      `This address already belongs to an account in another firm, and an address can belong to one firm only, ` +
+      `so the invitation cannot be accepted with it.</p>` +
+      `<p>If you want to join ${escapeHtml(firmName)}, ask ${escapeHtml(inviterName)} to invite another address.</p>`,
+  };
+}
