@@ -16,6 +16,7 @@ async function main(): Promise<void> {
   const { createApp } = await import('./app');
   const { createMigrator } = await import('./db/umzug');
   const { closeMail } = await import('./mail');
+  const { closeComputePool, computePool } = await import('./modules/calc/calc.pool');
   const { logger } = await import('./logger');
   const log = logger();
 
@@ -33,6 +34,7 @@ async function main(): Promise<void> {
   }
 
   const app = createApp();
+  computePool(); // start the engine's worker threads now, not on the first calculation
   const server = app.listen(config.port, config.host);
   server.on('error', (error) => {
     console.error(`server: cannot listen on ${config.host}:${config.port} — ${error.message}`);
@@ -53,8 +55,7 @@ async function main(): Promise<void> {
     force.unref();
     server.close(() => {
       closeMail();
-      sequelize
-        .close()
+      Promise.all([closeComputePool(), sequelize.close()])
         .then(() => process.exit(0))
         .catch(() => process.exit(1));
     });

@@ -140,6 +140,7 @@ export async function startApi(): Promise<ApiHarness> {
   const models = await import('../../api/src/models');
   const { issueToken } = await import('../../api/src/modules/auth/auth.tokens');
   const { closeMail } = await import('../../api/src/mail');
+  const { closeComputePool } = await import('../../api/src/modules/calc/calc.pool');
   const app = createApp();
 
   return {
@@ -162,6 +163,7 @@ export async function startApi(): Promise<ApiHarness> {
     },
     async close() {
       closeMail();
+      await closeComputePool();
       await capture.close();
       await models.sequelize.close();
     },
