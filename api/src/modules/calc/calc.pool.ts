@@ -87,9 +87,10 @@ export class ComputePool {
    */
   async run<K extends ComputeTask['kind']>(
     task: Extract<ComputeTask, { kind: K }>,
+    budgetMs = this.options.budgetMs,
   ): Promise<ComputeResults[K]> {
     const budget = new AbortController();
-    const timer = setTimeout(() => budget.abort(), this.options.budgetMs);
+    const timer = setTimeout(() => budget.abort(), budgetMs);
     this.inFlight += 1;
     let reply: ComputeReply;
     try {
@@ -98,7 +99,7 @@ export class ComputePool {
       if (budget.signal.aborted)
         throw tooLarge(
           task,
-          `The calculation took longer than ${this.options.budgetMs / 1000} s, the most one request may use`,
+          `The calculation took longer than ${budgetMs / 1000} s, the most one request may use`,
         );
       const code = (error as { code?: unknown } | null)?.code;
       if (code === 'ERR_WORKER_OUT_OF_MEMORY')
