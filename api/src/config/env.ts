@@ -36,6 +36,8 @@ export interface ComputeConfig {
   queueMax: number;
   /** heap of one worker thread (V8 old generation), MB: a runaway calculation ends there */
   memoryMb: number;
+  /** nice increment of the worker threads (Linux): request handling wins the CPU over engine work */
+  nice: number;
 }
 
 export class ConfigError extends Error {
@@ -175,6 +177,7 @@ export function loadConfig(env: Env): Config {
     budgetMs: readInt(env, 'CALC_TIME_BUDGET_MS', 20_000, 50, 600_000, problems),
     queueMax: readInt(env, 'CALC_QUEUE_MAX', 64, 1, 100_000, problems),
     memoryMb: readInt(env, 'CALC_WORKER_MEMORY_MB', 512, 64, 16_384, problems),
+    nice: readInt(env, 'CALC_NICE', 10, 0, 19, problems),
   };
 
   const config: Config = {

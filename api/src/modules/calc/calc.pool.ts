@@ -72,6 +72,8 @@ export class ComputePool {
       // Idle workers beyond the first are let go after a minute; starting one costs ~1 s.
       idleTimeout: 60_000,
       resourceLimits: { maxOldGenerationSizeMb: options.memoryMb },
+      // Engine work yields the CPU to the event loop (Linux thread priority, via @napi-rs/nice).
+      niceIncrement: options.nice,
     });
   }
 
