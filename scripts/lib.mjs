@@ -425,7 +425,7 @@ export class Supervisor {
       this.delayMs = Math.min(this.maxDelayMs, this.delayMs * 2);
       this.restarts += 1;
       this.say(
-        `${this.name} ${exitReason(code, signal)}; restarting it in ${(delay / 1000).toFixed(1)} s (restart ${this.restarts})`,
+        `${this.name} ${exitReason(code, signal)}; restarting it in ${delay < 1000 ? `${delay} ms` : `${(delay / 1000).toFixed(1)} s`} (restart ${this.restarts})`,
       );
       this.timer = setTimeout(() => {
         this.timer = null;

@@ -174,7 +174,7 @@ export function loadConfig(env: Env): Config {
 
   const compute: ComputeConfig = {
     threads: readInt(env, 'CALC_THREADS', 2, 1, 64, problems),
-    budgetMs: readInt(env, 'CALC_TIME_BUDGET_MS', 20_000, 50, 600_000, problems),
+    budgetMs: readInt(env, 'CALC_TIME_BUDGET_MS', 30_000, 50, 600_000, problems),
     queueMax: readInt(env, 'CALC_QUEUE_MAX', 64, 1, 100_000, problems),
     memoryMb: readInt(env, 'CALC_WORKER_MEMORY_MB', 512, 64, 16_384, problems),
     nice: readInt(env, 'CALC_NICE', 10, 0, 19, problems),
