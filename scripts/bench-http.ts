@@ -1,12 +1,18 @@
 // HTTP throughput of POST /api/v1/calc/jump against a bare JSON route, served from the same
-// process in the same run; load comes from a separate process (scripts/bench-load.mjs).
+// process in the same run, and /health latency while a 5,000-discharge study runs in the
+// compute pool against idle; load comes from a separate process (scripts/bench-load.mjs).
+// Every figure is recorded (scripts/bench-results.ts) for bench.mjs's summary and JSON file.
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import type { AddressInfo } from 'node:net';
 import express from 'express';
+import { ENGINE_LIMITS, type StudyInput } from '@basinwright/common';
 import { createApp } from '../api/src/app';
 import { sequelize } from '../api/src/db/sequelize';
 import { calcRouter } from '../api/src/modules/calc/calc.routes';
+import { closeComputePool, computePool } from '../api/src/modules/calc/calc.pool';
+import { fenwickDesign } from '../seed/designs';
+import { record } from './bench-results';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
@@ -26,7 +32,21 @@ function listen(app: express.Express): Promise<{ url: string; close: () => Promi
 const execFileAsync = promisify(execFile);
 
 // Asynchronous on purpose: the servers under load run on this process's event loop.
-async function load(url: string, method: string, body: unknown, headers: Record<string, string>) {
+interface LoadResult {
+  ok: number;
+  bad: number;
+  rps: number;
+  p50: number;
+  p99: number;
+  max: number;
+}
+async function load(
+  url: string,
+  method: string,
+  body: unknown,
+  headers: Record<string, string>,
+  concurrency = CONCURRENCY,
+): Promise<LoadResult> {
   const { stdout: out } = await execFileAsync(
     process.execPath,
     [
@@ -36,11 +56,11 @@ async function load(url: string, method: string, body: unknown, headers: Record<
       body === undefined ? '-' : JSON.stringify(body),
       JSON.stringify(headers),
       String(SECONDS),
-      String(CONCURRENCY),
+      String(concurrency),
     ],
     { encoding: 'utf8' },
   );
-  return JSON.parse(out.trim()) as { ok: number; bad: number; rps: number };
+  return JSON.parse(out.trim()) as LoadResult;
 }
 
 const bare = express();
@@ -149,7 +169,118 @@ console.log(
 console.log(
   `calc/jump ÷ plain Express route        = ${ratioOf('plain').toFixed(3)} (for reference)`,
 );
+const how = `medians of ${ROUNDS} alternating rounds of ${SECONDS} s, ${CONCURRENCY} connections`;
+record({
+  name: 'http.bare.plainExpress',
+  label: 'bare route, plain Express',
+  value: median(rps.plain),
+  unit: 'req/s',
+  note: how,
+});
+record({
+  name: 'http.bare.appStack',
+  label: "bare route behind the app's stack",
+  value: median(rps.stack),
+  unit: 'req/s',
+  note: how,
+});
+record({
+  name: 'http.calcJump',
+  label: 'POST /calc/jump',
+  value: median(rps.jump),
+  unit: 'req/s',
+  note: how,
+});
+record({
+  name: 'ratio.calcJump.vsBareRoute',
+  label: 'calc/jump ÷ bare route in the same app',
+  value: target,
+  unit: 'ratio',
+  target: { op: '>=', value: 0.6 },
+  note: how,
+});
 
+// /health while a 5,000-discharge study runs in the compute pool, against /health idle.
+// A study is kept running through the whole window (a new one starts as one ends); health is
+// loaded by a few connections so the figure is latency, not a saturated queue.
+const HEALTH_CONCURRENCY = Number(process.env.BENCH_HEALTH_CONCURRENCY ?? 4);
+const longStudy: StudyInput = {
+  ...fenwickDesign,
+  discharges: { kind: 'range', min: 5, max: 85, count: ENGINE_LIMITS.maxDischarges },
+};
+const postStudy = async (): Promise<{ status: number; ms: number }> => {
+  const t0 = performance.now();
+  const res = await fetch(`${real.url}/api/v1/calc/study`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', ...auth },
+    body: JSON.stringify(longStudy),
+  });
+  await res.arrayBuffer();
+  return { status: res.status, ms: performance.now() - t0 };
+};
+const healthLoad = () =>
+  load(`${real.url}/api/v1/health`, 'GET', undefined, {}, HEALTH_CONCURRENCY);
+const warm = await postStudy(); // starts the worker and warms the engine
+if (warm.status !== 200) throw new Error(`the 5,000-discharge study answered ${warm.status}`);
+await healthLoad();
+const idleP99: number[] = [];
+const busyP99: number[] = [];
+const studyMs: number[] = [];
+for (let round = 0; round < ROUNDS; round += 1) {
+  idleP99.push((await healthLoad()).p99);
+  let studying = true;
+  const loop = (async () => {
+    while (studying) {
+      const r = await postStudy();
+      if (r.status !== 200) throw new Error(`the 5,000-discharge study answered ${r.status}`);
+      studyMs.push(r.ms);
+    }
+  })();
+  while (computePool().pending === 0) await new Promise((r) => setTimeout(r, 5));
+  const busy = await healthLoad();
+  studying = false;
+  await loop;
+  busyP99.push(busy.p99);
+  errors += busy.bad;
+}
+const healthRatio = median(busyP99.map((b, i) => b / (idleP99[i] ?? NaN)));
+const howHealth = `medians of ${ROUNDS} rounds of ${SECONDS} s, ${HEALTH_CONCURRENCY} connections`;
+console.log(`/health p99 idle:                              ${median(idleP99).toFixed(2)} ms`);
+console.log(`/health p99 while a 5,000-discharge study runs: ${median(busyP99).toFixed(2)} ms`);
+console.log(`(one 5,000-discharge study through the API: ${median(studyMs).toFixed(0)} ms)`);
+console.log(
+  `/health p99 during the study ÷ idle = ${healthRatio.toFixed(3)} (target ≤ 2) ${healthRatio <= 2 ? 'MET' : 'NOT MET'}`,
+);
+record({
+  name: 'http.health.p99.idle',
+  label: '/health p99, idle',
+  value: median(idleP99),
+  unit: 'ms',
+  note: howHealth,
+});
+record({
+  name: 'http.health.p99.duringStudy',
+  label: '/health p99 while a 5,000-discharge study runs',
+  value: median(busyP99),
+  unit: 'ms',
+  note: howHealth,
+});
+record({
+  name: 'http.study5000',
+  label: 'one 5,000-discharge study through the API',
+  value: median(studyMs),
+  unit: 'ms',
+});
+record({
+  name: 'ratio.healthP99.duringStudy.vsIdle',
+  label: '/health p99 during a 5,000-discharge study ÷ idle',
+  value: healthRatio,
+  unit: 'ratio',
+  target: { op: '<=', value: 2 },
+  note: howHealth,
+});
+
+await closeComputePool();
 await real.close();
 await plain.close();
 await sequelize.close();

@@ -17,6 +17,7 @@ async function main(): Promise<void> {
   const { createMigrator } = await import('./db/umzug');
   const { closeMail } = await import('./mail');
   const { startMailWorker, stopJobs } = await import('./jobs');
+  const { closeComputePool, computePool } = await import('./modules/calc/calc.pool');
   const { logger } = await import('./logger');
   const log = logger();
 
@@ -38,6 +39,7 @@ async function main(): Promise<void> {
   startMailWorker().catch((error: unknown) => log.error({ err: error }, 'mail worker not started'));
 
   const app = createApp();
+  computePool(); // start the engine's worker threads now, not on the first calculation
   const server = app.listen(config.port, config.host);
   server.on('error', (error) => {
     console.error(`server: cannot listen on ${config.host}:${config.port} — ${error.message}`);
@@ -58,8 +60,7 @@ async function main(): Promise<void> {
     force.unref();
     server.close(() => {
       closeMail();
-      stopJobs()
-        .catch(() => undefined)
+      Promise.all([closeComputePool(), stopJobs().catch(() => undefined)])
         .then(() => sequelize.close())
         .then(() => process.exit(0))
         .catch(() => process.exit(1));

@@ -141,6 +141,7 @@ export async function startApi(): Promise<ApiHarness> {
   const { issueToken } = await import('../../api/src/modules/auth/auth.tokens');
   const { closeMail } = await import('../../api/src/mail');
   const { stopJobs } = await import('../../api/src/jobs');
+  const { closeComputePool } = await import('../../api/src/modules/calc/calc.pool');
   const app = createApp();
 
   return {
@@ -164,6 +165,7 @@ export async function startApi(): Promise<ApiHarness> {
     async close() {
       await stopJobs();
       closeMail();
+      await closeComputePool();
       await capture.close();
       await models.sequelize.close();
     },

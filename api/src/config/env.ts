@@ -23,6 +23,21 @@ export interface Config {
   /** Express 'trust proxy' setting. */
   trustProxy: boolean | number | string;
   migrateOnStart: boolean;
+  /** The worker-thread pool that runs the engine off the event loop (calc.pool.ts). */
+  compute: ComputeConfig;
+}
+
+export interface ComputeConfig {
+  /** worker threads running engine work at once */
+  threads: number;
+  /** wall time one calculation may take, queue included, before it is stopped with a 422 */
+  budgetMs: number;
+  /** calculations waiting for a thread beyond which new ones are answered 503 */
+  queueMax: number;
+  /** heap of one worker thread (V8 old generation), MB: a runaway calculation ends there */
+  memoryMb: number;
+  /** nice increment of the worker threads (Linux): request handling wins the CPU over engine work */
+  nice: number;
 }
 
 export class ConfigError extends Error {
@@ -157,6 +172,14 @@ export function loadConfig(env: Env): Config {
   if ((LOG_LEVELS as readonly string[]).includes(logLevelRaw)) logLevel = logLevelRaw as LogLevel;
   else problems.push(`LOG_LEVEL must be one of ${LOG_LEVELS.join(', ')} (got "${logLevelRaw}").`);
 
+  const compute: ComputeConfig = {
+    threads: readInt(env, 'CALC_THREADS', 2, 1, 64, problems),
+    budgetMs: readInt(env, 'CALC_TIME_BUDGET_MS', 30_000, 50, 600_000, problems),
+    queueMax: readInt(env, 'CALC_QUEUE_MAX', 64, 1, 100_000, problems),
+    memoryMb: readInt(env, 'CALC_WORKER_MEMORY_MB', 512, 64, 16_384, problems),
+    nice: readInt(env, 'CALC_NICE', 10, 0, 19, problems),
+  };
+
   const config: Config = {
     nodeEnv,
     host,
@@ -173,6 +196,7 @@ export function loadConfig(env: Env): Config {
     logLevel,
     trustProxy: readTrustProxy(env.TRUST_PROXY),
     migrateOnStart: env.MIGRATE_ON_START === '1' || env.MIGRATE_ON_START === 'true',
+    compute,
   };
   if (problems.length > 0) throw new ConfigError(problems);
   return config;

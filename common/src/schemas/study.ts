@@ -17,8 +17,12 @@ import type { JumpSituation } from '../hydraulics/profiles';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { StudyInput } from '../study';
+import { ENGINE_LIMITS } from './limits';
 
-export const MAX_STUDY_DISCHARGES = 5000;
+/** Discharges one study may analyse (ENGINE_LIMITS.maxDischarges, the reason there). */
+export const MAX_STUDY_DISCHARGES = ENGINE_LIMITS.maxDischarges;
+const MAX_TABLE_ROWS = ENGINE_LIMITS.maxTableRows;
+const { manningN: N_RANGE, contractionCoefficient: CC_RANGE } = ENGINE_LIMITS;
 
 const cap = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
 const num = (label: string) =>
@@ -94,8 +98,8 @@ const reach = (label: string) =>
       .max(1, `The ${label} slope must not exceed 1 (45°).`)
       .required(`Enter the ${label} slope.`),
     manningN: num(`the ${label} Manning's n`)
-      .min(0.005, "Manning's n must be at least 0.005.")
-      .max(0.2, "Manning's n must not exceed 0.2.")
+      .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+      .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
       .required(`Enter the ${label} Manning's n.`),
   }).required(`Enter the ${label} reach.`);
 const slope = num('the bed slope')
@@ -103,8 +107,8 @@ const slope = num('the bed slope')
   .max(1, 'The bed slope must not exceed 1 (45°).')
   .required('Enter the bed slope.');
 const manningN = num("Manning's n")
-  .min(0.005, "Manning's n must be at least 0.005.")
-  .max(0.2, "Manning's n must not exceed 0.2.")
+  .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+  .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
   .required("Enter Manning's n.");
 const optionalPositive = (label: string) =>
   num(label)
@@ -127,8 +131,8 @@ export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the si
     Q: positive('the discharge Q'),
     opening: positive('the gate opening'),
     Cc: num('the contraction coefficient')
-      .min(0.5, 'The contraction coefficient must be at least 0.5.')
-      .max(1, 'The contraction coefficient must not exceed 1.')
+      .min(CC_RANGE.min, `The contraction coefficient must be at least ${CC_RANGE.min}.`)
+      .max(CC_RANGE.max, `The contraction coefficient must not exceed ${CC_RANGE.max}.`)
       .required('Enter the contraction coefficient.'),
     slope,
     manningN,
@@ -143,8 +147,8 @@ export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the si
     upstreamDepth: optionalPositive('the depth upstream of the gate'),
     opening: optionalPositive('the gate opening'),
     Cc: num('the contraction coefficient')
-      .min(0.5, 'The contraction coefficient must be at least 0.5.')
-      .max(1, 'The contraction coefficient must not exceed 1.')
+      .min(CC_RANGE.min, `The contraction coefficient must be at least ${CC_RANGE.min}.`)
+      .max(CC_RANGE.max, `The contraction coefficient must not exceed ${CC_RANGE.max}.`)
       .optional(),
   }),
   weirToMildSlope: object({
@@ -188,7 +192,7 @@ const lossModelOptional = byKind('kind', 'the loss allowance', LOSS_MODELS, true
 const qElevationRows = (label: string) =>
   array(object({ Q: positive('Q'), elevation: elevation('the elevation') }))
     .min(2, `The ${label} needs at least two rows.`)
-    .max(MAX_STUDY_DISCHARGES, `The ${label} has at most ${MAX_STUDY_DISCHARGES} rows.`)
+    .max(MAX_TABLE_ROWS, `The ${label} has at most ${MAX_TABLE_ROWS} rows.`)
     .test(
       'increasing',
       `Discharges in the ${label} must increase from row to row.`,
@@ -200,8 +204,8 @@ const manningChannel = {
   section: sectionSchema,
   slope: positive('the channel slope'),
   manningN: num("Manning's n")
-    .min(0.005, "Manning's n must be at least 0.005.")
-    .max(0.2, "Manning's n must not exceed 0.2.")
+    .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+    .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
     .required("Enter Manning's n."),
 };
 
@@ -212,6 +216,7 @@ const inflowSchema = byKind('kind', 'the inflow type', {
     headwater: byKind('kind', 'the headwater rating', {
       weir: object({
         kind: string().required(),
+        // Its range depends on the units (m^0.5/s or ft^0.5/s): checked with the whole input.
         C: positive('the weir coefficient C'),
         L: positive('the crest length L'),
       }),
@@ -225,8 +230,8 @@ const inflowSchema = byKind('kind', 'the inflow type', {
   gate: object({
     kind: string().required(),
     Cc: num('Cc')
-      .min(0.3, 'Cc must be at least 0.3.')
-      .max(1, 'Cc must not exceed 1.')
+      .min(CC_RANGE.min, `Cc must be at least ${CC_RANGE.min}.`)
+      .max(CC_RANGE.max, `Cc must not exceed ${CC_RANGE.max}.`)
       .required('Enter the contraction coefficient Cc.'),
     opening: num('the gate opening')
       .positive('The gate opening must be greater than zero.')
@@ -256,7 +261,7 @@ const inflowSchema = byKind('kind', 'the inflow type', {
           }),
         )
           .min(2, 'The outlet table needs at least two rows.')
-          .max(MAX_STUDY_DISCHARGES, `The outlet table has at most ${MAX_STUDY_DISCHARGES} rows.`)
+          .max(MAX_TABLE_ROWS, `The outlet table has at most ${MAX_TABLE_ROWS} rows.`)
           .required('Enter the outlet table.'),
       }),
       barrel: object({ kind: string().required(), ...manningChannel }),
@@ -425,7 +430,14 @@ export const studyInputSchema = object({
     .oneOf(['SI', 'US'], 'Choose SI or US customary units.')
     .required('Choose the units.'),
   channelBedElevation: elevation('the channel bed elevation'),
-  basinWidth: positive('the basin width'),
+  basinWidth: positive('the basin width').when('units', ([units], schema) => {
+    const max = ENGINE_LIMITS.maxBasinWidth[units === 'US' ? 'US' : 'SI'];
+    const unit = units === 'US' ? 'ft' : 'm';
+    return schema.max(
+      max,
+      `The basin width must not exceed ${max} ${unit}: wider basins are beyond what one study computes.`,
+    );
+  }),
   designDischarge: positive('the design discharge'),
   discharges: dischargesSchema,
   tailwater: tailwaterSchema,
@@ -440,13 +452,26 @@ export const studyInputSchema = object({
     .max(1, 'The submergence tolerance must not exceed 1.')
     .optional(),
   floorManningN: num("the floor's Manning's n")
-    .min(0.005, "Manning's n must be at least 0.005.")
-    .max(0.2, "Manning's n must not exceed 0.2.")
+    .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+    .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
     .optional(),
   jumpLengthMethod: string()
     .oneOf(['usbr', 'hager'], 'The jump length method must be usbr or hager.')
     .optional(),
   dissipators: dissipatorOptionsSchema,
+}).test('weir-coefficient', (input, ctx) => {
+  // The weir coefficient's range is in the units of the input (ENGINE_LIMITS.weirCoefficient).
+  const inflow = input?.inflow as { headwater?: { kind?: unknown; C?: unknown } } | undefined;
+  const C = inflow?.headwater?.kind === 'weir' ? inflow.headwater.C : undefined;
+  if (typeof C !== 'number') return true;
+  const units = input.units === 'US' ? 'US' : 'SI';
+  const { min, max } = ENGINE_LIMITS.weirCoefficient[units];
+  if (C >= min && C <= max) return true;
+  const unit = units === 'US' ? 'ft^0.5/s' : 'm^0.5/s';
+  return ctx.createError({
+    path: 'inflow.headwater.C',
+    message: `The weir coefficient C must lie between ${min} and ${max} ${unit}.`,
+  });
 }) as unknown as ObjectSchema<StudyInput>;
 
 /** Narrow type guard for code that validated with studyInputSchema. */

@@ -1,5 +1,6 @@
-import { runStudy, toSI, type DesignSaveInput } from '@basinwright/common';
-import { fromEngineError, validationError } from '../../errors';
+import type { DesignSaveInput } from '@basinwright/common';
+import { validationError } from '../../errors';
+import { calculateStudy } from '../calc/calc.service';
 import { Design, Project, sequelize, User } from '../../models';
 import { getProject } from '../projects/projects.service';
 
@@ -28,11 +29,8 @@ export async function saveDesign(
       `The design must use the project's units (${project.units}).`,
     );
   }
-  try {
-    runStudy(toSI(body.input));
-  } catch (error) {
-    throw fromEngineError(error, 'input', project.units);
-  }
+  // In the compute pool, off the event loop, within the time budget (calc.pool.ts).
+  await calculateStudy(body.input, 'input');
   const id = await sequelize.transaction(async (transaction) => {
     const existing = await Design.findOne({
       where: { firmId, projectId },
