@@ -1,6 +1,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import {
   ConnectionError,
+  DatabaseError,
   UniqueConstraintError,
   ValidationError as SequelizeValidationError,
 } from 'sequelize';
@@ -24,6 +25,22 @@ function bodyParserError(error: unknown): { type: string; status: number } | nul
   return typeof type === 'string' && typeof status === 'number' ? { type, status } : null;
 }
 
+/**
+ * The database went away under a running query: PostgreSQL shutting down or restarting
+ * (SQLSTATE class 57P: admin_shutdown, crash_shutdown, cannot_connect_now), a connection
+ * exception (class 08), or the socket closing mid-query. Like a refused connection, a 503.
+ */
+function databaseGoneAway(error: unknown): boolean {
+  if (!(error instanceof DatabaseError)) return false;
+  const parent = error.parent as Error & { code?: unknown };
+  const code = typeof parent.code === 'string' ? parent.code : '';
+  return (
+    code.startsWith('57P') ||
+    code.startsWith('08') ||
+    /^Connection terminated/i.test(parent.message)
+  );
+}
+
 /** Maps anything thrown to the one error shape; unknown errors become a 500. */
 export function toApiError(error: unknown): ApiError {
   if (error instanceof ApiError) return error;
@@ -44,7 +61,7 @@ export function toApiError(error: unknown): ApiError {
     for (const item of error.errors) details[item.path ?? 'body'] ??= item.message;
     return validationError(details);
   }
-  if (error instanceof ConnectionError)
+  if (error instanceof ConnectionError || databaseGoneAway(error))
     return serviceUnavailable('The database is not reachable. Try again shortly.');
   const message =
     getConfig().nodeEnv === 'production' || !(error instanceof Error)
