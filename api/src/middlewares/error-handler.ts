@@ -28,7 +28,8 @@ function bodyParserError(error: unknown): { type: string; status: number } | nul
 /**
  * The database went away under a running query: PostgreSQL shutting down or restarting
  * (SQLSTATE class 57P: admin_shutdown, crash_shutdown, cannot_connect_now), a connection
- * exception (class 08), or the socket closing mid-query. Like a refused connection, a 503.
+ * exception (class 08), or the socket closing or already closed by the driver (`pg`'s own
+ * messages). Like a refused connection, a 503.
  */
 function databaseGoneAway(error: unknown): boolean {
   if (!(error instanceof DatabaseError)) return false;
@@ -37,7 +38,8 @@ function databaseGoneAway(error: unknown): boolean {
   return (
     code.startsWith('57P') ||
     code.startsWith('08') ||
-    /^Connection terminated/i.test(parent.message)
+    ['ECONNRESET', 'EPIPE', 'ECONNREFUSED'].includes(code) ||
+    /^Connection terminated|is not queryable/i.test(parent.message)
   );
 }
 
