@@ -19,6 +19,7 @@ async function main(): Promise<void> {
   const { startMailWorker, stopJobs } = await import('./jobs');
   const { closeComputePool, computePool } = await import('./modules/calc/calc.pool');
   const { logger } = await import('./logger');
+  const { readDurability, weakDurability } = await import('./db/durability');
   const log = logger();
 
   try {
@@ -29,6 +30,15 @@ async function main(): Promise<void> {
     );
     process.exit(1);
   }
+  // What a committed write survives is the database's business; say at start what it is.
+  const durability = await readDurability(sequelize);
+  const weak = weakDurability(durability);
+  if (weak.length === 0) log.info({ durability }, 'database durability settings');
+  else
+    log.warn(
+      { durability },
+      `database durability settings: ${weak.join(', ')} off — acknowledged writes can be lost in a crash`,
+    );
   if (config.migrateOnStart) {
     const applied = await createMigrator(sequelize).up();
     for (const migration of applied) log.info({ migration: migration.name }, 'migration applied');

@@ -10,6 +10,8 @@ export interface Config {
   host: string;
   port: number;
   databaseUrl: string;
+  /** Most connections one process holds open to PostgreSQL (DATABASE_POOL_MAX). */
+  databasePoolMax: number;
   jwtSecret: string;
   /** jsonwebtoken `expiresIn`: seconds or a vercel/ms string such as '8h'. */
   jwtTtl: string | number;
@@ -59,6 +61,8 @@ const LOG_LEVELS: readonly LogLevel[] = [
   'silent',
 ];
 const JWT_SECRET_MIN_LENGTH = 32;
+const POOL_MAX_DEFAULT = 10;
+const POOL_MAX_LIMIT = 100;
 
 function blank(value: string | undefined): value is undefined {
   return value === undefined || value.trim() === '';
@@ -91,6 +95,10 @@ function readInt(
     return fallback;
   }
   return value;
+}
+
+function readPoolMax(env: Env, problems: string[]): number {
+  return readInt(env, 'DATABASE_POOL_MAX', POOL_MAX_DEFAULT, 1, POOL_MAX_LIMIT, problems);
 }
 
 function readJwtSecret(env: Env, problems: string[]): string {
@@ -132,9 +140,23 @@ export function loadConfig(env: Env): Config {
     nodeEnv = nodeEnvRaw;
   else problems.push(`NODE_ENV must be development, test or production (got "${nodeEnvRaw}").`);
 
+  const production = nodeEnv === 'production';
+  // In production nothing that reaches the outside world is guessed: mail and the address in
+  // e-mailed links must be given, as must the secret and the database (required everywhere).
+  if (production) {
+    for (const [name, what] of [
+      ['SMTP_HOST', 'the mail server that sends password resets and invitations'],
+      ['SMTP_PORT', "the mail server's port"],
+      ['APP_URL', 'the public address used in e-mailed links'],
+    ] as const) {
+      if (blank(env[name])) problems.push(`${name} is required in production (${what}).`);
+    }
+  }
+
   const host = blank(env.HOST) ? '127.0.0.1' : env.HOST.trim();
   const port = readInt(env, 'PORT', 8080, 0, 65535, problems);
   const databaseUrl = readDatabaseUrl(env, problems);
+  const databasePoolMax = readPoolMax(env, problems);
   const jwtSecret = readJwtSecret(env, problems);
 
   let jwtTtl: string | number = '8h';
@@ -185,6 +207,7 @@ export function loadConfig(env: Env): Config {
     host,
     port,
     databaseUrl,
+    databasePoolMax,
     jwtSecret,
     jwtTtl,
     bcryptCost,
@@ -219,6 +242,14 @@ export function getDatabaseUrl(): string {
   const url = readDatabaseUrl(process.env, problems);
   if (problems.length > 0) throw new ConfigError(problems);
   return url;
+}
+
+/** Only the pool size, for the connection pool (which the migration CLI shares). */
+export function getDatabasePoolMax(): number {
+  const problems: string[] = [];
+  const max = readPoolMax(process.env, problems);
+  if (problems.length > 0) throw new ConfigError(problems);
+  return max;
 }
 
 /** Log level for processes that only need a logger (CLIs); same rule as getConfig(). */

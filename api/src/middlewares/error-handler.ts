@@ -1,6 +1,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import {
   ConnectionError,
+  DatabaseError,
   UniqueConstraintError,
   ValidationError as SequelizeValidationError,
 } from 'sequelize';
@@ -22,6 +23,24 @@ function bodyParserError(error: unknown): { type: string; status: number } | nul
   if (typeof error !== 'object' || error === null) return null;
   const { type, status } = error as { type?: unknown; status?: unknown };
   return typeof type === 'string' && typeof status === 'number' ? { type, status } : null;
+}
+
+/**
+ * The database went away under a running query: PostgreSQL shutting down or restarting
+ * (SQLSTATE class 57P: admin_shutdown, crash_shutdown, cannot_connect_now), a connection
+ * exception (class 08), or the socket closing or already closed by the driver (`pg`'s own
+ * messages). Like a refused connection, a 503.
+ */
+function databaseGoneAway(error: unknown): boolean {
+  if (!(error instanceof DatabaseError)) return false;
+  const parent = error.parent as Error & { code?: unknown };
+  const code = typeof parent.code === 'string' ? parent.code : '';
+  return (
+    code.startsWith('57P') ||
+    code.startsWith('08') ||
+    ['ECONNRESET', 'EPIPE', 'ECONNREFUSED'].includes(code) ||
+    /^Connection terminated|is not queryable/i.test(parent.message)
+  );
 }
 
 /** Maps anything thrown to the one error shape; unknown errors become a 500. */
@@ -47,7 +66,7 @@ export function toApiError(error: unknown): ApiError {
     for (const item of error.errors) details[item.path ?? 'body'] ??= item.message;
     return validationError(details);
   }
-  if (error instanceof ConnectionError)
+  if (error instanceof ConnectionError || databaseGoneAway(error))
     return serviceUnavailable('The database is not reachable. Try again shortly.');
   const message =
     getConfig().nodeEnv === 'production' || !(error instanceof Error)
