@@ -1,4 +1,11 @@
-import { runStudy, toSI, type DesignSaveInput } from '@basinwright/common';
+import {
+  ENGINE_VERSION,
+  runStudy,
+  toSI,
+  type DesignSaveInput,
+  type StudyInput,
+  type StudyResult,
+} from '@basinwright/common';
 import { fromEngineError, validationError } from '../../errors';
 import { Design, Project, sequelize, User } from '../../models';
 import { getProject } from '../projects/projects.service';
@@ -11,8 +18,20 @@ export async function getDesign(firmId: string, projectId: string): Promise<Desi
   return Design.findOne({ where: { firmId, projectId }, include: [updatedBy] });
 }
 
+/** What a saved design keeps of its study: the result (SI), the engine version and the time. */
+export interface StoredStudy {
+  result: StudyResult;
+  engineVersion: string;
+  computedAt: Date;
+}
+
+/** Runs the study on an input in its own units; throws the engine's error unchanged. */
+export function computeStoredStudy(input: StudyInput): StoredStudy {
+  return { result: runStudy(toSI(input)), engineVersion: ENGINE_VERSION, computedAt: new Date() };
+}
+
 /**
- * Saves the design after running the study on it: input the engine cannot compute (a floor it
+ * Saves the design after running the study on it, and keeps the result: input the engine cannot compute (a floor it
  * cannot find, a subcritical toe) is the engineer's to fix, so it answers 422 and nothing is saved.
  */
 export async function saveDesign(
@@ -28,8 +47,9 @@ export async function saveDesign(
       `The design must use the project's units (${project.units}).`,
     );
   }
+  let study: StoredStudy;
   try {
-    runStudy(toSI(body.input));
+    study = computeStoredStudy(body.input);
   } catch (error) {
     throw fromEngineError(error, 'input', project.units);
   }
@@ -39,7 +59,12 @@ export async function saveDesign(
       transaction,
       lock: true,
     });
-    const values = { input: body.input, options: body.options ?? null, updatedById: userId };
+    const values = {
+      input: body.input,
+      options: body.options ?? null,
+      updatedById: userId,
+      ...study,
+    };
     const saved = existing
       ? await existing.update(values, { transaction })
       : await Design.create({ firmId, projectId, ...values }, { transaction });
