@@ -131,6 +131,20 @@ describe('the study worker client', () => {
     expect(made).toHaveLength(1);
   });
 
+  it('cancel ends a busy worker only; the next run starts a fresh one', async () => {
+    const { made, spawn } = fakes();
+    const client = createStudyClient({ spawn, evaluate: inThread });
+    client.cancel(); // idle: nothing to end
+    const p = client.run(req('x'));
+    client.cancel();
+    expect(await p).toBeNull();
+    expect(made[0]!.terminated).toBe(true);
+    const q = client.run(req('y'));
+    expect(made).toHaveLength(2);
+    made[1]!.answer(made[1]!.posted[0]!.id, outcome('y'));
+    expect(await q).toEqual(outcome('y'));
+  });
+
   it('dispose ends the worker and resolves the waiting run with null', async () => {
     const { made, spawn } = fakes();
     const client = createStudyClient({ spawn, evaluate: inThread });
@@ -148,18 +162,24 @@ describe('the study worker client', () => {
   });
 });
 
+/** useStudy on the demo design in a component, with the given worker and pause in typing. */
+function mountStudy(spawn: () => StudyPort, debounceMs: number) {
+  const source = ref<unknown>(fenwickDesign);
+  let api!: ReturnType<typeof useStudy>;
+  const Host = defineComponent({
+    setup() {
+      api = useStudy(source, ref(null), debounceMs, spawn);
+      return () => h('div');
+    },
+  });
+  const wrapper = mount(Host);
+  return { source, api, wrapper };
+}
+
 describe('useStudy through a worker', () => {
   it('shows only the newest input’s result; computing while the worker works', async () => {
     const { made, spawn } = fakes();
-    const source = ref<unknown>(fenwickDesign);
-    let api!: ReturnType<typeof useStudy>;
-    const Host = defineComponent({
-      setup() {
-        api = useStudy(source, ref(null), 0, spawn);
-        return () => h('div');
-      },
-    });
-    const wrapper = mount(Host);
+    const { source, api, wrapper } = mountStudy(spawn, 0);
     api.runNow();
     expect(api.computing.value).toBe(true);
     expect(api.pending.value).toBe(true);
@@ -176,5 +196,27 @@ describe('useStudy through a worker', () => {
     expect(api.pending.value).toBe(false);
     wrapper.unmount();
     expect(made[1]!.terminated).toBe(true);
+  });
+
+  it('typing again while the worker computes drops that run at once and keeps the last result', async () => {
+    const { made, spawn } = fakes();
+    const { source, api, wrapper } = mountStudy(spawn, 60_000);
+    api.runNow();
+    made[0]!.answerLast();
+    await vi.waitFor(() => expect(api.result.value?.input.basinWidth).toBe(12));
+    source.value = { ...fenwickDesign, basinWidth: 13 } satisfies StudyInput;
+    api.runNow();
+    expect(api.computing.value).toBe(true);
+    // a further change while the 13 m run computes: that run is ended before the pause is over
+    source.value = { ...fenwickDesign, basinWidth: 14 } satisfies StudyInput;
+    await nextTick();
+    expect(made).toHaveLength(1); // the idle worker took the 13 m run …
+    expect(made[0]!.terminated).toBe(true); // … and was ended when the input changed again
+    expect(api.computing.value).toBe(false);
+    expect(api.pending.value).toBe(true);
+    made[0]!.answerLast(); // too late: dropped
+    await nextTick();
+    expect(api.result.value?.input.basinWidth).toBe(12);
+    wrapper.unmount();
   });
 });

@@ -40,6 +40,11 @@ export interface StudyClient {
    * of the outcome, or of null when a newer request (or dispose) superseded this one.
    */
   run(request: StudyRequest): StudyOutcome | Promise<StudyOutcome | null>;
+  /**
+   * Abandons the run under way, if any (its input has changed): a busy worker is ended and the
+   * run resolves with null. The next run starts a fresh worker.
+   */
+  cancel(): void;
   /** Ends the worker; a run still waiting resolves with null. */
   dispose(): void;
 }
@@ -78,6 +83,13 @@ export function createStudyClient(options: {
     port = null;
   }
 
+  function cancel(): void {
+    if (!job) return;
+    stop();
+    job.resolve(null);
+    job = null;
+  }
+
   function start(make: () => StudyPort): StudyPort {
     const own = make();
     own.onmessage = (event) => {
@@ -105,12 +117,8 @@ export function createStudyClient(options: {
     },
     run(request) {
       if (failed || spawn === null) return evaluate(request);
-      if (job) {
-        // Busy with an older input: end that run rather than queue this one behind it.
-        stop();
-        job.resolve(null);
-        job = null;
-      }
+      // Busy with an older input: end that run rather than queue this one behind it.
+      cancel();
       const id = ++lastId;
       const target = port ?? start(spawn);
       port = target;
@@ -119,6 +127,7 @@ export function createStudyClient(options: {
         target.postMessage({ id, request: { ...request, raw: plainCopy(request.raw) } });
       });
     },
+    cancel,
     dispose() {
       stop();
       job?.resolve(null);

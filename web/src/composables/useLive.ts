@@ -34,6 +34,8 @@ export interface LiveResult<T> {
 export function useLiveResult<T>(
   evaluate: () => LiveOutcome<T> | Promise<LiveOutcome<T> | null>,
   debounceMs: number,
+  /** abandons an evaluation under way, called when the input changes again */
+  cancel: () => void = () => {},
 ): LiveResult<T> {
   const value = shallowRef<T | null>(null);
   const engineError = ref<string | null>(null);
@@ -76,6 +78,12 @@ export function useLiveResult<T>(
 
   function schedule(): void {
     clearTimeout(timer);
+    // The input changed: an answer still to come is for an older one. Drop it and stop its work.
+    if (computing.value) {
+      latest++;
+      computing.value = false;
+      cancel();
+    }
     pending.value = true;
     timer = setTimeout(runNow, debounceMs);
   }

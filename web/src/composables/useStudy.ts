@@ -143,10 +143,14 @@ export function useStudy(
     spawn,
     evaluate: (request) => evaluateStudy(request.raw, request.chosenType),
   });
-  const state = useLiveResult<StudyResult>(() => {
-    const out = client.run({ raw: source.value, chosenType: chosenType.value ?? null });
-    return out instanceof Promise ? out.then((o) => o && live(o)) : live(out);
-  }, debounceMs);
+  const state = useLiveResult<StudyResult>(
+    () => {
+      const out = client.run({ raw: source.value, chosenType: chosenType.value ?? null });
+      return out instanceof Promise ? out.then((o) => o && live(o)) : live(out);
+    },
+    debounceMs,
+    () => client.cancel(),
+  );
   onBeforeUnmount(() => client.dispose());
   watch(source, state.schedule, { deep: true });
   watch(chosenType, state.runNow);
