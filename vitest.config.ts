@@ -32,6 +32,10 @@ export default defineConfig({
           include: ['tests/web/**/*.test.ts'],
           environment: 'jsdom',
           setupFiles: ['tests/support/web-setup.ts'],
+          // CI is a busy 2-core machine: a component's first mount (antd styles, jsdom layout)
+          // has taken over vitest's 5 s default there. Tests wait for conditions, never time.
+          testTimeout: 30000,
+          hookTimeout: 30000,
         },
         resolve: {
           conditions: ['@basinwright/source', 'module', 'browser', 'development|production'],
@@ -44,6 +48,8 @@ export default defineConfig({
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
           fileParallelism: false,
+          // A whole browser walk per test, on the same busy machine; Playwright's own
+          // per-action wait is set in tests/support/e2e.ts.
           testTimeout: 120000,
           hookTimeout: 120000,
         },

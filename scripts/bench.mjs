@@ -1,7 +1,9 @@
 // `npm run bench`: speed targets, measured (never asserted in tests). Starts a throwaway
-// PostgreSQL like `npm test`, then runs the engine and HTTP benchmarks in one go. Each script
-// records its figures (scripts/bench-results.ts); at the end this prints every ratio against
-// its target and writes all figures to .bench/latest.json (and a dated copy) to compare runs.
+// PostgreSQL like `npm test`, then runs the engine and HTTP benchmarks, then the browser one
+// (the built app on a seeded database, in Chromium) in one go. Each script records its figures
+// (scripts/bench-results.ts); at the end this prints every ratio against its target and writes
+// all figures to .bench/latest.json (and a dated copy) to compare runs. `npm run bench --
+// engine` (or http, browser) runs only the ones named.
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -9,11 +11,16 @@ import path from 'node:path';
 import {
   PrivateCluster,
   ROOT,
+  buildWeb,
+  ensureChromium,
   ensureNodeModules,
   ensurePostgres,
   freePort,
   log,
   runTs,
+  startTs,
+  stopChild,
+  waitForHttp,
 } from './lib.mjs';
 
 /** Prints the ratios against their targets and writes every figure to .bench/. */
@@ -56,6 +63,8 @@ function report(resultsFile) {
   log(`all figures written to ${path.relative(ROOT, path.join(dir, 'latest.json'))}`);
 }
 
+const only = process.argv.slice(2);
+const wanted = (name) => only.length === 0 || only.includes(name);
 ensureNodeModules();
 const bin = ensurePostgres();
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-bench-'));
@@ -63,6 +72,7 @@ fs.chmodSync(tmp, 0o755); // the postgres user must reach its folders
 const cluster = new PrivateCluster({ dir: path.join(tmp, 'pg'), port: await freePort(), bin });
 const resultsFile = path.join(tmp, 'results.jsonl');
 let code = 0;
+let app;
 try {
   await cluster.start();
   cluster.ensureDatabase('bw_bench');
@@ -78,15 +88,41 @@ try {
     BENCH_RESULTS: resultsFile,
   };
   runTs('api/src/db/migrate.ts', env, { quiet: true });
-  log('engine benchmark');
-  runTs('scripts/bench-engine.ts', env);
-  log('HTTP benchmark');
-  runTs('scripts/bench-http.ts', env);
+  if (wanted('engine')) {
+    log('engine benchmark');
+    runTs('scripts/bench-engine.ts', env);
+  }
+  if (wanted('http')) {
+    log('HTTP benchmark');
+    runTs('scripts/bench-http.ts', env);
+  }
+  if (wanted('browser')) {
+    log('browser benchmark (Chromium, CPU 4× slower)');
+    const chromium = ensureChromium();
+    runTs('seed/run.ts', env, { quiet: true });
+    buildWeb();
+    const appPort = await freePort();
+    const appEnv = {
+      ...env,
+      HOST: '127.0.0.1',
+      PORT: String(appPort),
+      APP_URL: `http://127.0.0.1:${appPort}`,
+      WEB_DIST: path.join(ROOT, 'web', 'dist'),
+    };
+    app = startTs('api (bench)', 'api/src/server.ts', appEnv);
+    await waitForHttp(`http://127.0.0.1:${appPort}/api/v1/health`, 60000);
+    runTs('scripts/bench-browser.ts', {
+      ...appEnv,
+      E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
+      CHROMIUM_PATH: chromium,
+    });
+  }
   report(resultsFile);
 } catch (err) {
   code = 1;
   process.stderr.write(`bench failed: ${err instanceof Error ? err.message : String(err)}\n`);
 } finally {
+  await stopChild(app);
   cluster.stop();
   fs.rmSync(tmp, { recursive: true, force: true });
 }

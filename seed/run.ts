@@ -14,6 +14,7 @@ async function main(): Promise<number> {
   }
   const { Design, Firm, Project, sequelize, User } = await import('../api/src/models');
   const { hashPassword } = await import('../api/src/security');
+  const { computeStoredStudy } = await import('../api/src/modules/designs/designs.service');
   const added: string[] = [];
   try {
     // Hash outside the transaction (bcrypt is slow), only for members that are missing.
@@ -80,6 +81,8 @@ async function main(): Promise<number> {
             input: demo.input,
             options: null,
             updatedById: project.createdById,
+            // the result the server keeps on save, so the project page has figures to show
+            ...computeStoredStudy(demo.input),
           },
           { transaction },
         );

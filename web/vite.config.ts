@@ -26,6 +26,8 @@ export default defineConfig({
     proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
   },
   preview: { host: '127.0.0.1' },
+  // The study worker (src/workers/study.worker.ts) is a module worker: built as ES modules.
+  worker: { format: 'es' },
   build: {
     outDir: 'dist',
     emptyOutDir: true,

@@ -10,6 +10,8 @@ export * from './units';
 
 // The whole study: runStudy and its pieces (analyseRange, solveFloorElevation)
 export * from './study';
+// The version of runStudy's answer, stored beside a saved result
+export { ENGINE_VERSION } from './version';
 
 // Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation, drawing (drawingToSvg)
 export * from './basins';

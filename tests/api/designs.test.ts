@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runStudy, toSI } from '@basinwright/common';
+import { ENGINE_VERSION, runStudy, toSI } from '@basinwright/common';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
@@ -48,6 +48,9 @@ describe('GET/PUT /projects/:id/design', () => {
       options: null,
       updatedAt: null,
       updatedBy: null,
+      result: null,
+      engineVersion: null,
+      computedAt: null,
     });
   });
 
@@ -71,12 +74,38 @@ describe('GET/PUT /projects/:id/design', () => {
     expect(await h.models.Design.count({ where: { projectId: siProject } })).toBe(1);
   });
 
+  it('keeps the result it computed on save, with the engine version and time, and returns it on read', async () => {
+    const before = Date.now();
+    const changed = { ...fenwickDesign, basinWidth: 13 };
+    const res = await put(siProject, { input: changed });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    // the same engine run here on the same input gives the stored answer, every figure of it
+    const expected = JSON.parse(JSON.stringify(runStudy(toSI(changed))));
+    expect(res.body.result).toEqual(expected);
+    expect(res.body.engineVersion).toBe(ENGINE_VERSION);
+    const at = Date.parse(res.body.computedAt);
+    expect(at).toBeGreaterThanOrEqual(before - 1000);
+    expect(at).toBeLessThanOrEqual(Date.now() + 1000);
+    const read = await get(siProject);
+    expect(read.body.result).toEqual(expected);
+    expect(read.body.engineVersion).toBe(ENGINE_VERSION);
+    expect(read.body.computedAt).toBe(res.body.computedAt);
+    // stored in the row, not recomputed on read
+    const row = await h.models.Design.findOne({ where: { projectId: siProject } });
+    expect(row?.result).toEqual(expected);
+    // put back the width the tests below expect
+    expect((await put(siProject, { input: { ...fenwickDesign, basinWidth: 14 } })).status).toBe(
+      200,
+    );
+  });
+
   it('keeps a US-customary design in its own units (the study still runs in SI)', async () => {
     const res = await put(usProject, { input: caldwellDesign });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.input.designDischarge).toBe(420);
-    // the server ran the same study the browser runs: it is computable
-    expect(runStudy(toSI(caldwellDesign)).rows.length).toBe(20);
+    // the server ran the same study the browser runs, on the input in SI, and kept it
+    expect(res.body.result).toEqual(JSON.parse(JSON.stringify(runStudy(toSI(caldwellDesign)))));
+    expect(res.body.result.rows).toHaveLength(20);
   });
 
   it('rejects a design in the wrong unit system for the project, saving nothing', async () => {

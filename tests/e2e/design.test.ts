@@ -184,6 +184,41 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     await shot('8-project-summary');
   });
 
+  it('the study runs in a Web Worker: at 5,000 discharges the page answers a click while it computes', async () => {
+    await page.goto(`${designUrl}?step=flows`);
+    const designQ = page.getByLabel('Design discharge (m³/s)');
+    await expect.poll(() => designQ.inputValue()).toBe('85');
+    const workspace = page.locator('[data-study]');
+    // The workspace started the study worker (a module worker built from study.worker.ts).
+    await expect.poll(() => page.workers().some((w) => /study\.worker/.test(w.url()))).toBe(true);
+    await page.getByLabel('How many').fill('5000');
+    await page.getByLabel('How many').blur();
+    await expect.poll(() => workspace.getAttribute('data-study'), { timeout: 90_000 }).toBe('idle');
+    const y1Before = await page.locator('[data-test="summary-y1"]').textContent();
+
+    await designQ.fill('80');
+    // While the worker computes, a click on the page is handled and drawn at once: with the
+    // study on the main thread no script could run until it ended, and "computing" would never
+    // be seen from the page at all.
+    await page.locator('[data-study="computing"]').waitFor({ timeout: 60_000 });
+    const during = await page.evaluate(async () => {
+      const state = () => document.querySelector('[data-study]')?.getAttribute('data-study');
+      const toggle = document.querySelector<HTMLElement>('[data-test="cautions-toggle"]')!;
+      const before = state();
+      toggle.click();
+      await new Promise((resolve) => requestAnimationFrame(resolve));
+      return { before, after: state(), expanded: toggle.getAttribute('aria-expanded') };
+    });
+    expect(during).toEqual({ before: 'computing', after: 'computing', expanded: 'true' });
+
+    // The worker's answer for the new design discharge arrives and is shown.
+    await expect.poll(() => workspace.getAttribute('data-study'), { timeout: 90_000 }).toBe('idle');
+    await expect
+      .poll(() => page.locator('[data-test="summary-y1"]').textContent())
+      .not.toBe(y1Before);
+    expect(await page.locator('[data-test="engine-error"]').count()).toBe(0);
+  });
+
   it('raised no uncaught errors in the page', () => {
     expect(pageErrors).toEqual([]);
   });

@@ -208,10 +208,16 @@ describe('DesignAssumptionsPanel', () => {
         return () => h(DesignAssumptionsPanel, { result, units: values.units });
       },
     });
-    return { wrapper: mount(Host), form };
+    // The tooltips (one a row, shown on hover) are not under test here: plain spans make the
+    // mount cheaper.
+    const wrapper = mount(Host, {
+      global: { stubs: { 'a-tooltip': { template: '<span><slot /></span>' } } },
+    });
+    return { wrapper, form };
   }
 
-  it('lists every default with its confidence in words, flags and resets an override', async () => {
+  // One mount for both checks: the table of every default is the costly part of these tests.
+  it('lists every default with its confidence in words, flags and resets an override, and shows the message of an out-of-bounds value on its field', async () => {
     const input = typeII({ defaults: { freeboardCoefficient: 0.15 } });
     const { wrapper, form } = mountPanel(input, run(input));
     const rows = wrapper.findAll('[data-test="assumptions-table"] tbody tr.ant-table-row');
@@ -226,11 +232,9 @@ describe('DesignAssumptionsPanel', () => {
     expect(wrapper.find('[data-test="assumption-reset-freeboardCoefficient"]').exists()).toBe(
       false,
     );
-  });
 
-  it('shows the message of an out-of-bounds value on its field', async () => {
-    const input = typeII({ defaults: { type2SillHeightRatio: -1 } });
-    const { wrapper } = mountPanel(input, null);
+    form.values.dissipators = typeII({ defaults: { type2SillHeightRatio: -1 } }).dissipators;
+    await nextTick();
     const cell = wrapper
       .find('[data-test="assumption-type2SillHeightRatio"]')
       .element.closest('.ant-form-item')!;

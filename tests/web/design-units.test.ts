@@ -75,6 +75,22 @@ describe('design form units', () => {
     expect(inputForForm(demoUS, 'US').basinWidth).toBe(Number((12 / FT).toPrecision(10)));
   });
 
+  it('the US starting input is the SI one converted, rounded to two significant figures', () => {
+    const si = startingInput('SI');
+    const us = startingInput('US');
+    expect(us.units).toBe('US');
+    // 100 m = 328.08 ft → 330 ft; 50 m³/s = 1765.7 cfs → 1800 cfs (NIST SP 811 factors above).
+    expect(us.channelBedElevation).toBe(330);
+    expect(us.designDischarge).toBe(1800);
+    // Every number back in SI lies within the rounding of two figures (≤ 5 %) of its SI start.
+    const back = new Map(numbers(inputForEngine(us)));
+    const start = numbers(si);
+    expect([...back.keys()].sort()).toEqual(start.map(([p]) => p).sort());
+    for (const [p, v] of start) expectRel(back.get(p)!, v, 0.05);
+    // Two calls give two copies: the form may change one without touching the next design's.
+    expect(startingInput('SI')).not.toBe(si);
+  });
+
   it.each(['SI', 'US'] as const)(
     'the starting input in %s runs through the engine with a floor below the bed',
     (units) => {

@@ -7,10 +7,14 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { StudyInput } from '@basinwright/common';
+import type { StudyInput, StudyResult } from '@basinwright/common';
 import type { User } from './User';
 
-/** A project's design: the study input in the project's units (tenant-owned). */
+/**
+ * A project's design: the study input in the project's units, and the study result the server
+ * computed from it on save (SI), with the engine version and time (tenant-owned). Designs saved
+ * before results were kept have none.
+ */
 export class Design extends Model<InferAttributes<Design>, InferCreationAttributes<Design>> {
   declare id: CreationOptional<string>;
   declare firmId: string;
@@ -18,6 +22,9 @@ export class Design extends Model<InferAttributes<Design>, InferCreationAttribut
   declare input: StudyInput;
   declare options: Record<string, unknown> | null;
   declare updatedById: string | null;
+  declare result: CreationOptional<StudyResult | null>;
+  declare engineVersion: CreationOptional<string | null>;
+  declare computedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -32,6 +39,9 @@ export class Design extends Model<InferAttributes<Design>, InferCreationAttribut
         input: { type: DataTypes.JSONB, allowNull: false },
         options: { type: DataTypes.JSONB, allowNull: true },
         updatedById: { type: DataTypes.UUID, allowNull: true },
+        result: { type: DataTypes.JSONB, allowNull: true },
+        engineVersion: { type: DataTypes.STRING(32), allowNull: true },
+        computedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

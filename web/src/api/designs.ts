@@ -1,6 +1,7 @@
 // The design of a project (one a project): GET loads it, PUT replaces it. The input is in
-// the project's units, as the user typed it; the server runs the study on toSI(input).
-import type { DissipatorTypeId, StudyInput } from '@basinwright/common';
+// the project's units, as the user typed it; the server runs the study on toSI(input) and keeps
+// the result beside it, with the engine version that computed it.
+import type { DissipatorTypeId, StudyInput, StudyResult } from '@basinwright/common';
 import { request } from './client';
 import type { PersonRef } from './types';
 
@@ -17,6 +18,12 @@ export interface Design {
   options: DesignOptions | null;
   updatedAt: string | null;
   updatedBy: PersonRef | null;
+  /** the study result the server computed on the last save (SI); null before results were kept */
+  result: StudyResult | null;
+  /** the engine version that computed `result` (ENGINE_VERSION) */
+  engineVersion: string | null;
+  /** when `result` was computed (ISO 8601) */
+  computedAt: string | null;
 }
 
 export interface DesignBody {
@@ -27,7 +34,7 @@ export interface DesignBody {
 const path = (projectId: string) => `/projects/${encodeURIComponent(projectId)}/design`;
 
 export const designsApi = {
-  get: (projectId: string) => request<Design>(path(projectId)),
+  get: (projectId: string, signal?: AbortSignal) => request<Design>(path(projectId), { signal }),
   save: (projectId: string, body: DesignBody) =>
     request<Design>(path(projectId), { method: 'PUT', body }),
 };

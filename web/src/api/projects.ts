@@ -26,7 +26,7 @@ const path = (id: string) => `/projects/${encodeURIComponent(id)}`;
 export const projectsApi = {
   list: (query: ProjectQuery = {}, signal?: AbortSignal) =>
     request<Page<Project>>('/projects', { query: { ...query }, signal }),
-  get: (id: string) => request<Project>(path(id)),
+  get: (id: string, signal?: AbortSignal) => request<Project>(path(id), { signal }),
   create: (body: ProjectBody) => request<Project>('/projects', { method: 'POST', body }),
   update: (id: string, body: Partial<ProjectBody>) =>
     request<Project>(path(id), { method: 'PATCH', body }),

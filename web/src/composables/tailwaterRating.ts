@@ -35,6 +35,10 @@ export function ratingPoints(result: StudyResult | null, count = 80): RatingPoin
     table,
     bed: input.channelBedElevation,
     designQ: input.designDischarge,
-    outside: result.rows.filter((r) => rating(r.Q).outside !== null).map((r) => r.Q),
+    // Only a table has ends; a Manning rating holds at every discharge (no depth solve per row).
+    outside:
+      input.tailwater.kind === 'table'
+        ? result.rows.filter((r) => rating(r.Q).outside !== null).map((r) => r.Q)
+        : [],
   };
 }

@@ -1,6 +1,6 @@
 // The design of one project: load, save, busy state and errors; the starting input of a new
 // design; the form's shared context for the step components; CSV tables for ratings.
-import { inject, provide, ref, shallowRef, watch, type InjectionKey, type Ref } from 'vue';
+import { computed, inject, provide, ref, watch, type InjectionKey, type Ref } from 'vue';
 import Papa from 'papaparse';
 import { ValidationError } from 'yup';
 import {
@@ -19,71 +19,64 @@ import {
   type StudyInput,
   type UnitSystem,
 } from '@basinwright/common';
-import { ApiError } from '@/api/client';
 import { provideNumberForm } from '@/forms';
 import { designsApi, type Design, type DesignOptions } from '@/api/designs';
 import { projectsApi } from '@/api/projects';
 import type { Project } from '@/api/types';
+import { useResource } from '@/composables/useResource';
 
 /**
- * Where a new design starts: a plausible small spillway outlet, not the demo scenario, in the
- * project's units. The page labels it as starting values to replace.
+ * Where a new design starts: a plausible small spillway outlet, not the demo scenario. Written
+ * once, in SI; the US starting values are the same outlet converted and rounded to two
+ * significant figures (round numbers to replace, not exact conversions). The page labels them as
+ * starting values.
  */
+const STARTING_SI: StudyInput = {
+  units: 'SI',
+  channelBedElevation: 100,
+  basinWidth: 10,
+  designDischarge: 50,
+  discharges: { kind: 'range', min: 5, max: 50, count: 10 },
+  tailwater: {
+    kind: 'manning',
+    section: { shape: 'trapezoidal', bottomWidth: 12, sideSlope: 2 },
+    slope: 0.001,
+    manningN: 0.035,
+  },
+  inflow: {
+    kind: 'chute',
+    crestElevation: 110,
+    headwater: { kind: 'weir', C: 2.1, L: 10 },
+    lossModel: { kind: 'fraction', value: 0.1 },
+  },
+};
+
+/** Two significant figures, for starting values typed by nobody. */
+const roundStart = (v: number): number => Number(v.toPrecision(2));
+
+/** The starting input of a new design, in the project's units. */
 export function startingInput(units: UnitSystem): StudyInput {
-  if (units === 'US') {
-    return {
-      units: 'US',
-      channelBedElevation: 500,
-      basinWidth: 30,
-      designDischarge: 1500,
-      discharges: { kind: 'range', min: 150, max: 1500, count: 10 },
-      tailwater: {
-        kind: 'manning',
-        section: { shape: 'trapezoidal', bottomWidth: 35, sideSlope: 2 },
-        slope: 0.001,
-        manningN: 0.035,
-      },
-      inflow: {
-        kind: 'chute',
-        crestElevation: 530,
-        headwater: { kind: 'weir', C: 3.8, L: 30 },
-        lossModel: { kind: 'fraction', value: 0.1 },
-      },
-    };
-  }
-  return {
-    units: 'SI',
-    channelBedElevation: 100,
-    basinWidth: 10,
-    designDischarge: 50,
-    discharges: { kind: 'range', min: 5, max: 50, count: 10 },
-    tailwater: {
-      kind: 'manning',
-      section: { shape: 'trapezoidal', bottomWidth: 12, sideSlope: 2 },
-      slope: 0.001,
-      manningN: 0.035,
-    },
-    inflow: {
-      kind: 'chute',
-      crestElevation: 110,
-      headwater: { kind: 'weir', C: 2.1, L: 10 },
-      lossModel: { kind: 'fraction', value: 0.1 },
-    },
-  };
+  const start = structuredClone(STARTING_SI);
+  if (units === 'SI') return start;
+  // Counts, ratios, slopes and Manning's n come back unchanged from the conversion.
+  return { ...mapNumbers(inputFromSI(start, 'US'), roundStart), units: 'US' };
 }
 
 /** Drops float noise from a unit conversion (e.g. 295.27559055118104 ft → 295.2755905512). */
 export const clean = (v: number): number => Number(v.toPrecision(10));
 
-/** `clean` on every number of a unit round trip. */
-function tidy<T>(node: T): T {
-  if (typeof node === 'number') return (Number.isFinite(node) ? clean(node) : node) as T;
-  if (Array.isArray(node)) return node.map(tidy) as T;
+/** `round` on every finite number of a JSON-like value. */
+function mapNumbers<T>(node: T, round: (v: number) => number): T {
+  if (typeof node === 'number') return (Number.isFinite(node) ? round(node) : node) as T;
+  if (Array.isArray(node)) return node.map((v: unknown) => mapNumbers(v, round)) as T;
   if (node !== null && typeof node === 'object') {
-    return Object.fromEntries(Object.entries(node).map(([k, v]) => [k, tidy(v)])) as T;
+    return Object.fromEntries(Object.entries(node).map(([k, v]) => [k, mapNumbers(v, round)])) as T;
   }
   return node;
 }
+
+/** `clean` on every number of a unit round trip. */
+const tidy = <T>(node: T): T => mapNumbers(node, clean);
 
 /**
  * A saved input as the form shows it, in the project's units. The API keeps the input in the
@@ -118,38 +111,26 @@ export function inputForEngine(values: StudyInput): StudyInput {
 
 /** One project and its design. */
 export function useDesign(projectId: Ref<string>) {
-  const project = shallowRef<Project | null>(null);
-  const design = shallowRef<Design | null>(null);
-  const busy = ref(false);
-  const saving = ref(false);
-  const error = shallowRef<ApiError | null>(null);
-
-  async function reload(): Promise<void> {
-    busy.value = true;
-    error.value = null;
-    try {
+  const { data, busy, error, reload } = useResource<{ project: Project; design: Design } | null>(
+    async (signal) => {
       const [p, d] = await Promise.all([
-        projectsApi.get(projectId.value),
-        designsApi.get(projectId.value),
+        projectsApi.get(projectId.value, signal),
+        designsApi.get(projectId.value, signal),
       ]);
-      project.value = p;
-      design.value = d;
-    } catch (e) {
-      project.value = null;
-      design.value = null;
-      error.value =
-        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the design.');
-    } finally {
-      busy.value = false;
-    }
-  }
+      return { project: p, design: d };
+    },
+    { initial: null, what: 'the design' },
+  );
+  const project = computed(() => data.value?.project ?? null);
+  const design = computed(() => data.value?.design ?? null);
+  const saving = ref(false);
 
   /** Saves the form's values (in the project's units); throws ApiError so the form can show it. */
   async function save(values: StudyInput, options: DesignOptions): Promise<Design> {
     saving.value = true;
     try {
       const saved = await designsApi.save(projectId.value, { input: values, options });
-      design.value = saved;
+      if (data.value) data.value = { ...data.value, design: saved };
       return saved;
     } finally {
       saving.value = false;

@@ -1,5 +1,6 @@
 // Results that follow the input as the user types: evaluate after a pause, keep the last good
-// answer (marked stale) while the input is incomplete or refused, so a page never blanks.
+// answer (marked stale) while the input is incomplete or refused, so a page never blanks. An
+// evaluation may answer later (a promise, e.g. from a worker): only the newest one is applied.
 import { onBeforeUnmount, ref, shallowRef, type Ref, type ShallowRef } from 'vue';
 
 /** One evaluation: the answer, or why there is none. */
@@ -17,28 +18,56 @@ export interface LiveResult<T> {
   inputProblems: Ref<string[]>;
   /** the value shown is from an earlier input */
   stale: Ref<boolean>;
-  /** a change waits for the pause in typing */
+  /** a change waits for the pause in typing, or for its answer */
   pending: Ref<boolean>;
+  /** an evaluation has started and its answer has not come yet (asynchronous ones only) */
+  computing: Ref<boolean>;
   runNow: () => void;
   schedule: () => void;
 }
 
-/** `evaluate` never throws (it turns failures into messages); the caller decides what triggers it. */
+/**
+ * `evaluate` never throws (it turns failures into messages); it answers at once, or with a
+ * promise that resolves to the outcome, or to null when the evaluation was abandoned. The caller
+ * decides what triggers it.
+ */
 export function useLiveResult<T>(
-  evaluate: () => LiveOutcome<T>,
+  evaluate: () => LiveOutcome<T> | Promise<LiveOutcome<T> | null>,
   debounceMs: number,
+  /** abandons an evaluation under way, called when the input changes again */
+  cancel: () => void = () => {},
 ): LiveResult<T> {
   const value = shallowRef<T | null>(null);
   const engineError = ref<string | null>(null);
   const inputProblems = ref<string[]>([]);
   const stale = ref(false);
   const pending = ref(false);
+  const computing = ref(false);
   let timer: ReturnType<typeof setTimeout> | undefined;
+  /** the newest evaluation; an answer to an older one is dropped */
+  let latest = 0;
 
   function runNow(): void {
     clearTimeout(timer);
-    pending.value = false;
+    const own = ++latest;
     const out = evaluate();
+    if (out instanceof Promise) {
+      pending.value = true;
+      computing.value = true;
+      void out.then((answer) => {
+        if (own !== latest) return;
+        computing.value = false;
+        pending.value = false;
+        if (answer) apply(answer);
+      });
+      return;
+    }
+    computing.value = false;
+    pending.value = false;
+    apply(out);
+  }
+
+  function apply(out: LiveOutcome<T>): void {
     engineError.value = out.engineError;
     inputProblems.value = out.inputProblems;
     if (out.value !== null) {
@@ -49,10 +78,19 @@ export function useLiveResult<T>(
 
   function schedule(): void {
     clearTimeout(timer);
+    // The input changed: an answer still to come is for an older one. Drop it and stop its work.
+    if (computing.value) {
+      latest++;
+      computing.value = false;
+      cancel();
+    }
     pending.value = true;
     timer = setTimeout(runNow, debounceMs);
   }
 
-  onBeforeUnmount(() => clearTimeout(timer));
-  return { value, engineError, inputProblems, stale, pending, runNow, schedule };
+  onBeforeUnmount(() => {
+    clearTimeout(timer);
+    latest++;
+  });
+  return { value, engineError, inputProblems, stale, pending, computing, runNow, schedule };
 }

@@ -1,29 +1,21 @@
-import { ref, shallowRef } from 'vue';
-import { ApiError } from '@/api/client';
+import { shallowRef } from 'vue';
 import { membersApi } from '@/api/members';
 import type { Invitation, Role, User } from '@/api/types';
+import { useResource } from '@/composables/useResource';
 
 /** The team page's data: members and pending invitations, and the changes made to them. */
 export function useMembers() {
   const members = shallowRef<User[]>([]);
   const invitations = shallowRef<Invitation[]>([]);
-  const busy = ref(false);
-  const error = shallowRef<ApiError | null>(null);
-
-  async function reload(): Promise<void> {
-    busy.value = true;
-    error.value = null;
-    try {
+  // The two lists change one by one below; a load replaces both.
+  const { busy, error, reload } = useResource(
+    async () => {
       const [m, i] = await Promise.all([membersApi.list(), membersApi.invitations()]);
       members.value = m.items;
       invitations.value = i.items;
-    } catch (e) {
-      error.value =
-        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the team.');
-    } finally {
-      busy.value = false;
-    }
-  }
+    },
+    { initial: undefined, what: 'the team' },
+  );
 
   function replaceMember(updated: User): void {
     members.value = members.value.map((m) => (m.id === updated.id ? updated : m));

@@ -1,28 +1,20 @@
-import { ref, shallowRef, watch, type Ref } from 'vue';
-import { ApiError } from '@/api/client';
+import { ref, watch, type Ref } from 'vue';
 import { projectsApi, type ProjectBody } from '@/api/projects';
 import type { Project } from '@/api/types';
+import { useResource } from '@/composables/useResource';
 
 /** One project: load, save changes, delete. */
 export function useProject(id: Ref<string>) {
-  const project = shallowRef<Project | null>(null);
-  const busy = ref(false);
+  const {
+    data: project,
+    busy,
+    error,
+    reload,
+  } = useResource<Project | null>((signal) => projectsApi.get(id.value, signal), {
+    initial: null,
+    what: 'the project',
+  });
   const saving = ref(false);
-  const error = shallowRef<ApiError | null>(null);
-
-  async function reload(): Promise<void> {
-    busy.value = true;
-    error.value = null;
-    try {
-      project.value = await projectsApi.get(id.value);
-    } catch (e) {
-      project.value = null;
-      error.value =
-        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load the project.');
-    } finally {
-      busy.value = false;
-    }
-  }
 
   /** Saves changes; throws ApiError so the form can show field errors. */
   async function save(body: Partial<ProjectBody>): Promise<Project> {

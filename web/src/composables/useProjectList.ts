@@ -1,35 +1,17 @@
-import { ref, shallowRef, watch, type Ref } from 'vue';
-import { ApiError } from '@/api/client';
+import { computed, watch, type Ref } from 'vue';
 import { projectsApi, type ProjectQuery } from '@/api/projects';
-import type { Project } from '@/api/types';
+import type { Page, Project } from '@/api/types';
+import { useResource } from '@/composables/useResource';
 
 /** The project list page's data: one page of projects for the given query, refetched on change. */
 export function useProjectList(query: Ref<ProjectQuery>) {
-  const items = shallowRef<Project[]>([]);
-  const total = ref(0);
-  const busy = ref(false);
-  const error = shallowRef<ApiError | null>(null);
-  let controller: AbortController | null = null;
-
-  async function reload(): Promise<void> {
-    // A newer query wins: abort the request still in flight.
-    controller?.abort();
-    const own = new AbortController();
-    controller = own;
-    busy.value = true;
-    error.value = null;
-    try {
-      const page = await projectsApi.list(query.value, own.signal);
-      items.value = page.items;
-      total.value = page.total;
-    } catch (e) {
-      if (own.signal.aborted) return;
-      error.value =
-        e instanceof ApiError ? e : new ApiError(0, 'unknown', 'Could not load projects.');
-    } finally {
-      if (controller === own) busy.value = false;
-    }
-  }
+  // A newer query wins: useResource aborts the request still in flight.
+  const { data, busy, error, reload } = useResource<Page<Project> | null>(
+    (signal) => projectsApi.list(query.value, signal),
+    { initial: null, what: 'projects' },
+  );
+  const items = computed(() => data.value?.items ?? []);
+  const total = computed(() => data.value?.total ?? 0);
 
   watch(query, () => void reload(), { deep: true, immediate: true });
 

@@ -1,5 +1,5 @@
 // Live results: the engine runs in the browser on the form's input as the user types.
-import { ref, watch, type Ref } from 'vue';
+import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
   UNIT_LABELS,
@@ -14,7 +14,8 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import { inputForEngine } from '@/composables/useDesign';
-import { useLiveResult } from '@/composables/useLive';
+import { useLiveResult, type LiveOutcome } from '@/composables/useLive';
+import { createStudyClient, type StudyPort } from '@/composables/studyWorker';
 
 /** How long typing must pause before the study runs again, ms. */
 export const STUDY_DEBOUNCE_MS = 250;
@@ -110,23 +111,51 @@ function unitsOf(raw: unknown): UnitSystem {
     : 'SI';
 }
 
+/** The study worker of this browser, or null where there is no Worker (jsdom in unit tests). */
+export function spawnStudyWorker(): (() => StudyPort) | null {
+  if (typeof Worker === 'undefined') return null;
+  return () =>
+    new Worker(new URL('../workers/study.worker.ts', import.meta.url), {
+      type: 'module',
+    }) as StudyPort;
+}
+
+const live = (out: StudyOutcome): LiveOutcome<StudyResult> => ({
+  value: out.result,
+  engineError: out.engineError,
+  inputProblems: out.inputProblems,
+});
+
 /**
- * Runs the study on `source` whenever it changes, after a pause in typing. Keeps the last good
- * result (marked stale) while the input is incomplete or refused, so the page never blanks.
+ * Runs the study on `source` whenever it changes, after a pause in typing, in a Web Worker
+ * where the browser has one (the page never freezes, whatever the discharge count) and in the
+ * thread otherwise. Only the newest input's answer is shown; a run superseded while busy is
+ * ended. Keeps the last good result (marked stale) while the input is incomplete or refused, so
+ * the page never blanks.
  */
 export function useStudy(
   source: Ref<unknown>,
   chosenType: Ref<DissipatorTypeId | null | undefined> = ref(null),
   debounceMs = STUDY_DEBOUNCE_MS,
+  spawn: (() => StudyPort) | null = spawnStudyWorker(),
 ) {
-  const live = useLiveResult<StudyResult>(() => {
-    const out = evaluateStudy(source.value, chosenType.value);
-    return { value: out.result, engineError: out.engineError, inputProblems: out.inputProblems };
-  }, debounceMs);
-  watch(source, live.schedule, { deep: true });
-  watch(chosenType, live.runNow);
-  const { value: result, engineError, inputProblems, stale, pending, runNow } = live;
-  return { result, engineError, inputProblems, stale, pending, runNow };
+  const client = createStudyClient({
+    spawn,
+    evaluate: (request) => evaluateStudy(request.raw, request.chosenType),
+  });
+  const state = useLiveResult<StudyResult>(
+    () => {
+      const out = client.run({ raw: source.value, chosenType: chosenType.value ?? null });
+      return out instanceof Promise ? out.then((o) => o && live(o)) : live(out);
+    },
+    debounceMs,
+    () => client.cancel(),
+  );
+  onBeforeUnmount(() => client.dispose());
+  watch(source, state.schedule, { deep: true });
+  watch(chosenType, state.runNow);
+  const { value: result, engineError, inputProblems, stale, pending, computing, runNow } = state;
+  return { result, engineError, inputProblems, stale, pending, computing, runNow };
 }
 
 /** Numbers in the user's units, for tables, labels and the drawing. */

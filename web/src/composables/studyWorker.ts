@@ -1,0 +1,137 @@
+// The study off the page's main thread: a client for the study worker (workers/study.worker.ts)
+// that answers only the newest request. A request sent while the worker is still busy with an
+// older one supersedes it: the worker is ended and a fresh one started, so long runs never queue
+// behind each other and a late answer to an older input is never shown. Where there is no
+// Worker (jsdom in the unit tests) the study runs in the thread, synchronously.
+import type { DissipatorTypeId } from '@basinwright/common';
+import type { StudyOutcome } from '@/composables/useStudy';
+
+/** One evaluation: the form's raw values and the basin type chosen beside them. */
+export interface StudyRequest {
+  raw: unknown;
+  chosenType: DissipatorTypeId | null;
+}
+
+/** Page → worker. */
+export interface StudyCall {
+  id: number;
+  request: StudyRequest;
+}
+
+/** Worker → page. */
+export interface StudyAnswer {
+  id: number;
+  outcome: StudyOutcome;
+}
+
+/** What the client uses of a Worker; a fake stands in for it in tests. */
+export interface StudyPort {
+  postMessage(call: StudyCall): void;
+  terminate(): void;
+  onmessage: ((event: MessageEvent<StudyAnswer>) => void) | null;
+  onerror: ((event: Event) => void) | null;
+}
+
+export interface StudyClient {
+  /** 'worker' while the study runs in a worker; 'thread' without one, or after it failed */
+  readonly mode: 'worker' | 'thread';
+  /**
+   * Runs the study on `request`. In the thread: the outcome, at once. With a worker: a promise
+   * of the outcome, or of null when a newer request (or dispose) superseded this one.
+   */
+  run(request: StudyRequest): StudyOutcome | Promise<StudyOutcome | null>;
+  /**
+   * Abandons the run under way, if any (its input has changed): a busy worker is ended and the
+   * run resolves with null. The next run starts a fresh worker.
+   */
+  cancel(): void;
+  /** Ends the worker; a run still waiting resolves with null. */
+  dispose(): void;
+}
+
+/** A deep plain copy of the form's values (Vue's reactive proxies cannot cross to a worker). */
+export function plainCopy(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(plainCopy);
+  if (value !== null && typeof value === 'object')
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, plainCopy(v)]));
+  return value;
+}
+
+interface Job {
+  id: number;
+  request: StudyRequest;
+  resolve: (outcome: StudyOutcome | null) => void;
+}
+
+/**
+ * `spawn` starts a worker (null: no Worker here, run in the thread); `evaluate` is the same
+ * study run in the thread, used without a worker and after the worker itself failed (a script
+ * that could not load, a crash) — never for an input the engine refuses: that is an outcome.
+ */
+export function createStudyClient(options: {
+  spawn: (() => StudyPort) | null;
+  evaluate: (request: StudyRequest) => StudyOutcome;
+}): StudyClient {
+  const { spawn, evaluate } = options;
+  let port: StudyPort | null = null;
+  let job: Job | null = null;
+  let lastId = 0;
+  let failed = spawn === null;
+
+  function stop(): void {
+    port?.terminate();
+    port = null;
+  }
+
+  function cancel(): void {
+    if (!job) return;
+    stop();
+    job.resolve(null);
+    job = null;
+  }
+
+  function start(make: () => StudyPort): StudyPort {
+    const own = make();
+    own.onmessage = (event) => {
+      // An answer from an ended worker, or to a request already superseded, is dropped.
+      if (own !== port || !job || event.data.id !== job.id) return;
+      const done = job;
+      job = null;
+      done.resolve(event.data.outcome);
+    };
+    own.onerror = (event) => {
+      if (own !== port) return;
+      event.preventDefault?.();
+      stop();
+      failed = true;
+      const pending = job;
+      job = null;
+      pending?.resolve(evaluate(pending.request));
+    };
+    return own;
+  }
+
+  return {
+    get mode() {
+      return failed ? 'thread' : 'worker';
+    },
+    run(request) {
+      if (failed || spawn === null) return evaluate(request);
+      // Busy with an older input: end that run rather than queue this one behind it.
+      cancel();
+      const id = ++lastId;
+      const target = port ?? start(spawn);
+      port = target;
+      return new Promise<StudyOutcome | null>((resolve) => {
+        job = { id, request, resolve };
+        target.postMessage({ id, request: { ...request, raw: plainCopy(request.raw) } });
+      });
+    },
+    cancel,
+    dispose() {
+      stop();
+      job?.resolve(null);
+      job = null;
+    },
+  };
+}
