@@ -115,7 +115,9 @@ async function main() {
   runTs('api/src/db/migrate.ts', e2eEnv, { quiet: true });
   runTs('seed/run.ts', e2eEnv, { quiet: true });
   buildWeb();
-  children.push(startMaildev({ smtpPort, mailDir: null }));
+  // Its web port serves the REST API the end-to-end tests read sign-up links from.
+  const mailWebPort = await freePort();
+  children.push(startMaildev({ smtpPort, webPort: mailWebPort, mailDir: null }));
   children.push(startTs('api (e2e)', 'api/src/server.ts', e2eEnv));
   await waitForHttp(`http://127.0.0.1:${appPort}/api/v1/health`, 60000);
 
@@ -136,6 +138,7 @@ async function main() {
       env: {
         DATABASE_URL: cluster.url('bw_api'),
         E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
+        E2E_MAIL_URL: `http://127.0.0.1:${mailWebPort}`,
         CHROMIUM_PATH: '/usr/bin/chromium',
         LOG_LEVEL: 'silent',
       },
