@@ -211,7 +211,10 @@ export async function signUpFirm(h: ApiHarness, label = 'firm'): Promise<SignedU
     });
   if (asked.status !== 202)
     throw new Error(`signup failed: ${asked.status} ${JSON.stringify(asked.body)}`);
-  const token = tokenFromMail(await h.waitForMail(email), '/confirm-sign-up');
+  const link = await h.waitForMail(email);
+  const token = tokenFromMail(link, '/confirm-sign-up');
+  // Consumed here, so a test's next waitForMail(email) finds the mail it is about.
+  h.mail.splice(h.mail.indexOf(link), 1);
   const res = await h.http().post('/api/v1/auth/signup/confirm').send({ token });
   if (res.status !== 201)
     throw new Error(`signup confirmation failed: ${res.status} ${JSON.stringify(res.body)}`);
