@@ -13,6 +13,9 @@ import { calcRouter } from '../api/src/modules/calc/calc.routes';
 import { closeComputePool, computePool } from '../api/src/modules/calc/calc.pool';
 import { fenwickDesign } from '../seed/designs';
 import { record } from './bench-results';
+import { Firm, User } from '../api/src/models';
+import { issueToken } from '../api/src/modules/auth/auth.tokens';
+import { hashPassword } from '../api/src/security';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
@@ -88,20 +91,16 @@ const real = await listen(
 );
 const plain = await listen(bare);
 
-const email = `bench-${Date.now()}@bench.example`;
-const signup = await fetch(`${real.url}/api/v1/auth/signup`, {
-  method: 'POST',
-  headers: { 'content-type': 'application/json' },
-  body: JSON.stringify({
-    firmName: 'Bench firm',
-    name: 'Bench',
-    email,
-    password: 'bench-password-1',
-  }),
+// A member made straight in the database (sign-up goes through an e-mailed link).
+const firm = await Firm.create({ name: 'Bench firm', plan: 'concept', seats: 1 });
+const member = await User.create({
+  firmId: firm.id,
+  name: 'Bench',
+  email: `bench-${Date.now()}@bench.example`,
+  passwordHash: await hashPassword('bench-password-1'),
+  role: 'owner',
 });
-if (signup.status !== 201)
-  throw new Error(`signup failed: ${signup.status} ${await signup.text()}`);
-const { token } = (await signup.json()) as { token: string };
+const token = issueToken(member);
 
 // Demo-like jump: 12 m rectangle, 85 m³/s, y1 0.46 m (invented demo values).
 const jumpBody = { section: { shape: 'rectangular', width: 12 }, Q: 85, y1: 0.46 };

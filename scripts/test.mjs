@@ -118,7 +118,9 @@ async function main() {
   runTs('api/src/db/migrate.ts', e2eEnv, { quiet: true });
   runTs('seed/run.ts', e2eEnv, { quiet: true });
   buildWeb();
-  children.push(startMaildev({ smtpPort, mailDir: null }));
+  // Its web port serves the REST API the end-to-end tests read sign-up links from.
+  const mailWebPort = await freePort();
+  children.push(startMaildev({ smtpPort, webPort: mailWebPort, mailDir: null }));
   for (const [name, port] of Object.entries(apiPorts)) {
     children.push(
       startTs(`api (e2e, ${name})`, 'api/src/server.ts', { ...e2eEnv, PORT: String(port) }),
@@ -153,6 +155,7 @@ async function main() {
         // The whole API suite on one connection: no request may need two at once.
         DATABASE_POOL_MAX: '1',
         E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
+        E2E_MAIL_URL: `http://127.0.0.1:${mailWebPort}`,
         CHROMIUM_PATH: '/usr/bin/chromium',
         LOG_LEVEL: 'silent',
       },

@@ -2,8 +2,8 @@ import PgBoss from 'pg-boss';
 import { TOKEN_TTL_MS } from '@basinwright/common';
 import { getConfig } from './config/env';
 import { logger } from './logger';
-import { accountExistsMail, passwordResetMail, sendMail } from './mail';
-import { PasswordReset, User } from './models';
+import { accountExistsMail, passwordResetMail, sendMail, signupMail } from './mail';
+import { PasswordReset, SignupRequest, User } from './models';
 import { newEmailToken } from './security';
 
 // Background jobs in PostgreSQL (pg-boss, schema `pgboss`): any API process may queue a job and
@@ -15,7 +15,7 @@ export const MAIL_QUEUE = 'mail';
 
 /** What a mail job does; the data holds no secret (tokens are made by the job itself). */
 export type MailJob =
-  { kind: 'password-reset'; email: string } | { kind: 'account-exists'; email: string };
+  { kind: 'password-reset'; email: string } | { kind: 'signup'; requestId: string };
 
 let started: Promise<PgBoss> | undefined;
 let workerId: string | undefined;
@@ -42,19 +42,30 @@ function boss(): Promise<PgBoss> {
 
 /** Runs one mail job: looks the address up now and sends only what its owner should get. */
 export async function runMailJob(job: MailJob): Promise<void> {
+  if (job.kind === 'signup') {
+    const request = await SignupRequest.findByPk(job.requestId);
+    if (request === null || request.usedAt !== null || request.tokenHash !== null) return;
+    const existing = await User.findOne({ where: { email: request.email } });
+    if (existing !== null) {
+      // Nothing to finish: the address's owner learns that someone tried.
+      await request.update({ usedAt: new Date() });
+      await sendMail(accountExistsMail(existing.email, existing.name));
+      return;
+    }
+    const { token, tokenHash } = newEmailToken();
+    await request.update({ tokenHash });
+    await sendMail(signupMail(request.email, request.name, request.firmName, token));
+    return;
+  }
   const user = await User.findOne({ where: { email: job.email, active: true } });
   if (user === null) return; // nobody to tell; the requester was answered alike anyway
-  if (job.kind === 'password-reset') {
-    const { token, tokenHash } = newEmailToken();
-    await PasswordReset.create({
-      userId: user.id,
-      tokenHash,
-      expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
-    });
-    await sendMail(passwordResetMail(user.email, user.name, token));
-  } else {
-    await sendMail(accountExistsMail(user.email, user.name));
-  }
+  const { token, tokenHash } = newEmailToken();
+  await PasswordReset.create({
+    userId: user.id,
+    tokenHash,
+    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
+  });
+  await sendMail(passwordResetMail(user.email, user.name, token));
 }
 
 /** Starts this process's mail worker (idempotent); server.ts calls it at boot. */

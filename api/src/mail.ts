@@ -138,3 +138,20 @@ export function invitedElsewhereMail(
       `<p>If you want to join ${escapeHtml(firmName)}, ask ${escapeHtml(inviterName)} to invite another address.</p>`,
   };
 }
+
+export function signupMail(to: string, name: string, firmName: string, token: string): MailMessage {
+  const url = link('confirm-sign-up', token);
+  return {
+    to,
+    subject: 'Finish creating your Basinwright account',
+    text:
+      `Hello ${name},\n\n` +
+      `To finish creating the Basinwright account of ${firmName}, open:\n\n${url}\n\n` +
+      `The link works once and expires in 24 hours. If you did not ask for this, ignore this e-mail.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>To finish creating the Basinwright account of <strong>${escapeHtml(firmName)}</strong>:</p>` +
+      `<p><a href="${escapeHtml(url)}">Finish creating the account</a></p>` +
+      `<p>The link works once and expires in 24 hours. If you did not ask for this, ignore this e-mail.</p>`,
+  };
+}

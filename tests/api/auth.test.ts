@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
 import jwt from 'jsonwebtoken';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -11,6 +12,7 @@ import {
   randomClientIp,
   signUpFirm,
   apiForFile,
+  tokenFromMail,
   uniqueEmail,
 } from '../support/api-app';
 import {
@@ -27,14 +29,23 @@ const claimsOf = (token: string) => jwt.decode(token) as jwt.JwtPayload;
 const b64 = (value: object) => Buffer.from(JSON.stringify(value)).toString('base64url');
 
 describe('POST /auth/signup', () => {
-  it('creates a Concept firm and its owner in one go and signs them in', async () => {
+  it('e-mails a link; opening it creates a Concept firm and its owner and signs them in', async () => {
     const email = uniqueEmail('signup');
-    const res = await h.http().post('/api/v1/auth/signup').send({
+    const asked = await h.http().post('/api/v1/auth/signup').send({
       firmName: 'Brackwater Consulting',
       name: 'Ada Brack',
       email: email.toUpperCase(),
       password: TEST_PASSWORD,
     });
+    expect(asked.status).toBe(202);
+    expect(asked.body).toEqual({ message: expect.stringMatching(/Check your e-mail/) });
+    expect(await h.models.User.count({ where: { email } })).toBe(0); // nothing yet
+    const mail = await h.waitForMail(email);
+    expect(mail.raw).toMatch(/Subject: Finish creating your Basinwright account/);
+    const token = tokenFromMail(mail, '/confirm-sign-up');
+    const stored = await h.models.SignupRequest.findOne({ where: { email } });
+    expect(stored?.tokenHash).toBe(createHash('sha256').update(token).digest('hex'));
+    const res = await h.http().post('/api/v1/auth/signup/confirm').send({ token });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ name: 'Ada Brack', email, role: 'owner', active: true });
     expect(res.body.firm).toMatchObject({
@@ -50,26 +61,61 @@ describe('POST /auth/signup', () => {
       'name',
       'role',
     ]);
-    const stored = await h.models.User.findByPk(res.body.user.id);
-    expect(stored?.passwordHash).toMatch(/^\$2[aby]\$10\$/); // bcrypt at BCRYPT_COST=10, never the password
-    expect(stored?.firmId).toBe(res.body.firm.id);
+    const user = await h.models.User.findByPk(res.body.user.id);
+    expect(user?.passwordHash).toMatch(/^\$2[aby]\$10\$/); // bcrypt at BCRYPT_COST=10, never the password
+    expect(user?.firmId).toBe(res.body.firm.id);
     const me = await h.http().get('/api/v1/auth/me').set(bearer(res.body.token));
     expect(me.status).toBe(200);
     expect(me.body).toEqual({ user: res.body.user, firm: res.body.firm });
+    // The link works once.
+    const again = await h.http().post('/api/v1/auth/signup/confirm').send({ token });
+    expect(again.status).toBe(400);
+    expect(again.body.code).toBe('invalid_token');
   });
 
-  it('answers 409 for an e-mail already taken (any case) and writes nothing', async () => {
+  it('answers alike for an address that has an account; its owner is told by e-mail and nothing is created', async () => {
     const first = await signUpFirm(h, 'dup');
     const firmsBefore = await h.models.Firm.count();
-    const res = await h.http().post('/api/v1/auth/signup').send({
+    const body = (email: string) => ({
       firmName: 'Second',
       name: 'Other',
-      email: first.email.toUpperCase(),
+      email,
       password: TEST_PASSWORD,
     });
-    expect(res.status).toBe(409);
-    expect(res.body.code).toBe('conflict');
+    const fresh = uniqueEmail('fresh');
+    const taken = await h.http().post('/api/v1/auth/signup').send(body(first.email.toUpperCase()));
+    const free = await h.http().post('/api/v1/auth/signup').send(body(fresh));
+    expect(taken.status).toBe(free.status);
+    expect(taken.body).toEqual(free.body);
+    expect(taken.headers['content-length']).toBe(free.headers['content-length']);
+    // The owner gets a notice, not a link; the fresh address gets its link.
+    const notice = await h.waitForMail(first.email); // signUpFirm consumed the first one
+    expect(notice?.raw).toMatch(/Subject: Someone tried to create a Basinwright account/);
+    expect(notice?.text).not.toMatch(/confirm-sign-up\?token=/);
+    expect(tokenFromMail(await h.waitForMail(fresh), '/confirm-sign-up')).toHaveLength(43);
     expect(await h.models.Firm.count()).toBe(firmsBefore);
+  });
+
+  it('an unknown or expired link is refused and creates nothing', async () => {
+    const unknown = await h
+      .http()
+      .post('/api/v1/auth/signup/confirm')
+      .send({ token: 'x'.repeat(43) });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.code).toBe('invalid_token');
+    const email = uniqueEmail('late');
+    await h
+      .http()
+      .post('/api/v1/auth/signup')
+      .send({ firmName: 'Late Ltd', name: 'Late', email, password: TEST_PASSWORD });
+    const token = tokenFromMail(await h.waitForMail(email), '/confirm-sign-up');
+    await h.models.SignupRequest.update(
+      { expiresAt: new Date(Date.now() - 1000) },
+      { where: { email } },
+    );
+    const late = await h.http().post('/api/v1/auth/signup/confirm').send({ token });
+    expect(late.status).toBe(400);
+    expect(await h.models.User.count({ where: { email } })).toBe(0);
   });
 
   it('answers 422 with a message per field', async () => {

@@ -72,6 +72,7 @@ export const LIMITS = {
 export const TOKEN_TTL_MS = {
   passwordReset: 60 * 60 * 1000,
   invitation: 7 * 24 * 60 * 60 * 1000,
+  signup: 24 * 60 * 60 * 1000,
 } as const;
 
 /**

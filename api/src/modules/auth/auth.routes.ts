@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import {
   changePasswordSchema,
+  confirmSignupSchema,
   forgotPasswordSchema,
   loginSchema,
   profileUpdateSchema,
@@ -15,6 +16,12 @@ import * as controller from './auth.controller';
 export function authRouter(limits: RateLimits): Router {
   const router = Router();
   router.post('/signup', limits.signupByIp, validate(signupSchema), controller.signup);
+  router.post(
+    '/signup/confirm',
+    limits.tokenByIp,
+    validate(confirmSignupSchema),
+    controller.confirmSignup,
+  );
   // Per IP before validation (counts every try); guesses per account and address are
   // throttled in the service (auth.throttle.ts), which knows whether the password was right.
   router.post('/login', limits.loginByIp, validate(loginSchema), controller.login);

@@ -1,6 +1,8 @@
 import {
   PLAN_LIMITS,
+  TOKEN_TTL_MS,
   type ChangePasswordInput,
+  type ConfirmSignupInput,
   type ForgotPasswordInput,
   type ProfileUpdateInput,
   type LoginInput,
@@ -9,7 +11,7 @@ import {
 } from '@basinwright/common';
 import { Op, UniqueConstraintError } from 'sequelize';
 import { conflict, invalidToken, unauthorized, validationError } from '../../errors';
-import { Firm, PasswordReset, sequelize, User } from '../../models';
+import { Firm, PasswordReset, sequelize, SignupRequest, User } from '../../models';
 import { hashEmailToken, hashPassword, verifyPassword } from '../../security';
 import { queueMail } from '../../jobs';
 import { issueToken } from './auth.tokens';
@@ -25,28 +27,61 @@ const WRONG_CREDENTIALS = 'Incorrect e-mail or password.';
 export const EMAIL_TAKEN =
   'An account with this e-mail already exists. Sign in, or reset the password.';
 
-/** Creates a firm on the Concept plan and its owner in one transaction, then signs the owner in. */
-export async function signup(input: SignupInput): Promise<Session> {
+export const SIGNUP_MESSAGE =
+  'Check your e-mail: we have sent a link to finish creating the account. It expires in 24 hours.';
+
+/**
+ * Records the sign-up and queues its mail; the answer is the same whether or not the address
+ * already has an account (the request path does the same work either way: one password hash,
+ * one row, one job). The job sends a link to finish, or tells an existing account's owner that
+ * someone tried.
+ */
+export async function signup(input: SignupInput): Promise<void> {
   const passwordHash = await hashPassword(input.password);
+  const request = await SignupRequest.create({
+    email: input.email,
+    name: input.name,
+    firmName: input.firmName,
+    passwordHash,
+    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.signup),
+  });
+  await queueMail({ kind: 'signup', requestId: request.id });
+}
+
+/**
+ * Finishes a sign-up from its e-mailed link (single use): creates a firm on the Concept plan
+ * and its owner in one transaction, then signs the owner in.
+ */
+export async function confirmSignup(input: ConfirmSignupInput): Promise<Session> {
+  const tokenHash = hashEmailToken(input.token);
   try {
     const { user, firm } = await sequelize.transaction(async (transaction) => {
-      if ((await User.count({ where: { email: input.email }, transaction })) > 0)
+      const request = await SignupRequest.findOne({
+        where: { tokenHash },
+        lock: transaction.LOCK.UPDATE,
+        transaction,
+      });
+      const now = new Date();
+      if (request === null || request.usedAt !== null || request.expiresAt <= now)
+        throw invalidToken();
+      if ((await User.count({ where: { email: request.email }, transaction })) > 0)
         throw conflict(EMAIL_TAKEN);
       const firm = await Firm.create(
-        { name: input.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
+        { name: request.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
         { transaction },
       );
       const user = await User.create(
         {
           firmId: firm.id,
-          name: input.name,
-          email: input.email,
-          passwordHash,
+          name: request.name,
+          email: request.email,
+          passwordHash: request.passwordHash,
           role: 'owner',
-          lastLoginAt: new Date(),
+          lastLoginAt: now,
         },
         { transaction },
       );
+      await request.update({ usedAt: now }, { transaction });
       return { user, firm };
     });
     return { token: issueToken(user), user, firm };
