@@ -18,7 +18,6 @@ import type { Section } from '../hydraulics/sections';
 import type { JumpSituation } from '../hydraulics/profiles';
 import type { KnownToe, LossModel } from '../hydraulics/inflow';
 import type { TailwaterSpec } from '../hydraulics/tailwater';
-import type { DissipatorTypeId } from '../basins/types';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../study';
