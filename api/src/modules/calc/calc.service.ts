@@ -45,6 +45,15 @@ export async function calculateStudy(input: StudyInput, prefix = ''): Promise<St
   }
 }
 
+/** The study for POST /calc/study: its presented result as JSON text, written in the worker. */
+export async function calculateStudyJson(input: StudyInput): Promise<string> {
+  try {
+    return await computePool().run({ kind: 'study-json', input });
+  } catch (error) {
+    throw fromEngineError(error, '', input.units);
+  }
+}
+
 /** Where the jump forms below a control (slope break, gate, weir): distance and both profiles, SI. */
 export async function calculateJumpPosition(body: JumpSituation): Promise<JumpLocation> {
   try {
