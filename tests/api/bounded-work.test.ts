@@ -147,9 +147,10 @@ describe('the compute pool', () => {
     // was free (on the main thread the health check would have waited for the study).
     expect(answered).toBe(false);
     expect(pool.pending).toBeGreaterThan(0);
+    // It ends with its result, or with the over-budget 422 on a machine too busy to finish it.
     const done = await running;
     expect([200, 422]).toContain(done.status);
-  });
+  }, 120_000); // the study itself may take its whole time budget on a busy machine
 
   it('over its time budget a calculation is stopped with a 422 naming the input that made it large; the pool serves on', async () => {
     const { computePool } = await import('../../api/src/modules/calc/calc.pool');

@@ -119,9 +119,10 @@ export const ENGINE_LIMITS = {
   maxTableRows: 5000,
   /**
    * Basin width. The block rows of a basin grow with the width over y1, and y1 shrinks as
-   * the width spreads the flow, so the work grows with about the square of the width: today
-   * 200 m takes 0.6 s and 7 MB, 1,000 m took 52 s and 280 MB and 10,000 m stopped the
-   * process (issue 8). The widest stilling basins built are of the order of 100–200 m.
+   * the width spreads the flow, so without the block limits below the work grew with about
+   * the square of the width: 200 m took 0.6 s and 7 MB, 1,000 m 52 s and 280 MB, and 10,000 m
+   * stopped the process (issue 8). With them a 300 m demo study takes well under a second.
+   * The widest stilling basins built are of the order of 100–200 m [from memory].
    */
   maxBasinWidth: { SI: 300, US: 980 },
   /**
@@ -150,8 +151,8 @@ export const ENGINE_LIMITS = {
   contractionCoefficient: { min: 0.5, max: 1 },
   /**
    * Manning's n, the same number in SI and US customary: 0.005 is below the smoothest
-   * surfaces tabulated (glass, plastic ≈ 0.009 [Chow 1959, Table 5-6]) and 0.2 above the
-   * roughest flood plains with dense brush (≈ 0.16) — common practice for a sanity bound.
+   * surfaces tabulated (glass, plastic ≈ 0.009) and 0.2 above the roughest flood plains
+   * with dense brush (≈ 0.16) [Chow 1959, Table 5-6, from memory] — a sanity bound.
    */
   manningN: { min: 0.005, max: 0.2 },
   /**

@@ -11,7 +11,7 @@ export async function jump(req: Request, res: Response): Promise<void> {
 
 export async function study(req: Request, res: Response): Promise<void> {
   // Cast by validate(studyInputSchema).
-  res.json(await calc.calculateStudy(req.body as StudyInput));
+  res.type('application/json').send(await calc.calculateStudyJson(req.body as StudyInput));
 }
 
 export async function jumpPosition(req: Request, res: Response): Promise<void> {

@@ -5,7 +5,7 @@ import type {
   StudyInput,
   StudyResult,
 } from '@basinwright/common';
-import { fromEngineError } from '../../errors';
+import { ApiError, fromEngineError } from '../../errors';
 import { computePool } from './calc.pool';
 import type { JumpRequest } from './calc.worker';
 
@@ -22,12 +22,35 @@ export async function calculateJump(body: JumpRequest): Promise<JumpResult> {
   }
 }
 
-/** The whole study: the input in its own units is converted to SI, the result is SI. */
+/** An ApiError of the pool (over budget…) with its fields filed below `prefix`. */
+function below(prefix: string, error: unknown): unknown {
+  if (prefix === '' || !(error instanceof ApiError) || error.details === undefined) return error;
+  const details = Object.fromEntries(
+    Object.entries(error.details).map(([field, message]) => [`${prefix}.${field}`, message]),
+  );
+  return new ApiError(error.status, error.code, error.message, details);
+}
+
+/**
+ * The whole study: the input in its own units is converted to SI, the result is SI. `prefix`
+ * names where the input sits in the request body (the design save's `input`).
+ */
 export async function calculateStudy(input: StudyInput, prefix = ''): Promise<StudyResult> {
   try {
     return await computePool().run({ kind: 'study', input });
   } catch (error) {
-    throw fromEngineError(error, prefix, input.units);
+    throw error instanceof ApiError
+      ? below(prefix, error)
+      : fromEngineError(error, prefix, input.units);
+  }
+}
+
+/** The study for POST /calc/study: its presented result as JSON text, written in the worker. */
+export async function calculateStudyJson(input: StudyInput): Promise<string> {
+  try {
+    return await computePool().run({ kind: 'study-json', input });
+  } catch (error) {
+    throw fromEngineError(error, '', input.units);
   }
 }
 

@@ -26,11 +26,14 @@ export interface JumpRequest {
 export type ComputeTask =
   | { kind: 'jump'; body: JumpRequest }
   | { kind: 'study'; input: StudyInput }
+  /** the study's presented result as JSON text, for a route that only sends it on */
+  | { kind: 'study-json'; input: StudyInput }
   | { kind: 'jump-position'; body: JumpSituation };
 
 export interface ComputeResults {
   jump: JumpResult;
   study: StudyResult;
+  'study-json': string;
   'jump-position': JumpLocation;
 }
 
@@ -56,6 +59,10 @@ function run(task: ComputeTask): unknown {
     case 'study':
       // The presenter runs here too: its JSON pass over a large result stays off the main thread.
       return presentStudy(runStudy(toSI(task.input)));
+    case 'study-json':
+      // A large result (tens of MB at 5,000 discharges) is written out here, so the main
+      // thread only copies a string instead of rebuilding and serialising an object graph.
+      return JSON.stringify(presentStudy(runStudy(toSI(task.input))));
     case 'jump-position':
       return locateJump(task.body);
   }
