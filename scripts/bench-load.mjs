@@ -2,6 +2,7 @@
 // run in its own process so it does not share the server's event loop.
 // usage: node scripts/bench-load.mjs URL METHOD BODY_JSON_OR_- HEADERS_JSON SECONDS CONCURRENCY
 import http from 'node:http';
+import { performance } from 'node:perf_hooks';
 
 const [url, method, body, headersJson, seconds = '5', concurrency = '50'] = process.argv.slice(2);
 const agent = new http.Agent({ keepAlive: true, maxSockets: Number(concurrency) });
@@ -14,15 +15,18 @@ if (payload) {
 const target = new URL(url);
 let ok = 0;
 let bad = 0;
+const latencies = []; // ms per request, for percentiles
 const end = Date.now() + Number(seconds) * 1000;
 
 function one() {
+  const started = performance.now();
   return new Promise((resolve) => {
     const req = http.request(
       { host: target.hostname, port: target.port, path: target.pathname, method, headers, agent },
       (res) => {
         res.resume();
         res.on('end', () => {
+          latencies.push(performance.now() - started);
           if (res.statusCode && res.statusCode < 300) ok += 1;
           else bad += 1;
           resolve();
@@ -45,5 +49,10 @@ async function loop() {
 const t0 = Date.now();
 await Promise.all(Array.from({ length: Number(concurrency) }, loop));
 const secs = (Date.now() - t0) / 1000;
-process.stdout.write(JSON.stringify({ ok, bad, rps: ok / secs }) + '\n');
+latencies.sort((a, b) => a - b);
+const pct = (p) =>
+  latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))];
+process.stdout.write(
+  JSON.stringify({ ok, bad, rps: ok / secs, p50: pct(50) ?? null, p99: pct(99) ?? null }) + '\n',
+);
 agent.destroy();

@@ -220,6 +220,12 @@ describe('GET /projects: search, sort, pagination', () => {
       items: [],
       total: 5,
     });
+    // A full last page and the empty one after it (the total is counted, not inferred).
+    expect((await list(token, { page: 1, pageSize: 5 })).body.total).toBe(5);
+    expect((await list(token, { page: 2, pageSize: 5 })).body).toMatchObject({
+      items: [],
+      total: 5,
+    });
   });
 
   it('answers 422 for a bad query', async () => {

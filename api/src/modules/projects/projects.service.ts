@@ -6,7 +6,7 @@ import {
   type ProjectListQuery,
   type ProjectUpdateInput,
 } from '@basinwright/common';
-import { Op, type Order, type WhereOptions } from 'sequelize';
+import { Op, type FindOptions, type Order, type WhereOptions } from 'sequelize';
 import { notFound, planLimit } from '../../errors';
 import { Project, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
@@ -46,8 +46,15 @@ export interface ProjectPage {
   pageSize: number;
 }
 
-/** One page of the firm's projects, filtered by a substring of name, client or location. */
-export async function listProjects(firmId: string, query: ProjectListQuery): Promise<ProjectPage> {
+/**
+ * What one page of the firm's projects asks of the database: scoped by firm, filtered by a
+ * substring of name, client or location, in one of the sorts that each has its own index
+ * (migration project-list-indexes), so a page is an index range scan.
+ */
+export function listQuery(
+  firmId: string,
+  query: ProjectListQuery,
+): FindOptions<Project> & { where: WhereOptions<Project>; limit: number; offset: number } {
   const where: WhereOptions<Project> = { firmId };
   if (query.search !== '') {
     const pattern = containsPattern(query.search);
@@ -59,14 +66,28 @@ export async function listProjects(firmId: string, query: ProjectListQuery): Pro
       ],
     });
   }
-  const { rows, count } = await Project.findAndCountAll({
+  return {
     where,
     include: [createdBy],
     order: orderFor(query),
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
-  });
-  return { items: rows, total: count, page: query.page, pageSize: query.pageSize };
+  };
+}
+
+/**
+ * One page of the firm's projects and how many there are. The count is only asked of the
+ * database when the page itself cannot tell it: a page that is not full (and not past the
+ * end) is the last one, so the total is what came before it plus what is on it. Counting needs
+ * no join (the member who created a project only matters for the rows shown).
+ */
+export async function listProjects(firmId: string, query: ProjectListQuery): Promise<ProjectPage> {
+  const options = listQuery(firmId, query);
+  const { where, limit, offset } = options;
+  const items = await Project.findAll(options);
+  const lastPage = items.length < limit && (items.length > 0 || offset === 0);
+  const total = lastPage ? offset + items.length : await Project.count({ where });
+  return { items, total, page: query.page, pageSize: query.pageSize };
 }
 
 /** The firm's project; another firm's id is answered exactly like a missing one. */
