@@ -2,25 +2,13 @@
 // process in the same run; load comes from a separate process (scripts/bench-load.mjs).
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
-import type { AddressInfo } from 'node:net';
 import express from 'express';
 import { createApp } from '../api/src/app';
 import { sequelize } from '../api/src/db/sequelize';
+import { listen } from './bench-listen';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
-
-function listen(app: express.Express): Promise<{ url: string; close: () => Promise<void> }> {
-  return new Promise((resolve) => {
-    const server = app.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as AddressInfo;
-      resolve({
-        url: `http://127.0.0.1:${port}`,
-        close: () => new Promise((r) => server.close(() => r())),
-      });
-    });
-  });
-}
 
 const execFileAsync = promisify(execFile);
 

@@ -6,7 +6,6 @@
 // Run: node --import tsx --conditions=@basinwright/source scripts/bench-list.ts (DATABASE_URL set)
 import { execFile } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
-import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import type { Request, Response } from 'express';
@@ -15,6 +14,7 @@ import { createApp } from '../api/src/app';
 import { guard } from '../api/src/middlewares/auth';
 import { sequelize } from '../api/src/models';
 import { issueToken } from '../api/src/modules/auth/auth.tokens';
+import { listen } from './bench-listen';
 
 const FIRMS = Number(process.env.BENCH_LIST_FIRMS ?? 200);
 const PER_FIRM = Number(process.env.BENCH_LIST_PER_FIRM ?? 500);
@@ -77,25 +77,22 @@ async function seedProjects(): Promise<void> {
   await sequelize.query('ANALYZE firms, users, projects');
 }
 
-function listen(): Promise<{ url: string; close: () => Promise<void> }> {
-  const app = createApp({
-    webDist: null,
-    // A bare SELECT 1 behind everything the list route has in front of it.
-    extraRoutes: (api) =>
-      api.get('/bench-select1', ...guard('projects.list'), async (_req: Request, res: Response) => {
-        await sequelize.query('SELECT 1');
-        res.json({ ok: true });
-      }),
-  });
-  return new Promise((resolve) => {
-    const server = app.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as AddressInfo;
-      resolve({
-        url: `http://127.0.0.1:${port}`,
-        close: () => new Promise((r) => server.close(() => r())),
-      });
-    });
-  });
+/** The app with a bare SELECT 1 behind everything the list route has in front of it. */
+function listenWithSelect1() {
+  return listen(
+    createApp({
+      webDist: null,
+      extraRoutes: (api) =>
+        api.get(
+          '/bench-select1',
+          ...guard('projects.list'),
+          async (_req: Request, res: Response) => {
+            await sequelize.query('SELECT 1');
+            res.json({ ok: true });
+          },
+        ),
+    }),
+  );
 }
 
 export async function benchList(): Promise<void> {
@@ -109,7 +106,7 @@ export async function benchList(): Promise<void> {
   const auth = {
     authorization: `Bearer ${issueToken({ id: owner.id, firmId: owner.firm_id, tokenVersion: owner.token_version })}`,
   };
-  const server = await listen();
+  const server = await listenWithSelect1();
   const first = await fetch(`${server.url}/api/v1/projects`, { headers: auth });
   const body = (await first.json()) as { items?: unknown[] };
   if (first.status !== 200 || body.items?.length !== 20)

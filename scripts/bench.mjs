@@ -29,6 +29,8 @@ try {
   runTs('scripts/bench-engine.ts', env);
   log('HTTP benchmark');
   runTs('scripts/bench-http.ts', env);
+  log('project list benchmark (100,000 projects across 200 firms)');
+  runTs('scripts/bench-list.ts', env);
 } catch (err) {
   code = 1;
   process.stderr.write(`bench failed: ${err instanceof Error ? err.message : String(err)}\n`);
