@@ -234,6 +234,12 @@ describe('GET /projects: search, sort, pagination', () => {
     expect(Object.keys(res.body.details).sort()).toEqual(['page', 'pageSize', 'sort']);
   });
 
+  it('answers 422 for a search with a NUL character (no stored text can hold one)', async () => {
+    const res = await list(token, { search: 'fen\u0000wick' });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.body.details)).toEqual(['search']);
+  });
+
   it('every role of the firm can list and read', async () => {
     const firmId = (await h.models.Project.findOne({ where: { name: seed[0]!.name } }))?.firmId;
     const viewer = await addMember(h, firmId!, 'viewer');
