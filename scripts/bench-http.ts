@@ -4,7 +4,6 @@
 // Every figure is recorded (scripts/bench-results.ts) for bench.mjs's summary and JSON file.
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
-import type { AddressInfo } from 'node:net';
 import express from 'express';
 import { ENGINE_LIMITS, type StudyInput } from '@basinwright/common';
 import { createApp } from '../api/src/app';
@@ -16,21 +15,10 @@ import { record } from './bench-results';
 import { Firm, User } from '../api/src/models';
 import { issueToken } from '../api/src/modules/auth/auth.tokens';
 import { hashPassword } from '../api/src/security';
+import { listen } from './bench-listen';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
-
-function listen(app: express.Express): Promise<{ url: string; close: () => Promise<void> }> {
-  return new Promise((resolve) => {
-    const server = app.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as AddressInfo;
-      resolve({
-        url: `http://127.0.0.1:${port}`,
-        close: () => new Promise((r) => server.close(() => r())),
-      });
-    });
-  });
-}
 
 const execFileAsync = promisify(execFile);
 

@@ -117,6 +117,10 @@ try {
       CHROMIUM_PATH: chromium,
     });
   }
+  if (wanted('list')) {
+    log('project list benchmark (100,000 projects across 200 firms)');
+    runTs('scripts/bench-list.ts', env);
+  }
   report(resultsFile);
 } catch (err) {
   code = 1;
