@@ -213,7 +213,8 @@ export async function signUpFirm(h: ApiHarness, label = 'firm'): Promise<SignedU
     });
   if (asked.status !== 202)
     throw new Error(`signup failed: ${asked.status} ${JSON.stringify(asked.body)}`);
-  const link = await h.waitForMail(email);
+  // generous: the mail goes through the job queue, and CI machines are busy
+  const link = await h.waitForMail(email, 20_000);
   const token = tokenFromMail(link, '/confirm-sign-up');
   // Consumed here, so a test's next waitForMail(email) finds the mail it is about.
   h.mail.splice(h.mail.indexOf(link), 1);
