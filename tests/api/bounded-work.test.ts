@@ -167,6 +167,26 @@ describe('the compute pool', () => {
     expect(next.rows.length).toBeGreaterThan(0);
   });
 
+  it('past its queue the pool answers 503 (busy), not a crash and not an endless wait', async () => {
+    const { ComputePool } = await import('../../api/src/modules/calc/calc.pool');
+    // One thread, one place in the queue: the third calculation submitted at once has neither.
+    const pool = new ComputePool({ threads: 1, budgetMs: 1, queueMax: 1, memoryMb: 256, nice: 0 });
+    try {
+      const outcomes = await Promise.all(
+        [1, 2, 3].map(() =>
+          pool.run({ kind: 'study', input: longStudy }).then(
+            () => 200,
+            (e: unknown) => (e as ApiError).status,
+          ),
+        ),
+      );
+      // the first runs, the second waits, the third is turned away; the two others end over budget
+      expect(outcomes).toEqual([422, 422, 503]);
+    } finally {
+      await pool.close();
+    }
+  });
+
   it('an engine RangeError thrown in a worker is the same 422 as before, under the field it names', async () => {
     // A known toe with Fr1 below 1 is subcritical: the engine refuses it (RangeError naming
     // inflow.toe); the schema lets it through (Fr1 is a physics check, not a bound).

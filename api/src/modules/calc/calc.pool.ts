@@ -91,6 +91,10 @@ export class ComputePool {
     task: Extract<ComputeTask, { kind: K }>,
     budgetMs = this.options.budgetMs,
   ): Promise<ComputeResults[K]> {
+    // At most one calculation per thread running and queueMax waiting: counted here, as
+    // piscina's own maxQueue leaves out tasks waiting for a thread that is still starting.
+    if (this.inFlight >= this.options.threads + this.options.queueMax)
+      throw serviceUnavailable('The calculators are busy. Try again in a moment.');
     const budget = new AbortController();
     const timer = setTimeout(() => budget.abort(), budgetMs);
     this.inFlight += 1;
