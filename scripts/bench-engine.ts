@@ -5,6 +5,7 @@
 // Run: node --import tsx --conditions=@basinwright/source scripts/bench-engine.ts
 import { runStudy, type StudyInput } from '@basinwright/common';
 import { fenwickDesign } from '../seed/designs';
+import { record } from './bench-results';
 
 // the demo project's design input (invented demo data) with `count` discharges
 const demo = (count: number): StudyInput => ({
@@ -49,3 +50,12 @@ const ratio = w800 / w200;
 console.log(
   `ratio 800/200: ${ratio.toFixed(2)} wall, ${(c800 / c200).toFixed(2)} CPU (target ≤ 4.4) ${ratio <= 4.4 ? 'OK' : 'OVER TARGET'}`,
 );
+record({ name: 'engine.runStudy.200', label: 'runStudy, 200 discharges', value: w200, unit: 'ms' });
+record({ name: 'engine.runStudy.800', label: 'runStudy, 800 discharges', value: w800, unit: 'ms' });
+record({
+  name: 'ratio.runStudy.800vs200',
+  label: 'runStudy 800 ÷ 200 discharges (wall)',
+  value: ratio,
+  unit: 'ratio',
+  target: { op: '<=', value: 4.4 },
+});

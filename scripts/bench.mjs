@@ -1,7 +1,10 @@
 // `npm run bench`: speed targets, measured (never asserted in tests). Starts a throwaway
 // PostgreSQL like `npm test`, then runs the engine and HTTP benchmarks, then the browser one
-// (the built app on a seeded database, in Chromium) in one go. `npm run bench -- engine` (or
-// http, browser) runs only the ones named.
+// (the built app on a seeded database, in Chromium) in one go. Each script records its figures
+// (scripts/bench-results.ts); at the end this prints every ratio against its target and writes
+// all figures to .bench/latest.json (and a dated copy) to compare runs. `npm run bench --
+// engine` (or http, browser) runs only the ones named.
+import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -20,6 +23,46 @@ import {
   waitForHttp,
 } from './lib.mjs';
 
+/** Prints the ratios against their targets and writes every figure to .bench/. */
+function report(resultsFile) {
+  const text = fs.existsSync(resultsFile) ? fs.readFileSync(resultsFile, 'utf8') : '';
+  const measurements = text
+    .split('\n')
+    .filter((l) => l.trim() !== '')
+    .map((l) => JSON.parse(l));
+  log('');
+  log('summary (ratios from this run):');
+  for (const m of measurements.filter((x) => x.unit === 'ratio')) {
+    const met = m.target
+      ? (m.target.op === '>=' ? m.value >= m.target.value : m.value <= m.target.value)
+        ? 'MET'
+        : 'NOT MET'
+      : '';
+    const goal = m.target ? `target ${m.target.op === '>=' ? '≥' : '≤'} ${m.target.value}` : '';
+    log(`  ${m.label.padEnd(52)} ${m.value.toFixed(3).padStart(8)}  ${goal} ${met}`);
+  }
+  let commit = null;
+  try {
+    commit = execFileSync('git', ['rev-parse', 'HEAD'], { cwd: ROOT, encoding: 'utf8' }).trim();
+  } catch {
+    // not a git checkout
+  }
+  const out = {
+    date: new Date().toISOString(),
+    commit,
+    node: process.version,
+    cpus: os.cpus().length,
+    loadAverage: os.loadavg(),
+    measurements,
+  };
+  const dir = path.join(ROOT, '.bench');
+  fs.mkdirSync(dir, { recursive: true });
+  const json = `${JSON.stringify(out, null, 2)}\n`;
+  fs.writeFileSync(path.join(dir, 'latest.json'), json);
+  fs.writeFileSync(path.join(dir, `${out.date.replace(/[:.]/g, '-')}.json`), json);
+  log(`all figures written to ${path.relative(ROOT, path.join(dir, 'latest.json'))}`);
+}
+
 const only = process.argv.slice(2);
 const wanted = (name) => only.length === 0 || only.includes(name);
 ensureNodeModules();
@@ -27,6 +70,7 @@ const bin = ensurePostgres();
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'basinwright-bench-'));
 fs.chmodSync(tmp, 0o755); // the postgres user must reach its folders
 const cluster = new PrivateCluster({ dir: path.join(tmp, 'pg'), port: await freePort(), bin });
+const resultsFile = path.join(tmp, 'results.jsonl');
 let code = 0;
 let app;
 try {
@@ -41,6 +85,7 @@ try {
     SMTP_PORT: '1',
     APP_URL: 'http://127.0.0.1',
     LOG_LEVEL: 'silent',
+    BENCH_RESULTS: resultsFile,
   };
   runTs('api/src/db/migrate.ts', env, { quiet: true });
   if (wanted('engine')) {
@@ -72,6 +117,11 @@ try {
       CHROMIUM_PATH: chromium,
     });
   }
+  if (wanted('list')) {
+    log('project list benchmark (100,000 projects across 200 firms)');
+    runTs('scripts/bench-list.ts', env);
+  }
+  report(resultsFile);
 } catch (err) {
   code = 1;
   process.stderr.write(`bench failed: ${err instanceof Error ? err.message : String(err)}\n`);

@@ -44,7 +44,7 @@ export function startChild(name, cmd, args, env, opts = {}) {
     stdio: opts.stdio ?? ['ignore', 'inherit', 'inherit'],
   });
   child.on('exit', (code, signal) => {
-    if (!child.stopping) log(`${name} exited (${signal ?? code})`);
+    if (!child.stopping && !opts.supervised) log(`${name} exited (${signal ?? code})`);
   });
   return child;
 }
@@ -317,6 +317,13 @@ export class PrivateCluster {
     }
   }
 
+  /** True while the server of this cluster runs (pg_ctl status). */
+  isRunning() {
+    return (
+      this.pg('pg_ctl', ['-D', this.data, 'status'], { quiet: true, allowFail: true }).status === 0
+    );
+  }
+
   stop() {
     if (!this.started) return;
     this.started = false;
@@ -371,4 +378,66 @@ export function startMaildev({ smtpPort, webPort, mailDir }) {
       stdio: ['ignore', 'ignore', 'inherit'],
     },
   );
+}
+
+/** Why a child process ended, in words, from its exit code or signal. */
+export function exitReason(code, signal) {
+  if (signal === 'SIGABRT')
+    return 'aborted (SIGABRT: a fatal V8 error such as running out of memory)';
+  if (signal === 'SIGKILL') return 'killed (SIGKILL: perhaps the out-of-memory killer)';
+  if (signal === 'SIGSEGV') return 'crashed (SIGSEGV)';
+  if (signal) return `stopped by ${signal}`;
+  if (code === 0) return 'exited on its own (code 0)';
+  return `exited with code ${code} (its last messages are above)`;
+}
+
+/**
+ * Keeps a long-running child up: `start()` returns a fresh child process; when it exits
+ * unexpectedly the supervisor says why and starts it again after a delay that doubles with
+ * each quick failure (from `minDelayMs` up to `maxDelayMs`) and falls back once a child has
+ * run `healthyAfterMs`, so a crash loop waits instead of spinning. `stop()` ends it for good.
+ */
+export class Supervisor {
+  constructor(name, start, opts = {}) {
+    this.name = name;
+    this.start = start;
+    this.minDelayMs = opts.minDelayMs ?? 1000;
+    this.maxDelayMs = opts.maxDelayMs ?? 60_000;
+    this.healthyAfterMs = opts.healthyAfterMs ?? 60_000;
+    this.say = opts.log ?? log;
+    this.delayMs = this.minDelayMs;
+    this.restarts = 0;
+    this.child = null;
+    this.timer = null;
+    this.stopped = false;
+  }
+
+  /** Starts the first child; returns it. */
+  run() {
+    const child = this.start();
+    child.stopping = false;
+    this.child = child;
+    const startedAt = Date.now();
+    child.once('exit', (code, signal) => {
+      if (this.stopped || child.stopping) return;
+      if (Date.now() - startedAt >= this.healthyAfterMs) this.delayMs = this.minDelayMs;
+      const delay = this.delayMs;
+      this.delayMs = Math.min(this.maxDelayMs, this.delayMs * 2);
+      this.restarts += 1;
+      this.say(
+        `${this.name} ${exitReason(code, signal)}; restarting it in ${delay < 1000 ? `${delay} ms` : `${(delay / 1000).toFixed(1)} s`} (restart ${this.restarts})`,
+      );
+      this.timer = setTimeout(() => {
+        this.timer = null;
+        if (!this.stopped) this.run();
+      }, delay);
+    });
+    return child;
+  }
+
+  async stop() {
+    this.stopped = true;
+    if (this.timer) clearTimeout(this.timer);
+    await stopChild(this.child);
+  }
 }

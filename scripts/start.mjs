@@ -18,24 +18,55 @@ import {
   startMaildev,
   startTs,
   stopChild,
+  Supervisor,
   waitForHttp,
 } from './lib.mjs';
 
 const dev = process.argv.includes('--dev');
 const children = [];
 let cluster;
+let api;
 let stopping = false;
 
 async function shutdown(code = 0) {
   if (stopping) return;
   stopping = true;
   log('stopping…');
+  await api?.stop();
   for (const c of children.reverse()) await stopChild(c);
   cluster?.stop();
   process.exit(code);
 }
 process.on('SIGINT', () => void shutdown(0));
 process.on('SIGTERM', () => void shutdown(0));
+
+/**
+ * PostgreSQL is kept running too: checked every few seconds and started again, saying so, if
+ * it stopped (the API answers 503 meanwhile and reconnects by itself). A failed restart waits
+ * twice as long before the next try, up to a minute.
+ */
+function watchPostgres() {
+  let wait = 5000;
+  const check = async () => {
+    if (stopping) return;
+    if (!cluster.isRunning()) {
+      log(
+        `PostgreSQL is not running (see ${path.relative(ROOT, cluster.logDir)}/server.log); starting it again`,
+      );
+      try {
+        await cluster.start();
+        wait = 5000;
+      } catch (err) {
+        wait = Math.min(60_000, wait * 2);
+        log(
+          `PostgreSQL did not start (${err instanceof Error ? err.message : String(err)}); next try in ${wait / 1000} s`,
+        );
+      }
+    }
+    setTimeout(() => void check(), wait).unref();
+  };
+  setTimeout(() => void check(), wait).unref();
+}
 
 async function pickPort(preferred) {
   return (await portIsFree(preferred)) ? preferred : freePort();
@@ -80,9 +111,12 @@ async function main() {
   children.push(
     startMaildev({ smtpPort, webPort: mailWebPort, mailDir: path.join(dataDir, 'mail') }),
   );
-  const api = startTs('api', 'api/src/server.ts', env);
-  children.push(api);
-  api.on('exit', () => void shutdown(1));
+  // The API is kept up: if it ever exits unexpectedly it is started again (with a growing
+  // pause if it keeps failing) while PostgreSQL and the mail capture run on.
+  api = new Supervisor('the API', () =>
+    startTs('api', 'api/src/server.ts', env, { supervised: true }),
+  );
+  api.run();
   await waitForHttp(`http://127.0.0.1:${port}/api/v1/health`, 60000);
 
   let url = `http://127.0.0.1:${port}/`;
@@ -98,6 +132,8 @@ async function main() {
     children.push(vite);
     url = 'http://127.0.0.1:5173/';
   }
+
+  watchPostgres();
 
   log('');
   log(`Basinwright is running at ${url}`);

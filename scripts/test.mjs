@@ -16,6 +16,7 @@ import {
   log,
   run,
   runTs,
+  startChild,
   startMaildev,
   startTs,
   stopChild,
@@ -98,11 +99,13 @@ async function main() {
   cluster.ensureDatabase('bw_e2e');
 
   const smtpPort = await freePort();
+  // Two API processes on one database; the browser reaches them through a proxy that sends
+  // each request to the next one in turn (tests/e2e/two-processes.test.ts checks both served).
   const appPort = await freePort();
+  const apiPorts = { first: await freePort(), second: await freePort() };
   const e2eEnv = {
     NODE_ENV: 'production',
     HOST: '127.0.0.1',
-    PORT: String(appPort),
     DATABASE_URL: cluster.url('bw_e2e'),
     JWT_SECRET: `test-only-${Date.now()}-${Math.random().toString(36).slice(2)}-e2e-secret`,
     BCRYPT_COST: '10',
@@ -115,9 +118,23 @@ async function main() {
   runTs('api/src/db/migrate.ts', e2eEnv, { quiet: true });
   runTs('seed/run.ts', e2eEnv, { quiet: true });
   buildWeb();
-  children.push(startMaildev({ smtpPort, mailDir: null }));
-  children.push(startTs('api (e2e)', 'api/src/server.ts', e2eEnv));
-  await waitForHttp(`http://127.0.0.1:${appPort}/api/v1/health`, 60000);
+  // Its web port serves the REST API the end-to-end tests read sign-up links from.
+  const mailWebPort = await freePort();
+  children.push(startMaildev({ smtpPort, webPort: mailWebPort, mailDir: null }));
+  for (const [name, port] of Object.entries(apiPorts)) {
+    children.push(
+      startTs(`api (e2e, ${name})`, 'api/src/server.ts', { ...e2eEnv, PORT: String(port) }),
+    );
+  }
+  children.push(
+    startChild('proxy (e2e)', process.execPath, [
+      'scripts/alternate-proxy.mjs',
+      String(appPort),
+      ...Object.entries(apiPorts).map(([name, port]) => `${name}=${port}`),
+    ]),
+  );
+  for (const port of [...Object.values(apiPorts), appPort])
+    await waitForHttp(`http://127.0.0.1:${port}/api/v1/health`, 60000);
 
   const jsonFile = path.join(tmp, 'vitest.json');
   log('running vitest (common, api, web, e2e)…');
@@ -135,7 +152,10 @@ async function main() {
       allowFail: true,
       env: {
         DATABASE_URL: cluster.url('bw_api'),
+        // The whole API suite on one connection: no request may need two at once.
+        DATABASE_POOL_MAX: '1',
         E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
+        E2E_MAIL_URL: `http://127.0.0.1:${mailWebPort}`,
         CHROMIUM_PATH: '/usr/bin/chromium',
         LOG_LEVEL: 'silent',
       },

@@ -1,5 +1,6 @@
 import express from 'express';
 import helmet from 'helmet';
+import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { getConfig } from './config/env';
 import { sequelize as defaultSequelize } from './models';
@@ -7,6 +8,7 @@ import { httpLogger } from './logger';
 import { errorHandler } from './middlewares/error-handler';
 import { notFoundHandler, spaRouter } from './middlewares/not-found';
 import { createRateLimits } from './middlewares/rate-limit';
+import { jsonBody, wellFormedPath } from './middlewares/request-shape';
 import { authRouter } from './modules/auth/auth.routes';
 import { healthRouter } from './modules/health/health.routes';
 import { invitationsRouter } from './modules/invitations/invitations.routes';
@@ -23,6 +25,8 @@ export interface AppOptions {
   webDist?: string | null;
   /** Extra routes under /api/v1, mounted last (the benchmark's bare route). */
   extraRoutes?: (api: express.Router) => void;
+  /** Request and error log; defaults to the process logger (tests capture it). */
+  logger?: Logger;
 }
 
 /** Builds the Express app without listening; server.ts listens and tests drive it with supertest. */
@@ -56,11 +60,17 @@ export function createApp(options: AppOptions = {}): express.Express {
       },
     }),
   );
-  app.use(httpLogger());
+  app.use(httpLogger(options.logger));
+  app.use(wellFormedPath);
 
   const limits = createRateLimits(defaultSequelize);
   const api = express.Router();
-  api.use(express.json({ limit: '1mb' }));
+  // Nothing the API answers may be kept by a browser or a proxy: sessions, tokens, firm data.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(jsonBody());
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
   });

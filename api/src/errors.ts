@@ -24,6 +24,8 @@ export class ApiError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly details?: ErrorDetails,
+    /** Seconds for a Retry-After header (429 answers). */
+    readonly retryAfter?: number,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -48,8 +50,10 @@ export const forbidden = (message = 'Your role does not allow this.') =>
 export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
 export const conflict = (message: string) => new ApiError(409, 'conflict', message);
 export const planLimit = (message: string) => new ApiError(403, 'plan_limit', message);
-export const rateLimited = (message = 'Too many attempts. Wait a little and try again.') =>
-  new ApiError(429, 'rate_limited', message);
+export const rateLimited = (
+  message = 'Too many attempts. Wait a little and try again.',
+  retryAfterSeconds?: number,
+) => new ApiError(429, 'rate_limited', message, undefined, retryAfterSeconds);
 export const payloadTooLarge = (message = 'The request body is too large.') =>
   new ApiError(413, 'payload_too_large', message);
 export const invalidToken = (message = 'This link is invalid or has expired. Ask for a new one.') =>

@@ -95,3 +95,63 @@ export function invitationMail(
       `<p>The invitation expires in 7 days.</p>`,
   };
 }
+
+/** To the owner of an address someone tried to sign up (or be invited) with. */
+export function accountExistsMail(to: string, name: string): MailMessage {
+  const signIn = new URL('sign-in', `${getConfig().appUrl}/`).toString();
+  const reset = new URL('forgot-password', `${getConfig().appUrl}/`).toString();
+  return {
+    to,
+    subject: 'Someone tried to create a Basinwright account with your address',
+    text:
+      `Hello ${name},\n\n` +
+      `Someone tried to create a new Basinwright account with this e-mail address, which already has one. ` +
+      `Nothing was changed. To sign in, open ${signIn}; if you forgot your password, open ${reset}.\n\n` +
+      `If this was not you, you can ignore this e-mail.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>Someone tried to create a new Basinwright account with this e-mail address, which already has one. Nothing was changed.</p>` +
+      `<p><a href="${escapeHtml(signIn)}">Sign in</a> or <a href="${escapeHtml(reset)}">choose a new password</a>.</p>` +
+      `<p>If this was not you, you can ignore this e-mail.</p>`,
+  };
+}
+
+/** To an address invited by one firm while it has an account in another (one address, one firm). */
+export function invitedElsewhereMail(
+  to: string,
+  name: string,
+  firmName: string,
+  inviterName: string,
+): MailMessage {
+  return {
+    to,
+    subject: `${firmName} invited you to Basinwright`,
+    text:
+      `Hello ${name},\n\n${inviterName} invited this address to join ${firmName} on Basinwright. ` +
+      `This address already belongs to an account in another firm, and an address can belong to one firm only, ` +
+      `so the invitation cannot be accepted with it. If you want to join ${firmName}, ask ${inviterName} to invite another address.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>${escapeHtml(inviterName)} invited this address to join <strong>${escapeHtml(firmName)}</strong> on Basinwright. ` +
+      `This address already belongs to an account in another firm, and an address can belong to one firm only, ` +
+      `so the invitation cannot be accepted with it.</p>` +
+      `<p>If you want to join ${escapeHtml(firmName)}, ask ${escapeHtml(inviterName)} to invite another address.</p>`,
+  };
+}
+
+export function signupMail(to: string, name: string, firmName: string, token: string): MailMessage {
+  const url = link('confirm-sign-up', token);
+  return {
+    to,
+    subject: 'Finish creating your Basinwright account',
+    text:
+      `Hello ${name},\n\n` +
+      `To finish creating the Basinwright account of ${firmName}, open:\n\n${url}\n\n` +
+      `The link works once and expires in 24 hours. If you did not ask for this, ignore this e-mail.\n`,
+    html:
+      `<p>Hello ${escapeHtml(name)},</p>` +
+      `<p>To finish creating the Basinwright account of <strong>${escapeHtml(firmName)}</strong>:</p>` +
+      `<p><a href="${escapeHtml(url)}">Finish creating the account</a></p>` +
+      `<p>The link works once and expires in 24 hours. If you did not ask for this, ignore this e-mail.</p>`,
+  };
+}

@@ -16,7 +16,10 @@ async function main(): Promise<void> {
   const { createApp } = await import('./app');
   const { createMigrator } = await import('./db/umzug');
   const { closeMail } = await import('./mail');
+  const { startMailWorker, stopJobs } = await import('./jobs');
+  const { closeComputePool, computePool } = await import('./modules/calc/calc.pool');
   const { logger } = await import('./logger');
+  const { readDurability, weakDurability } = await import('./db/durability');
   const log = logger();
 
   try {
@@ -27,12 +30,26 @@ async function main(): Promise<void> {
     );
     process.exit(1);
   }
+  // What a committed write survives is the database's business; say at start what it is.
+  const durability = await readDurability(sequelize);
+  const weak = weakDurability(durability);
+  if (weak.length === 0) log.info({ durability }, 'database durability settings');
+  else
+    log.warn(
+      { durability },
+      `database durability settings: ${weak.join(', ')} off — acknowledged writes can be lost in a crash`,
+    );
   if (config.migrateOnStart) {
     const applied = await createMigrator(sequelize).up();
     for (const migration of applied) log.info({ migration: migration.name }, 'migration applied');
   }
 
+  // Mail queued by any API process (password resets, account notices) is sent by whichever
+  // worker takes it; a failure here leaves the jobs queued for another process or a restart.
+  startMailWorker().catch((error: unknown) => log.error({ err: error }, 'mail worker not started'));
+
   const app = createApp();
+  computePool(); // start the engine's worker threads now, not on the first calculation
   const server = app.listen(config.port, config.host);
   server.on('error', (error) => {
     console.error(`server: cannot listen on ${config.host}:${config.port} — ${error.message}`);
@@ -53,8 +70,8 @@ async function main(): Promise<void> {
     force.unref();
     server.close(() => {
       closeMail();
-      sequelize
-        .close()
+      Promise.all([closeComputePool(), stopJobs().catch(() => undefined)])
+        .then(() => sequelize.close())
         .then(() => process.exit(0))
         .catch(() => process.exit(1));
     });

@@ -39,6 +39,7 @@ import {
 import type { TypeScreening } from './basins/screening';
 import type { DissipatorTypeId } from './basins/types';
 import { phraser, type Phraser } from './units/phrase';
+import { ENGINE_LIMITS, requireStudySize } from './schemas/limits';
 
 export type UnitSystem = 'SI' | 'US';
 
@@ -226,7 +227,7 @@ const DEFAULTS = {
   floorManningN: 0.014,
   jumpLengthMethod: 'usbr' as const,
 };
-const MAX_DISCHARGES = 5000;
+const MAX_DISCHARGES = ENGINE_LIMITS.maxDischarges;
 
 /** Discharges to analyse, ascending, m³/s. */
 export function dischargeList(spec: DischargeSpec): number[] {
@@ -289,6 +290,7 @@ function prepare(input: StudyInput, P: Phraser = phraser('SI')): Prepared {
   if (input.units !== 'SI' && input.units !== 'US')
     throw new RangeError(`units must be 'SI' or 'US'`);
   requireFinite('channelBedElevation', input.channelBedElevation);
+  requireStudySize(input); // widths, discharge counts, table rows: before any work
   const b = requirePositive('basinWidth', input.basinWidth);
   const Qd = requirePositive('designDischarge', input.designDischarge);
   if (input.floorElevation !== undefined) requireFinite('floorElevation', input.floorElevation);
@@ -298,7 +300,8 @@ function prepare(input: StudyInput, P: Phraser = phraser('SI')): Prepared {
     0,
     1,
   );
-  requireInRange('floorManningN', input.floorManningN ?? DEFAULTS.floorManningN, 0.005, 0.2);
+  const { min: nMin, max: nMax } = ENGINE_LIMITS.manningN;
+  requireInRange('floorManningN', input.floorManningN ?? DEFAULTS.floorManningN, nMin, nMax);
   if (
     input.jumpLengthMethod !== undefined &&
     input.jumpLengthMethod !== 'usbr' &&
@@ -335,7 +338,8 @@ function prepare(input: StudyInput, P: Phraser = phraser('SI')): Prepared {
       const hw = inflow.headwater;
       let headwater: (Q: number) => number;
       if (hw?.kind === 'weir') {
-        requirePositive('inflow.headwater.C', hw.C);
+        const { min: cMin, max: cMax } = ENGINE_LIMITS.weirCoefficient.SI;
+        requireInRange('inflow.headwater.C', hw.C, cMin, cMax);
         requirePositive('inflow.headwater.L', hw.L);
         headwater = (Q) => inflow.crestElevation + weirHead(Q, hw.C, hw.L);
       } else if (hw?.kind === 'table') {
@@ -370,7 +374,8 @@ function prepare(input: StudyInput, P: Phraser = phraser('SI')): Prepared {
       break;
     }
     case 'gate': {
-      requireInRange('inflow.Cc', inflow.Cc, 0.3, 1);
+      const { min: ccMin, max: ccMax } = ENGINE_LIMITS.contractionCoefficient;
+      requireInRange('inflow.Cc', inflow.Cc, ccMin, ccMax);
       const given = [inflow.opening, inflow.upstreamDepth, inflow.upstreamElevation].filter(
         (v) => v !== undefined,
       );

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { TEST_PASSWORD, bearer, login, signUpFirm, apiForFile } from '../support/api-app';
+import { CHANGE_PASSWORD_FAILURES_PER_HOUR } from '../../api/src/modules/auth/auth.throttle';
 
 // A member's own account: the name, and the password (which ends every other session).
 
@@ -33,6 +34,25 @@ describe('PATCH /auth/me', () => {
 });
 
 describe('POST /auth/change-password', () => {
+  it(`per member: after ${CHANGE_PASSWORD_FAILURES_PER_HOUR} wrong current passwords, from any address, the next try is a 429`, async () => {
+    const firm = await signUpFirm(h, 'pw-limit');
+    const change = (currentPassword: string) =>
+      h
+        .http() // a new client address each time: the limit is the member's, not the address's
+        .post('/api/v1/auth/change-password')
+        .set(bearer(firm.token))
+        .send({ currentPassword, newPassword: 'a brand new passphrase' });
+    for (let i = 0; i < CHANGE_PASSWORD_FAILURES_PER_HOUR; i += 1)
+      expect((await change(`not it ${i}`)).status).toBe(422);
+    const blocked = await change(TEST_PASSWORD);
+    expect(blocked.status).toBe(429);
+    expect(blocked.body.code).toBe('rate_limited');
+    expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
+    // Nothing changed: the old password still signs in, this session still works.
+    expect((await login(h, firm.email, TEST_PASSWORD)).status).toBe(200);
+    expect((await h.http().get('/api/v1/auth/me').set(bearer(firm.token))).status).toBe(200);
+  });
+
   it('a wrong current password is a 422 on that field; nothing changes', async () => {
     const s = await signUpFirm(h, 'pw-wrong');
     const res = await h

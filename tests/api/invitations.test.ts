@@ -135,7 +135,7 @@ describe('invitations', () => {
     ).toBe(404);
   });
 
-  it('refuses a second open invitation, an existing account and the owner role', async () => {
+  it('refuses a second open invitation, a member of the firm and the owner role', async () => {
     const firm = await paidFirm('inv-dup');
     const email = uniqueEmail('twice');
     expect((await invite(firm.token, email)).status).toBe(201);
@@ -144,9 +144,37 @@ describe('invitations', () => {
     expect(dup.body.code).toBe('conflict');
     const existing = await invite(firm.token, firm.email);
     expect(existing.status).toBe(409);
+    expect(existing.body.message).toBe('This person is already a member of your firm.');
     const owner = await invite(firm.token, uniqueEmail('owner'), 'owner');
     expect(owner.status).toBe(422);
     expect(owner.body.details).toHaveProperty('role');
+  });
+
+  it('an address with an account in another firm is answered like any other; its owner gets a notice, not a link', async () => {
+    const firm = await paidFirm('inv-elsewhere');
+    const elsewhere = await signUpFirm(h, 'inv-other-firm');
+    const fresh = uniqueEmail('fresh');
+    const a = await invite(firm.token, fresh);
+    const b = await invite(firm.token, elsewhere.email);
+    expect([a.status, b.status]).toEqual([201, 201]);
+    // The same fields, and values alike apart from the address and ids.
+    expect(Object.keys(b.body).sort()).toEqual(Object.keys(a.body).sort());
+    const same = (body: Record<string, unknown>) => ({
+      ...body,
+      id: '',
+      email: '',
+      expiresAt: '',
+      createdAt: '',
+    });
+    expect(same(b.body)).toEqual(same(a.body));
+    const notice = await h.waitForMail(elsewhere.email);
+    expect(notice.text).toMatch(/already belongs to an account in another firm/);
+    expect(notice.text).not.toMatch(/accept-invitation\?token=/);
+    const link = await h.waitForMail(fresh);
+    expect(tokenFromMail(link, '/accept-invitation')).toHaveLength(43);
+    // The other firm's member stays where they are.
+    const member = await h.models.User.findByPk(elsewhere.user.id);
+    expect(member?.firmId).toBe(elsewhere.firm.id);
   });
 
   it('the Concept plan has one seat: inviting is a plan_limit, and nothing is saved or sent', async () => {

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import openapi from '../../api/src/openapi.json' with { type: 'json' };
+import { MAX_JSON_DEPTH } from '../../api/src/middlewares/request-shape';
+import { fenwickDesign } from '../../seed/designs';
 import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 // Every operation of the OpenAPI document, fed bodies, ids and query strings that are wrong in
@@ -194,6 +196,144 @@ describe('no operation answers 500 to malformed input', () => {
       expectClientError(res, `logout with ${label}`);
     }
     expect((await h.http().get('/api/v1/auth/me').set(bearer(other.token))).status).toBe(401);
+  });
+
+  it('a malformed percent-escape in any path is a 400, signed in or not', async () => {
+    const templated = operations.filter((o) => o.path.includes('{'));
+    expect(templated.length).toBeGreaterThan(4);
+    for (const { method, path } of templated) {
+      for (const escape of ['%ZZ', '%', 'a%2', '%C0%AF', '%E0%A4%A']) {
+        const url = `/api/v1${path.replace(/\{\w+\}/, escape)}`;
+        for (const signedIn of [true, false]) {
+          const req = h.http()[method](url);
+          const res = await (signedIn ? req.set(bearer(token)) : req).send({});
+          expect(res.status, `${method} ${url} signed in: ${signedIn}`).toBe(400);
+          expect(res.body.code).toBe('bad_request');
+        }
+      }
+    }
+    // outside the API too (the web app's paths)
+    expect((await h.http().get('/projects/%ZZ')).status).toBe(400);
+  });
+
+  it(`JSON nested deeper than ${MAX_JSON_DEPTH} levels is a 400 on every operation with a body`, async () => {
+    // 10,000 levels in about 50 KB, the probe that once ended in a 500 on sign-in.
+    const deepRaw = `${'{"a":'.repeat(10_000)}1${'}'.repeat(10_000)}`;
+    expect(deepRaw.length).toBeGreaterThan(50_000);
+    const justOver = JSON.stringify(deep(MAX_JSON_DEPTH + 1));
+    const deepArray = `${'['.repeat(MAX_JSON_DEPTH + 1)}${']'.repeat(MAX_JSON_DEPTH + 1)}`;
+    const withBody = operations.filter(
+      (o) => o.method !== 'get' && o.method !== 'delete' && o.path !== '/auth/logout',
+    );
+    for (const { method, path } of withBody) {
+      for (const raw of [deepRaw, justOver, deepArray]) {
+        const res = await h
+          .http()
+          [method](`/api/v1${concrete(path, projectId)}`)
+          .set(bearer(token))
+          .set('Content-Type', 'application/json')
+          .send(raw);
+        expect(res.status, `${method} ${path} (${raw.length} bytes)`).toBe(400);
+        expect(res.body.code).toBe('bad_json');
+      }
+    }
+    // At the limit it is read (and then judged on its content, here a 401 for no session).
+    const atLimit = await h
+      .http()
+      .post('/api/v1/calc/jump')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify(deep(MAX_JSON_DEPTH)));
+    expect(atLimit.status).toBe(401);
+  });
+
+  describe('NUL characters and lone surrogates in any text or JSON field are a 422', () => {
+    const BAD_TEXT: [string, string][] = [
+      ['a NUL', 'Fen\\u0000wick'],
+      ['a lone high surrogate', 'Fen\\ud800wick'],
+      ['a lone low surrogate', '\\udc00Fenwick'],
+      ['surrogates in the wrong order', '\\udc00\\ud800'],
+    ];
+    // Raw JSON with the escape kept as sent, so the server's parser makes the bad string.
+    const body = (fields: Record<string, unknown>, key: string, bad: string) =>
+      JSON.stringify(fields).replace(`"${key}":"@"`, `"${key}":"${bad}"`);
+
+    it('a project name, client, location or notes is refused and nothing is stored', async () => {
+      const before = await counts();
+      for (const field of ['name', 'client', 'location', 'notes']) {
+        for (const [label, bad] of BAD_TEXT) {
+          const fields = { name: 'Plain', units: 'SI', [field]: '@' };
+          const created = await h
+            .http()
+            .post('/api/v1/projects')
+            .set(bearer(token))
+            .set('Content-Type', 'application/json')
+            .send(body(fields, field, bad));
+          expect(created.status, `POST ${field} with ${label}`).toBe(422);
+          expect(created.body.code).toBe('validation_error');
+          expect(created.body.details[field]).toBe(created.body.message);
+          const renamed = await h
+            .http()
+            .patch(`/api/v1/projects/${projectId}`)
+            .set(bearer(token))
+            .set('Content-Type', 'application/json')
+            .send(body({ [field]: '@' }, field, bad));
+          expect(renamed.status, `PATCH ${field} with ${label}`).toBe(422);
+        }
+      }
+      expect(await counts()).toEqual(before);
+      const stored = await h.models.Project.findByPk(projectId);
+      expect(stored?.name).toBe('Target');
+    });
+
+    it("inside a design's options, at any depth, and in a key", async () => {
+      for (const [label, bad] of BAD_TEXT) {
+        const options = { catalogue: { note: '@' } };
+        const raw = JSON.stringify({ input: fenwickDesign, options }).replace(
+          '"note":"@"',
+          `"note":"${bad}"`,
+        );
+        const res = await h
+          .http()
+          .put(`/api/v1/projects/${projectId}/design`)
+          .set(bearer(token))
+          .set('Content-Type', 'application/json')
+          .send(raw);
+        expect(res.status, `options with ${label}`).toBe(422);
+        expect(Object.keys(res.body.details)).toEqual(['options.catalogue.note']);
+        const inKey = await h
+          .http()
+          .put(`/api/v1/projects/${projectId}/design`)
+          .set(bearer(token))
+          .set('Content-Type', 'application/json')
+          .send(raw.replace(`"note":"${bad}"`, `"${bad}":1`));
+        expect(inKey.status, `a key with ${label}`).toBe(422);
+      }
+      expect(await h.models.Design.count({ where: { firmId } })).toBe(0);
+    });
+
+    it('on every operation with a body and in query strings', async () => {
+      const withBody = operations.filter(
+        (o) => o.method !== 'get' && o.method !== 'delete' && o.path !== '/auth/logout',
+      );
+      for (const { method, path } of withBody) {
+        for (const [label, bad] of BAD_TEXT) {
+          const res = await h
+            .http()
+            [method](`/api/v1${concrete(path, projectId)}`)
+            .set(bearer(token))
+            .set('Content-Type', 'application/json')
+            .send(`{"name":"${bad}","email":"a${bad}@b.example","password":"x${bad}yyyyyyyy"}`);
+          expect(res.status, `${method} ${path} with ${label}`).toBe(422);
+          expect(res.body.code).toBe('validation_error');
+        }
+      }
+      for (const q of ['search=%00', 'search=%ED%A0%80x', 'search=a%00b&page=1']) {
+        const res = await h.http().get(`/api/v1/projects?${q}`).set(bearer(token));
+        expectClientError(res, `GET /projects?${q}`);
+        // %ED%A0%80 is not UTF-8 (an encoded surrogate): it decodes to U+FFFD, which is fine text
+        if (q.includes('%00')) expect(res.status, q).toBe(422);
+      }
+    });
   });
 
   it('a member id that is not a uuid is a 404 for PATCH /members/:id, and the member is unchanged', async () => {

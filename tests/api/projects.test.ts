@@ -220,12 +220,24 @@ describe('GET /projects: search, sort, pagination', () => {
       items: [],
       total: 5,
     });
+    // A full last page and the empty one after it (the total is counted, not inferred).
+    expect((await list(token, { page: 1, pageSize: 5 })).body.total).toBe(5);
+    expect((await list(token, { page: 2, pageSize: 5 })).body).toMatchObject({
+      items: [],
+      total: 5,
+    });
   });
 
   it('answers 422 for a bad query', async () => {
     const res = await list(token, { sort: 'firmId', page: 0, pageSize: 1000 });
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.details).sort()).toEqual(['page', 'pageSize', 'sort']);
+  });
+
+  it('answers 422 for a search with a NUL character (no stored text can hold one)', async () => {
+    const res = await list(token, { search: 'fen\u0000wick' });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.body.details)).toEqual(['search']);
   });
 
   it('every role of the firm can list and read', async () => {

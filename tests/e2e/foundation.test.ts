@@ -31,6 +31,28 @@ function url(path: string): string {
   return `${BASE_URL}${path}`;
 }
 
+/** The token of the sign-up link e-mailed to `to`, polled from maildev (E2E_MAIL_URL). */
+async function signUpToken(to: string): Promise<string> {
+  const mailUrl = process.env.E2E_MAIL_URL?.replace(/\/$/, '');
+  if (mailUrl === undefined) throw new Error('E2E_MAIL_URL is not set (`npm test` sets it).');
+  let token: string | undefined;
+  await expect
+    .poll(
+      async () => {
+        const mails = (await (await fetch(`${mailUrl}/api/email`)).json()) as {
+          to: { address: string }[];
+          text?: string;
+        }[];
+        const mail = mails.find((m) => m.to.some((a) => a.address.toLowerCase() === to));
+        token = /\/confirm-sign-up\?token=([A-Za-z0-9_-]+)/.exec(mail?.text ?? '')?.[1];
+        return token !== undefined;
+      },
+      { timeout: 30_000 },
+    )
+    .toBe(true);
+  return token ?? '';
+}
+
 describe('foundation: sign up, create and find a project, sign in as the demo engineer', () => {
   beforeAll(async () => {
     browser = await startBrowser('foundation', {
@@ -52,7 +74,10 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
     await page.getByLabel('Password').fill(newFirm.password);
     await shot('01-sign-up-filled');
     await page.getByRole('button', { name: 'Create account' }).click();
+    await page.locator('[data-test="sign-up-sent"]').waitFor();
 
+    // The e-mailed link finishes the sign-up (read from the local mail catcher's REST API).
+    await page.goto(url(`/confirm-sign-up?token=${await signUpToken(newFirm.email)}`));
     await page.waitForURL(/\/projects$/);
     await expect
       .poll(() => page.locator('[data-test="firm-name"]').textContent())

@@ -140,6 +140,8 @@ export async function startApi(): Promise<ApiHarness> {
   const models = await import('../../api/src/models');
   const { issueToken } = await import('../../api/src/modules/auth/auth.tokens');
   const { closeMail } = await import('../../api/src/mail');
+  const { stopJobs } = await import('../../api/src/jobs');
+  const { closeComputePool } = await import('../../api/src/modules/calc/calc.pool');
   const app = createApp();
 
   return {
@@ -161,7 +163,9 @@ export async function startApi(): Promise<ApiHarness> {
       }
     },
     async close() {
+      await stopJobs();
       closeMail();
+      await closeComputePool();
       await capture.close();
       await models.sequelize.close();
     },
@@ -171,7 +175,7 @@ export async function startApi(): Promise<ApiHarness> {
 /** The token of the first `/path?token=` link in a captured e-mail. */
 export function tokenFromMail(
   mail: CapturedMail,
-  path: '/reset-password' | '/accept-invitation',
+  path: '/reset-password' | '/accept-invitation' | '/confirm-sign-up',
 ): string {
   const match = new RegExp(
     `${TEST_APP_URL.replace(/[.]/g, '\\.')}${path}\\?token=([A-Za-z0-9_-]+)`,
@@ -192,10 +196,13 @@ export interface SignedUp {
   firm: { id: string; name: string; plan: Plan; seats: number };
 }
 
-/** Signs up a brand-new firm through the API (Concept plan, one owner). */
+/**
+ * Signs up a brand-new firm through the API (Concept plan, one owner): the sign-up, its e-mailed
+ * link, and the confirmation that creates the firm and signs the owner in.
+ */
 export async function signUpFirm(h: ApiHarness, label = 'firm'): Promise<SignedUp> {
   const email = uniqueEmail(`${label}-owner`);
-  const res = await h
+  const asked = await h
     .http()
     .post('/api/v1/auth/signup')
     .send({
@@ -204,8 +211,15 @@ export async function signUpFirm(h: ApiHarness, label = 'firm'): Promise<SignedU
       email,
       password: TEST_PASSWORD,
     });
+  if (asked.status !== 202)
+    throw new Error(`signup failed: ${asked.status} ${JSON.stringify(asked.body)}`);
+  const link = await h.waitForMail(email);
+  const token = tokenFromMail(link, '/confirm-sign-up');
+  // Consumed here, so a test's next waitForMail(email) finds the mail it is about.
+  h.mail.splice(h.mail.indexOf(link), 1);
+  const res = await h.http().post('/api/v1/auth/signup/confirm').send({ token });
   if (res.status !== 201)
-    throw new Error(`signup failed: ${res.status} ${JSON.stringify(res.body)}`);
+    throw new Error(`signup confirmation failed: ${res.status} ${JSON.stringify(res.body)}`);
   const body = res.body as Omit<SignedUp, 'email' | 'password'>;
   return { ...body, email, password: TEST_PASSWORD };
 }

@@ -48,6 +48,7 @@ describe('router guards', () => {
     expect(await land('/forgot-password')).toBe('/forgot-password');
     expect(await land('/reset-password?token=abc')).toBe('/reset-password?token=abc');
     expect(await land('/accept-invitation?token=abc')).toBe('/accept-invitation?token=abc');
+    expect(await land('/confirm-sign-up?token=abc')).toBe('/confirm-sign-up?token=abc');
   });
 
   it('keeps signed-in people off the guest-only pages', async () => {

@@ -10,6 +10,8 @@ export interface Config {
   host: string;
   port: number;
   databaseUrl: string;
+  /** Most connections one process holds open to PostgreSQL (DATABASE_POOL_MAX). */
+  databasePoolMax: number;
   jwtSecret: string;
   /** jsonwebtoken `expiresIn`: seconds or a vercel/ms string such as '8h'. */
   jwtTtl: string | number;
@@ -23,6 +25,21 @@ export interface Config {
   /** Express 'trust proxy' setting. */
   trustProxy: boolean | number | string;
   migrateOnStart: boolean;
+  /** The worker-thread pool that runs the engine off the event loop (calc.pool.ts). */
+  compute: ComputeConfig;
+}
+
+export interface ComputeConfig {
+  /** worker threads running engine work at once */
+  threads: number;
+  /** wall time one calculation may take, queue included, before it is stopped with a 422 */
+  budgetMs: number;
+  /** calculations waiting for a thread beyond which new ones are answered 503 */
+  queueMax: number;
+  /** heap of one worker thread (V8 old generation), MB: a runaway calculation ends there */
+  memoryMb: number;
+  /** nice increment of the worker threads (Linux): request handling wins the CPU over engine work */
+  nice: number;
 }
 
 export class ConfigError extends Error {
@@ -44,6 +61,8 @@ const LOG_LEVELS: readonly LogLevel[] = [
   'silent',
 ];
 const JWT_SECRET_MIN_LENGTH = 32;
+const POOL_MAX_DEFAULT = 10;
+const POOL_MAX_LIMIT = 100;
 
 function blank(value: string | undefined): value is undefined {
   return value === undefined || value.trim() === '';
@@ -76,6 +95,10 @@ function readInt(
     return fallback;
   }
   return value;
+}
+
+function readPoolMax(env: Env, problems: string[]): number {
+  return readInt(env, 'DATABASE_POOL_MAX', POOL_MAX_DEFAULT, 1, POOL_MAX_LIMIT, problems);
 }
 
 function readJwtSecret(env: Env, problems: string[]): string {
@@ -117,9 +140,23 @@ export function loadConfig(env: Env): Config {
     nodeEnv = nodeEnvRaw;
   else problems.push(`NODE_ENV must be development, test or production (got "${nodeEnvRaw}").`);
 
+  const production = nodeEnv === 'production';
+  // In production nothing that reaches the outside world is guessed: mail and the address in
+  // e-mailed links must be given, as must the secret and the database (required everywhere).
+  if (production) {
+    for (const [name, what] of [
+      ['SMTP_HOST', 'the mail server that sends password resets and invitations'],
+      ['SMTP_PORT', "the mail server's port"],
+      ['APP_URL', 'the public address used in e-mailed links'],
+    ] as const) {
+      if (blank(env[name])) problems.push(`${name} is required in production (${what}).`);
+    }
+  }
+
   const host = blank(env.HOST) ? '127.0.0.1' : env.HOST.trim();
   const port = readInt(env, 'PORT', 8080, 0, 65535, problems);
   const databaseUrl = readDatabaseUrl(env, problems);
+  const databasePoolMax = readPoolMax(env, problems);
   const jwtSecret = readJwtSecret(env, problems);
 
   let jwtTtl: string | number = '8h';
@@ -157,11 +194,20 @@ export function loadConfig(env: Env): Config {
   if ((LOG_LEVELS as readonly string[]).includes(logLevelRaw)) logLevel = logLevelRaw as LogLevel;
   else problems.push(`LOG_LEVEL must be one of ${LOG_LEVELS.join(', ')} (got "${logLevelRaw}").`);
 
+  const compute: ComputeConfig = {
+    threads: readInt(env, 'CALC_THREADS', 2, 1, 64, problems),
+    budgetMs: readInt(env, 'CALC_TIME_BUDGET_MS', 30_000, 50, 600_000, problems),
+    queueMax: readInt(env, 'CALC_QUEUE_MAX', 64, 1, 100_000, problems),
+    memoryMb: readInt(env, 'CALC_WORKER_MEMORY_MB', 512, 64, 16_384, problems),
+    nice: readInt(env, 'CALC_NICE', 10, 0, 19, problems),
+  };
+
   const config: Config = {
     nodeEnv,
     host,
     port,
     databaseUrl,
+    databasePoolMax,
     jwtSecret,
     jwtTtl,
     bcryptCost,
@@ -173,6 +219,7 @@ export function loadConfig(env: Env): Config {
     logLevel,
     trustProxy: readTrustProxy(env.TRUST_PROXY),
     migrateOnStart: env.MIGRATE_ON_START === '1' || env.MIGRATE_ON_START === 'true',
+    compute,
   };
   if (problems.length > 0) throw new ConfigError(problems);
   return config;
@@ -195,6 +242,14 @@ export function getDatabaseUrl(): string {
   const url = readDatabaseUrl(process.env, problems);
   if (problems.length > 0) throw new ConfigError(problems);
   return url;
+}
+
+/** Only the pool size, for the connection pool (which the migration CLI shares). */
+export function getDatabasePoolMax(): number {
+  const problems: string[] = [];
+  const max = readPoolMax(process.env, problems);
+  if (problems.length > 0) throw new ConfigError(problems);
+  return max;
 }
 
 /** Log level for processes that only need a logger (CLIs); same rule as getConfig(). */

@@ -1,8 +1,9 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { can, type Action } from '@basinwright/common';
 import { forbidden, unauthorized } from '../errors';
-import { Firm, User } from '../models';
+import { Firm, sequelize, User } from '../models';
 import { verifyToken } from '../modules/auth/auth.tokens';
+import { SessionChecker } from './session-check';
 
 export interface AuthContext {
   user: User;
@@ -51,14 +52,19 @@ export const authenticate: RequestHandler = async (
   next();
 };
 
+const sessions = new SessionChecker(sequelize);
+
 /**
- * Requires a valid token (signature, issuer, audience, expiry) without reading the database.
- * Only for routes that compute and neither read nor write firm data (the engine): there a
- * signed-out member's still-unexpired token can do no harm, and skipping the per-request user
- * lookup keeps the calculators as fast as a plain JSON route. Everything else uses authenticate().
+ * Requires a valid token that is still the member's current one, without loading the member:
+ * for routes that compute and neither read nor write firm data (the engine). A token from
+ * before a sign-out, a password change or a deactivation is refused here exactly as in
+ * authenticate() (see SessionChecker: one indexed query, shared by requests arriving together,
+ * never a cache). Everything else uses authenticate().
  */
-export const authenticateToken: RequestHandler = (req, _res, next) => {
-  verifyToken(bearerToken(req));
+export const authenticateSession: RequestHandler = async (req, _res, next) => {
+  const claims = verifyToken(bearerToken(req));
+  if (!(await sessions.isCurrent(claims)))
+    throw unauthorized('Your session has ended. Sign in again.');
   next();
 };
 

@@ -92,7 +92,6 @@ function bodyEmail(body: unknown): string {
 
 export interface RateLimits {
   loginByIp: RateLimitRequestHandler;
-  loginByAccount: RateLimitRequestHandler;
   signupByIp: RateLimitRequestHandler;
   forgotByIp: RateLimitRequestHandler;
   forgotByAccount: RateLimitRequestHandler;
@@ -115,11 +114,6 @@ export function createRateLimits(sequelize: Sequelize): RateLimits {
     });
   return {
     loginByIp: limiter('login-ip:', 15 * MINUTE, 30),
-    // Only failed attempts count against an account, so its owner is not locked out by success.
-    loginByAccount: limiter('login-account:', 15 * MINUTE, 10, {
-      keyGenerator: (req) => bodyEmail(req.body),
-      skipSuccessfulRequests: true,
-    }),
     signupByIp: limiter('signup-ip:', 60 * MINUTE, 20),
     forgotByIp: limiter('forgot-ip:', 60 * MINUTE, 20),
     forgotByAccount: limiter('forgot-account:', 60 * MINUTE, 5, {

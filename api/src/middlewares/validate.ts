@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import { ValidationError, type Schema } from 'yup';
 import { validationError, type ErrorDetails } from '../errors';
+import { assertStorable } from './request-shape';
 
 export type ValidationSource = 'body' | 'query';
 
@@ -43,6 +44,8 @@ export function validate(schema: Schema, source: ValidationSource = 'body'): Req
   return async (req, res, next) => {
     const raw: unknown = source === 'body' ? (req.body ?? {}) : req.query;
     if (!isPlainObject(raw)) throw validationError({ [source]: 'Send a JSON object.' });
+    // Bodies were checked by jsonBody(); query strings are checked here.
+    if (source === 'query') assertStorable(raw, source);
     const input = withoutPrototypeKeys(raw);
     let value: unknown;
     try {

@@ -4,6 +4,7 @@ import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
 import { Project } from './Project';
+import { SignupRequest } from './SignupRequest';
 import { User } from './User';
 
 // Init every model on the process pool first, then wire the associations.
@@ -13,6 +14,7 @@ Project.initModel(sequelize);
 Invitation.initModel(sequelize);
 PasswordReset.initModel(sequelize);
 Design.initModel(sequelize);
+SignupRequest.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -27,4 +29,4 @@ Project.hasOne(Design, { as: 'design', foreignKey: 'projectId' });
 Design.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 Design.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
 
-export { sequelize, Design, Firm, Invitation, PasswordReset, Project, User };
+export { sequelize, Design, Firm, Invitation, PasswordReset, Project, SignupRequest, User };

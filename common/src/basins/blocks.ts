@@ -1,5 +1,6 @@
 // Rows of blocks across a basin: a whole number of blocks with half a space at each wall.
 import { reqPositive } from './guards';
+import { ENGINE_LIMITS } from '../schemas/limits';
 
 /** A row of blocks as built across the basin width (m). */
 export interface BlockRow {
@@ -27,13 +28,20 @@ export interface BlockRow {
 /**
  * Fits n blocks of width w with clear spacing ≥ s across a basin of width W, half a space at
  * each wall: n·(w + s′) = W, n = ⌊W/(w + s)⌋, s′ = W/n − w. [USBR EM-25 layout rule: "half
- * space at the walls"]
+ * space at the walls"]. The count and spacing are found first, in constant memory; a row of
+ * more than ENGINE_LIMITS.maxBlocksPerRow blocks is refused (RangeError naming basinWidth)
+ * before any centre is listed, so no input can make the row's memory grow without bound.
  * @example fitBlockRow(12, 0.5, 0.5).count // 12
  */
 export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: number): BlockRow {
   const W = reqPositive('basinWidth', basinWidth);
   const w = reqPositive('blockWidth', blockWidth);
   const s = reqPositive('spacing', spacing);
+  const fits = Math.floor(W / (w + s) + 1e-9);
+  if (fits > ENGINE_LIMITS.maxBlocksPerRow)
+    throw new RangeError(
+      `basinWidth: a row of ${fits} blocks ${w.toPrecision(3)} m wide across ${W} m exceeds the ${ENGINE_LIMITS.maxBlocksPerRow} one row may hold; the basin is far wider than its flow needs`,
+    );
   if (w + s > W * (1 + 1e-9)) {
     const bw = Math.min(w, W / 2);
     return {
@@ -47,7 +55,7 @@ export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: num
       narrow: true,
     };
   }
-  const count = Math.max(1, Math.floor(W / (w + s) + 1e-9));
+  const count = Math.max(1, fits);
   const asBuilt = W / count - w;
   const centres: number[] = [];
   for (let k = 0; k < count; k++) centres.push(-W / 2 + asBuilt / 2 + w / 2 + k * (w + asBuilt));

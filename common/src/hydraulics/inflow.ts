@@ -2,6 +2,9 @@
 // Sources per function; hydraulics.md §2.
 import { G } from '../units/constants';
 import { requireInRange, requireNonNegative, requirePositive } from './guards';
+import { ENGINE_LIMITS } from '../schemas/limits';
+
+const CC = ENGINE_LIMITS.contractionCoefficient;
 import { _criticalDepth, _froude, _normalDepth } from './depths';
 import type { Section } from './sections';
 import { geometry, validateSection } from './sections';
@@ -156,7 +159,7 @@ export interface GateFlow {
 
 function checkGate(a: number, Cc: number, y0: number): void {
   requirePositive('gate.opening', a);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, 0.3, 1);
+  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
   requirePositive('gate.upstreamDepth', y0);
   if (a >= y0) {
     throw new RangeError(
@@ -188,7 +191,7 @@ export function gateFlow(g: { opening: number; Cc: number; upstreamDepth: number
 export function gateUpstreamDepth(q: number, opening: number, Cc: number): number {
   requirePositive('q (unit discharge)', q);
   requirePositive('gate.opening', opening);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, 0.3, 1);
+  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
   // q²(y0 + Cc·a) = 2g·Cc²·a²·y0²  →  quadratic in y0, positive root.
   const A = 2 * G * Cc * Cc * opening * opening;
   const y0 = (q * q + Math.sqrt(q ** 4 + 4 * A * q * q * Cc * opening)) / (2 * A);
@@ -204,7 +207,7 @@ export function gateUpstreamDepth(q: number, opening: number, Cc: number): numbe
 export function gateOpening(q: number, upstreamDepth: number, Cc: number): number {
   requirePositive('q (unit discharge)', q);
   requirePositive('gate.upstreamDepth', upstreamDepth);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, 0.3, 1);
+  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
   const qOf = (a: number): number => gateResult(a, Cc, upstreamDepth).q;
   const aMax = upstreamDepth * (1 - 1e-9);
   if (q > qOf(aMax)) {

@@ -79,6 +79,12 @@ export const resetPasswordSchema = object({
 });
 export type ResetPasswordInput = InferType<typeof resetPasswordSchema>;
 
+/** POST /auth/signup/confirm: the token of the e-mailed link that finishes a sign-up. */
+export const confirmSignupSchema = object({
+  token: emailTokenSchema,
+});
+export type ConfirmSignupInput = InferType<typeof confirmSignupSchema>;
+
 export const acceptInvitationSchema = object({
   token: emailTokenSchema,
   name: personNameSchema,

@@ -13,10 +13,10 @@ export interface DesignSaveInput {
 }
 
 /** PUT /projects/:id/design: the study input in the project's units, and the catalogue options. */
-export const designSaveSchema = object({
+export const designSaveSchema: ObjectSchema<DesignSaveInput> = object({
   input: studyInputSchema.required('Send the design input.'),
   options: mixed<Record<string, unknown>>()
     .nullable()
     .optional()
     .test('object', 'The design options must be an object.', (v) => v == null || isPlainObject(v)),
-}) as unknown as ObjectSchema<DesignSaveInput>;
+});

@@ -72,6 +72,7 @@ export const LIMITS = {
 export const TOKEN_TTL_MS = {
   passwordReset: 60 * 60 * 1000,
   invitation: 7 * 24 * 60 * 60 * 1000,
+  signup: 24 * 60 * 60 * 1000,
 } as const;
 
 /**
@@ -93,4 +94,155 @@ export function utf8ByteLength(value: string): number {
     } else bytes += 3;
   }
   return bytes;
+}
+
+/**
+ * Bounds on the engine's inputs, kept here once and read by the yup schemas (schemas/study.ts),
+ * the engine's own guards (study.ts, hydraulics/inflow.ts, basins/blocks.ts) and the API's
+ * compute pool. Each bounds the time or memory of one study, or refuses a value no real
+ * structure has; the reason stands beside each. Lengths are given in each unit system, as
+ * typed: the US figure never exceeds the SI one converted, so input the schema accepts is
+ * never refused by the engine after conversion.
+ */
+export const ENGINE_LIMITS = {
+  /**
+   * Discharges analysed in one study (a range's count or a list's length). Each one is a
+   * toe, jump and tailwater solve at every floor the search tries: 5,000 take several
+   * seconds of CPU, the most one request may use (the API's time budget stops it beyond);
+   * a rating curve needs tens.
+   */
+  maxDischarges: 5000,
+  /**
+   * Rows of a rating or outlet table (tailwater, headwater, outlet). Read once per study and
+   * searched per discharge; a gauged rating or a model run gives tens to hundreds of rows.
+   */
+  maxTableRows: 5000,
+  /**
+   * Basin width. The block rows of a basin grow with the width over y1, and y1 shrinks as
+   * the width spreads the flow, so without the block limits below the work grew with about
+   * the square of the width: 200 m took 0.6 s and 7 MB, 1,000 m 52 s and 280 MB, and 10,000 m
+   * stopped the process (issue 8). With them a 300 m demo study takes well under a second.
+   * The widest stilling basins built are of the order of 100–200 m [from memory].
+   */
+  maxBasinWidth: { SI: 300, US: 980 },
+  /**
+   * Blocks in one row across a basin (chute blocks, baffle piers, floor blocks, sill teeth):
+   * a row is built block by block for the drawing, so this bounds its memory. 2,000 blocks
+   * (a 60 m basin with 3 cm blocks) is already far beyond any basin built; a type that would
+   * need more is reported "not sized", naming the basin width, and the study goes on.
+   */
+  maxBlocksPerRow: 2000,
+  /**
+   * Rows of baffle piers down a baffled apron (USBR Type IX): their number grows with the drop
+   * over the critical depth, and the drawing holds every block of every row. Aprons are built
+   * with four rows and more [Design of Small Dams, from memory]; 200 is far beyond any built.
+   */
+  maxBlockRows: 200,
+  /**
+   * Baffle piers on one baffled apron, all rows together: the drawing holds each one, so this
+   * bounds its memory (10,000 shapes ≈ 3 MB of result). A built apron has some tens to hundreds.
+   */
+  maxApronBlocks: 10_000,
+  /**
+   * Contraction coefficient of a gate: 0.5 is the strongest contraction a free jet can have
+   * (Borda's re-entrant mouthpiece, a fact of the trade); a vertical sluice gate gives about
+   * 0.61 [Henderson 1966, §6.3], a radial gate more; 1 is no contraction.
+   */
+  contractionCoefficient: { min: 0.5, max: 1 },
+  /**
+   * Manning's n, the same number in SI and US customary: 0.005 is below the smoothest
+   * surfaces tabulated (glass, plastic ≈ 0.009) and 0.2 above the roughest flood plains
+   * with dense brush (≈ 0.16) [Chow 1959, Table 5-6, from memory] — a sanity bound.
+   */
+  manningN: { min: 0.005, max: 0.2 },
+  /**
+   * Weir coefficient C of Q = C·L·H^1.5, in m^0.5/s (SI) or ft^0.5/s (US; × 1.811 of SI):
+   * broad-crested weirs ≈ 1.45–1.7 SI (2.6–3.1 US), sharp-crested ≈ 1.8 and ogee crests up
+   * to ≈ 2.2 SI (4.0 US) [common practice, from memory]; the bounds leave room on both sides.
+   */
+  weirCoefficient: { SI: { min: 1.2, max: 2.5 }, US: { min: 2.2, max: 4.5 } },
+} as const;
+
+/** A field whose size made a study large, and how large, for a message that names it. */
+export interface StudySize {
+  field: string;
+  label: string;
+  value: number;
+  /** value ÷ its limit (1 = at the limit) */
+  share: number;
+}
+
+interface StudySizeView {
+  units?: unknown;
+  basinWidth?: unknown;
+  discharges?: { kind?: unknown; count?: unknown; values?: unknown } | null;
+  tailwater?: { rows?: unknown } | null;
+  inflow?: {
+    headwater?: { rows?: unknown } | null;
+    outlet?: { rows?: unknown } | null;
+  } | null;
+}
+
+const lengthOf = (v: unknown): number => (Array.isArray(v) ? v.length : 0);
+
+/**
+ * The sizes of a study input that drive its time and memory, largest share of its limit
+ * first. Reads any object (validated or not) and never throws.
+ */
+export function studySizes(input: unknown): StudySize[] {
+  if (input === null || typeof input !== 'object') return [];
+  const s = input as StudySizeView;
+  const units = s.units === 'US' ? 'US' : 'SI';
+  const sizes: StudySize[] = [];
+  const d = s.discharges;
+  if (d?.kind === 'range' && typeof d.count === 'number')
+    sizes.push({
+      field: 'discharges.count',
+      label: 'the number of discharges',
+      value: d.count,
+      share: 0,
+    });
+  else if (d?.kind === 'list')
+    sizes.push({
+      field: 'discharges.values',
+      label: 'the number of discharges',
+      value: lengthOf(d.values),
+      share: 0,
+    });
+  for (const [field, rows] of [
+    ['tailwater.rows', s.tailwater?.rows],
+    ['inflow.headwater.rows', s.inflow?.headwater?.rows],
+    ['inflow.outlet.rows', s.inflow?.outlet?.rows],
+  ] as const) {
+    if (Array.isArray(rows))
+      sizes.push({ field, label: 'the rows of a table', value: rows.length, share: 0 });
+  }
+  if (typeof s.basinWidth === 'number')
+    sizes.push({ field: 'basinWidth', label: 'the basin width', value: s.basinWidth, share: 0 });
+  const limitOf = (field: string): number =>
+    field === 'basinWidth'
+      ? ENGINE_LIMITS.maxBasinWidth[units]
+      : field.startsWith('discharges')
+        ? ENGINE_LIMITS.maxDischarges
+        : ENGINE_LIMITS.maxTableRows;
+  return sizes
+    .map((x) => ({ ...x, share: x.value / limitOf(x.field) }))
+    .sort((a, b) => b.share - a.share);
+}
+
+/**
+ * The engine's own check of the size limits (the schema checks the same before any work, in
+ * the input's units; this one guards direct callers, in SI): a RangeError naming the field.
+ */
+export function requireStudySize(input: unknown): void {
+  for (const size of studySizes({ ...(input as object), units: 'SI' })) {
+    if (size.share > 1) {
+      const limit = Math.round(size.value / size.share);
+      throw new RangeError(
+        size.field === 'basinWidth'
+          ? `basinWidth must not exceed ${limit} m (got ${size.value} m)`
+          : `${size.field}: at most ${limit} ${size.field.startsWith('discharges') ? 'discharges' : 'rows'} (got ${size.value})`,
+      );
+    }
+  }
 }

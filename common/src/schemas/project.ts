@@ -62,6 +62,12 @@ export const projectListQuerySchema = object({
   search: string()
     .transform(trimString)
     .max(LIMITS.searchMaxLength, `Search has at most ${LIMITS.searchMaxLength} characters.`)
+    // No stored text can hold a NUL (PostgreSQL refuses it), so say so rather than fail.
+    .test(
+      'search-no-nul',
+      'Search cannot contain a NUL character.',
+      (value) => !value?.includes('\u0000'),
+    )
     .default(''),
   sort: string<ProjectSort>()
     .transform(blankToUndefined)

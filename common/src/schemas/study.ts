@@ -9,16 +9,24 @@ import {
   number,
   object,
   string,
+  type ISchema,
+  type Lazy,
   type ObjectSchema,
   type Schema,
 } from 'yup';
 import type { Section } from '../hydraulics/sections';
 import type { JumpSituation } from '../hydraulics/profiles';
+import type { KnownToe, LossModel } from '../hydraulics/inflow';
+import type { TailwaterSpec } from '../hydraulics/tailwater';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
-import type { StudyInput } from '../study';
+import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../study';
+import { ENGINE_LIMITS } from './limits';
 
-export const MAX_STUDY_DISCHARGES = 5000;
+/** Discharges one study may analyse (ENGINE_LIMITS.maxDischarges, the reason there). */
+export const MAX_STUDY_DISCHARGES = ENGINE_LIMITS.maxDischarges;
+const MAX_TABLE_ROWS = ENGINE_LIMITS.maxTableRows;
+const { manningN: N_RANGE, contractionCoefficient: CC_RANGE } = ENGINE_LIMITS;
 
 const cap = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
 const num = (label: string) =>
@@ -39,36 +47,65 @@ const nonNegative = (label: string) =>
     .required(`Enter ${label}.`);
 const elevation = (label: string) => num(label).required(`Enter ${label}.`);
 
-function byKind<T extends string>(
-  field: string,
-  label: string,
-  schemas: Record<T, Schema>,
-  optional = false,
-) {
-  const kinds = Object.keys(schemas) as T[];
-  return lazy((value: unknown) => {
-    // An optional choice may be left out altogether (the engine then takes its default).
-    if (optional && value === undefined) return mixed().optional();
-    const kind =
-      value !== null && typeof value === 'object'
-        ? (value as Record<string, unknown>)[field]
-        : undefined;
-    if (typeof kind === 'string' && (kinds as string[]).includes(kind)) return schemas[kind as T];
-    return object({
-      [field]: string()
-        .required(`Choose ${label}.`)
+/** One schema per kind of a union discriminated by `F`, each giving exactly its member. */
+type Variants<U extends Record<F, string>, F extends string> = {
+  [K in U[F]]: ISchema<Extract<U, Record<F, K>>>;
+};
 
-        .oneOf(kinds, `${cap(label)} must be one of: ${kinds.join(', ')}.`),
-    })
-      .required(`Enter ${label}.`)
-      .typeError(`Enter ${label}.`);
-  });
+/** The schema of `value`'s kind, or one that refuses it saying which kinds there are. */
+function pickKind<U extends Record<F, string>, F extends string>(
+  field: F,
+  label: string,
+  schemas: Variants<U, F>,
+  value: unknown,
+): ISchema<U> {
+  const kinds = Object.keys(schemas);
+  const kind =
+    value !== null && typeof value === 'object'
+      ? (value as Record<string, unknown>)[field]
+      : undefined;
+  if (typeof kind === 'string' && kinds.includes(kind)) return schemas[kind as U[F]];
+  return mixed<U>()
+    .required(`Enter ${label}.`)
+    .test('kind', (v, ctx) => {
+      if (v === null || typeof v !== 'object')
+        return ctx.createError({ message: `Enter ${label}.` });
+      const at = ctx.path ? `${ctx.path}.${field}` : field;
+      const k = (v as Record<string, unknown>)[field];
+      return ctx.createError({
+        path: at,
+        message:
+          k === undefined || k === null || k === ''
+            ? `Choose ${label}.`
+            : `${cap(label)} must be one of: ${kinds.join(', ')}.`,
+      });
+    });
 }
 
-export const sectionSchema = byKind<Section['shape']>('shape', 'the section shape', {
-  rectangular: object({ shape: string().required(), width: positive('the width') }),
+/** A choice among the kinds of a discriminated union, each kind with its own schema. */
+function byKind<U extends Record<F, string>, F extends string>(
+  field: F,
+  label: string,
+  schemas: Variants<U, F>,
+): Lazy<U> {
+  return lazy((value: unknown) => pickKind(field, label, schemas, value));
+}
+
+/** The same, for a choice that may be left out altogether (the engine then takes its default). */
+function optionalByKind<U extends Record<F, string>, F extends string>(
+  field: F,
+  label: string,
+  schemas: Variants<U, F>,
+): Lazy<U | undefined> {
+  return lazy((value: unknown): ISchema<U | undefined> =>
+    value === undefined ? mixed<U>().optional() : pickKind(field, label, schemas, value),
+  );
+}
+
+export const sectionSchema = byKind<Section, 'shape'>('shape', 'the section shape', {
+  rectangular: object({ shape: string<'rectangular'>().required(), width: positive('the width') }),
   trapezoidal: object({
-    shape: string().required(),
+    shape: string<'trapezoidal'>().required(),
     bottomWidth: nonNegative('the bottom width'),
     sideSlope: nonNegative('the side slope'),
   }).test(
@@ -76,7 +113,7 @@ export const sectionSchema = byKind<Section['shape']>('shape', 'the section shap
     'A trapezoid needs a bottom width or a side slope greater than zero.',
     (v) => !v || v.bottomWidth > 0 || v.sideSlope > 0,
   ),
-  circular: object({ shape: string().required(), diameter: positive('the diameter') }),
+  circular: object({ shape: string<'circular'>().required(), diameter: positive('the diameter') }),
 });
 
 /** POST /calc/jump: section, Q and y1, SI. */
@@ -94,8 +131,8 @@ const reach = (label: string) =>
       .max(1, `The ${label} slope must not exceed 1 (45°).`)
       .required(`Enter the ${label} slope.`),
     manningN: num(`the ${label} Manning's n`)
-      .min(0.005, "Manning's n must be at least 0.005.")
-      .max(0.2, "Manning's n must not exceed 0.2.")
+      .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+      .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
       .required(`Enter the ${label} Manning's n.`),
   }).required(`Enter the ${label} reach.`);
 const slope = num('the bed slope')
@@ -103,8 +140,8 @@ const slope = num('the bed slope')
   .max(1, 'The bed slope must not exceed 1 (45°).')
   .required('Enter the bed slope.');
 const manningN = num("Manning's n")
-  .min(0.005, "Manning's n must be at least 0.005.")
-  .max(0.2, "Manning's n must not exceed 0.2.")
+  .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+  .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
   .required("Enter Manning's n.");
 const optionalPositive = (label: string) =>
   num(label)
@@ -112,83 +149,100 @@ const optionalPositive = (label: string) =>
     .optional();
 
 /** POST /calc/jump-position: where the jump forms below a control, SI. */
-export const jumpSituationSchema = byKind<JumpSituation['kind']>('kind', 'the situation', {
-  slopeBreak: object({
-    kind: string().required(),
-    section: sectionSchema,
-    Q: positive('the discharge Q'),
-    upstream: reach('upstream'),
-    downstream: reach('downstream'),
-    tailwaterDepth: optionalPositive('the tailwater depth'),
-  }),
-  gateMildSlope: object({
-    kind: string().required(),
-    section: sectionSchema,
-    Q: positive('the discharge Q'),
-    opening: positive('the gate opening'),
-    Cc: num('the contraction coefficient')
-      .min(0.5, 'The contraction coefficient must be at least 0.5.')
-      .max(1, 'The contraction coefficient must not exceed 1.')
-      .required('Enter the contraction coefficient.'),
-    slope,
-    manningN,
-    tailwaterDepth: optionalPositive('the tailwater depth'),
-  }),
-  gateSteepSlope: object({
-    kind: string().required(),
-    section: sectionSchema,
-    Q: positive('the discharge Q'),
-    slope,
-    manningN,
-    upstreamDepth: optionalPositive('the depth upstream of the gate'),
-    opening: optionalPositive('the gate opening'),
-    Cc: num('the contraction coefficient')
-      .min(0.5, 'The contraction coefficient must be at least 0.5.')
-      .max(1, 'The contraction coefficient must not exceed 1.')
-      .optional(),
-  }),
-  weirToMildSlope: object({
-    kind: string().required(),
-    section: sectionSchema,
-    Q: positive('the discharge Q'),
-    crestHeight: positive('the crest height'),
-    lossFraction: num('the loss fraction')
-      .min(0, 'The loss fraction must not be negative.')
-      .max(0.9, 'The loss fraction must not exceed 0.9.')
-      .optional(),
-    slope,
-    manningN,
-    tailwaterDepth: optionalPositive('the tailwater depth'),
-  }),
-}) as unknown as Schema<JumpSituation>;
+const jumpSituationChoice: Lazy<JumpSituation> = byKind<JumpSituation, 'kind'>(
+  'kind',
+  'the situation',
+  {
+    slopeBreak: object({
+      kind: string<'slopeBreak'>().required(),
+      section: sectionSchema,
+      Q: positive('the discharge Q'),
+      upstream: reach('upstream'),
+      downstream: reach('downstream'),
+      tailwaterDepth: optionalPositive('the tailwater depth'),
+    }),
+    gateMildSlope: object({
+      kind: string<'gateMildSlope'>().required(),
+      section: sectionSchema,
+      Q: positive('the discharge Q'),
+      opening: positive('the gate opening'),
+      Cc: num('the contraction coefficient')
+        .min(CC_RANGE.min, `The contraction coefficient must be at least ${CC_RANGE.min}.`)
+        .max(CC_RANGE.max, `The contraction coefficient must not exceed ${CC_RANGE.max}.`)
+        .required('Enter the contraction coefficient.'),
+      slope,
+      manningN,
+      tailwaterDepth: optionalPositive('the tailwater depth'),
+    }),
+    gateSteepSlope: object({
+      kind: string<'gateSteepSlope'>().required(),
+      section: sectionSchema,
+      Q: positive('the discharge Q'),
+      slope,
+      manningN,
+      upstreamDepth: optionalPositive('the depth upstream of the gate'),
+      opening: optionalPositive('the gate opening'),
+      Cc: num('the contraction coefficient')
+        .min(CC_RANGE.min, `The contraction coefficient must be at least ${CC_RANGE.min}.`)
+        .max(CC_RANGE.max, `The contraction coefficient must not exceed ${CC_RANGE.max}.`)
+        .optional(),
+    }),
+    weirToMildSlope: object({
+      kind: string<'weirToMildSlope'>().required(),
+      section: sectionSchema,
+      Q: positive('the discharge Q'),
+      crestHeight: positive('the crest height'),
+      lossFraction: num('the loss fraction')
+        .min(0, 'The loss fraction must not be negative.')
+        .max(0.9, 'The loss fraction must not exceed 0.9.')
+        .optional(),
+      slope,
+      manningN,
+      tailwaterDepth: optionalPositive('the tailwater depth'),
+    }),
+  },
+);
+/**
+ * The same choice typed as a yup Schema, for the form library (vee-validate's toTypedSchema
+ * takes no Lazy). Its output type is checked by the compiler above (Lazy<JumpSituation>); this
+ * only names the class of the schema.
+ */
+export const jumpSituationSchema = jumpSituationChoice as unknown as Schema<JumpSituation>;
 
 const LOSS_MODELS = {
-  none: object({ kind: string().required() }),
+  none: object({ kind: string<'none'>().required() }),
   fraction: object({
-    kind: string().required(),
+    kind: string<'fraction'>().required(),
     value: num('the loss fraction')
       .min(0, 'The loss fraction must not be negative.')
       .max(0.95, 'The loss fraction must be below 0.95.')
       .required('Enter the loss fraction.'),
   }),
   velocityCoefficient: object({
-    kind: string().required(),
+    kind: string<'velocityCoefficient'>().required(),
     Cv: num('Cv')
       .min(0.1, 'Cv must be at least 0.1.')
       .max(1, 'Cv must not exceed 1.')
       .required('Enter Cv.'),
   }),
-  lossCoefficient: object({ kind: string().required(), K: nonNegative('the loss coefficient K') }),
+  lossCoefficient: object({
+    kind: string<'lossCoefficient'>().required(),
+    K: nonNegative('the loss coefficient K'),
+  }),
 };
 
-const lossModelSchema = byKind('kind', 'the loss allowance', LOSS_MODELS);
+const lossModelSchema = byKind<LossModel, 'kind'>('kind', 'the loss allowance', LOSS_MODELS);
 // Where the loss allowance may be left out (the engine then takes its default).
-const lossModelOptional = byKind('kind', 'the loss allowance', LOSS_MODELS, true);
+const lossModelOptional = optionalByKind<LossModel, 'kind'>(
+  'kind',
+  'the loss allowance',
+  LOSS_MODELS,
+);
 
 const qElevationRows = (label: string) =>
   array(object({ Q: positive('Q'), elevation: elevation('the elevation') }))
     .min(2, `The ${label} needs at least two rows.`)
-    .max(MAX_STUDY_DISCHARGES, `The ${label} has at most ${MAX_STUDY_DISCHARGES} rows.`)
+    .max(MAX_TABLE_ROWS, `The ${label} has at most ${MAX_TABLE_ROWS} rows.`)
     .test(
       'increasing',
       `Discharges in the ${label} must increase from row to row.`,
@@ -200,22 +254,57 @@ const manningChannel = {
   section: sectionSchema,
   slope: positive('the channel slope'),
   manningN: num("Manning's n")
-    .min(0.005, "Manning's n must be at least 0.005.")
-    .max(0.2, "Manning's n must not exceed 0.2.")
+    .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+    .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
     .required("Enter Manning's n."),
 };
 
-const inflowSchema = byKind('kind', 'the inflow type', {
+const PAIRS = 'Give y1 and V1, or Fr1 and q, or Fr1 and y1.';
+/** Which pair of toe conditions a value gives, or undefined for none or a mixture. */
+function toePair(t: unknown): 'y1v1' | 'fr1q' | 'fr1y1' | undefined {
+  if (t === null || typeof t !== 'object') return undefined;
+  const has = (k: string) => (t as Record<string, unknown>)[k] !== undefined;
+  const [y1, v1, fr1, q] = [has('y1'), has('v1'), has('fr1'), has('q')];
+  if (y1 && v1 && !fr1 && !q) return 'y1v1';
+  if (fr1 && q && !y1 && !v1) return 'fr1q';
+  if (fr1 && y1 && !q && !v1) return 'fr1y1';
+  return undefined;
+}
+const toeY1 = num('y1').positive('y1 must be greater than zero.').required('Enter y1.');
+const toeFr1 = num('Fr1')
+  .moreThan(1, 'Fr1 must exceed 1 (supercritical inflow).')
+  .required('Enter Fr1.');
+/** Known toe conditions: exactly one of the three pairs (KnownToe). */
+const knownToeSchema = lazy((t: unknown): ISchema<KnownToe> => {
+  switch (toePair(t)) {
+    case 'y1v1':
+      return object({ y1: toeY1, v1: positive('V1') });
+    case 'fr1q':
+      return object({ fr1: toeFr1, q: positive('q') });
+    case 'fr1y1':
+      return object({ fr1: toeFr1, y1: toeY1 });
+    default:
+      return mixed<KnownToe>()
+        .required('Enter the toe conditions.')
+        .test('pair', PAIRS, () => false);
+  }
+});
+
+const inflowSchema = byKind<StudyInflow, 'kind'>('kind', 'the inflow type', {
   chute: object({
-    kind: string().required(),
+    kind: string<'chute'>().required(),
     crestElevation: elevation('the crest elevation'),
-    headwater: byKind('kind', 'the headwater rating', {
+    headwater: byKind<HeadwaterSpec, 'kind'>('kind', 'the headwater rating', {
       weir: object({
-        kind: string().required(),
+        kind: string<'weir'>().required(),
+        // Its range depends on the units (m^0.5/s or ft^0.5/s): checked with the whole input.
         C: positive('the weir coefficient C'),
         L: positive('the crest length L'),
       }),
-      table: object({ kind: string().required(), rows: qElevationRows('headwater table') }),
+      table: object({
+        kind: string<'table'>().required(),
+        rows: qElevationRows('headwater table'),
+      }),
     }),
     lossModel: lossModelSchema,
     approachVelocityHead: num('the approach velocity head')
@@ -223,10 +312,10 @@ const inflowSchema = byKind('kind', 'the inflow type', {
       .optional(),
   }),
   gate: object({
-    kind: string().required(),
+    kind: string<'gate'>().required(),
     Cc: num('Cc')
-      .min(0.3, 'Cc must be at least 0.3.')
-      .max(1, 'Cc must not exceed 1.')
+      .min(CC_RANGE.min, `Cc must be at least ${CC_RANGE.min}.`)
+      .max(CC_RANGE.max, `Cc must not exceed ${CC_RANGE.max}.`)
       .required('Enter the contraction coefficient Cc.'),
     opening: num('the gate opening')
       .positive('The gate opening must be greater than zero.')
@@ -243,63 +332,52 @@ const inflowSchema = byKind('kind', 'the inflow type', {
       [v.opening, v.upstreamDepth, v.upstreamElevation].filter((x) => x !== undefined).length === 1,
   ),
   pipe: object({
-    kind: string().required(),
+    kind: string<'pipe'>().required(),
     invertElevation: elevation('the outlet invert elevation'),
-    outlet: byKind('kind', 'the outlet flow', {
-      table: object({
-        kind: string().required(),
-        rows: array(
-          object({
-            Q: positive('Q'),
-            depth: positive('the outlet depth'),
-            velocity: positive('the outlet velocity'),
-          }),
-        )
-          .min(2, 'The outlet table needs at least two rows.')
-          .max(MAX_STUDY_DISCHARGES, `The outlet table has at most ${MAX_STUDY_DISCHARGES} rows.`)
-          .required('Enter the outlet table.'),
-      }),
-      barrel: object({ kind: string().required(), ...manningChannel }),
-    }),
+    outlet: byKind<Extract<StudyInflow, { kind: 'pipe' }>['outlet'], 'kind'>(
+      'kind',
+      'the outlet flow',
+      {
+        table: object({
+          kind: string<'table'>().required(),
+          rows: array(
+            object({
+              Q: positive('Q'),
+              depth: positive('the outlet depth'),
+              velocity: positive('the outlet velocity'),
+            }),
+          )
+            .min(2, 'The outlet table needs at least two rows.')
+            .max(MAX_TABLE_ROWS, `The outlet table has at most ${MAX_TABLE_ROWS} rows.`)
+            .required('Enter the outlet table.'),
+        }),
+        barrel: object({ kind: string<'barrel'>().required(), ...manningChannel }),
+      },
+    ),
     // Optional, as in the StudyInput type: the engine takes 'none' (no loss) when absent.
     lossModel: lossModelOptional,
   }),
   known: object({
-    kind: string().required(),
-    toe: object({
-      y1: num('y1').positive('y1 must be greater than zero.').optional(),
-      v1: num('V1').positive('V1 must be greater than zero.').optional(),
-      fr1: num('Fr1').moreThan(1, 'Fr1 must exceed 1 (supercritical inflow).').optional(),
-      q: num('q').positive('q must be greater than zero.').optional(),
-    })
-      .test(
-        'pair',
-        'Give y1 and V1, or Fr1 and q, or Fr1 and y1.',
-        (t) =>
-          !t ||
-          (t.y1 !== undefined && t.v1 !== undefined && t.fr1 === undefined && t.q === undefined) ||
-          (t.fr1 !== undefined && t.q !== undefined && t.y1 === undefined && t.v1 === undefined) ||
-          (t.fr1 !== undefined && t.y1 !== undefined && t.q === undefined && t.v1 === undefined),
-      )
-      .required('Enter the toe conditions.'),
+    kind: string<'known'>().required(),
+    toe: knownToeSchema,
   }),
 });
 
-const tailwaterSchema = byKind('kind', 'the tailwater rating', {
-  table: object({ kind: string().required(), rows: qElevationRows('tailwater table') }),
-  manning: object({ kind: string().required(), ...manningChannel }),
+const tailwaterSchema = byKind<TailwaterSpec, 'kind'>('kind', 'the tailwater rating', {
+  table: object({ kind: string<'table'>().required(), rows: qElevationRows('tailwater table') }),
+  manning: object({ kind: string<'manning'>().required(), ...manningChannel }),
 });
 
-const dischargesSchema = byKind('kind', 'the discharges to check', {
+const dischargesSchema = byKind<DischargeSpec, 'kind'>('kind', 'the discharges to check', {
   list: object({
-    kind: string().required(),
+    kind: string<'list'>().required(),
     values: array(positive('each discharge'))
       .min(1, 'List at least one discharge.')
       .max(MAX_STUDY_DISCHARGES, `At most ${MAX_STUDY_DISCHARGES} discharges.`)
       .required('List the discharges.'),
   }),
   range: object({
-    kind: string().required(),
+    kind: string<'range'>().required(),
     min: positive('the smallest discharge'),
     max: positive('the largest discharge'),
     count: num('the number of discharges')
@@ -420,12 +498,19 @@ export const dissipatorOptionsSchema = object({
   .optional();
 
 /** The whole study request (POST /calc/study), in the units named by `units`. */
-export const studyInputSchema = object({
+export const studyInputSchema: ObjectSchema<StudyInput> = object({
   units: string()
     .oneOf(['SI', 'US'], 'Choose SI or US customary units.')
     .required('Choose the units.'),
   channelBedElevation: elevation('the channel bed elevation'),
-  basinWidth: positive('the basin width'),
+  basinWidth: positive('the basin width').when('units', ([units], schema) => {
+    const max = ENGINE_LIMITS.maxBasinWidth[units === 'US' ? 'US' : 'SI'];
+    const unit = units === 'US' ? 'ft' : 'm';
+    return schema.max(
+      max,
+      `The basin width must not exceed ${max} ${unit}: wider basins are beyond what one study computes.`,
+    );
+  }),
   designDischarge: positive('the design discharge'),
   discharges: dischargesSchema,
   tailwater: tailwaterSchema,
@@ -440,14 +525,27 @@ export const studyInputSchema = object({
     .max(1, 'The submergence tolerance must not exceed 1.')
     .optional(),
   floorManningN: num("the floor's Manning's n")
-    .min(0.005, "Manning's n must be at least 0.005.")
-    .max(0.2, "Manning's n must not exceed 0.2.")
+    .min(N_RANGE.min, `Manning's n must be at least ${N_RANGE.min}.`)
+    .max(N_RANGE.max, `Manning's n must not exceed ${N_RANGE.max}.`)
     .optional(),
   jumpLengthMethod: string()
     .oneOf(['usbr', 'hager'], 'The jump length method must be usbr or hager.')
     .optional(),
   dissipators: dissipatorOptionsSchema,
-}) as unknown as ObjectSchema<StudyInput>;
+}).test('weir-coefficient', (input, ctx) => {
+  // The weir coefficient's range is in the units of the input (ENGINE_LIMITS.weirCoefficient).
+  const inflow = input?.inflow as { headwater?: { kind?: unknown; C?: unknown } } | undefined;
+  const C = inflow?.headwater?.kind === 'weir' ? inflow.headwater.C : undefined;
+  if (typeof C !== 'number') return true;
+  const units = input.units === 'US' ? 'US' : 'SI';
+  const { min, max } = ENGINE_LIMITS.weirCoefficient[units];
+  if (C >= min && C <= max) return true;
+  const unit = units === 'US' ? 'ft^0.5/s' : 'm^0.5/s';
+  return ctx.createError({
+    path: 'inflow.headwater.C',
+    message: `The weir coefficient C must lie between ${min} and ${max} ${unit}.`,
+  });
+});
 
 /** Narrow type guard for code that validated with studyInputSchema. */
 export const isStudyUnits = (u: unknown): u is StudyInput['units'] => u === 'SI' || u === 'US';

@@ -15,7 +15,10 @@ export interface InvitationPreview {
 }
 
 export const authApi = {
-  signUp: (body: SignUpBody) => request<Session>('/auth/signup', { method: 'POST', body }),
+  signUp: (body: SignUpBody) =>
+    request<{ message: string }>('/auth/signup', { method: 'POST', body }),
+  confirmSignUp: (body: { token: string }) =>
+    request<Session>('/auth/signup/confirm', { method: 'POST', body }),
   signIn: (body: { email: string; password: string }) =>
     request<Session>('/auth/login', { method: 'POST', body }),
   signOut: () => request<void>('/auth/logout', { method: 'POST' }),

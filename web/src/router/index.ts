@@ -40,6 +40,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { guestOnly: true, layout: 'plain', title: 'Create a firm account' },
   },
   {
+    path: '/confirm-sign-up',
+    name: 'confirm-sign-up',
+    component: () => import('@/views/ConfirmSignUpView.vue'),
+    meta: { layout: 'plain', title: 'Finish creating your account' },
+  },
+  {
     path: '/forgot-password',
     name: 'forgot-password',
     component: () => import('@/views/ForgotPasswordView.vue'),

@@ -80,8 +80,13 @@ export const useAuthStore = defineStore('auth', () => {
     setSession(await authApi.signIn({ email, password }));
   }
 
-  async function signUp(body: SignUpBody): Promise<void> {
-    setSession(await authApi.signUp(body));
+  /** Asks for the e-mailed link that finishes a sign-up; resolves to the message to show. */
+  async function signUp(body: SignUpBody): Promise<string> {
+    return (await authApi.signUp(body)).message;
+  }
+
+  async function confirmSignUp(signUpToken: string): Promise<void> {
+    setSession(await authApi.confirmSignUp({ token: signUpToken }));
   }
 
   async function resetPassword(resetToken: string, password: string): Promise<void> {
@@ -131,6 +136,7 @@ export const useAuthStore = defineStore('auth', () => {
     ensureLoaded,
     signIn,
     signUp,
+    confirmSignUp,
     resetPassword,
     acceptInvitation,
     updateProfile,

@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import type {
   ChangePasswordInput,
+  ConfirmSignupInput,
   ForgotPasswordInput,
   ProfileUpdateInput,
   LoginInput,
@@ -12,12 +13,18 @@ import { presentFirm, presentSession, presentUser } from './auth.presenter';
 import * as auth from './auth.service';
 
 export async function signup(req: Request, res: Response): Promise<void> {
-  const session = await auth.signup(req.body as SignupInput);
+  await auth.signup(req.body as SignupInput);
+  res.status(202).json({ message: auth.SIGNUP_MESSAGE });
+}
+
+export async function confirmSignup(req: Request, res: Response): Promise<void> {
+  const session = await auth.confirmSignup(req.body as ConfirmSignupInput);
   res.status(201).json(presentSession(session.token, session.user, session.firm));
 }
 
 export async function login(req: Request, res: Response): Promise<void> {
-  const session = await auth.login(req.body as LoginInput);
+  // req.ip follows the 'trust proxy' setting; without an address all share one bucket.
+  const session = await auth.login(req.body as LoginInput, req.ip ?? '');
   res.json(presentSession(session.token, session.user, session.firm));
 }
 

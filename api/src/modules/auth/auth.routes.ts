@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import {
   changePasswordSchema,
+  confirmSignupSchema,
   forgotPasswordSchema,
   loginSchema,
   profileUpdateSchema,
@@ -15,14 +16,15 @@ import * as controller from './auth.controller';
 export function authRouter(limits: RateLimits): Router {
   const router = Router();
   router.post('/signup', limits.signupByIp, validate(signupSchema), controller.signup);
-  // Per IP before validation (counts every try); per account after, on the normalised e-mail.
   router.post(
-    '/login',
-    limits.loginByIp,
-    validate(loginSchema),
-    limits.loginByAccount,
-    controller.login,
+    '/signup/confirm',
+    limits.tokenByIp,
+    validate(confirmSignupSchema),
+    controller.confirmSignup,
   );
+  // Per IP before validation (counts every try); guesses per account and address are
+  // throttled in the service (auth.throttle.ts), which knows whether the password was right.
+  router.post('/login', limits.loginByIp, validate(loginSchema), controller.login);
   router.post('/logout', guard('session.end'), controller.logout);
   router.get('/me', guard('session.read'), controller.me);
   router.patch('/me', guard('profile.update'), validate(profileUpdateSchema), controller.updateMe);

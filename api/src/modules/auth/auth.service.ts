@@ -2,6 +2,7 @@ import {
   PLAN_LIMITS,
   TOKEN_TTL_MS,
   type ChangePasswordInput,
+  type ConfirmSignupInput,
   type ForgotPasswordInput,
   type ProfileUpdateInput,
   type LoginInput,
@@ -10,11 +11,11 @@ import {
 } from '@basinwright/common';
 import { Op, UniqueConstraintError } from 'sequelize';
 import { conflict, invalidToken, unauthorized, validationError } from '../../errors';
-import { passwordResetMail, sendMail } from '../../mail';
-import { Firm, PasswordReset, sequelize, User } from '../../models';
-import { hashEmailToken, hashPassword, newEmailToken, verifyPassword } from '../../security';
-import { logger } from '../../logger';
+import { Firm, PasswordReset, sequelize, SignupRequest, User } from '../../models';
+import { hashEmailToken, hashPassword, verifyPassword } from '../../security';
+import { queueMail } from '../../jobs';
 import { issueToken } from './auth.tokens';
+import * as throttle from './auth.throttle';
 
 export interface Session {
   token: string;
@@ -26,28 +27,61 @@ const WRONG_CREDENTIALS = 'Incorrect e-mail or password.';
 export const EMAIL_TAKEN =
   'An account with this e-mail already exists. Sign in, or reset the password.';
 
-/** Creates a firm on the Concept plan and its owner in one transaction, then signs the owner in. */
-export async function signup(input: SignupInput): Promise<Session> {
+export const SIGNUP_MESSAGE =
+  'Check your e-mail: we have sent a link to finish creating the account. It expires in 24 hours.';
+
+/**
+ * Records the sign-up and queues its mail; the answer is the same whether or not the address
+ * already has an account (the request path does the same work either way: one password hash,
+ * one row, one job). The job sends a link to finish, or tells an existing account's owner that
+ * someone tried.
+ */
+export async function signup(input: SignupInput): Promise<void> {
   const passwordHash = await hashPassword(input.password);
+  const request = await SignupRequest.create({
+    email: input.email,
+    name: input.name,
+    firmName: input.firmName,
+    passwordHash,
+    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.signup),
+  });
+  await queueMail({ kind: 'signup', requestId: request.id });
+}
+
+/**
+ * Finishes a sign-up from its e-mailed link (single use): creates a firm on the Concept plan
+ * and its owner in one transaction, then signs the owner in.
+ */
+export async function confirmSignup(input: ConfirmSignupInput): Promise<Session> {
+  const tokenHash = hashEmailToken(input.token);
   try {
     const { user, firm } = await sequelize.transaction(async (transaction) => {
-      if ((await User.count({ where: { email: input.email }, transaction })) > 0)
+      const request = await SignupRequest.findOne({
+        where: { tokenHash },
+        lock: transaction.LOCK.UPDATE,
+        transaction,
+      });
+      const now = new Date();
+      if (request === null || request.usedAt !== null || request.expiresAt <= now)
+        throw invalidToken();
+      if ((await User.count({ where: { email: request.email }, transaction })) > 0)
         throw conflict(EMAIL_TAKEN);
       const firm = await Firm.create(
-        { name: input.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
+        { name: request.firmName, plan: 'concept', seats: PLAN_LIMITS.concept.defaultSeats },
         { transaction },
       );
       const user = await User.create(
         {
           firmId: firm.id,
-          name: input.name,
-          email: input.email,
-          passwordHash,
+          name: request.name,
+          email: request.email,
+          passwordHash: request.passwordHash,
           role: 'owner',
-          lastLoginAt: new Date(),
+          lastLoginAt: now,
         },
         { transaction },
       );
+      await request.update({ usedAt: now }, { transaction });
       return { user, firm };
     });
     return { token: issueToken(user), user, firm };
@@ -57,15 +91,22 @@ export async function signup(input: SignupInput): Promise<Session> {
   }
 }
 
-/** Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated member. */
-export async function login(input: LoginInput): Promise<Session> {
+/**
+ * Same answer, and about the same time, for an unknown e-mail, a wrong password or a deactivated
+ * member. Guesses are throttled per account and address (auth.throttle.ts), never per account.
+ */
+export async function login(input: LoginInput, address: string): Promise<Session> {
+  await throttle.beforeLogin(input.email, address);
   const user = await User.findOne({
     where: { email: input.email },
     include: [{ model: Firm, as: 'firm' }],
   });
   const ok = await verifyPassword(input.password, user?.passwordHash ?? null);
-  if (user === null || !ok || !user.active || user.firm === undefined)
+  if (user === null || !ok || !user.active || user.firm === undefined) {
+    await throttle.loginFailed(input.email, address);
     throw unauthorized(WRONG_CREDENTIALS);
+  }
+  await throttle.loginSucceeded(input.email, address);
   await user.update({ lastLoginAt: new Date() });
   return { token: issueToken(user), user, firm: user.firm };
 }
@@ -79,21 +120,11 @@ export const FORGOT_PASSWORD_MESSAGE =
   'If an account exists for that e-mail, we have sent a link to choose a new password. It expires in 1 hour.';
 
 /**
- * Records a reset request and e-mails its link when the member exists and is active. The
- * reply never says which: the mail goes out after the response so timing does not tell either.
+ * Queues the reset mail for any address, known or not: the request path does the same work
+ * either way (one job queued), and the job alone decides whether there is anyone to write to.
  */
 export async function forgotPassword(input: ForgotPasswordInput): Promise<void> {
-  const user = await User.findOne({ where: { email: input.email, active: true } });
-  if (user === null) return;
-  const { token, tokenHash } = newEmailToken();
-  await PasswordReset.create({
-    userId: user.id,
-    tokenHash,
-    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
-  });
-  sendMail(passwordResetMail(user.email, user.name, token)).catch((error: unknown) => {
-    logger().error({ err: error }, 'password reset e-mail failed');
-  });
+  await queueMail({ kind: 'password-reset', email: input.email });
 }
 
 /** Sets a new password from a single-use, unexpired token; ends every other session. */
@@ -136,11 +167,14 @@ export async function changePassword(
   firm: Firm,
   input: ChangePasswordInput,
 ): Promise<Session> {
-  if (!(await verifyPassword(input.currentPassword, user.passwordHash)))
+  await throttle.beforePasswordChange(user.id);
+  if (!(await verifyPassword(input.currentPassword, user.passwordHash))) {
+    await throttle.passwordChangeFailed(user.id);
     throw validationError(
       { currentPassword: 'The current password is not right.' },
       'The current password is not right.',
     );
+  }
   const passwordHash = await hashPassword(input.newPassword);
   await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 });
   return { token: issueToken(user), user, firm };

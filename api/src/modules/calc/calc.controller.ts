@@ -1,19 +1,20 @@
 import type { Request, Response } from 'express';
 import type { JumpSituation, StudyInput } from '@basinwright/common';
-import { presentJump, presentStudy } from './calc.presenter';
 import * as calc from './calc.service';
 
-export function jump(req: Request, res: Response): void {
+// The worker presents the results (calc.worker.ts): the controllers only send them.
+
+export async function jump(req: Request, res: Response): Promise<void> {
   // Cast by validate(jumpRequestSchema).
-  res.json(presentJump(calc.calculateJump(req.body as calc.JumpRequest)));
+  res.json(await calc.calculateJump(req.body as calc.JumpRequest));
 }
 
-export function study(req: Request, res: Response): void {
+export async function study(req: Request, res: Response): Promise<void> {
   // Cast by validate(studyInputSchema).
-  res.json(presentStudy(calc.calculateStudy(req.body as StudyInput)));
+  res.type('application/json').send(await calc.calculateStudyJson(req.body as StudyInput));
 }
 
-export function jumpPosition(req: Request, res: Response): void {
+export async function jumpPosition(req: Request, res: Response): Promise<void> {
   // Cast by validate(jumpSituationSchema).
-  res.json(calc.calculateJumpPosition(req.body as JumpSituation));
+  res.json(await calc.calculateJumpPosition(req.body as JumpSituation));
 }

@@ -1,16 +1,17 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import { jumpRequestSchema, jumpSituationSchema, studyInputSchema } from '@basinwright/common';
-import { authenticateToken } from '../../middlewares/auth';
+import { authenticateSession } from '../../middlewares/auth';
 import { validate } from '../../middlewares/validate';
 import * as controller from './calc.controller';
 
 /**
- * Engine calculations for any signed-in member: nothing is read or stored, so no role check and
- * no database round trip (a valid, unexpired token suffices; see authenticateToken).
+ * Engine calculations for any signed-in member: nothing is read or stored, so no role check; the
+ * token must still be current (sign-out, password change and deactivation revoke it; see
+ * authenticateSession). Only the benchmark passes another `auth`, to measure what the check costs.
  */
-export function calcRouter(): Router {
+export function calcRouter(auth: RequestHandler = authenticateSession): Router {
   const router = Router();
-  router.use(authenticateToken);
+  router.use(auth);
   router.post('/jump', validate(jumpRequestSchema), controller.jump);
   router.post('/study', validate(studyInputSchema), controller.study);
   router.post('/jump-position', validate(jumpSituationSchema), controller.jumpPosition);

@@ -1,49 +1,63 @@
-import {
-  hydraulicJump,
-  locateJump,
-  type JumpLocation,
-  type JumpSituation,
-  runStudy,
-  toSI,
-  type JumpLengthMethod,
-  type JumpResult,
-  type Section,
-  type StudyInput,
-  type StudyResult,
+import type {
+  JumpLocation,
+  JumpResult,
+  JumpSituation,
+  StudyInput,
+  StudyResult,
 } from '@basinwright/common';
-import { fromEngineError } from '../../errors';
+import { ApiError, fromEngineError } from '../../errors';
+import { computePool } from './calc.pool';
+import type { JumpRequest } from './calc.worker';
 
-export interface JumpRequest {
-  section: Section;
-  Q: number;
-  y1: number;
-  lengthMethod?: JumpLengthMethod;
-}
+export type { JumpRequest };
 
-/** Jump calculator: SI in, SI out. */
-export function calculateJump(body: JumpRequest): JumpResult {
+// Every calculation runs in the compute pool (calc.pool.ts), off the event loop.
+
+/** Jump calculator: SI in, SI out (presented by the worker). */
+export async function calculateJump(body: JumpRequest): Promise<JumpResult> {
   try {
-    return hydraulicJump(body.section, body.Q, body.y1, {
-      lengthMethod: body.lengthMethod ?? 'usbr',
-    });
+    return await computePool().run({ kind: 'jump', body });
   } catch (error) {
     throw fromEngineError(error);
   }
 }
 
-/** The whole study: the input in its own units is converted to SI, the result is SI. */
-export function calculateStudy(input: StudyInput): StudyResult {
+/** An ApiError of the pool (over budget…) with its fields filed below `prefix`. */
+function below(prefix: string, error: unknown): unknown {
+  if (prefix === '' || !(error instanceof ApiError) || error.details === undefined) return error;
+  const details = Object.fromEntries(
+    Object.entries(error.details).map(([field, message]) => [`${prefix}.${field}`, message]),
+  );
+  return new ApiError(error.status, error.code, error.message, details);
+}
+
+/**
+ * The whole study: the input in its own units is converted to SI, the result is SI. `prefix`
+ * names where the input sits in the request body (the design save's `input`).
+ */
+export async function calculateStudy(input: StudyInput, prefix = ''): Promise<StudyResult> {
   try {
-    return runStudy(toSI(input));
+    return await computePool().run({ kind: 'study', input });
+  } catch (error) {
+    throw error instanceof ApiError
+      ? below(prefix, error)
+      : fromEngineError(error, prefix, input.units);
+  }
+}
+
+/** The study for POST /calc/study: its presented result as JSON text, written in the worker. */
+export async function calculateStudyJson(input: StudyInput): Promise<string> {
+  try {
+    return await computePool().run({ kind: 'study-json', input });
   } catch (error) {
     throw fromEngineError(error, '', input.units);
   }
 }
 
 /** Where the jump forms below a control (slope break, gate, weir): distance and both profiles, SI. */
-export function calculateJumpPosition(body: JumpSituation): JumpLocation {
+export async function calculateJumpPosition(body: JumpSituation): Promise<JumpLocation> {
   try {
-    return locateJump(body);
+    return await computePool().run({ kind: 'jump-position', body });
   } catch (error) {
     throw fromEngineError(error);
   }

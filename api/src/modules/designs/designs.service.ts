@@ -6,7 +6,8 @@ import {
   type StudyInput,
   type StudyResult,
 } from '@basinwright/common';
-import { fromEngineError, validationError } from '../../errors';
+import { validationError } from '../../errors';
+import { calculateStudy } from '../calc/calc.service';
 import { Design, Project, sequelize, User } from '../../models';
 import { getProject } from '../projects/projects.service';
 
@@ -47,12 +48,13 @@ export async function saveDesign(
       `The design must use the project's units (${project.units}).`,
     );
   }
-  let study: StoredStudy;
-  try {
-    study = computeStoredStudy(body.input);
-  } catch (error) {
-    throw fromEngineError(error, 'input', project.units);
-  }
+  // In the compute pool, off the event loop, within the time budget (calc.pool.ts); the
+  // engine's refusal is a 422 filed under input.
+  const study: StoredStudy = {
+    result: await calculateStudy(body.input, 'input'),
+    engineVersion: ENGINE_VERSION,
+    computedAt: new Date(),
+  };
   const id = await sequelize.transaction(async (transaction) => {
     const existing = await Design.findOne({
       where: { firmId, projectId },

@@ -6,7 +6,7 @@ import {
 } from '@basinwright/common';
 import { Op } from 'sequelize';
 import { conflict, invalidToken, notFound, planLimit } from '../../errors';
-import { invitationMail, sendMail } from '../../mail';
+import { invitationMail, invitedElsewhereMail, sendMail } from '../../mail';
 import { Firm, Invitation, sequelize, User } from '../../models';
 import { hashEmailToken, hashPassword, isUuid, newEmailToken } from '../../security';
 import { EMAIL_TAKEN, type Session } from '../auth/auth.service';
@@ -29,8 +29,10 @@ export async function listInvitations(firmId: string): Promise<Invitation[]> {
 
 /**
  * Invites an address to the firm and e-mails the link. Needs a free seat; the e-mail must not
- * belong to an account or to another open invitation of the firm. The e-mail is sent inside
- * the transaction: if it cannot be sent, nothing is saved.
+ * belong to a member or to another open invitation of the firm. An address with an account in
+ * another firm gets the same answer (the invitation is recorded, holding its seat until
+ * withdrawn) and a notice instead of a link, so inviting does not reveal who has an account.
+ * The e-mail is sent inside the transaction: if it cannot be sent, nothing is saved.
  */
 export async function createInvitation(
   actor: User,
@@ -39,9 +41,15 @@ export async function createInvitation(
   const { token, tokenHash } = newEmailToken();
   const id = await sequelize.transaction(async (transaction) => {
     const firm = await lockFirm(actor.firmId, transaction);
-    if ((await User.count({ where: { email: input.email }, transaction })) > 0) {
-      throw conflict('Someone with this e-mail already has a Basinwright account.');
-    }
+    // A member of this firm is the firm's own business; an account elsewhere is not: that
+    // invitation is answered like any other, and its owner is told by e-mail instead.
+    const account = await User.findOne({
+      where: { email: input.email },
+      attributes: ['id', 'firmId', 'name'],
+      transaction,
+    });
+    if (account !== null && account.firmId === firm.id)
+      throw conflict('This person is already a member of your firm.');
     const previous = await Invitation.findOne({
       where: { firmId: firm.id, email: input.email, acceptedAt: { [Op.is]: null } },
       transaction,
@@ -65,7 +73,11 @@ export async function createInvitation(
       },
       { transaction },
     );
-    await sendMail(invitationMail(input.email, firm.name, actor.name, input.role, token));
+    await sendMail(
+      account === null
+        ? invitationMail(input.email, firm.name, actor.name, input.role, token)
+        : invitedElsewhereMail(input.email, account.name, firm.name, actor.name),
+    );
     return invitation.id;
   });
   return Invitation.findByPk(id, { include: [invitedBy], rejectOnEmpty: true });

@@ -14,7 +14,13 @@ export interface ProjectView {
   updatedAt: string;
 }
 
-export function presentProject(project: Project): ProjectView {
+/** What the presenter reads of a project: a model instance or a row of the list query. */
+export type ProjectRecord = Pick<
+  Project,
+  'id' | 'name' | 'client' | 'location' | 'units' | 'status' | 'notes' | 'createdAt' | 'updatedAt'
+> & { createdBy?: { id: string; name: string } | null };
+
+export function presentProject(project: ProjectRecord): ProjectView {
   const by = project.createdBy ?? null;
   return {
     id: project.id,

@@ -6,11 +6,12 @@ import {
   type ProjectListQuery,
   type ProjectUpdateInput,
 } from '@basinwright/common';
-import { Op, type Order, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import { notFound, planLimit } from '../../errors';
 import { Project, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
 import { lockFirm } from '../members/members.service';
+import type { ProjectRecord } from './projects.presenter';
 
 const createdBy = { model: User, as: 'createdBy', attributes: ['id', 'name'] };
 const NOT_FOUND = 'No such project.';
@@ -20,53 +21,102 @@ function containsPattern(search: string): string {
   return `%${search.replace(/[\\%_]/g, (ch) => `\\${ch}`)}%`;
 }
 
-// Workflow order for status, not alphabetical.
-const statusRank = sequelize.literal(
-  `CASE "Project"."status" ${PROJECT_STATUSES.map((status, rank) => `WHEN '${status}' THEN ${rank}`).join(' ')} END`,
-);
+// Workflow order for status, not alphabetical. The index projects_firm_status_idx holds this
+// very expression (migration project-list-indexes); the two must read alike.
+const STATUS_RANK = `CASE p.status ${PROJECT_STATUSES.map((status, rank) => `WHEN '${status}' THEN ${rank}`).join(' ')} END`;
 
-function orderFor(query: ProjectListQuery): Order {
-  const dir = query.order === 'asc' ? 'ASC' : 'DESC';
-  const lower = (column: string) => sequelize.fn('lower', sequelize.col(`Project.${column}`));
-  const first = {
-    updatedAt: ['updatedAt', dir],
-    createdAt: ['createdAt', dir],
-    name: [lower('name'), dir],
-    client: [lower('client'), dir],
-    status: [statusRank, dir],
-  }[query.sort];
-  // id breaks ties so pages never overlap or skip rows.
-  return [first, ['id', dir]] as Order;
-}
+// Each sort's leading key; every one has a firm-led index ending in id.
+const SORT_KEY: Record<ProjectListQuery['sort'], string> = {
+  updatedAt: 'p.updated_at',
+  createdAt: 'p.created_at',
+  name: 'lower(p.name)',
+  client: 'lower(p.client)',
+  status: STATUS_RANK,
+};
 
 export interface ProjectPage {
-  items: Project[];
+  items: ProjectRecord[];
   total: number;
   page: number;
   pageSize: number;
 }
 
-/** One page of the firm's projects, filtered by a substring of name, client or location. */
-export async function listProjects(firmId: string, query: ProjectListQuery): Promise<ProjectPage> {
-  const where: WhereOptions<Project> = { firmId };
+/**
+ * The one statement behind a page of the firm's projects: scoped by firm, filtered by a
+ * substring of name, client or location, in one of the sorts that each has its own index (so
+ * a page is an index range scan of pageSize rows), with id breaking ties so pages never
+ * overlap or skip rows. The total rides along as a scalar subquery counted once, so a page
+ * costs one round trip. Values are bound, never spliced in.
+ */
+export function listStatement(
+  firmId: string,
+  query: ProjectListQuery,
+): { sql: string; bind: (string | number)[] } {
+  const bind: (string | number)[] = [firmId];
+  let filter = (alias: string) => `${alias}.firm_id = $1`;
   if (query.search !== '') {
-    const pattern = containsPattern(query.search);
-    Object.assign(where, {
-      [Op.or]: [
-        { name: { [Op.iLike]: pattern } },
-        { client: { [Op.iLike]: pattern } },
-        { location: { [Op.iLike]: pattern } },
-      ],
-    });
+    bind.push(containsPattern(query.search));
+    filter = (alias) =>
+      `${alias}.firm_id = $1 AND (${alias}.name ILIKE $2 OR ${alias}.client ILIKE $2 OR ${alias}.location ILIKE $2)`;
   }
-  const { rows, count } = await Project.findAndCountAll({
-    where,
-    include: [createdBy],
-    order: orderFor(query),
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
-  return { items: rows, total: count, page: query.page, pageSize: query.pageSize };
+  const dir = query.order === 'asc' ? 'ASC' : 'DESC';
+  bind.push(query.pageSize, (query.page - 1) * query.pageSize);
+  const sql = `SELECT p.id, p.name, p.client, p.location, p.units, p.status, p.notes,
+      p.created_at AS "createdAt", p.updated_at AS "updatedAt",
+      u.id AS "createdById", u.name AS "createdByName",
+      (SELECT count(*) FROM projects c WHERE ${filter('c')})::int AS total
+    FROM projects p LEFT JOIN users u ON u.id = p.created_by_id
+    WHERE ${filter('p')}
+    ORDER BY ${SORT_KEY[query.sort]} ${dir}, p.id ${dir}
+    LIMIT $${bind.length - 1} OFFSET $${bind.length}`;
+  return { sql, bind };
+}
+
+interface ListRow {
+  id: string;
+  name: string;
+  client: string;
+  location: string;
+  units: ProjectRecord['units'];
+  status: ProjectRecord['status'];
+  notes: string;
+  createdAt: Date;
+  updatedAt: Date;
+  createdById: string | null;
+  createdByName: string | null;
+  total: number;
+}
+
+/** One page of the firm's projects and how many there are, in one round trip. */
+export async function listProjects(firmId: string, query: ProjectListQuery): Promise<ProjectPage> {
+  const { sql, bind } = listStatement(firmId, query);
+  const rows = await sequelize.query<ListRow>(sql, { bind, type: QueryTypes.SELECT });
+  // Past the last page there is no row to carry the total: count on its own.
+  const total =
+    rows[0]?.total ??
+    (query.page === 1
+      ? 0
+      : await Project.count({ where: { firmId, ...searchWhere(query.search) } }));
+  const items = rows.map(
+    ({ createdById, createdByName, total: _total, ...project }): ProjectRecord => ({
+      ...project,
+      createdBy: createdById === null ? null : { id: createdById, name: createdByName ?? '' },
+    }),
+  );
+  return { items, total, page: query.page, pageSize: query.pageSize };
+}
+
+/** The search filter as a Sequelize condition (same meaning as in listStatement). */
+function searchWhere(search: string): WhereOptions<Project> {
+  if (search === '') return {};
+  const pattern = containsPattern(search);
+  return {
+    [Op.or]: [
+      { name: { [Op.iLike]: pattern } },
+      { client: { [Op.iLike]: pattern } },
+      { location: { [Op.iLike]: pattern } },
+    ],
+  };
 }
 
 /** The firm's project; another firm's id is answered exactly like a missing one. */

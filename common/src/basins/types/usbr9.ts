@@ -5,6 +5,7 @@ import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqPositive } from '../guards';
 import type { DissipatorModule } from '../types';
 import { phraser, type PhraseUnits } from '../../units/phrase';
+import { ENGINE_LIMITS } from '../../schemas/limits';
 import { crit, debrisCriterion, n3, ph } from './shared';
 
 const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
@@ -62,12 +63,21 @@ export function sizeBaffledApron(
   const above = drop * Math.sqrt(1 + slope * slope);
   // One row buried below the bed keeps the bed from scouring under the last row [mem: DSD].
   const rows = Math.max(d.type9MinRows, Math.ceil(above / spacing) + 2);
+  if (rows > ENGINE_LIMITS.maxBlockRows)
+    throw new RangeError(
+      `drop (crest to channel bed): ${rows} rows of baffle piers ${h.toPrecision(3)} m high would be needed, more than the ${ENGINE_LIMITS.maxBlockRows} one apron may hold; the unit discharge is too small for the drop`,
+    );
   const slopeLength = (rows - 1) * spacing + spacing / 2;
   const warnings: string[] = [];
   if (q > d.type9MaxUnitDischarge)
     warnings.push(`q ${P.q(q)} exceeds the ${P.q(d.type9MaxUnitDischarge)} of the type ${TAG}`);
   const rowA = fitBlockRow(W, Math.min(bw, W), bw);
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
+  const blocks = Math.ceil(rows / 2) * rowA.count + Math.floor(rows / 2) * rowB.count;
+  if (blocks > ENGINE_LIMITS.maxApronBlocks)
+    throw new RangeError(
+      `basinWidth: ${rows} rows of ${rowA.count} baffle piers (${blocks} in all) would be needed, more than the ${ENGINE_LIMITS.maxApronBlocks} one apron may hold; the basin is far wider than its flow needs`,
+    );
   return {
     type: 'usbr-9',
     width: W,

@@ -1,0 +1,102 @@
+import PgBoss from 'pg-boss';
+import { TOKEN_TTL_MS } from '@basinwright/common';
+import { getConfig } from './config/env';
+import { logger } from './logger';
+import { accountExistsMail, passwordResetMail, sendMail, signupMail } from './mail';
+import { PasswordReset, SignupRequest, User } from './models';
+import { newEmailToken } from './security';
+
+// Background jobs in PostgreSQL (pg-boss, schema `pgboss`): any API process may queue a job and
+// any may run it, so nothing is lost with a process and nothing lives in memory. Mail that must
+// not tell the requester anything (does this address have an account?) is decided and sent
+// here, after the response, so the response path is the same for every address.
+
+export const MAIL_QUEUE = 'mail';
+
+/** What a mail job does; the data holds no secret (tokens are made by the job itself). */
+export type MailJob =
+  { kind: 'password-reset'; email: string } | { kind: 'signup'; requestId: string };
+
+let started: Promise<PgBoss> | undefined;
+let workerId: string | undefined;
+
+function boss(): Promise<PgBoss> {
+  started ??= (async () => {
+    const instance = new PgBoss({
+      connectionString: getConfig().databaseUrl,
+      schema: 'pgboss',
+      max: 3,
+    });
+    instance.on('error', (error) => logger().error({ err: error }, 'job queue error'));
+    await instance.start();
+    await instance.createQueue(MAIL_QUEUE, {
+      name: MAIL_QUEUE,
+      retryLimit: 5,
+      retryDelay: 30,
+      retryBackoff: true,
+    });
+    return instance;
+  })();
+  return started;
+}
+
+/** Runs one mail job: looks the address up now and sends only what its owner should get. */
+export async function runMailJob(job: MailJob): Promise<void> {
+  if (job.kind === 'signup') {
+    const request = await SignupRequest.findByPk(job.requestId);
+    if (request === null || request.usedAt !== null || request.tokenHash !== null) return;
+    const existing = await User.findOne({ where: { email: request.email } });
+    if (existing !== null) {
+      // Nothing to finish: the address's owner learns that someone tried.
+      await request.update({ usedAt: new Date() });
+      await sendMail(accountExistsMail(existing.email, existing.name));
+      return;
+    }
+    const { token, tokenHash } = newEmailToken();
+    await request.update({ tokenHash });
+    await sendMail(signupMail(request.email, request.name, request.firmName, token));
+    return;
+  }
+  const user = await User.findOne({ where: { email: job.email, active: true } });
+  if (user === null) return; // nobody to tell; the requester was answered alike anyway
+  const { token, tokenHash } = newEmailToken();
+  await PasswordReset.create({
+    userId: user.id,
+    tokenHash,
+    expiresAt: new Date(Date.now() + TOKEN_TTL_MS.passwordReset),
+  });
+  await sendMail(passwordResetMail(user.email, user.name, token));
+}
+
+/** Starts this process's mail worker (idempotent); server.ts calls it at boot. */
+export async function startMailWorker(): Promise<void> {
+  const instance = await boss();
+  workerId ??= await instance.work<MailJob>(
+    MAIL_QUEUE,
+    { pollingIntervalSeconds: 2 },
+    async (jobs) => {
+      for (const job of jobs) await runMailJob(job.data);
+    },
+  );
+}
+
+/**
+ * Queues a mail job and wakes this process's worker (started on first use), so the mail goes
+ * out promptly; the worker of any other process would pick it up too.
+ */
+export async function queueMail(job: MailJob): Promise<void> {
+  const instance = await boss();
+  await instance.send(MAIL_QUEUE, job);
+  await startMailWorker();
+  if (workerId !== undefined) instance.notifyWorker(workerId);
+}
+
+/** Stops the worker and closes the queue's connections (shutdown, tests). */
+export async function stopJobs(): Promise<void> {
+  const current = started;
+  started = undefined;
+  workerId = undefined;
+  if (current === undefined) return;
+  const instance = await current.catch(() => undefined);
+  await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+}
