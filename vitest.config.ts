@@ -8,7 +8,13 @@ export default defineConfig({
   test: {
     projects: [
       {
-        test: { name: 'common', include: ['tests/common/**/*.test.ts'], environment: 'node' },
+        test: {
+          name: 'common',
+          include: ['tests/common/**/*.test.ts'],
+          environment: 'node',
+          // Property tests run hundreds of studies: a busy 2-core CI machine needs more than 5 s.
+          testTimeout: 60000,
+        },
         ssr: { resolve: { conditions, externalConditions: ['@basinwright/source'] } },
         resolve: { conditions },
       },
