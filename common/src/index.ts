@@ -8,7 +8,11 @@ export * from './policy';
 // Units (mathjs, private instance with cfs): SI ⇄ US customary at the edges
 export * from './units';
 
-// The whole study: runStudy and its pieces (analyseRange, solveFloorElevation)
+// The discharge range (prepared once; floor solve, rows, the one jump-position rule)
+export * from './range';
+// The engine's input refusals (InputError: field + code)
+export { InputError, isInputError, type InputErrorCode } from './errors';
+// The whole study: runStudy (a thin orchestration) and the result's shape
 export * from './study';
 
 // Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation, drawing (drawingToSvg)

@@ -9,8 +9,8 @@ import {
 } from '../../common/src/basins';
 
 const g = 9.80665;
-/** A consistent row from Fr1 and V1 [calc: y1 = V²/(g·Fr²), Bélanger], tailwater 1.1·y2 unless given. */
-function row(fr1: number, v1: number, W = 10, twRatio = 1.1): DischargeRow {
+/** A consistent row from Fr1 and V1 [calc: y1 = V²/(g·Fr²), Bélanger], tailwater 1.08·y2 unless given (inside the 10 % submergence tolerance of range/position.ts for C 1.0 and 1.05). */
+function row(fr1: number, v1: number, W = 10, twRatio = 1.08): DischargeRow {
   const y1 = (v1 * v1) / (g * fr1 * fr1);
   const q = v1 * y1;
   const y2 = (y1 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1)) / 2;

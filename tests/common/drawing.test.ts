@@ -22,7 +22,8 @@ import {
   type DrawingFormatter,
 } from '../../common/src/basins/svg';
 import type { DrawingQuantity } from '../../common/src/basins/drawing';
-import { runStudy, type StudyInput } from '../../common/src/study';
+import { runStudy } from '../../common/src/study';
+import type { StudyInput } from '../../common/src/range';
 import { toSI } from '../../common/src/units';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';

@@ -16,7 +16,7 @@ import type { Section } from '../hydraulics/sections';
 import type { JumpSituation } from '../hydraulics/profiles';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
-import type { StudyInput } from '../study';
+import type { StudyInput } from '../range/types';
 
 export const MAX_STUDY_DISCHARGES = 5000;
 
