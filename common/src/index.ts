@@ -10,8 +10,9 @@ export * from './units';
 
 // The discharge range (prepared once; floor solve, rows, the one jump-position rule)
 export * from './range';
-// The engine's input refusals (InputError: field + code)
+// The engine's input refusals (InputError: field + code) and their sentences (the one phraser)
 export { InputError, isInputError, type InputErrorCode } from './errors';
+export { INPUT_ERROR_CODES, fieldWords, refusalText } from './messages';
 // The whole study: runStudy (a thin orchestration) and the result's shape
 export * from './study';
 

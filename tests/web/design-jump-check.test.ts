@@ -335,3 +335,15 @@ describe('a chosen type with no jump of its own', () => {
     w.unmount();
   });
 });
+
+describe('a floor above the channel bed', () => {
+  it('says it is above the bed, by how much, not "0.00 m below"', () => {
+    // the demo with its floor fixed 0.30 m above the bed (invented demo data)
+    const res = runStudy({ ...fenwickDesign, floorElevation: 90.3 });
+    const w = mountStep(res);
+    const item = w.find('[data-test="depth-below-bed"]');
+    expect(item.text()).toBe('0.30 m');
+    expect(w.text()).toContain('Floor above the channel bed');
+    expect(w.text()).not.toContain('Floor below the channel bed');
+  });
+});

@@ -435,6 +435,9 @@ export const studyInputSchema = object({
     .max(2, 'The tailwater factor must not exceed 2.')
     .optional(),
   floorElevation: num('the floor elevation').optional(),
+  floorSafetyDepth: num('the safety depth below the floor')
+    .min(0, 'The safety depth below the floor must not be negative.')
+    .optional(),
   submergenceTolerance: num('the submergence tolerance')
     .min(0, 'The submergence tolerance must not be negative.')
     .max(1, 'The submergence tolerance must not exceed 1.')
@@ -448,6 +451,3 @@ export const studyInputSchema = object({
     .optional(),
   dissipators: dissipatorOptionsSchema,
 }) as unknown as ObjectSchema<StudyInput>;
-
-/** Narrow type guard for code that validated with studyInputSchema. */
-export const isStudyUnits = (u: unknown): u is StudyInput['units'] => u === 'SI' || u === 'US';
