@@ -113,7 +113,7 @@ export function solveFloor(r: DischargeRange, C: TailwaterFactor): FloorSolution
       { Q, fr1: w.fr1 },
     );
   }
-  const tol = 1e-10 * Math.max(1, Math.abs(zLo));
+  const tol = 1e-8 * Math.max(1, Math.abs(zLo));
   const z = highestTrue(ok, zTop, zLo, FLOOR_SCAN_STEPS, tol) ?? zLo;
   return { elevation: z, governingQ: r.Qs[worstMargin(r, z, C).index]! };
 }
