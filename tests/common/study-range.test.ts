@@ -269,3 +269,19 @@ describe('units at the edge', () => {
     );
   });
 });
+
+describe("the chosen basin's own floor in the result", () => {
+  it('carries the positions over the range and the design-discharge jump with its diagrams', () => {
+    const own = full.chosenFloor!;
+    expect(own.type).toBe('usbr-2'); // the demo's chosen basin (regression baseline)
+    expectRel(own.floorElevation, 87.38061328399499, 1e-6); // regression baseline
+    const ref = demoJump(85, own.floorElevation); // independent, above
+    expectRel(own.designJump.jump.y1, ref.y1, 1e-8);
+    expectRel(own.designJump.jump.y2, ref.y2, 1e-8);
+    expect(own.designJump.diagrams).toBeDefined();
+    expectRel(own.designJump.diagrams.y2, ref.y2, 1e-8);
+    expect(own.positions).toHaveLength(full.rows.length);
+    for (const p of own.positions)
+      expect(p.position).toBe(jumpPosition(p.tailwaterDepth, p.requiredDepth, 0.1));
+  });
+});

@@ -111,7 +111,16 @@ describe('Jump check at the design floor', () => {
     const short = d.rows.map((x, i) =>
       i === 0 ? { ...x, tailwaterDepth: x.requiredDepth - 0.2, margin: -0.2 } : x,
     );
-    const res: StudyResult = { ...result, design: { ...entry, design: { ...d, rows: short } } };
+    // the step formats what the engine says: the position comes with the result (chosenFloor)
+    const own = result.chosenFloor!;
+    const positions = own.positions.map((p, i) =>
+      i === 0 ? { ...p, margin: -0.2, position: 'swept-out' as const } : p,
+    );
+    const res: StudyResult = {
+      ...result,
+      design: { ...entry, design: { ...d, rows: short } },
+      chosenFloor: { ...own, positions },
+    };
     const w = mountStep(res);
     const first = tableRows(w)[0]!;
     expect(first['Jump position']).toBe('Swept out');
