@@ -16,5 +16,8 @@ export { INPUT_ERROR_CODES, fieldWords, refusalText } from './messages';
 // The whole study: runStudy (a thin orchestration) and the result's shape
 export * from './study';
 
-// Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation, drawing (drawingToSvg)
+// Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation
 export * from './basins';
+
+// Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
+export * from './drawing';

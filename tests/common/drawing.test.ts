@@ -1,18 +1,20 @@
 // Drawing geometry invariants and the shared SVG renderer.
 import { describe, expect, it } from 'vitest';
 import {
-  buildBasinDrawing,
   designDissipators,
   designJumpBasin,
+  freeboard,
+  type DesignRow,
+  type JumpBasinDesign,
+} from '../../common/src/basins';
+import {
+  buildBasinDrawing,
   drawingToSvg,
   drawingView,
   formatSI,
-  freeboard,
-  type DesignRow,
   type Drawing,
-  type JumpBasinDesign,
   type PolylineItem,
-} from '../../common/src/basins';
+} from '../../common/src/drawing';
 import {
   boxesOverlap,
   layoutDrawing,
@@ -20,8 +22,8 @@ import {
   textBox,
   type Box,
   type DrawingFormatter,
-} from '../../common/src/basins/svg';
-import type { DrawingQuantity } from '../../common/src/basins/drawing';
+} from '../../common/src/drawing/svg';
+import type { DrawingQuantity } from '../../common/src/drawing/geometry';
 import { runStudy } from '../../common/src/study';
 import type { StudyInput } from '../../common/src/range';
 import { toSI } from '../../common/src/units';

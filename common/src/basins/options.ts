@@ -1,7 +1,7 @@
 // What the user may set for the dissipator part of a study (all optional). Kept apart from the
 // dissipator orchestration so the study input's type needs nothing that computes.
 import type { DesignOptions } from './design';
-import type { DrawingOptions } from './drawing';
+import type { DrawingOptions } from '../drawing/geometry';
 import type { DebrisLevel, DissipatorTypeId, ScreeningContext } from './types';
 
 export interface DissipatorStudyOptions extends DesignOptions {

@@ -23,7 +23,7 @@ import {
   type DesignRow,
   type DissipatorDesign,
 } from './design';
-import { buildBasinDrawing, type Drawing } from './drawing';
+import { buildBasinDrawing, type Drawing } from '../drawing/geometry';
 import { screenDissipators, type TypeScreening, type Verdict } from './screening';
 import type { DissipatorTypeId, JumpBasinType, ScreeningContext } from './types';
 
