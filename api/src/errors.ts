@@ -1,4 +1,4 @@
-import { phraseMessage, type PhraseUnits } from '@basinwright/common';
+import { InputError, refusalText, type PhraseUnits } from '@basinwright/common';
 /** Every error the API answers with: `{ code, message, details? }` and an HTTP status. */
 export type ErrorCode =
   | 'validation_error'
@@ -72,13 +72,17 @@ export const serviceUnavailable = (message: string) =>
  */
 export function fromEngineError(error: unknown, prefix = '', units: PhraseUnits = 'SI'): unknown {
   if (!(error instanceof RangeError)) return error;
-  const named = /^([A-Za-z][\w.[\]]*)[\s:]/.exec(error.message)?.[1];
-  const field =
-    named === undefined
+  const message = refusalText(error, units);
+  const under = (field: string): string =>
+    field === 'body' || field === ''
       ? prefix === ''
         ? 'body'
         : prefix
-      : `${prefix === '' ? '' : `${prefix}.`}${named}`;
-  const message = phraseMessage(error.message, units);
-  return validationError({ [field]: message }, message);
+      : prefix === ''
+        ? field
+        : `${prefix}.${field}`;
+  // The engine's refusals carry their field: filed there, never read back from the sentence.
+  if (error instanceof InputError)
+    return validationError({ [under(error.field)]: message }, message);
+  return validationError({ [under('')]: message }, message);
 }

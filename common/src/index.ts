@@ -8,10 +8,18 @@ export * from './policy';
 // Units (mathjs, private instance with cfs): SI ⇄ US customary at the edges
 export * from './units';
 
-// The whole study: runStudy and its pieces (analyseRange, solveFloorElevation)
+// The discharge range (prepared once; floor solve, rows, the one jump-position rule)
+export * from './range';
+// The engine's input refusals (InputError: field + code) and their sentences (the one phraser)
+export { InputError, isInputError, type InputErrorCode } from './errors';
+export { INPUT_ERROR_CODES, fieldWords, refusalText } from './messages';
+// The whole study: runStudy (a thin orchestration) and the result's shape
 export * from './study';
 // The version of runStudy's answer, stored beside a saved result
 export { ENGINE_VERSION } from './version';
 
-// Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation, drawing (drawingToSvg)
+// Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation
 export * from './basins';
+
+// Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
+export * from './drawing';

@@ -134,7 +134,7 @@ describe('GET/PUT /projects/:id/design', () => {
     expect(res.status).toBe(422);
     // 400 ft = 121.92 m exactly [NIST SP 811: 1 ft = 0.3048 m]; the engine computed it in m
     expect(res.body.details['input.floorElevation']).toBe(
-      "floorElevation 400 ft lies above the outlet's energy line",
+      'The floor at 400 ft lies above the energy line of the inflow.',
     );
     expect(res.body.message).not.toMatch(/\d m\b/);
   });

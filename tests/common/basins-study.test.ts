@@ -2,7 +2,7 @@
 // recommended, sized with its alternatives, drawn. Checks against relations named beside them.
 import { describe, expect, it } from 'vitest';
 import { designDissipators, type JumpBasinDesign } from '../../common/src/basins';
-import type { StudyInput } from '../../common/src/study';
+import type { StudyInput } from '../../common/src/range';
 import { DISSIPATOR_CATALOGUE } from '../../common/src/basins';
 import { expectRel } from '../support/tolerance';
 import { runStudy } from '../../common/src/study';

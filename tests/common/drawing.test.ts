@@ -1,18 +1,20 @@
 // Drawing geometry invariants and the shared SVG renderer.
 import { describe, expect, it } from 'vitest';
 import {
-  buildBasinDrawing,
   designDissipators,
   designJumpBasin,
+  freeboard,
+  type DesignRow,
+  type JumpBasinDesign,
+} from '../../common/src/basins';
+import {
+  buildBasinDrawing,
   drawingToSvg,
   drawingView,
   formatSI,
-  freeboard,
-  type DesignRow,
   type Drawing,
-  type JumpBasinDesign,
   type PolylineItem,
-} from '../../common/src/basins';
+} from '../../common/src/drawing';
 import {
   boxesOverlap,
   layoutDrawing,
@@ -20,9 +22,10 @@ import {
   textBox,
   type Box,
   type DrawingFormatter,
-} from '../../common/src/basins/svg';
-import type { DrawingQuantity } from '../../common/src/basins/drawing';
-import { runStudy, type StudyInput } from '../../common/src/study';
+} from '../../common/src/drawing/svg';
+import type { DrawingQuantity } from '../../common/src/drawing/geometry';
+import { runStudy } from '../../common/src/study';
+import type { StudyInput } from '../../common/src/range';
 import { toSI } from '../../common/src/units';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';
@@ -132,22 +135,24 @@ describe.each(['usbr-2', 'usbr-3', 'saf', 'usbr-4', 'usbr-1'] as const)(
       for (const v of dr.views) {
         for (const it of v.items)
           if (it.kind === 'dimension')
-            expect(it.value).toBeCloseTo(Math.hypot(it.to.x - it.from.x, it.to.y - it.from.y), 9);
+            expectRel(it.value, Math.hypot(it.to.x - it.from.x, it.to.y - it.from.y), 1e-9);
       }
       const len = drawingView(dr, 'section').items.find(
         (i) => i.kind === 'dimension' && i.role === 'basin-length',
       );
-      expect(len && len.kind === 'dimension' && len.value).toBeCloseTo(d.length, 9);
+      if (len?.kind !== 'dimension') throw new Error('no basin-length dimension');
+      expectRel(len.value, d.length, 1e-9);
       const wid = drawingView(dr, 'plan').items.find(
         (i) => i.kind === 'dimension' && i.role === 'basin-width',
       );
-      expect(wid && wid.kind === 'dimension' && wid.value).toBeCloseTo(10, 9);
+      if (wid?.kind !== 'dimension') throw new Error('no basin-width dimension');
+      expectRel(wid.value, 10, 1e-9);
     });
     it('the section shows the design water surface from y1 at the toe to the tailwater', () => {
       const w = polys(dr, 'section', 'water-design')[0]!;
       const atToe = w.points.find((p) => p.x === 0)!;
-      expect(atToe.y).toBeCloseTo(50 + d.water.y1, 9);
-      expect(w.points[w.points.length - 1]!.y).toBeCloseTo(d.water.tailwaterElevation, 9);
+      expectRel(atToe.y, 50 + d.water.y1, 1e-9);
+      expectRel(w.points[w.points.length - 1]!.y, d.water.tailwaterElevation, 1e-9);
     });
   },
 );
@@ -165,8 +170,8 @@ describe('flare limited by the jet spread tanθ = 1/(3·Fr) [src: HEC-14]', () =
       inflowWidth: 4,
     });
     const frMax = Math.max(...r.map((x) => x.fr1));
-    expect(d.flare!.tanTheta).toBeCloseTo(1 / (3 * frMax), 12);
-    expect(d.flare!.length).toBeCloseTo(3 * 3 * frMax, 9);
+    expectRel(d.flare!.tanTheta, 1 / (3 * frMax), 1e-12);
+    expectRel(d.flare!.length, 3 * 3 * frMax, 1e-9);
     expect(
       polys(buildBasinDrawing(d), 'plan', 'wall')[0]!.points.some(
         (p) => Math.abs(p.x + d.flare!.length) < 1e-9,

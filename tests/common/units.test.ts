@@ -66,7 +66,9 @@ describe('units', () => {
       tailwaterFactor: 1.1,
     };
     const si = toSI(us);
-    expect(si.units).toBe('US'); // the user's presentation units are kept
+    expect(si.units).toBe('SI'); // the numbers are SI now …
+    expect(si.displayUnits).toBe('US'); // … and the user's units travel on for the words
+    expect(toSI(si)).toEqual(si); // idempotent: a second conversion changes nothing
     expectRel(si.channelBedElevation, 30.48, 1e-12);
     expectRel(si.designDischarge, 420 * 0.028316846592, 1e-12);
     if (
@@ -84,6 +86,8 @@ describe('units', () => {
     expect(si.tailwaterFactor).toBe(1.1);
     const back = inputFromSI(si, 'US');
     expectRel(back.basinWidth, 20, 1e-12);
+    expect(back.units).toBe('US');
+    expect(back.displayUnits).toBeUndefined();
     expect(toSI({ ...us, units: 'SI' })).toEqual({ ...us, units: 'SI' });
   });
 });

@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl, numberIn } from '../support/e2e';
+import { expectRel } from '../support/tolerance';
 
 const SHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
 const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
@@ -79,9 +80,12 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     const floor = numberIn(await page.locator('[data-test="floor-elevation"]').textContent());
     expect(floor).toBeLessThan(CHANNEL_BED);
     expect(await page.locator('[data-test="floor-elevation"]').textContent()).toContain('m');
-    expect(numberIn(await page.locator('[data-test="depth-below-bed"]').textContent())).toBeCloseTo(
+    // the page shows two decimals: within half a centimetre of bed − floor
+    expectRel(
+      numberIn(await page.locator('[data-test="depth-below-bed"]').textContent()),
       CHANNEL_BED - floor,
-      1,
+      0,
+      0.0051,
     );
     // 17 discharges from 5 to 85 m³/s in the seeded input.
     await expect

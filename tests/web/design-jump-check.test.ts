@@ -111,7 +111,16 @@ describe('Jump check at the design floor', () => {
     const short = d.rows.map((x, i) =>
       i === 0 ? { ...x, tailwaterDepth: x.requiredDepth - 0.2, margin: -0.2 } : x,
     );
-    const res: StudyResult = { ...result, design: { ...entry, design: { ...d, rows: short } } };
+    // the step formats what the engine says: the position comes with the result (chosenFloor)
+    const own = result.chosenFloor!;
+    const positions = own.positions.map((p, i) =>
+      i === 0 ? { ...p, margin: -0.2, position: 'swept-out' as const } : p,
+    );
+    const res: StudyResult = {
+      ...result,
+      design: { ...entry, design: { ...d, rows: short } },
+      chosenFloor: { ...own, positions },
+    };
     const w = mountStep(res);
     const first = tableRows(w)[0]!;
     expect(first['Jump position']).toBe('Swept out');
@@ -333,5 +342,17 @@ describe('a chosen type with no jump of its own', () => {
     );
     expect(tableRows(w)).toHaveLength(result.rows.length);
     w.unmount();
+  });
+});
+
+describe('a floor above the channel bed', () => {
+  it('says it is above the bed, by how much, not "0.00 m below"', () => {
+    // the demo with its floor fixed 0.30 m above the bed (invented demo data)
+    const res = runStudy({ ...fenwickDesign, floorElevation: 90.3 });
+    const w = mountStep(res);
+    const item = w.find('[data-test="depth-below-bed"]');
+    expect(item.text()).toBe('0.30 m');
+    expect(w.text()).toContain('Floor above the channel bed');
+    expect(w.text()).not.toContain('Floor below the channel bed');
   });
 });

@@ -36,7 +36,7 @@ describe('evaluateStudy', () => {
     const out = evaluateStudy(subcritical);
     expect(out.result).toBeNull();
     expect(out.engineError).toMatch(
-      /^The study cannot be computed with these inputs\. Toe conditions: Fr1 = 0\.22\d is not supercritical: no jump forms/,
+      /^The study cannot be computed with these inputs\. The toe conditions give Froude number 0\.22\d: the flow is not supercritical and no jump forms\.$/,
     );
     expect(out.inputProblems).toEqual([]);
   });

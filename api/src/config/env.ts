@@ -251,10 +251,3 @@ export function getDatabasePoolMax(): number {
   if (problems.length > 0) throw new ConfigError(problems);
   return max;
 }
-
-/** Log level for processes that only need a logger (CLIs); same rule as getConfig(). */
-export function getLogLevel(): LogLevel {
-  const raw = process.env.LOG_LEVEL;
-  if (raw !== undefined && (LOG_LEVELS as readonly string[]).includes(raw)) return raw as LogLevel;
-  return process.env.NODE_ENV === 'test' ? 'silent' : 'info';
-}

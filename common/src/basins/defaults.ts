@@ -54,7 +54,6 @@ export const BASIN_DEFAULTS = {
   apronMaxRise: 1.5,
   apronMaxFroude: 2.5,
   cavitationVelocity: 15,
-  excessSubmergenceRatio: 1.2,
   specialistVelocity: 18,
   specialistHead: 50,
   slottedBucketTailwaterRatio: 1.1,
@@ -267,12 +266,6 @@ export const BASIN_DEFAULT_PROVENANCE: Record<BasinDefaultKey, Provenance> = {
     confidence: 'src',
     label: 'Inflow velocity above which blocks risk cavitation (model study advised)',
     unit: 'm/s',
-  },
-  excessSubmergenceRatio: {
-    source: 'common practice',
-    confidence: 'practice',
-    label: 'Tailwater / required depth above which submergence is called excessive',
-    unit: '-',
   },
   specialistVelocity: {
     source: EM25,
@@ -500,7 +493,18 @@ export const BASIN_DEFAULT_PROVENANCE: Record<BasinDefaultKey, Provenance> = {
 };
 
 /** The defaults with the user's overrides applied; rejects unknown keys and bad numbers. */
+// Sizing calls this once per discharge with the same object: resolved once per object.
+const RESOLVED = new WeakMap<Partial<BasinDefaults>, Readonly<BasinDefaults>>();
+
 export function resolveDefaults(overrides: Partial<BasinDefaults> = {}): BasinDefaults {
+  const known = RESOLVED.get(overrides);
+  if (known) return { ...known };
+  const out = resolveOnce(overrides);
+  RESOLVED.set(overrides, { ...out });
+  return out;
+}
+
+function resolveOnce(overrides: Partial<BasinDefaults>): BasinDefaults {
   const out: BasinDefaults = { ...BASIN_DEFAULTS };
   for (const [key, value] of Object.entries(overrides)) {
     if (!(key in BASIN_DEFAULTS))

@@ -23,6 +23,8 @@ import type {
 import { n3, phraser, type Phraser, type PhraseUnits } from '../units/phrase';
 import { sizeImpactBasin, type ImpactBasinSizing } from './types/usbr6';
 import { sizeBaffledApron, type BaffledApronSizing } from './types/usbr9';
+import { designRow } from './types/shared';
+import { jumpPosition } from '../range/position';
 
 /** A discharge row of the study with its tailwater elevation (SI). */
 export interface DesignRow extends DischargeRow {
@@ -44,6 +46,8 @@ export interface DesignOptions {
   extraFloorDepth?: number;
   /** unit system of warnings, notes and reasons (numbers stay SI); default SI, in a study the input's units */
   units?: PhraseUnits;
+  /** tailwater above C·y2 by more than this fraction drowns the jump (range/position.ts; default 0.10) */
+  submergenceTolerance?: number;
 }
 
 export interface ConcreteQuantities {
@@ -142,10 +146,9 @@ export interface JumpDesignInput {
 }
 
 function pickDesignRow<T extends DischargeRow>(rows: readonly T[], Q: number): T {
-  let best: T | undefined;
-  for (const r of rows) if (!best || Math.abs(r.Q - Q) < Math.abs(best.Q - Q)) best = r;
-  if (!best) throw new RangeError('rows must hold at least one discharge');
-  return best;
+  const row = designRow(rows, Q);
+  if (!row) throw new RangeError('rows must hold at least one discharge');
+  return row;
 }
 
 /**
@@ -323,7 +326,15 @@ export function designJumpBasin(
   );
   const own = new Set(items.map((w) => w.text));
   for (const text of sizing.warnings) if (!own.has(text)) items.push({ topic: 'narrow', text });
-  const warnings = designWarnings(input.type, rows, items, d, rules.froudeRange, P);
+  const warnings = designWarnings(
+    input.type,
+    rows,
+    items,
+    d,
+    rules.froudeRange,
+    P,
+    options.submergenceTolerance,
+  );
   warnings.push(...slab.notes);
   if (input.governingQ !== undefined && input.governingQ !== null) {
     const g = rows.reduce((a, r) => (r.margin < a.margin ? r : a));
@@ -405,6 +416,7 @@ function designWarnings(
   d: BasinDefaults,
   range: readonly [number, number],
   P: Phraser,
+  tolerance: number | undefined,
 ): string[] {
   const ranged: Array<{ topic: JumpWarning['topic'] | 'submergence' | 'sweepOut'; text: string }> =
     [];
@@ -428,7 +440,9 @@ function designWarnings(
       topic: 'froude',
       text: `Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${P.Q(out[0]!.Q)}): model study`,
     });
-  const excess = rows.filter((r) => r.tailwaterDepth > d.excessSubmergenceRatio * r.requiredDepth);
+  const excess = rows.filter(
+    (r) => jumpPosition(r.tailwaterDepth, r.requiredDepth, tolerance) === 'drowned',
+  );
   if (excess.length > 0) {
     const worst = excess.reduce((a, r) =>
       r.tailwaterDepth / r.requiredDepth > a.tailwaterDepth / a.requiredDepth ? r : a,

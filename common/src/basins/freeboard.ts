@@ -2,7 +2,7 @@
 import { reqNonNegative } from './guards';
 import { BASIN_DEFAULTS } from './defaults';
 
-const FT = 0.3048; // m per ft, exact [standard]
+import { FOOT as FT } from '../units/constants';
 
 /**
  * Wall freeboard above the water surface, m: F = k·(V1 + y2) with F, y2 in ft and V1 in ft/s,

@@ -24,8 +24,6 @@ export {
 export * from './riprap';
 export * from './flotation';
 export * from './design';
-export * from './drawing';
-export { drawingToSvg, formatSI, drawingView, type SvgOptions, type DrawingFormatter } from './svg';
 export {
   designDissipators,
   screeningContext,

@@ -1,5 +1,5 @@
 // Sizing of the jump basins (USBR I–IV, SAF) for one discharge: hydraulics.md §4.
-import { belangerRatio, jumpLengthUSBR } from '../hydraulics';
+import { belangerRatio } from '../hydraulics';
 import { G } from '../units/constants';
 import { getDissipator, isJumpBasinType } from './catalogue';
 import { resolveDefaults, type BasinDefaults } from './defaults';
@@ -177,9 +177,4 @@ export function jumpWarningItems(
     );
   }
   return w;
-}
-
-/** Free-jump length on the USBR curve (re-exported for the drawing of the water surface). */
-export function freeJumpLength(fr1: number, y2: number): number {
-  return jumpLengthUSBR(fr1, y2);
 }

@@ -101,7 +101,7 @@ function roughMeasures(
   ctx: ScreeningContext,
   d: BasinDefaults,
 ): { length?: number; concreteVolume?: number } {
-  const dr = designRow(rows);
+  const dr = designRow(rows, ctx.designQ);
   if (!dr) return {};
   try {
     if (isJumpBasinType(m.id)) {

@@ -1,7 +1,15 @@
 // The dissipator part of a study: per candidate type, the floor solved with that type's
 // tailwater factor, the rows over the range, the screening, the designs and their drawings.
-import { analyseRange, solveFloorElevation, type StudyInput, type StudyRow } from '../study';
+import {
+  prepareRange,
+  rowsAt,
+  solveFloor,
+  type DischargeRange,
+  type StudyInput,
+  type StudyRow,
+} from '../range';
 import { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, isJumpBasinType } from './catalogue';
+import type { DissipatorStudyOptions } from './options';
 
 /** The published name of a type, for sentences (never the code id). */
 const nameOf = (id: DissipatorTypeId): string =>
@@ -12,25 +20,14 @@ import {
   designImpactBasin,
   designJumpBasin,
   designRiprapApron,
-  type DesignOptions,
   type DesignRow,
   type DissipatorDesign,
 } from './design';
-import { buildBasinDrawing, type Drawing, type DrawingOptions } from './drawing';
+import { buildBasinDrawing, type Drawing } from '../drawing/geometry';
 import { screenDissipators, type TypeScreening, type Verdict } from './screening';
-import type { DebrisLevel, DissipatorTypeId, JumpBasinType, ScreeningContext } from './types';
+import type { DissipatorTypeId, JumpBasinType, ScreeningContext } from './types';
 
-/** What the user may set for the dissipator part of a study (all optional). */
-export interface DissipatorStudyOptions extends DesignOptions {
-  debris?: DebrisLevel;
-  /** the culvert at the outlet when the study input does not describe it */
-  culvert?: ScreeningContext['culvert'];
-  /** the type to design instead of the recommended one */
-  chosenType?: DissipatorTypeId;
-  /** further types to design as alternatives whatever their verdict */
-  alternatives?: DissipatorTypeId[];
-  drawing?: DrawingOptions;
-}
+export type { DissipatorStudyOptions };
 
 /** One designed type: its verdict, the design and its drawing. */
 export interface DesignEntry {
@@ -49,10 +46,21 @@ export interface DissipatorStudyResult {
   chosen: DissipatorTypeId | null;
   design: DesignEntry | null;
   alternatives: DesignEntry[];
-  /** floor solved per jump-basin type, m, with the governing discharge */
+  /** floor per jump-basin type, m (solved, less the safety depths, or the fixed one), with the governing discharge */
   floors: Partial<
-    Record<JumpBasinType, { elevation: number; governingQ: number | null; depthBelowBed: number }>
+    Record<
+      JumpBasinType,
+      {
+        elevation: number;
+        /** highest floor that holds the jump at every discharge with this type's C, m (null when fixed) */
+        requiredElevation: number | null;
+        governingQ: number | null;
+        depthBelowBed: number;
+      }
+    >
   >;
+  /** rows over the range on each jump-basin type's floor, with its C */
+  rowsByType: Partial<Record<JumpBasinType, StudyRow[]>>;
   context: ScreeningContext;
   /** every default in force (from memory, common practice, sources) */
   assumptions: Assumption[];
@@ -71,6 +79,7 @@ function toRow(r: StudyRow): DesignRow {
     tailwaterElevation: r.tailwaterElevation,
   };
   if (r.H0 !== null) row.head = r.H0;
+  if (r.isDesign) row.isDesign = true;
   return row;
 }
 
@@ -88,8 +97,11 @@ export function screeningContext(
   const ctx: ScreeningContext = {
     inflow: inflow.kind,
     width: input.basinWidth,
-    units: opts.units ?? input.units,
+    designQ: input.designDischarge,
+    units: opts.units ?? input.displayUnits ?? input.units,
   };
+  if (input.submergenceTolerance !== undefined)
+    ctx.submergenceTolerance = input.submergenceTolerance;
   if (opts.debris) ctx.debris = opts.debris;
   if (culvert) ctx.culvert = culvert;
   return ctx;
@@ -108,13 +120,16 @@ function outletWidth(input: StudyInput): number | undefined {
  * whole range) and draws them. Pure; SI.
  */
 export function designDissipators(
-  input: StudyInput,
+  study: StudyInput | DischargeRange,
   options: DissipatorStudyOptions = {},
 ): DissipatorStudyResult {
+  const range: DischargeRange = 'Qs' in study ? study : prepareRange(study);
+  const input = range.input;
   // Words in the user's units unless told otherwise; every number stays SI.
   const opts: DissipatorStudyOptions = {
     ...options,
-    units: options.units ?? (input.units === 'US' ? 'US' : 'SI'),
+    units: options.units ?? input.displayUnits ?? 'SI',
+    submergenceTolerance: range.submergenceTolerance,
   };
   const d: BasinDefaults = resolveDefaults(opts.defaults);
   for (const t of [
@@ -136,9 +151,10 @@ export function designDissipators(
 
   // Rows at the natural level (for the types that need no floor solve).
   const naturalFloor = input.inflow.kind === 'pipe' ? input.inflow.invertElevation : bed;
-  const bedRows = analyseRange(input, fixedFloor ?? naturalFloor, 1).map(toRow);
+  const bedRows = rowsAt(range, fixedFloor ?? naturalFloor, 1).map(toRow);
 
   const rowsByType: Partial<Record<DissipatorTypeId, DesignRow[]>> = {};
+  const studyRowsByType: DissipatorStudyResult['rowsByType'] = {};
   const floors: DissipatorStudyResult['floors'] = {};
   const designs: Partial<Record<DissipatorTypeId, DissipatorDesign>> = {};
   for (const type of JUMP_BASIN_TYPES) {
@@ -147,15 +163,24 @@ export function designDissipators(
     try {
       let floor: number;
       let governingQ: number | null = null;
+      let requiredElevation: number | null = null;
       if (fixedFloor !== undefined) floor = fixedFloor;
       else {
-        const sol = solveFloorElevation(input, factor);
-        floor = sol.elevation - extra;
+        const sol = solveFloor(range, factor);
+        floor = sol.elevation - extra - range.floorSafetyDepth;
         governingQ = sol.governingQ;
+        requiredElevation = sol.elevation;
       }
-      const rows = analyseRange(input, floor, factor).map(toRow);
+      const studyRows = rowsAt(range, floor, factor);
+      studyRowsByType[type] = studyRows;
+      const rows = studyRows.map(toRow);
       rowsByType[type] = rows;
-      floors[type] = { elevation: floor, governingQ, depthBelowBed: Math.max(0, bed - floor) };
+      floors[type] = {
+        elevation: floor,
+        requiredElevation,
+        governingQ,
+        depthBelowBed: Math.max(0, bed - floor),
+      };
       const inflowWidth = outletWidth(input);
       designs[type] = designJumpBasin(
         {
@@ -208,9 +233,7 @@ export function designDissipators(
     }
   }
   if (ctx.culvert) {
-    const dr = bedRows.reduce((a, r) =>
-      Math.abs(r.Q - input.designDischarge) < Math.abs(a.Q - input.designDischarge) ? r : a,
-    );
+    const dr = bedRows.find((r) => r.isDesign)!;
     try {
       designs['riprap-apron'] = designRiprapApron(
         {
@@ -286,6 +309,7 @@ export function designDissipators(
     design,
     alternatives,
     floors,
+    rowsByType: studyRowsByType,
     context: ctx,
     // The flotation case, when given, takes the place of its two defaults: list what is in force.
     assumptions: listAssumptions({

@@ -57,6 +57,8 @@ export interface DischargeRow {
   tailwaterDepth?: number;
   /** total head above the floor, m; when absent y1 + v1²/2g is used */
   head?: number;
+  /** set on the row at the design discharge (the design row) */
+  isDesign?: boolean;
 }
 
 /** How the fast flow arrives. */
@@ -69,6 +71,10 @@ export interface ScreeningContext {
   inflow: InflowKind;
   /** basin (or outlet) width, m */
   width: number;
+  /** the design discharge, m³/s: its row is the design row (default: the largest discharge) */
+  designQ?: number;
+  /** tailwater above C·y2 by more than this fraction drowns the jump (range/position.ts; default 0.10) */
+  submergenceTolerance?: number;
   debris?: DebrisLevel;
   /** the culvert or pipe at the outlet, when there is one; rise = diameter for a pipe, m */
   culvert?: { shape: 'circular' | 'box'; rise: number; span?: number };

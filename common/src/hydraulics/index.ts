@@ -34,7 +34,31 @@ export {
 } from './jump';
 export { G, RHO_WATER, MANNING_K_SI, MANNING_K_US } from '../units/constants';
 export * from './interpolate';
-export * from './inflow';
+export {
+  gateFlow,
+  gateOpening,
+  gateUpstreamDepth,
+  jetFlareTangent,
+  outletFlow,
+  toeFromHead,
+  toeFromKnown,
+  toeFromOutlet,
+  validateLossModel,
+  weirHead,
+  type GateFlow,
+  type KnownToe,
+  type LossModel,
+  type OutletFlow,
+  type ToeConditions,
+} from './inflow';
+export type { HeadwaterSpec, InflowNote, StudyInflow, Toe } from './toeByInflow';
 export * from './tailwater';
-export * from './profiles';
+export {
+  directStepProfile,
+  jumpToeDistance,
+  locateJump,
+  type JumpLocation,
+  type JumpSituation,
+  type ProfilePoint,
+} from './profiles';
 export * from './diagrams';

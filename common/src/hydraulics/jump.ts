@@ -3,7 +3,7 @@
 import { G, RHO_WATER } from '../units/constants';
 import { requireNonNegative, requirePositive } from './guards';
 import { _criticalDepth, _energy, _froude, _momentum, _velocity } from './depths';
-import { geometry, validateSection, type Section } from './sections';
+import { validateSection, type Section } from './sections';
 import { brent } from './solve';
 
 export type JumpClass = 'none' | 'undular' | 'weak' | 'oscillating' | 'steady' | 'strong';
@@ -296,9 +296,4 @@ export function rectangularJumpLoss(y1: number, y2: number): number {
   requirePositive('y1', y1);
   requirePositive('y2', y2);
   return Math.pow(y2 - y1, 3) / (4 * y1 * y2);
-}
-
-/** Flow area helper for callers that already validated (re-exported for the study). */
-export function _area(s: Section, y: number): number {
-  return geometry(s, y).area;
 }

@@ -82,21 +82,36 @@ export function brent(
 }
 
 /**
- * Expands an upper bound geometrically from `start` until pred(x) holds; RangeError after
- * `maxDoublings` (so an impossible request cannot loop forever).
+ * The highest x in [bottom, top] where `ok` holds, for a predicate that may hold on several
+ * bands (not monotonic): `ok` is sampled at `steps` equal steps down from `top`, and the boundary
+ * above the first sample that holds is refined by bisection to `tol`. A band thinner than one
+ * step can be missed; null when no sample holds. Always ends (steps + 200 evaluations at most).
+ * @example highestTrue((x) => x <= 2.5, 10, 0, 20, 1e-9) // ≈ 2.5
  */
-export function expandUpper(
-  pred: (x: number) => boolean,
-  start: number,
-  what: string,
-  maxDoublings = 80,
-): number {
-  let x = start;
-  for (let i = 0; i < maxDoublings; i++) {
-    if (pred(x)) return x;
-    x *= 2;
+export function highestTrue(
+  ok: (x: number) => boolean,
+  top: number,
+  bottom: number,
+  steps: number,
+  tol: number,
+): number | null {
+  const h = (top - bottom) / steps;
+  let bad = top;
+  if (ok(top)) return top;
+  for (let k = 1; k <= steps; k++) {
+    const x = k === steps ? bottom : top - k * h;
+    if (ok(x)) {
+      let good = x;
+      for (let i = 0; i < 200 && bad - good > tol; i++) {
+        const mid = 0.5 * (good + bad);
+        if (ok(mid)) good = mid;
+        else bad = mid;
+      }
+      return good;
+    }
+    bad = x;
   }
-  throw new RangeError(`${what}: no bound found (searched up to ${x})`);
+  return null;
 }
 
 /** Golden-section search for the maximum of a unimodal f on [a, b]. */

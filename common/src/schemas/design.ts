@@ -1,5 +1,5 @@
 import { mixed, object, type ObjectSchema } from 'yup';
-import type { StudyInput } from '../study';
+import type { StudyInput } from '../range/types';
 import { studyInputSchema } from './study';
 
 function isPlainObject(value: unknown): value is Record<string, unknown> {

@@ -1,4 +1,5 @@
 // One module for every limit the web form and the API share, so the two can never disagree.
+import { InputError } from '../errors';
 
 export const ROLES = ['owner', 'admin', 'engineer', 'estimator', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
@@ -238,10 +239,13 @@ export function requireStudySize(input: unknown): void {
   for (const size of studySizes({ ...(input as object), units: 'SI' })) {
     if (size.share > 1) {
       const limit = Math.round(size.value / size.share);
-      throw new RangeError(
+      throw new InputError(
+        size.field,
+        'out-of-range',
         size.field === 'basinWidth'
           ? `basinWidth must not exceed ${limit} m (got ${size.value} m)`
           : `${size.field}: at most ${limit} ${size.field.startsWith('discharges') ? 'discharges' : 'rows'} (got ${size.value})`,
+        { max: limit },
       );
     }
   }

@@ -20,7 +20,7 @@ import type { KnownToe, LossModel } from '../hydraulics/inflow';
 import type { TailwaterSpec } from '../hydraulics/tailwater';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
-import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../study';
+import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../range/types';
 import { ENGINE_LIMITS } from './limits';
 
 /** Discharges one study may analyse (ENGINE_LIMITS.maxDischarges, the reason there). */
@@ -502,6 +502,9 @@ export const studyInputSchema: ObjectSchema<StudyInput> = object({
   units: string()
     .oneOf(['SI', 'US'], 'Choose SI or US customary units.')
     .required('Choose the units.'),
+  displayUnits: string()
+    .oneOf(['SI', 'US'] as const, 'Choose SI or US customary units to read results in.')
+    .optional(),
   channelBedElevation: elevation('the channel bed elevation'),
   basinWidth: positive('the basin width').when('units', ([units], schema) => {
     const max = ENGINE_LIMITS.maxBasinWidth[units === 'US' ? 'US' : 'SI'];
@@ -520,6 +523,9 @@ export const studyInputSchema: ObjectSchema<StudyInput> = object({
     .max(2, 'The tailwater factor must not exceed 2.')
     .optional(),
   floorElevation: num('the floor elevation').optional(),
+  floorSafetyDepth: num('the safety depth below the floor')
+    .min(0, 'The safety depth below the floor must not be negative.')
+    .optional(),
   submergenceTolerance: num('the submergence tolerance')
     .min(0, 'The submergence tolerance must not be negative.')
     .max(1, 'The submergence tolerance must not exceed 1.')
@@ -546,6 +552,3 @@ export const studyInputSchema: ObjectSchema<StudyInput> = object({
     message: `The weir coefficient C must lie between ${min} and ${max} ${unit}.`,
   });
 });
-
-/** Narrow type guard for code that validated with studyInputSchema. */
-export const isStudyUnits = (u: unknown): u is StudyInput['units'] => u === 'SI' || u === 'US';

@@ -6,3 +6,5 @@ export const RHO_WATER = 1000;
 export const MANNING_K_SI = 1;
 /** Manning's equation unit factor k for US customary units (ft, s). [Chow 1959] */
 export const MANNING_K_US = 1.486;
+/** One international foot, m (exact by definition, NIST SP 811); every US factor derives from it. */
+export const FOOT = 0.3048;

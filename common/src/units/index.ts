@@ -2,7 +2,8 @@
 // A private mathjs instance (create(all)) holds the extra unit cfs, so the global mathjs
 // stays untouched. Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
 import { all, create, type MathJsInstance } from 'mathjs';
-import type { StudyInput, StudyResult, UnitSystem } from '../study';
+import type { StudyInput, UnitSystem } from '../range/types';
+import type { StudyResult } from '../result';
 import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 
 export * from './constants';
@@ -138,6 +139,9 @@ const LENGTH_KEYS = new Set([
   'criticalDepth',
   'requiredElevation',
   'depthBelowBed',
+  'heightAboveBed',
+  'floorSafetyDepth',
+  'safetyDepth',
   'sweepOutDistance',
   'distance',
   'yToe',
@@ -311,13 +315,19 @@ const UNIT_LABELS_SI_TO_KIND = new Map<string, QuantityKind>(
  */
 export function toSI(input: StudyInput): StudyInput {
   if (input.units !== 'US') return input;
-  return walk(input, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyInput;
+  // Idempotent: the output says 'SI'; the user's units travel on as displayUnits (words, tables).
+  const si = walk(input, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyInput;
+  return { ...si, units: 'SI', displayUnits: input.displayUnits ?? 'US' };
 }
 
-/** An SI StudyInput shown in `system` units (the inverse of toSI). */
+/** An SI StudyInput shown in `system` units (the inverse of toSI); the output says `system`. */
 export function inputFromSI(input: StudyInput, system: UnitSystem): StudyInput {
-  if (system === 'SI') return input;
-  return walk(input, [], (v, k) => fromSIValue(v, k, 'US'), 'US') as StudyInput;
+  const rest: StudyInput = { ...input };
+  delete rest.displayUnits;
+  if (system === 'SI') return input.units === 'SI' ? input : { ...rest, units: 'SI' };
+  if (input.units === 'US') return input;
+  const us = walk(rest, [], (v, k) => fromSIValue(v, k, 'US'), 'US') as StudyInput;
+  return { ...us, units: 'US' };
 }
 
 /**

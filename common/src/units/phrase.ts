@@ -9,7 +9,7 @@ export type PhraseUnits = 'SI' | 'US';
 /** Quantities that appear in sentences. */
 export type PhraseKind = 'length' | 'velocity' | 'discharge' | 'unitDischarge' | 'volume';
 
-const FT = 0.3048;
+import { FOOT as FT } from './constants';
 const US_FACTOR: Record<PhraseKind, number> = {
   length: FT,
   velocity: FT,

@@ -2,9 +2,11 @@
 import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
+  InputError,
   UNIT_LABELS,
   fromSIValue,
   phraseMessage,
+  refusalText,
   runStudy,
   studyInputSchema,
   type DissipatorTypeId,
@@ -51,6 +53,8 @@ export function readableEngineError(
   units: UnitSystem = 'SI',
   lead = 'The study cannot be computed with these inputs.',
 ): string {
+  // A coded refusal is phrased by common/messages from its code and quantities.
+  if (error instanceof InputError) return `${lead} ${refusalText(error, units)}`;
   if (error instanceof RangeError) {
     let text = phraseMessage(error.message.trim(), units);
     const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);

@@ -5,7 +5,7 @@
 // that made the calculation large. A full queue answers 503; a worker out of memory, 422.
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import { studySizes } from '@basinwright/common';
+import { InputError, studySizes, type InputErrorCode } from '@basinwright/common';
 import { getConfig, type ComputeConfig } from '../../config/env';
 import { ApiError, serviceUnavailable, validationError } from '../../errors';
 import type { ComputeReply, ComputeResults, ComputeTask, EngineErrorData } from './calc.worker';
@@ -29,6 +29,16 @@ const workerExecArgv = workerFile.endsWith('.ts')
  * message, and its own properties (field, code, …) put back.
  */
 export function reviveEngineError(data: EngineErrorData): Error {
+  const { field, code, values } = data.props;
+  // The engine's coded refusal comes back as the same class, so the API files it by its field.
+  if (data.name === 'InputError' && typeof field === 'string' && typeof code === 'string') {
+    return new InputError(
+      field,
+      code as InputErrorCode,
+      data.message,
+      (values ?? {}) as Record<string, number>,
+    );
+  }
   const error = data.isRangeError ? new RangeError(data.message) : new Error(data.message);
   Object.defineProperty(error, 'name', {
     value: data.name,

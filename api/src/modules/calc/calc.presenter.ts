@@ -30,7 +30,7 @@ export function presentJump(r: JumpResult): JumpResult {
   };
 }
 
-/** StudyResult, SI (m, m³/s, m/s, W); `input.units` says which units the user works in. */
+/** StudyResult, SI (m, m³/s, m/s, W); `input.displayUnits` says which units the user works in. */
 export function presentStudy(r: StudyResult): StudyResult {
   return finite(r);
 }

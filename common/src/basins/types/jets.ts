@@ -13,7 +13,7 @@ function energyCriteria(
   ctx: ScreeningContext,
 ): CriterionResult[] {
   const P = ph(ctx);
-  const dr = designRow(rows);
+  const dr = designRow(rows, ctx.designQ);
   if (!dr) return [crit('velocity', 'fail', 'no discharges to screen')];
   const h = headOf(dr);
   return [

@@ -3,6 +3,7 @@
 import { G } from '../../units/constants';
 import { n3, n3Pair, phraser, type Phraser } from '../../units/phrase';
 import type { BasinDefaults } from '../defaults';
+import { jumpPosition } from '../../range/position';
 import type { CriterionResult, DebrisLevel, DischargeRow, ScreeningContext } from '../types';
 
 export { n3 };
@@ -81,9 +82,10 @@ export function jumpTailwater(
     );
   }
   const ratio = tw / need;
-  if (ratio > d.excessSubmergenceRatio) {
-    const qMax = Math.max(...rows.map((r) => r.Q));
-    const atDesign = row.Q >= qMax - 1e-9;
+  if (jumpPosition(tw, need, ctx?.submergenceTolerance) === 'drowned') {
+    const atDesign =
+      row.isDesign === true ||
+      (ctx?.designQ !== undefined ? row.Q === ctx.designQ : row === designRow(rows));
     return crit(
       'tailwater',
       atDesign ? 'warn' : 'pass',
@@ -127,9 +129,41 @@ export function headOf(row: DischargeRow): number {
   return row.head ?? row.y1 + (row.v1 * row.v1) / (2 * G);
 }
 
-/** The row with the largest discharge (the design discharge of the range). */
-export function designRow(rows: readonly DischargeRow[]): DischargeRow | undefined {
-  let best: DischargeRow | undefined;
+/**
+ * The design row: the row at the design discharge (marked by the study; the design discharge is
+ * always analysed), else the row whose Q equals `designQ`; for rows from elsewhere with neither,
+ * the largest discharge.
+ */
+export function designRow<T extends DischargeRow>(
+  rows: readonly T[],
+  designQ?: number,
+): T | undefined {
+  // Screening asks once per row for the same list: answered once per list and design discharge.
+  const key = designQ ?? -1;
+  const cached = DESIGN_ROW.get(rows)?.get(key);
+  if (cached) return cached as T;
+  const found = findDesignRow(rows, designQ);
+  if (found) {
+    const byQ = DESIGN_ROW.get(rows) ?? new Map<number, DischargeRow>();
+    byQ.set(key, found);
+    DESIGN_ROW.set(rows, byQ);
+  }
+  return found;
+}
+
+const DESIGN_ROW = new WeakMap<readonly DischargeRow[], Map<number, DischargeRow>>();
+
+function findDesignRow<T extends DischargeRow>(
+  rows: readonly T[],
+  designQ: number | undefined,
+): T | undefined {
+  const marked = rows.find((r) => r.isDesign);
+  if (marked) return marked;
+  if (designQ !== undefined) {
+    const exact = rows.find((r) => r.Q === designQ);
+    if (exact) return exact;
+  }
+  let best: T | undefined;
   for (const r of rows) if (!best || r.Q > best.Q) best = r;
   return best;
 }

@@ -138,7 +138,7 @@ export const usbr6: DissipatorModule = {
             row.Q,
           ),
     ];
-    const dr = designRow(rows) ?? row;
+    const dr = designRow(rows, ctx?.designQ) ?? row;
     const size = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);
     const tw = row.tailwaterDepth;
     out.push(

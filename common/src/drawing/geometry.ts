@@ -6,8 +6,8 @@ import type {
   ImpactBasinDesign,
   JumpBasinDesign,
   RiprapApronDesign,
-} from './design';
-import type { DissipatorTypeId } from './types';
+} from '../basins/design';
+import type { DissipatorTypeId } from '../basins/types';
 
 export interface Pt {
   x: number;

@@ -15,7 +15,7 @@ import type {
   LineStyle,
   FillStyle,
   Pt,
-} from './drawing';
+} from './geometry';
 
 export type DrawingFormatter = (value: number, quantity: DrawingQuantity) => string;
 

@@ -1,0 +1,63 @@
+// The engine's refusal of impossible input: a RangeError (so existing `instanceof RangeError`
+// handling keeps working) that names the input field and a stable code, so the edges (web, API)
+// never read the sentence back. The sentence is for logs and developers; messages/ phrases it.
+
+/** Stable codes of the engine's input refusals. */
+export type InputErrorCode =
+  | 'not-finite'
+  | 'not-positive'
+  | 'negative'
+  | 'out-of-range'
+  | 'invalid'
+  | 'units-not-si'
+  | 'below-bed'
+  | 'far-from-bed'
+  | 'supercritical-tailwater'
+  | 'gate-opening-too-large'
+  | 'gate-pool-too-shallow'
+  | 'above-energy-line'
+  | 'not-supercritical'
+  | 'no-floor';
+
+/** An input the engine refuses: `field` is its path in the study input (e.g. `inflow.opening`). */
+export class InputError extends RangeError {
+  readonly field: string;
+  readonly code: InputErrorCode;
+  /** SI quantities the refusal quotes (e.g. { Q: 5 }), for the phraser */
+  readonly values: Readonly<Record<string, number>>;
+  constructor(
+    field: string,
+    code: InputErrorCode,
+    message: string,
+    values: Record<string, number> = {},
+    options?: { cause?: unknown },
+  ) {
+    super(message, options);
+    this.name = 'InputError';
+    this.field = field;
+    this.code = code;
+    this.values = values;
+  }
+}
+
+/** True for an engine input refusal (an InputError, or any RangeError from older code). */
+export const isInputError = (e: unknown): e is InputError => e instanceof InputError;
+
+/**
+ * Runs f with `field` as the context of any refusal it throws: a refusal naming a field inside
+ * `field` keeps its own; any other RangeError is re-filed under `field`, its sentence prefixed.
+ */
+export function withField<T>(field: string, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    if (e instanceof InputError && e.field.startsWith(field)) throw e;
+    if (!(e instanceof InputError) && e.message.startsWith(field)) {
+      throw new InputError(field, 'invalid', e.message, {}, { cause: e });
+    }
+    const code = e instanceof InputError ? e.code : 'invalid';
+    const values = e instanceof InputError ? e.values : {};
+    throw new InputError(field, code, `${field}: ${e.message}`, { ...values }, { cause: e });
+  }
+}

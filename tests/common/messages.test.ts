@@ -1,0 +1,52 @@
+// Every engine refusal code has a sentence in both unit systems (common/src/messages), and no
+// sentence shows an internal name or a raw float (issue 7, item 4).
+import { describe, expect, it } from 'vitest';
+import { INPUT_ERROR_CODES, InputError, refusalText, runStudy } from '@basinwright/common';
+import { fenwickDesign } from '../../seed/designs';
+
+// awkward SI quantities of every name the engine quotes (invented)
+const VALUES = {
+  elevation: 87.63981433379968,
+  channelBedElevation: 90,
+  span: 1000,
+  Q: 3.285410275704521,
+  fr: 4.318237465,
+  fr1: 1.234567891,
+  opening: 0.9144000001,
+  upstreamDepth: 2.718281828,
+  floorElevation: 121.92000000001,
+  min: 0.5,
+  max: 2,
+  value: 7,
+};
+const FIELDS = ['floorElevation', 'inflow.crestElevation', 'tailwater', 'inflow.opening', 'units'];
+
+describe('refusal sentences', () => {
+  it('every code has a sentence in SI and in US customary, with no internal name or raw float', () => {
+    expect(INPUT_ERROR_CODES.length).toBeGreaterThan(10);
+    for (const code of INPUT_ERROR_CODES)
+      for (const field of FIELDS)
+        for (const units of ['SI', 'US'] as const) {
+          const text = refusalText(new InputError(field, code, 'x', VALUES), units);
+          expect(text.length, `${code} ${units}`).toBeGreaterThan(15);
+          expect(text, `${code} ${units}`).not.toMatch(/undefined|NaN|Infinity/);
+          expect(text, `${code} ${units}: raw float`).not.toMatch(/\d\.\d{4,}/);
+          expect(text, `${code} ${units}: internal name`).not.toMatch(/\b[a-z]+[A-Z]\w*/);
+          expect(text, `${code} ${units}: a code`).not.toContain(code.includes('-') ? code : '\0');
+          if (units === 'US') expect(text, `${code}: metres in US`).not.toMatch(/\d m\b|m³\/s/);
+        }
+  });
+  it('a real refusal of the engine reads in the project units', () => {
+    try {
+      runStudy({ ...fenwickDesign, inflow: { kind: 'gate', Cc: 0.61, opening: 3 } });
+      throw new Error('expected a refusal');
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      // 3 m = 9.84 ft [1 ft = 0.3048 m, NIST SP 811]; 5 m³/s = 177 cfs
+      expect(refusalText(e, 'US')).toBe(
+        'The gate opening 9.84 ft is too large for 177 cfs: the water would not reach the gate. Give a smaller opening or a pool depth instead.',
+      );
+      expect(refusalText(e, 'SI')).toContain('The gate opening 3.00 m is too large for 5.00 m³/s');
+    }
+  });
+});
