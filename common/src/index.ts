@@ -12,7 +12,23 @@ export * from './units';
 export * from './range';
 // The engine's input refusals (InputError: field + code) and their sentences (the one phraser)
 export { InputError, isInputError, type InputErrorCode } from './errors';
-export { INPUT_ERROR_CODES, fieldWords, refusalText } from './messages';
+export {
+  INPUT_ERROR_CODES,
+  codedRefusalText,
+  fieldWords,
+  formatQuantity,
+  refusalText,
+  studyWarningText,
+} from './messages';
+// The study's warnings as data (code, severity, SI values with kinds, where); phrased in messages/
+export {
+  STUDY_WARNING_CODES,
+  WARNING_SEVERITY,
+  type StudyWarning,
+  type StudyWarningCode,
+  type WarningCause,
+  type WarningSeverity,
+} from './warnings';
 // The whole study: runStudy (a thin orchestration) and the result's shape
 export * from './study';
 // The version of runStudy's answer, stored beside a saved result

@@ -7,6 +7,7 @@ import type { DesignEntry, DissipatorStudyResult } from './basins/study';
 import type { TypeScreening } from './basins/screening';
 import type { DissipatorTypeId, JumpBasinType } from './basins/types';
 import type { JumpPosition, StudyInput, StudyRow } from './range/types';
+import type { StudyWarning } from './warnings';
 
 /** The jump at the design discharge on one floor, with its diagram data. */
 export interface DesignJump {
@@ -74,7 +75,8 @@ export interface StudyResult {
   diagrams: JumpDiagrams;
   /** the chosen jump basin on its own floor with its C (null when no jump basin is chosen) */
   chosenFloor: ChosenFloorCheck | null;
-  warnings: string[];
+  /** the study's warnings as data (SI); phrase them with studyWarningText(w, units) */
+  warnings: StudyWarning[];
   cautions: string[];
   /** every dissipator type screened at every discharge, in rank order (basins/screening.ts) */
   screening: TypeScreening[];

@@ -19,7 +19,7 @@ import {
 import { rangeWarnings } from './range/warnings';
 import { designDissipators, type DissipatorStudyResult } from './basins/study';
 import { isJumpBasinType } from './basins/catalogue';
-import { phraser } from './units/phrase';
+import { studyWarning, warningCause, type StudyWarning } from './warnings';
 import type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './result';
 
 export type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './result';
@@ -46,7 +46,10 @@ export function studyCautions(units: UnitSystem = 'SI'): string[] {
 
 /** Options of runStudy that do not change any number. */
 export interface StudyOptions {
-  /** unit system of warnings, notes and screening reasons; default the input's `displayUnits` */
+  /**
+   * unit system of the sizing's warnings, notes and screening reasons; default the input's
+   * `displayUnits` (the study's own warnings are data, phrased by studyWarningText)
+   */
   units?: UnitSystem;
 }
 
@@ -94,19 +97,24 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
     throw new RangeError(`options.units must be 'SI' or 'US'`);
   const units: UnitSystem =
     options.units ?? input?.displayUnits ?? input?.dissipators?.units ?? 'SI';
-  const P = phraser(units);
   const range = prepareRange(input);
   const C = input.tailwaterFactor ?? RANGE_DEFAULTS.tailwaterFactor;
   const fixed = input.floorElevation !== undefined;
-  const extraWarnings: string[] = [];
+  const extraWarnings: StudyWarning[] = [];
   let solved: FloorSolution | null = null;
   try {
     solved = solveFloor(range, C);
   } catch (e) {
     if (!(e instanceof RangeError) || !fixed) throw e;
-    extraWarnings.push(
-      `No floor elevation holding the jump at every discharge was found: ${e.message}`,
+    const w = studyWarning(
+      'fixed-floor-unsolved',
+      { floorElevation: input.floorElevation! },
+      {
+        floorElevation: 'length',
+      },
     );
+    w.cause = warningCause(e, 'floorElevation');
+    extraWarnings.push(w);
   }
   const safety = fixed ? 0 : range.floorSafetyDepth;
   const z = fixed ? input.floorElevation! : solved!.elevation - safety;
@@ -118,8 +126,8 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
   const length = Math.max(...rows.map((r) => r.length), designJump.jump.length);
   const b = input.basinWidth;
   const least = rows.reduce((a, r) => (r.margin < a.margin ? r : a));
-  const warnings = [
-    ...rangeWarnings(range, rows, { elevation: z, fixed, solved }, P),
+  const warnings: StudyWarning[] = [
+    ...rangeWarnings(range, rows, { elevation: z, fixed, solved }),
     ...extraWarnings,
   ];
 
@@ -129,7 +137,9 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
     dissipators = designDissipators(range, { ...(input.dissipators ?? {}), units });
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
-    warnings.push(`Dissipator screening and sizing could not run: ${e.message}`);
+    const w = studyWarning('dissipators-not-run');
+    w.cause = warningCause(e, 'dissipators');
+    warnings.push(w);
   }
   let chosenFloor: ChosenFloorCheck | null = null;
   const chosen = dissipators?.chosen;

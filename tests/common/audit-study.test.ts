@@ -10,9 +10,11 @@ import {
   resultToSI,
   runStudy,
   studyInputSchema,
+  studyWarningText,
   toSI,
   type StudyInput,
   type StudyResult,
+  type UnitSystem,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
 import { fenwickDesign } from '../../seed/designs';
@@ -85,8 +87,8 @@ function sameNumbers(a: unknown, b: unknown, rel: number, abs: number, path = ''
   }
   return 0;
 }
-const texts = (r: StudyResult): string[] => [
-  ...r.warnings,
+const texts = (r: StudyResult, units: UnitSystem): string[] => [
+  ...r.warnings.map((w) => studyWarningText(w, units)),
   ...(r.dissipators?.notes ?? []),
   ...r.screening.flatMap((s) => [
     s.summary,
@@ -178,7 +180,7 @@ describe('words in the user units', () => {
   const rUS = runStudy(toSI(inUS(demo())));
   const rSI = runStudy(demo());
   it('a US study quotes ft, ft/s and cfs, never m, m/s or m³/s, in warnings, reasons and summaries', () => {
-    const all = texts(rUS).join('\n');
+    const all = texts(rUS, 'US').join('\n');
     expect(all).toMatch(/\d ft\b/);
     expect(all).toMatch(/\d ft\/s/);
     expect(all).toMatch(/\d cfs/);
@@ -186,14 +188,14 @@ describe('words in the user units', () => {
     expect(rUS.cautions.join(' ')).toMatch(/50 ft\/s/);
   });
   it('an SI study quotes SI; the option units overrides the input units', () => {
-    expect(texts(rSI).join('\n')).toMatch(/\d m³\/s/);
-    expect(texts(rSI).join('\n')).not.toMatch(/\d cfs|ft\/s/);
-    expect(texts(runStudy(demo(), { units: 'US' })).join('\n')).toMatch(/\d cfs/);
+    expect(texts(rSI, 'SI').join('\n')).toMatch(/\d m³\/s/);
+    expect(texts(rSI, 'SI').join('\n')).not.toMatch(/\d cfs|ft\/s/);
+    expect(texts(runStudy(demo(), { units: 'US' }), 'US').join('\n')).toMatch(/\d cfs/);
     expect(() => runStudy(demo(), { units: 'metric' as 'SI' })).toThrow(/units/);
   });
   it('no code identifiers (camelCase words, type ids) in what the user reads; one cavitation caution per design', () => {
     for (const r of [rSI, rUS, runStudy(demo({ dissipators: { chosenType: 'usbr-3' } }))]) {
-      for (const t of texts(r)) {
+      for (const t of texts(r, r.input.displayUnits ?? 'SI')) {
         expect(t, t).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*\b/);
         expect(t, t).not.toMatch(/\busbr-\d\b|riprap-apron|flip-bucket|slotted-bucket/);
       }

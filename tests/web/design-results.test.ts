@@ -2,7 +2,12 @@
 // (the free-jump floor beside it as a reference), and the notes show each warning once.
 import { describe, expect, it } from 'vitest';
 import { mount } from '@vue/test-utils';
-import { runStudy, type StudyResult } from '@basinwright/common';
+import {
+  runStudy,
+  studyWarningText,
+  type StudyResult,
+  type StudyWarning,
+} from '@basinwright/common';
 import DesignJumpCheckStep from '../../web/src/components/DesignJumpCheckStep.vue';
 import DesignResultNotes from '../../web/src/components/DesignResultNotes.vue';
 import DesignSizingStep from '../../web/src/components/DesignSizingStep.vue';
@@ -51,12 +56,25 @@ describe('Jump check floor', () => {
 
 describe('warnings are shown once, under the floor they were found on', () => {
   it('groups the chosen basin’s warnings (its floor) before the study’s (free-jump floor), and drops duplicates', () => {
-    const line = 'Check the tailwater rating at low flows.';
+    const gate: StudyWarning = {
+      code: 'gate-submerged',
+      severity: 'warning',
+      values: {},
+      kinds: {},
+    };
+    const weak: StudyWarning = {
+      code: 'weak-jump',
+      severity: 'caution',
+      values: { count: 2 },
+      kinds: {},
+    };
+    const line = studyWarningText(gate, 'SI');
+    const onlyStudy = studyWarningText(weak, 'SI');
     const d = result.design!.design;
     if (d.family !== 'jump-basin') throw new Error('jump basin expected');
     const dup: StudyResult = {
       ...result,
-      warnings: [line, line, `${line} `, 'Only in the study.'],
+      warnings: [gate, gate, weak],
       design: {
         ...result.design!,
         design: { ...d, warnings: [line, 'Only under sizing.', 'Only under sizing.'] },
@@ -80,7 +98,7 @@ describe('warnings are shown once, under the floor they were found on', () => {
       `The study, on the free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`,
     );
     expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual([
-      'Only in the study.',
+      onlyStudy,
     ]);
     expect(notes.find('[data-test="engine-warnings"]').text()).toContain(
       `Engine warnings (${all.length})`,
@@ -96,19 +114,28 @@ describe('warnings are shown once, under the floor they were found on', () => {
   });
 
   it('without a chosen design the study’s warnings stand alone, with no floor heading', () => {
-    const notes = mount(DesignResultNotes, {
-      props: {
-        result: { ...result, design: null, warnings: ['A study warning.'] },
-        engineError: null,
-        inputProblems: [],
-        stale: false,
-      },
-    });
+    const sweep: StudyWarning = {
+      code: 'sweep-out',
+      severity: 'warning',
+      values: { count: 3, Q: 100 * 0.3048 ** 3 }, // 100 cfs, exactly (1 ft = 0.3048 m, NIST SP 811)
+      kinds: { Q: 'discharge' },
+    };
+    const props = {
+      result: { ...result, design: null, warnings: [sweep] },
+      engineError: null,
+      inputProblems: [],
+      stale: false,
+    };
+    const notes = mount(DesignResultNotes, { props });
     expect(notes.find('[data-test="warnings-study"]').exists()).toBe(false);
-    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toContain(
-      'A study warning.',
-    );
+    expect(notes.findAll('[data-test="warnings-study-list"] li').map((li) => li.text())).toEqual([
+      'Sweep-out: the tailwater is short of the required depth at 3 discharges, from 2.83 m³/s.',
+    ]);
     notes.unmount();
+    // the project's units phrase the same data: US customary quotes cfs
+    const us = mount(DesignResultNotes, { props: { ...props, units: 'US' } });
+    expect(us.find('[data-test="warnings-study-list"] li').text()).toContain('from 100 cfs.');
+    us.unmount();
   });
 });
 

@@ -247,8 +247,9 @@ function assumptionKind(unit: string): QuantityKind | null {
 }
 
 // Subtrees left in SI: the drawing is geometry in metres whose labels carry their quantity for
-// the caller's formatter (drawingToSvg), so it is converted when drawn, not here.
-const SI_SUBTREES = new Set(['drawing']);
+// the caller's formatter (drawingToSvg), so it is converted when drawn, not here; the study's
+// warnings are coded data whose SI values studyWarningText converts when it phrases them.
+const SI_SUBTREES = new Set(['drawing', 'warnings']);
 
 function walk(
   node: unknown,
@@ -335,8 +336,9 @@ export function inputFromSI(input: StudyInput, system: UnitSystem): StudyInput {
  * excavation and concrete yd³, power hp, momentum ft³, slab loads lbf/ft; the dissipator
  * designs (blocks, sill, walls, slab, riprap, aprons) and the assumptions in force (value and
  * unit label) too. The drawing stays SI (its labels carry their quantity for drawingToSvg's
- * formatter). Text is not rewritten here: runStudy already words warnings and reasons in the
- * input's units.
+ * formatter), and so do the study's coded warnings (studyWarningText phrases them in a unit
+ * system). Text is not rewritten here: runStudy already words the sizing's warnings and the
+ * reasons in the input's units.
  */
 export function fromSI(result: StudyResult, system: UnitSystem): StudyResult {
   if (system === 'SI') return result;
