@@ -9,6 +9,7 @@ import { fieldKind } from './fields';
 
 export * from './constants';
 export * from './fields';
+export { DISPLAY_DECIMALS, DIMENSIONLESS_DECIMALS, displayDecimals, displayText } from './rounding';
 
 // `all` is typed optional only because of mathjs's lite builds; the full build always has it.
 if (!all) throw new Error('mathjs: the full build (all factories) is required');
