@@ -58,16 +58,22 @@ describe('Froude-number edges', () => {
 });
 
 describe('velocity edges', () => {
-  it('V1 15 m/s: Type III pass at 15, warn above [src: EM-25]; SAF likewise (cavitation caution)', () => {
-    expect(status(screen([row(8, 15)]), 'usbr-3', 'velocity')).toBe('pass');
-    expect(status(screen([row(8, 15.01)]), 'usbr-3', 'velocity')).toBe('warn');
-    expect(status(screen([row(8, 15.01)]), 'saf', 'velocity')).toBe('warn');
+  // 50 ft/s = 15.24 m/s and 60 ft/s = 18.288 m/s exactly [NIST SP 811: 1 ft = 0.3048 m]
+  it('V1 50 ft/s (15.24 m/s): Type III pass at it, warn above [src: EM-25]; SAF likewise (cavitation caution)', () => {
+    expect(status(screen([row(8, 15.24)]), 'usbr-3', 'velocity')).toBe('pass');
+    expect(status(screen([row(8, 15.25)]), 'usbr-3', 'velocity')).toBe('warn');
+    expect(status(screen([row(8, 15.25)]), 'saf', 'velocity')).toBe('warn');
+    const us = screenDissipators({ rows: [row(8, 15.25)], context: { ...chute, units: 'US' } });
+    const reason = us
+      .find((x) => x.type === 'usbr-3')!
+      .criteria.find((c) => c.criterion === 'velocity')!;
+    expect(reason.reason).toMatch(/ is above 50 ft\/s:/);
   });
-  it('V1 18 m/s: Type III warn at 18, fail above [from memory: EM-25]; SAF fail above 18 [src: Blaisdell]', () => {
-    expect(status(screen([row(8, 18)]), 'usbr-3', 'velocity')).toBe('warn');
-    expect(status(screen([row(8, 18.01)]), 'usbr-3', 'velocity')).toBe('fail');
-    expect(status(screen([row(8, 18)]), 'saf', 'velocity')).toBe('warn');
-    expect(status(screen([row(8, 18.01)]), 'saf', 'velocity')).toBe('fail');
+  it('V1 60 ft/s (18.288 m/s): Type III warn at it, fail above [from memory: EM-25]; SAF fail above it [src: Blaisdell]', () => {
+    expect(status(screen([row(8, 18.288)]), 'usbr-3', 'velocity')).toBe('warn');
+    expect(status(screen([row(8, 18.3)]), 'usbr-3', 'velocity')).toBe('fail');
+    expect(status(screen([row(8, 18.288)]), 'saf', 'velocity')).toBe('warn');
+    expect(status(screen([row(8, 18.3)]), 'saf', 'velocity')).toBe('fail');
   });
   it('a high-velocity case steers away from Type III toward Type II [src: EM-25: Type II where velocity is too high for piers]', () => {
     const s = screen([row(8, 20), row(10, 21)]);
@@ -91,18 +97,27 @@ describe('Type VI, Type IX, riprap apron', () => {
     const y1 = 0.5;
     return { Q, q: Q / 3, y1, v1: v, fr1: v / Math.sqrt(g * y1), y2: 1.5, tailwaterDepth: 0.8 };
   };
-  it('Type VI at 11 m³/s passes, above fails [src: HEC-14 §9.4]', () => {
-    expect(status(screen([pipeRow(11, 6)], pipe), 'usbr-6', 'discharge')).toBe('pass');
-    expect(status(screen([pipeRow(11.01, 6)], pipe), 'usbr-6', 'discharge')).toBe('fail');
+  // 400 cfs = 400 × 0.3048³ m³/s = 11.3267386368 m³/s exactly [NIST SP 811]
+  it('Type VI up to 400 cfs (11.33 m³/s) passes, above fails [src: HEC-14 §9.4]', () => {
+    expect(status(screen([pipeRow(400 * 0.3048 ** 3, 6)], pipe), 'usbr-6', 'discharge')).toBe(
+      'pass',
+    );
+    expect(status(screen([pipeRow(11.33, 6)], pipe), 'usbr-6', 'discharge')).toBe('fail');
+    const us = screenDissipators({ rows: [pipeRow(11.33, 6)], context: { ...pipe, units: 'US' } });
+    const c = us
+      .find((x) => x.type === 'usbr-6')!
+      .criteria.find((x) => x.criterion === 'discharge')!;
+    expect(c.reason).toMatch(/exceeds the 400 cfs of the type/);
   });
-  it('Type VI velocity up to 15 m/s [src: HEC-14 §9.4]', () => {
-    expect(status(screen([pipeRow(5, 15)], pipe), 'usbr-6', 'velocity')).toBe('pass');
-    expect(status(screen([pipeRow(5, 15.01)], pipe), 'usbr-6', 'velocity')).toBe('fail');
+  it('Type VI velocity up to 50 ft/s (15.24 m/s) [src: HEC-14 §9.4]', () => {
+    expect(status(screen([pipeRow(5, 15.24)], pipe), 'usbr-6', 'velocity')).toBe('pass');
+    expect(status(screen([pipeRow(5, 15.25)], pipe), 'usbr-6', 'velocity')).toBe('fail');
   });
-  it('Type IX: q up to 5.6 m²/s [src: Design of Small Dams]; needs a near-critical approach (gate inflow fails)', () => {
-    const r = { ...row(1.2, 3, 10), q: 5.6, Q: 56 };
+  // 60 cfs/ft = 60 × 0.3048² m²/s = 5.5741824 m²/s exactly [NIST SP 811]
+  it('Type IX: q up to 60 cfs/ft (5.574 m²/s) [src: Design of Small Dams]; needs a near-critical approach (gate inflow fails)', () => {
+    const r = { ...row(1.2, 3, 10), q: 5.5741824, Q: 55.741824 };
     expect(status(screen([r]), 'usbr-9', 'unitDischarge')).toBe('pass');
-    expect(status(screen([{ ...r, q: 5.61, Q: 56.1 }]), 'usbr-9', 'unitDischarge')).toBe('fail');
+    expect(status(screen([{ ...r, q: 5.58, Q: 55.8 }]), 'usbr-9', 'unitDischarge')).toBe('fail');
     expect(status(screen([row(6, 10)], { inflow: 'gate', width: 10 }), 'usbr-9', 'froude')).toBe(
       'fail',
     );

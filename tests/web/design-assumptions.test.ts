@@ -124,6 +124,18 @@ describe('units: shown in the user’s, sent to the engine in SI exactly', () =>
     expectRel(t.defaultValue, 0.3 / FT, 1e-9);
     const v = rows.find((r) => r.key === 'type3VelocityWarn')!;
     expect(v).toMatchObject({ unit: 'ft/s', value: 40 });
+    // The published default as published: 50 ft/s [src: EM-25], not 49.2126 ft/s.
+    expect(v.defaultValue).toBe(50);
+    // Untouched, the limits read exactly as published: 400 cfs [src: HEC-14], 500 ft²/s
+    // [from memory: EM-25]; in SI the exact conversions (400 × 0.3048³, NIST SP 811).
+    const kept = assumptionRows(caldwellDesign.dissipators, 'US', result.dissipators?.assumptions);
+    expect(kept.find((r) => r.key === 'type6MaxDischarge')).toMatchObject({
+      value: 400,
+      unit: 'cfs',
+    });
+    expect(kept.find((r) => r.key === 'type2MaxUnitDischarge')).toMatchObject({ value: 500 });
+    const siRows = assumptionRows(undefined, 'SI', null);
+    expectRel(siRows.find((r) => r.key === 'type6MaxDischarge')!.value, 400 * FT ** 3, 1e-9);
     expect(rows.find((r) => r.key === 'concreteUnitWeight')!.unit).toBe('lb/ft³');
     expect(rows.find((r) => r.key === 'freeboardCoefficient')!.unit).toBe('');
   });

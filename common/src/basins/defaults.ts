@@ -15,6 +15,85 @@ export interface Provenance {
   unit: string;
 }
 
+import { FOOT } from '../units/constants';
+import type { PhraseKind, Phraser } from '../units/phrase';
+
+/** A figure as it was published: its number, the unit system it was printed in, and its kind. */
+export interface PublishedFigure {
+  value: number;
+  units: 'SI' | 'US';
+  kind: 'velocity' | 'discharge' | 'unitDischarge' | 'unitWeight' | 'length';
+}
+
+// SI per US unit of each kind, from the exact foot and pound (NIST SP 811: 1 ft = 0.3048 m,
+// 1 lb = 0.45359237 kg; standard gravity 9.80665 m/s², so 1 lbf = 4.4482216152605 N).
+const LBF_N = 0.45359237 * 9.80665;
+const SI_PER_US: Record<PublishedFigure['kind'], number> = {
+  length: FOOT,
+  velocity: FOOT,
+  discharge: FOOT ** 3,
+  unitDischarge: FOOT ** 2,
+  unitWeight: LBF_N / FOOT ** 3 / 1000, // lbf/ft³ → kN/m³
+};
+
+/** The SI value the engine computes with: the published figure, converted exactly if it is US. */
+export function publishedSI(f: PublishedFigure): number {
+  return f.units === 'SI' ? f.value : f.value * SI_PER_US[f.kind];
+}
+
+/**
+ * Limits and defaults published in US customary units, kept in that unit (hydraulics.md §4;
+ * the confidence of each is in BASIN_DEFAULT_PROVENANCE). The engine uses their exact SI
+ * conversion; a US project shows them exactly as published (50 ft/s, never 49.2126 ft/s).
+ */
+export const PUBLISHED_FIGURES = {
+  // EM-25: Type II basins were tested to about 500 cfs/ft [mem].
+  type2MaxUnitDischarge: { value: 500, units: 'US', kind: 'unitDischarge' },
+  // EM-25: Type III to about 200 cfs/ft [mem].
+  type3MaxUnitDischarge: { value: 200, units: 'US', kind: 'unitDischarge' },
+  // EM-25: baffle piers need care above 50 ft/s [src], are not used above 60 ft/s [mem].
+  type3VelocityWarn: { value: 50, units: 'US', kind: 'velocity' },
+  type3VelocityFail: { value: 60, units: 'US', kind: 'velocity' },
+  // SAF: chute blocks not advised above 60 ft/s [src].
+  safVelocityFail: { value: 60, units: 'US', kind: 'velocity' },
+  // Type VI (impact basin): up to 400 cfs and 50 ft/s [src].
+  type6MaxDischarge: { value: 400, units: 'US', kind: 'discharge' },
+  type6MaxVelocity: { value: 50, units: 'US', kind: 'velocity' },
+  // Type IX (baffled apron): up to 60 cfs/ft [src].
+  type9MaxUnitDischarge: { value: 60, units: 'US', kind: 'unitDischarge' },
+  // EM-25: blocks risk cavitation above 50 ft/s [src]; jet structures beyond 60 ft/s [mem].
+  cavitationVelocity: { value: 50, units: 'US', kind: 'velocity' },
+  specialistVelocity: { value: 60, units: 'US', kind: 'velocity' },
+} as const satisfies Record<string, PublishedFigure>;
+
+const P = PUBLISHED_FIGURES;
+
+/** A default kept in the unit it was published in. */
+export type PublishedKey = keyof typeof PUBLISHED_FIGURES;
+
+/**
+ * A limit in a sentence: exactly as published when the project works in the published system
+ * and the engineer kept the default ('50 ft/s'); otherwise the value in force, phrased.
+ * @example limitText(phraser('US'), resolveDefaults(), 'type3VelocityWarn') // '50 ft/s'
+ */
+export function limitText(p: Phraser, d: BasinDefaults, key: PublishedKey): string {
+  const f: PublishedFigure = PUBLISHED_FIGURES[key];
+  const kind = f.kind as PhraseKind;
+  if (f.units === p.units && d[key] === BASIN_DEFAULTS[key]) return `${f.value} ${p.unit(kind)}`;
+  return `${p.num(d[key], kind)} ${p.unit(kind)}`;
+}
+
+/** A value and a published limit compared: the value with enough digits to differ from the limit. */
+export function limitPair(
+  p: Phraser,
+  si: number,
+  d: BasinDefaults,
+  key: PublishedKey,
+): [string, string] {
+  const kind = PUBLISHED_FIGURES[key].kind as PhraseKind;
+  return [p.pair(kind, si, d[key])[0], limitText(p, d, key)];
+}
+
 const DSD = 'USBR, Design of Small Dams';
 const EM25 =
   'USBR EM-25 (Peterka 1958), Hydraulic Design of Stilling Basins and Energy Dissipators';
@@ -42,19 +121,19 @@ export const BASIN_DEFAULTS = {
   safLengthCoefficient: 4.5,
   safLengthExponent: 0.76,
   // Screening limits.
-  type2MaxUnitDischarge: 46,
-  type3MaxUnitDischarge: 18.6,
-  type3VelocityWarn: 15,
-  type3VelocityFail: 18,
-  safVelocityFail: 18,
-  type6MaxDischarge: 11,
-  type6MaxVelocity: 15,
-  type9MaxUnitDischarge: 5.6,
+  type2MaxUnitDischarge: publishedSI(P.type2MaxUnitDischarge),
+  type3MaxUnitDischarge: publishedSI(P.type3MaxUnitDischarge),
+  type3VelocityWarn: publishedSI(P.type3VelocityWarn),
+  type3VelocityFail: publishedSI(P.type3VelocityFail),
+  safVelocityFail: publishedSI(P.safVelocityFail),
+  type6MaxDischarge: publishedSI(P.type6MaxDischarge),
+  type6MaxVelocity: publishedSI(P.type6MaxVelocity),
+  type9MaxUnitDischarge: publishedSI(P.type9MaxUnitDischarge),
   type9MaxApproachFroude: 1.5,
   apronMaxRise: 1.5,
   apronMaxFroude: 2.5,
-  cavitationVelocity: 15,
-  specialistVelocity: 18,
+  cavitationVelocity: publishedSI(P.cavitationVelocity),
+  specialistVelocity: publishedSI(P.specialistVelocity),
   specialistHead: 50,
   slottedBucketTailwaterRatio: 1.1,
   // Appurtenance proportions.

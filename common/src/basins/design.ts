@@ -1,7 +1,13 @@
 // The full design of a basin over the whole discharge range: floor, length, width and flare,
 // blocks, sill, walls, wingwalls, cutoffs, slab, riprap, quantities of concrete, warnings.
 import { getDissipator } from './catalogue';
-import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
+import {
+  limitText,
+  listAssumptions,
+  resolveDefaults,
+  type Assumption,
+  type BasinDefaults,
+} from './defaults';
 import { slabFlotation, type FlotationResult } from './flotation';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqFinite, reqPositive, roundUp } from './guards';
@@ -425,7 +431,7 @@ function designWarnings(
   if (type !== 'usbr-1' && vMax.v1 > d.cavitationVelocity && !strongVelocity) {
     ranged.push({
       topic: 'cavitation',
-      text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${P.vel(d.cavitationVelocity)}); model study advised`,
+      text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${limitText(P, d, 'cavitationVelocity')}); model study advised`,
     });
   }
   const osc = rows.filter((r) => r.fr1 >= 2.5 && r.fr1 < 4.5);

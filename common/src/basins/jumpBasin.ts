@@ -2,7 +2,7 @@
 import { belangerRatio } from '../hydraulics';
 import { G } from '../units/constants';
 import { getDissipator, isJumpBasinType } from './catalogue';
-import { resolveDefaults, type BasinDefaults } from './defaults';
+import { limitText, resolveDefaults, type BasinDefaults } from './defaults';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqNonNegative, reqPositive } from './guards';
 import type { JumpBasinSizing, JumpBasinType, JumpRules } from './types';
@@ -150,25 +150,28 @@ export function jumpWarningItems(
   if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) {
     add(
       'velocity',
-      `V1 ${P.vel(r.v1)} > ${P.vel(d.type3VelocityFail)}: baffle piers would cavitate and are not advised; use Type II`,
+      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'type3VelocityFail')}: baffle piers would cavitate and are not advised; use Type II`,
     );
   } else if (type === 'saf' && r.v1 > d.safVelocityFail) {
     add(
       'velocity',
-      `V1 ${P.vel(r.v1)} > ${P.vel(d.safVelocityFail)}: cavitation on the chute blocks; not advised for an SAF basin`,
+      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'safVelocityFail')}: cavitation on the chute blocks; not advised for an SAF basin`,
     );
   } else if (hasBlocks && r.v1 > d.cavitationVelocity) {
     add(
       'cavitation',
-      `V1 ${P.vel(r.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the blocks; model study advised`,
+      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the blocks; model study advised`,
     );
   }
   if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge)
-    add('unitDischarge', `q ${P.q(r.q)} above the ${P.q(d.type3MaxUnitDischarge)} of Type III`);
+    add(
+      'unitDischarge',
+      `q ${P.q(r.q)} above the ${limitText(P, d, 'type3MaxUnitDischarge')} of Type III`,
+    );
   if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge)
     add(
       'unitDischarge',
-      `q ${P.q(r.q)} above the ${P.q(d.type2MaxUnitDischarge)} tested for Type II`,
+      `q ${P.q(r.q)} above the ${limitText(P, d, 'type2MaxUnitDischarge')} tested for Type II`,
     );
   if (type === 'usbr-1' && r.fr1 > 9) {
     add(

@@ -5,8 +5,11 @@ import { all, create, type MathJsInstance } from 'mathjs';
 import type { StudyInput, UnitSystem } from '../range/types';
 import type { StudyResult } from '../result';
 import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
+import { fieldKind } from './fields';
 
 export * from './constants';
+export * from './fields';
+export { DISPLAY_DECIMALS, DIMENSIONLESS_DECIMALS, displayDecimals, displayText } from './rounding';
 
 // `all` is typed optional only because of mathjs's lite builds; the full build always has it.
 if (!all) throw new Error('mathjs: the full build (all factories) is required');
@@ -101,113 +104,6 @@ export function fromSIValue(value: number, kind: QuantityKind, system: UnitSyste
   return system === 'SI' ? value : value / FACTOR[kind];
 }
 
-// Which quantity each field holds, by key; context overrides for keys that mean different
-// things in different places. Keys not listed are dimensionless (Fr, n, slopes, ratios).
-const LENGTH_KEYS = new Set([
-  'y',
-  'y1',
-  'y2',
-  'yc',
-  'x',
-  'depth',
-  'elevation',
-  'channelBedElevation',
-  'crestElevation',
-  'floorElevation',
-  'invertElevation',
-  'upstreamElevation',
-  'upstreamDepth',
-  'opening',
-  'width',
-  'basinWidth',
-  'bottomWidth',
-  'diameter',
-  'L',
-  'H0',
-  'headLoss',
-  'height',
-  'length',
-  'rollerLength',
-  'requiredDepth',
-  'margin',
-  'tailwaterElevation',
-  'tailwaterDepth',
-  'approachVelocityHead',
-  'E1',
-  'E2',
-  'deltaE',
-  'criticalDepth',
-  'requiredElevation',
-  'depthBelowBed',
-  'heightAboveBed',
-  'floorSafetyDepth',
-  'safetyDepth',
-  'sweepOutDistance',
-  'distance',
-  'yToe',
-  'ySequent',
-  'head',
-  // Dissipator options and designs (basins/): blocks, sill, walls, slab, riprap, aprons.
-  'requiredTailwaterDepth',
-  'spacing',
-  'nominalSpacing',
-  'wallSpace',
-  'wallSpaces',
-  'topLength',
-  'centres',
-  'distanceFromUpstream',
-  'topElevation',
-  'freeboard',
-  'wallHeight',
-  'fromWidth',
-  'toWidth',
-  'maxTailwaterElevation',
-  'maxTailwaterDepth',
-  'thickness',
-  'requiredThickness',
-  'minThickness',
-  'upliftHead',
-  'upliftElevation',
-  'waterOnSlabDepth',
-  'extraFloorDepth',
-  'rise',
-  'span',
-  'd50',
-  'd50Isbash',
-  'd50Velocity',
-  'jumpLength',
-  'equivalentDepth',
-  'curveWidth',
-  'baffleHeight',
-  'baffleWidth',
-  'baffleClearance',
-  'baffleDistance',
-  'endWallHeight',
-  'rowSpacing',
-  'slopeLength',
-  'widthAtOutlet',
-  'widthAtEnd',
-  'tailwaterUsed',
-]);
-const KEY_KIND: Record<string, QuantityKind> = {
-  Q: 'discharge',
-  designDischarge: 'discharge',
-  governingQ: 'discharge',
-  designQ: 'discharge',
-  lengthGoverningQ: 'discharge',
-  atQ: 'discharge',
-  q: 'unitDischarge',
-  criticalVelocity: 'velocity',
-  concreteVolume: 'earthwork',
-  v1: 'velocity',
-  v2: 'velocity',
-  velocity: 'velocity',
-  power: 'power',
-  volume: 'earthwork',
-  M1: 'volume',
-  M2: 'volume',
-};
-
 // The unit of a dissipator default (its provenance, SI) → the quantity it holds.
 const DEFAULT_UNIT_KIND: Record<string, QuantityKind> = {
   m: 'length',
@@ -237,8 +133,7 @@ function kindOf(key: string, path: readonly string[]): QuantityKind | null {
   if (key === 'value' && grand === 'momentum') return 'volume'; // points[i].value
   if (key === 'value' && grand === 'specificEnergy') return 'length';
   if (key === 'value') return null;
-  if (LENGTH_KEYS.has(key)) return 'length';
-  return KEY_KIND[key] ?? null;
+  return fieldKind(key);
 }
 
 /** The SI unit label of an assumption (Provenance.unit) → its quantity. */

@@ -10,6 +10,7 @@ export type PhraseUnits = 'SI' | 'US';
 export type PhraseKind = 'length' | 'velocity' | 'discharge' | 'unitDischarge' | 'volume';
 
 import { FOOT as FT } from './constants';
+import { n3, n3Pair } from './rounding';
 const US_FACTOR: Record<PhraseKind, number> = {
   length: FT,
   velocity: FT,
@@ -25,25 +26,8 @@ const LABEL: Record<PhraseKind, Record<PhraseUnits, string>> = {
   volume: { SI: 'm³', US: 'yd³' },
 };
 
-/** Numbers in reasons: three significant figures, no trailing noise. */
-export function n3(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  const a = Math.abs(x);
-  if (a >= 100) return x.toFixed(0);
-  if (a >= 10) return x.toFixed(1);
-  return x.toFixed(2);
-}
-
-/** Two numbers compared, three figures each unless that makes unequal numbers look equal (up to six decimals). */
-export function n3Pair(x: number, limit: number): [string, string] {
-  let a = n3(x);
-  let b = n3(limit);
-  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
-    a = x.toFixed(k);
-    b = limit.toFixed(k);
-  }
-  return [a, b];
-}
+// The rounding of numbers in sentences is the one display rule of units/rounding.ts.
+export { n3, n3Pair } from './rounding';
 
 /** Phrases SI quantities in one unit system. */
 export interface Phraser {

@@ -6,6 +6,8 @@ import { ValidationError } from 'yup';
 import {
   BASIN_DEFAULTS,
   BASIN_DEFAULT_PROVENANCE,
+  PUBLISHED_FIGURES,
+  type PublishedFigure,
   UNIT_LABELS,
   dissipatorOptionsSchema,
   fromSIValue,
@@ -219,12 +221,15 @@ export function assumptionRows(
     const typedDefault = dissipators?.defaults?.[key];
     const typed = typedFlotation ?? typedDefault;
     const engine = byKey.get(key);
-    const defaultValue = show(BASIN_DEFAULTS[key]);
+    // A default published in US units is shown exactly as published in a US project (50 ft/s).
+    const published = (PUBLISHED_FIGURES as Partial<Record<BasinDefaultKey, PublishedFigure>>)[key];
+    const defaultValue =
+      published && published.units === units ? published.value : show(BASIN_DEFAULTS[key]);
     // The flotation case's value is what the engine uses, not the listed default.
     const value =
       typeof typed === 'number' && Number.isFinite(typed)
         ? typed
-        : engine
+        : engine && engine.value !== BASIN_DEFAULTS[key]
           ? show(engine.value)
           : defaultValue;
     return {

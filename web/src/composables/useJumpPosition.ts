@@ -3,13 +3,13 @@
 import { inject, provide, watch, type InjectionKey, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
+  fieldKind,
   fromSIValue,
   jumpSituationSchema,
   locateJump,
   toSIValue,
   type JumpLocation,
   type JumpSituation,
-  type QuantityKind,
   type Section,
   type UnitSystem,
 } from '@basinwright/common';
@@ -23,19 +23,8 @@ export type SectionShape = Section['shape'];
 /** The page waits as long as the design workspace before it recomputes. */
 export const JUMP_DEBOUNCE_MS = STUDY_DEBOUNCE_MS;
 
-// Which fields of a situation carry a dimension; every other number (slopes, Manning's n, Cc,
-// side slope, loss fraction) is the same in both systems.
-const FIELD_KINDS: Record<string, QuantityKind> = {
-  width: 'length',
-  bottomWidth: 'length',
-  diameter: 'length',
-  opening: 'length',
-  tailwaterDepth: 'length',
-  upstreamDepth: 'length',
-  crestHeight: 'length',
-  Q: 'discharge',
-};
-
+// Which fields of a situation carry a dimension: the engine's one unit map (fieldKind); every
+// other number (slopes, Manning's n, Cc, side slope, loss fraction) is the same in both systems.
 function convertNode(
   node: unknown,
   units: UnitSystem,
@@ -43,7 +32,7 @@ function convertNode(
   key?: string,
 ): unknown {
   if (typeof node === 'number') {
-    const kind = key ? FIELD_KINDS[key] : undefined;
+    const kind = key ? fieldKind(key) : null;
     if (!kind || units === 'SI' || !Number.isFinite(node)) return node;
     return dir === 'toSI' ? toSIValue(node, kind, units) : fromSIValue(node, kind, units);
   }

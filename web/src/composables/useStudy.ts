@@ -3,6 +3,7 @@ import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
   InputError,
+  displayText,
   UNIT_LABELS,
   fromSIValue,
   phraseMessage,
@@ -166,19 +167,23 @@ export function useStudy(
 export function unitFormat(units: UnitSystem) {
   const label = (kind: QuantityKind): string => UNIT_LABELS[kind][units];
   const value = (si: number, kind: QuantityKind): number => fromSIValue(si, kind, units);
-  const num = (si: number | null | undefined, kind: QuantityKind | null, digits = 2): string => {
-    if (si === null || si === undefined || !Number.isFinite(si)) return '—';
-    const v = kind ? value(si, kind) : si;
-    return v.toLocaleString('en-GB', {
-      minimumFractionDigits: digits,
-      maximumFractionDigits: digits,
-    });
-  };
-  const withUnit = (si: number | null | undefined, kind: QuantityKind, digits = 2): string =>
+  // One rounding rule (common/src/units/rounding.ts): decimals by kind and unit system.
+  const num = (
+    si: number | null | undefined,
+    kind: QuantityKind | null,
+    digits?: number,
+  ): string =>
+    si === null || si === undefined || !Number.isFinite(si)
+      ? '—'
+      : displayText(kind ? value(si, kind) : si, kind, units, digits);
+  const withUnit = (si: number | null | undefined, kind: QuantityKind, digits?: number): string =>
     si === null || si === undefined || !Number.isFinite(si)
       ? '—'
       : `${num(si, kind, digits)} ${label(kind)}`;
-  return { label, value, num, withUnit };
+  /** a value already in the user's units (chart axes and labels), with its unit */
+  const shown = (v: number, kind: QuantityKind): string =>
+    `${displayText(v, kind, units)} ${label(kind)}`;
+  return { label, value, num, withUnit, shown };
 }
 export type UnitFormat = ReturnType<typeof unitFormat>;
 

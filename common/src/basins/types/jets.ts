@@ -2,32 +2,33 @@
 // sizing here: the screening says when one is the likely answer and that a specialist study
 // (and usually a physical model) is needed.
 import type { CriterionResult, DischargeRow, DissipatorModule } from '../types';
-import type { BasinDefaults } from '../defaults';
+import { limitText, type BasinDefaults } from '../defaults';
 import type { ScreeningContext } from '../types';
 import { crit, designRow, headOf, n3, ph } from './shared';
 
 function energyCriteria(
   rows: readonly DischargeRow[],
   d: BasinDefaults,
-  velocityLimit: number,
+  limitKey: 'specialistVelocity' | 'cavitationVelocity',
   ctx: ScreeningContext,
 ): CriterionResult[] {
   const P = ph(ctx);
   const dr = designRow(rows, ctx.designQ);
   if (!dr) return [crit('velocity', 'fail', 'no discharges to screen')];
   const h = headOf(dr);
+  const velocityLimit = d[limitKey];
   return [
     dr.v1 > velocityLimit
       ? crit(
           'velocity',
           'pass',
-          `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${P.vel(velocityLimit)}, where basins with blocks become doubtful`,
+          `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${limitText(P, d, limitKey)}, where basins with blocks become doubtful`,
           dr.Q,
         )
       : crit(
           'velocity',
           'fail',
-          `V1 ${P.vel(dr.v1)} ≤ ${P.vel(velocityLimit)}: a stilling basin can serve`,
+          `V1 ${P.vel(dr.v1)} ≤ ${limitText(P, d, limitKey)}: a stilling basin can serve`,
           dr.Q,
         ),
     h > d.specialistHead
@@ -66,7 +67,7 @@ export const flipBucket: DissipatorModule = {
   indicated: (c) =>
     c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass'),
   screenFixed(ctx, d, rows) {
-    return energyCriteria(rows, d, d.specialistVelocity, ctx);
+    return energyCriteria(rows, d, 'specialistVelocity', ctx);
   },
 };
 
@@ -92,7 +93,7 @@ export const slottedBucket: DissipatorModule = {
     c.some((x) => x.criterion === 'tailwater' && x.status === 'pass'),
   screenFixed(ctx, d, rows) {
     const P = ph(ctx);
-    const [velocity, head] = energyCriteria(rows, d, d.cavitationVelocity, ctx);
+    const [velocity, head] = energyCriteria(rows, d, 'cavitationVelocity', ctx);
     let worst: DischargeRow | undefined;
     let worstRatio = Infinity;
     for (const r of rows) {

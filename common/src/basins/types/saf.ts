@@ -1,5 +1,6 @@
 // SAF basin (St. Anthony Falls): chute blocks, floor blocks, end sill — a short basin for small
 // structures over a wide Froude range.
+import { limitText } from '../defaults';
 import { fitBlockRow, staggeredRow } from '../blocks';
 import type { BasinDefaults } from '../defaults';
 import type { DissipatorModule } from '../types';
@@ -126,18 +127,23 @@ export const saf: DissipatorModule = {
     const v = row.v1;
     const velocity =
       v <= d.cavitationVelocity
-        ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
+        ? crit(
+            'velocity',
+            'pass',
+            `V1 ${P.vel(v)} ≤ ${limitText(P, d, 'cavitationVelocity')}`,
+            row.Q,
+          )
         : v <= d.safVelocityFail
           ? crit(
               'velocity',
               'warn',
-              `V1 ${P.vel(v)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the chute blocks, model study`,
+              `V1 ${P.vel(v)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the chute blocks, model study`,
               row.Q,
             )
           : crit(
               'velocity',
               'fail',
-              `V1 ${P.vel(v)} > ${P.vel(d.safVelocityFail)}: chute blocks not advised ${TAG}`,
+              `V1 ${P.vel(v)} > ${limitText(P, d, 'safVelocityFail')}: chute blocks not advised ${TAG}`,
               row.Q,
             );
     return [

@@ -1,4 +1,5 @@
 // USBR Type II: chute blocks and a dentated end sill, no baffle piers (high velocities).
+import { limitText } from '../defaults';
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
@@ -87,13 +88,13 @@ export const usbr2: DissipatorModule = {
         ? crit(
             'unitDischarge',
             'pass',
-            `q ${P.q(row.q)} is within the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]`,
+            `q ${P.q(row.q)} is within the tested ${limitText(P, d, 'type2MaxUnitDischarge')} [mem: EM-25]`,
             row.Q,
           )
         : crit(
             'unitDischarge',
             'warn',
-            `q ${P.q(row.q)} exceeds the tested ${P.q(d.type2MaxUnitDischarge)} [mem: EM-25]: model study`,
+            `q ${P.q(row.q)} exceeds the tested ${limitText(P, d, 'type2MaxUnitDischarge')} [mem: EM-25]: model study`,
             row.Q,
           ),
       noDischargeLimit(row, ctx),

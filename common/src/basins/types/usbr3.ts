@@ -1,5 +1,6 @@
 // USBR Type III: chute blocks, baffle piers and a solid end sill — a short basin for moderate
 // velocities.
+import { limitPair, limitText } from '../defaults';
 import { fitBlockRow, staggerBehind } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
@@ -86,18 +87,23 @@ export const usbr3: DissipatorModule = {
     const v = row.v1;
     const velocity =
       v <= d.type3VelocityWarn
-        ? crit('velocity', 'pass', `V1 ${P.vel(v)} ≤ ${P.vel(d.type3VelocityWarn)} ${TAG}`, row.Q)
+        ? crit(
+            'velocity',
+            'pass',
+            `V1 ${P.vel(v)} ≤ ${limitText(P, d, 'type3VelocityWarn')} ${TAG}`,
+            row.Q,
+          )
         : v <= d.type3VelocityFail
           ? crit(
               'velocity',
               'warn',
-              `V1 ${P.pair('velocity', v, d.type3VelocityWarn)[0]} is above ${P.pair('velocity', v, d.type3VelocityWarn)[1]}: cavitation risk on the baffle piers, model study [src: EM-25]`,
+              `V1 ${limitPair(P, v, d, 'type3VelocityWarn')[0]} is above ${limitText(P, d, 'type3VelocityWarn')}: cavitation risk on the baffle piers, model study [src: EM-25]`,
               row.Q,
             )
           : crit(
               'velocity',
               'fail',
-              `V1 ${P.pair('velocity', v, d.type3VelocityFail)[0]} is above ${P.pair('velocity', v, d.type3VelocityFail)[1]}: baffle piers would cavitate; use Type II [mem: EM-25]`,
+              `V1 ${limitPair(P, v, d, 'type3VelocityFail')[0]} is above ${limitText(P, d, 'type3VelocityFail')}: baffle piers would cavitate; use Type II [mem: EM-25]`,
               row.Q,
             );
     return [
@@ -107,13 +113,13 @@ export const usbr3: DissipatorModule = {
         ? crit(
             'unitDischarge',
             'pass',
-            `q ${P.q(row.q)} ≤ ${P.q(d.type3MaxUnitDischarge)} [mem: EM-25]`,
+            `q ${P.q(row.q)} ≤ ${limitText(P, d, 'type3MaxUnitDischarge')} [mem: EM-25]`,
             row.Q,
           )
         : crit(
             'unitDischarge',
             'fail',
-            `q ${P.q(row.q)} is above the ${P.q(d.type3MaxUnitDischarge)} of the tests [mem: EM-25]`,
+            `q ${P.q(row.q)} is above the ${limitText(P, d, 'type3MaxUnitDischarge')} of the tests [mem: EM-25]`,
             row.Q,
           ),
       noDischargeLimit(row, ctx),

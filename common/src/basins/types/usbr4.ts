@@ -1,4 +1,5 @@
 // USBR Type IV: deflector blocks for the oscillating jump range.
+import { limitText } from '../defaults';
 import { jumpLengthUSBR } from '../../hydraulics';
 import { fitBlockRow } from '../blocks';
 import type { DissipatorModule } from '../types';
@@ -62,11 +63,16 @@ export const usbr4: DissipatorModule = {
     return [
       froudeInRange(row, 2.5, 4.5, TAG),
       row.v1 <= d.cavitationVelocity
-        ? crit('velocity', 'pass', `V1 ${P.vel(row.v1)} ≤ ${P.vel(d.cavitationVelocity)}`, row.Q)
+        ? crit(
+            'velocity',
+            'pass',
+            `V1 ${P.vel(row.v1)} ≤ ${limitText(P, d, 'cavitationVelocity')}`,
+            row.Q,
+          )
         : crit(
             'velocity',
             'warn',
-            `V1 ${P.vel(row.v1)} > ${P.vel(d.cavitationVelocity)}: cavitation risk on the deflector blocks [src: EM-25]`,
+            `V1 ${P.vel(row.v1)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the deflector blocks [src: EM-25]`,
             row.Q,
           ),
       crit(

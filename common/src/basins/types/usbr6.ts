@@ -1,6 +1,6 @@
 // USBR Type VI impact basin: a box with a hanging baffle at a pipe outlet; needs no tailwater.
 import { G } from '../../units/constants';
-import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
+import { BASIN_DEFAULTS, limitPair, limitText, type BasinDefaults } from '../defaults';
 import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
 import { phraser, type PhraseUnits } from '../../units/phrase';
@@ -58,9 +58,13 @@ export function sizeImpactBasin(
   if (W < curveWidth * 0.999)
     warnings.push(`Width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
   if (Q > d.type6MaxDischarge)
-    warnings.push(`Q ${P.Q(Q)} exceeds the ${P.Q(d.type6MaxDischarge)} limit of the type ${TAG}`);
+    warnings.push(
+      `Q ${P.Q(Q)} exceeds the ${limitText(P, d, 'type6MaxDischarge')} limit of the type ${TAG}`,
+    );
   if (V > d.type6MaxVelocity)
-    warnings.push(`Entering velocity ${P.vel(V)} exceeds ${P.vel(d.type6MaxVelocity)} ${TAG}`);
+    warnings.push(
+      `Entering velocity ${P.vel(V)} exceeds ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
+    );
   const baffleHeight = 0.375 * W;
   const baffleClearance = W / 6;
   const maxTw = baffleClearance + baffleHeight / 2;
@@ -117,24 +121,29 @@ export const usbr6: DissipatorModule = {
     const P = ph(ctx);
     const out = [
       row.Q <= d.type6MaxDischarge
-        ? crit('discharge', 'pass', `Q ${P.Q(row.Q)} ≤ ${P.Q(d.type6MaxDischarge)} ${TAG}`, row.Q)
+        ? crit(
+            'discharge',
+            'pass',
+            `Q ${P.Q(row.Q)} ≤ ${limitText(P, d, 'type6MaxDischarge')} ${TAG}`,
+            row.Q,
+          )
         : crit(
             'discharge',
             'fail',
-            `Q ${P.pair('discharge', row.Q, d.type6MaxDischarge)[0]} exceeds the ${P.pair('discharge', row.Q, d.type6MaxDischarge)[1]} of the type ${TAG}`,
+            `Q ${limitPair(P, row.Q, d, 'type6MaxDischarge')[0]} exceeds the ${limitText(P, d, 'type6MaxDischarge')} of the type ${TAG}`,
             row.Q,
           ),
       row.v1 <= d.type6MaxVelocity
         ? crit(
             'velocity',
             'pass',
-            `V ${P.vel(row.v1)} ≤ ${P.vel(d.type6MaxVelocity)} ${TAG}`,
+            `V ${P.vel(row.v1)} ≤ ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
             row.Q,
           )
         : crit(
             'velocity',
             'fail',
-            `V ${P.pair('velocity', row.v1, d.type6MaxVelocity)[0]} exceeds ${P.pair('velocity', row.v1, d.type6MaxVelocity)[1]} ${TAG}`,
+            `V ${limitPair(P, row.v1, d, 'type6MaxVelocity')[0]} exceeds ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
             row.Q,
           ),
     ];

@@ -1,7 +1,7 @@
 // USBR Type IX baffled apron (baffled chute drop): rows of baffles on a 2:1 slope; no tailwater.
 import { G } from '../../units/constants';
 import { fitBlockRow, staggeredRow, type BlockRow } from '../blocks';
-import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
+import { BASIN_DEFAULTS, limitText, type BasinDefaults } from '../defaults';
 import { reqPositive } from '../guards';
 import type { DissipatorModule } from '../types';
 import { phraser, type PhraseUnits } from '../../units/phrase';
@@ -70,7 +70,9 @@ export function sizeBaffledApron(
   const slopeLength = (rows - 1) * spacing + spacing / 2;
   const warnings: string[] = [];
   if (q > d.type9MaxUnitDischarge)
-    warnings.push(`q ${P.q(q)} exceeds the ${P.q(d.type9MaxUnitDischarge)} of the type ${TAG}`);
+    warnings.push(
+      `q ${P.q(q)} exceeds the ${limitText(P, d, 'type9MaxUnitDischarge')} of the type ${TAG}`,
+    );
   const rowA = fitBlockRow(W, Math.min(bw, W), bw);
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
   const blocks = Math.ceil(rows / 2) * rowA.count + Math.floor(rows / 2) * rowB.count;
@@ -146,13 +148,13 @@ export const usbr9: DissipatorModule = {
         ? crit(
             'unitDischarge',
             'pass',
-            `q ${P.q(row.q)} ≤ ${P.q(d.type9MaxUnitDischarge)} ${TAG}`,
+            `q ${P.q(row.q)} ≤ ${limitText(P, d, 'type9MaxUnitDischarge')} ${TAG}`,
             row.Q,
           )
         : crit(
             'unitDischarge',
             'fail',
-            `q ${P.q(row.q)} exceeds ${P.q(d.type9MaxUnitDischarge)} ${TAG}`,
+            `q ${P.q(row.q)} exceeds ${limitText(P, d, 'type9MaxUnitDischarge')} ${TAG}`,
             row.Q,
           ),
       crit('tailwater', 'pass', 'needs no tailwater', row.Q),

@@ -1,0 +1,71 @@
+// The one display-rounding rule (issue 7 item 3): how many decimals a quantity is shown with in
+// tables, labels and charts, by kind and unit system, and the three significant figures of
+// numbers inside sentences. The web's unitFormat and the phraser (units/phrase.ts) both read it.
+import type { QuantityKind } from './index';
+import type { UnitSystem } from '../range/types';
+
+/** Decimals in tables, labels and charts, by kind and unit system. */
+export const DISPLAY_DECIMALS: Readonly<
+  Record<QuantityKind, Readonly<Record<UnitSystem, number>>>
+> = {
+  length: { SI: 2, US: 2 },
+  area: { SI: 2, US: 2 },
+  volume: { SI: 2, US: 2 },
+  earthwork: { SI: 2, US: 2 },
+  discharge: { SI: 2, US: 2 },
+  unitDischarge: { SI: 2, US: 2 },
+  velocity: { SI: 2, US: 2 },
+  force: { SI: 2, US: 2 },
+  pressure: { SI: 2, US: 2 },
+  power: { SI: 2, US: 2 },
+  mass: { SI: 2, US: 2 },
+  weirCoefficient: { SI: 2, US: 2 },
+  lineLoad: { SI: 2, US: 2 },
+  unitWeight: { SI: 2, US: 2 },
+};
+
+/** Decimals of a dimensionless number (Froude number, ratios) in tables. */
+export const DIMENSIONLESS_DECIMALS = 2;
+
+/** The decimals a value of `kind` (null: dimensionless) is shown with in `system`. */
+export function displayDecimals(kind: QuantityKind | null, system: UnitSystem): number {
+  return kind ? DISPLAY_DECIMALS[kind][system] : DIMENSIONLESS_DECIMALS;
+}
+
+/**
+ * A value already in the user's units as a table or chart shows it: the decimals of its kind,
+ * grouped thousands ('1,234.50'), '—' when missing.
+ * @example displayText(1234.5, 'length', 'SI') // '1,234.50'
+ */
+export function displayText(
+  value: number | null | undefined,
+  kind: QuantityKind | null,
+  system: UnitSystem,
+  digits = displayDecimals(kind, system),
+): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return value.toLocaleString('en-GB', {
+    minimumFractionDigits: digits,
+    maximumFractionDigits: digits,
+  });
+}
+
+/** Numbers in sentences: three significant figures, no trailing noise. */
+export function n3(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  const a = Math.abs(x);
+  if (a >= 100) return x.toFixed(0);
+  if (a >= 10) return x.toFixed(1);
+  return x.toFixed(2);
+}
+
+/** Two numbers compared, three figures each unless that makes unequal numbers look equal (up to six decimals). */
+export function n3Pair(x: number, limit: number): [string, string] {
+  let a = n3(x);
+  let b = n3(limit);
+  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
+    a = x.toFixed(k);
+    b = limit.toFixed(k);
+  }
+  return [a, b];
+}

@@ -1,0 +1,35 @@
+// The one display-rounding rule (common/src/units/rounding.ts): tables, labels and charts use
+// the decimals of a quantity's kind and unit system; sentences three significant figures.
+// Expected strings are the rule's own statement (common practice: two decimals in tables).
+import { describe, expect, it } from 'vitest';
+import {
+  DISPLAY_DECIMALS,
+  displayDecimals,
+  displayText,
+  n3,
+  phraser,
+  type QuantityKind,
+} from '../../common/src';
+
+describe('one display-rounding rule', () => {
+  it('every kind has its decimals in both unit systems', () => {
+    for (const kind of Object.keys(DISPLAY_DECIMALS) as QuantityKind[]) {
+      expect(Number.isInteger(displayDecimals(kind, 'SI'))).toBe(true);
+      expect(Number.isInteger(displayDecimals(kind, 'US'))).toBe(true);
+    }
+  });
+  it('tables and labels: the decimals of the kind, thousands grouped, a dash when missing', () => {
+    expect(displayText(1234.5, 'length', 'SI')).toBe('1,234.50');
+    expect(displayText(0.304, 'length', 'US')).toBe('0.30');
+    expect(displayText(3.14159, 'length', 'SI', 3)).toBe('3.142');
+    expect(displayText(null, 'discharge', 'US')).toBe('—');
+    expect(displayText(Number.NaN, null, 'SI')).toBe('—');
+  });
+  it('sentences: three significant figures, in the phraser too', () => {
+    expect(n3(49.2126)).toBe('49.2');
+    expect(n3(123.4)).toBe('123');
+    expect(n3(0.3048)).toBe('0.30');
+    // 15 m/s in US: 15 / 0.3048 = 49.2126 ft/s [NIST SP 811], three figures
+    expect(phraser('US').vel(15)).toBe('49.2 ft/s');
+  });
+});
