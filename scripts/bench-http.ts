@@ -145,6 +145,13 @@ console.log(
   `calc/jump ÷ bare route in the same app = ${target.toFixed(3)} (target ≥ 0.6) ${target >= 0.6 ? 'MET' : 'NOT MET'}`,
 );
 const authRatio = ratioOf('open');
+record({
+  name: 'ratio.calc.authVsOpen',
+  label: 'calc/jump with token + revocation ÷ unauthenticated',
+  value: authRatio,
+  unit: 'ratio',
+  target: { op: '>=', value: 0.8 },
+});
 console.log(
   `calc/jump with token + revocation check ÷ the same route unauthenticated = ${authRatio.toFixed(3)} (target ≥ 0.8) ${authRatio >= 0.8 ? 'MET' : 'NOT MET'}`,
 );

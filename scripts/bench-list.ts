@@ -15,6 +15,7 @@ import { guard } from '../api/src/middlewares/auth';
 import { sequelize } from '../api/src/models';
 import { issueToken } from '../api/src/modules/auth/auth.tokens';
 import { listen } from './bench-listen';
+import { record } from './bench-results';
 
 const FIRMS = Number(process.env.BENCH_LIST_FIRMS ?? 200);
 const PER_FIRM = Number(process.env.BENCH_LIST_PER_FIRM ?? 500);
@@ -168,6 +169,26 @@ export async function benchList(): Promise<void> {
     `list p99 ÷ health p99 in the same run        = ${p99Ratio.toFixed(2)} (target ≤ 3) ${p99Ratio <= 3 ? 'MET' : 'NOT MET'}`,
   );
   console.log(`errors on the list at ${CONCURRENCY} connections: ${errors} (target 0)`);
+  record({
+    name: 'ratio.list.vsSelect1',
+    label: 'project list first page ÷ SELECT 1 (100,000 projects)',
+    value: costRatio,
+    unit: 'ratio',
+    target: { op: '<=', value: 3 },
+  });
+  record({
+    name: 'ratio.list.p99VsHealth',
+    label: 'project list p99 ÷ /health p99 (50 connections)',
+    value: p99Ratio,
+    unit: 'ratio',
+    target: { op: '<=', value: 3 },
+  });
+  record({
+    name: 'list.errors',
+    label: 'errors on the list at 50 connections',
+    value: errors,
+    unit: 'count',
+  });
 
   mkdirSync('.bench', { recursive: true });
   const file = join('.bench', `list-${new Date().toISOString().replace(/[:.]/g, '-')}.json`);
