@@ -68,6 +68,23 @@ export interface ConcreteQuantities {
   basis: string;
 }
 
+/** One discharge of a jump basin's own check, on its floor (SI). */
+export interface JumpBasinDesignRow {
+  Q: number;
+  fr1: number;
+  v1: number;
+  y1: number;
+  y2: number;
+  /** tailwater depth above the basin's floor, m */
+  tailwaterDepth: number;
+  /** C·y2, m */
+  requiredDepth: number;
+  /** tailwater depth − C·y2, m */
+  margin: number;
+  /** the basin's length at this discharge, m */
+  length: number;
+}
+
 export interface JumpBasinDesign {
   family: 'jump-basin';
   type: JumpBasinType;
@@ -122,17 +139,7 @@ export interface JumpBasinDesign {
     jumpLength: number;
   };
   /** per discharge: required and available tailwater, margin, basin length */
-  rows: Array<{
-    Q: number;
-    fr1: number;
-    v1: number;
-    y1: number;
-    y2: number;
-    tailwaterDepth: number;
-    requiredDepth: number;
-    margin: number;
-    length: number;
-  }>;
+  rows: JumpBasinDesignRow[];
   concrete: ConcreteQuantities;
   warnings: string[];
   sources: string[];
