@@ -78,10 +78,10 @@ export async function startApiProcess(
   const stop = async () => {
     if (child.exitCode !== null || child.signalCode !== null) return;
     const exited = new Promise((resolve) => child.once('exit', resolve));
+    // The server shuts down on SIGTERM (server.ts); if it ever did not, the calling hook's own
+    // timeout reports it rather than a kill that would hide the fault.
     child.kill('SIGTERM');
-    const force = setTimeout(() => child.kill('SIGKILL'), 10_000);
     await exited;
-    clearTimeout(force);
   };
   const url = await new Promise<string>((resolve, reject) => {
     const timer = setTimeout(() => {

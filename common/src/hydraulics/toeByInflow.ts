@@ -4,7 +4,7 @@
 // a fixed gate's pool) is computed here, once. SI; elevations on the project datum.
 // Relations: hydraulics.md §2 (inflow.ts names the sources).
 import { G } from '../units/constants';
-import { InputError, withField } from '../errors';
+import { InputError, withField, type InputErrorCode } from '../errors';
 import { ENGINE_LIMITS } from '../schemas/limits';
 import { requireFinite, requireInRange, requirePositive } from './guards';
 import {
@@ -198,6 +198,21 @@ export function prepareInflowToes(
           gate: { opening: a, upstreamDepth: y0 },
         };
       };
+      /** A gate relation's refusal at one discharge, re-filed as the field the engineer typed. */
+      const gateOr = (
+        f: () => number,
+        field: string,
+        code: InputErrorCode,
+        sentence: () => string,
+        values: Record<string, number>,
+      ): number => {
+        try {
+          return f();
+        } catch (e) {
+          if (!(e instanceof RangeError)) throw e;
+          throw new InputError(field, code, sentence(), values, { cause: e });
+        }
+      };
       if (inflow.opening !== undefined || inflow.upstreamDepth !== undefined) {
         // The toe under a fixed opening or pool does not depend on the floor: once per discharge.
         let toes: Toe[];
@@ -205,38 +220,27 @@ export function prepareInflowToes(
           const a = requirePositive('inflow.opening', inflow.opening);
           toes = Qs.map((Q) => {
             const q = Q / b;
-            let y0: number;
-            try {
-              y0 = gateUpstreamDepth(q, a, Cc);
-            } catch (e) {
-              if (!(e instanceof RangeError)) throw e;
-              throw new InputError(
-                'inflow.opening',
-                'gate-opening-too-large',
+            const y0 = gateOr(
+              () => gateUpstreamDepth(q, a, Cc),
+              'inflow.opening',
+              'gate-opening-too-large',
+              () =>
                 `the gate opening ${fmt(a)} m is too large for Q = ${fmt(Q)} m³/s: the water would not touch the gate`,
-                { opening: a, Q },
-                { cause: e },
-              );
-            }
+              { opening: a, Q },
+            );
             return gateToe(q, a, y0);
           });
         } else {
           const y0 = requirePositive('inflow.upstreamDepth', inflow.upstreamDepth);
           toes = Qs.map((Q) => {
             const q = Q / b;
-            let a: number;
-            try {
-              a = gateOpening(q, y0, Cc);
-            } catch (e) {
-              if (!(e instanceof RangeError)) throw e;
-              throw new InputError(
-                'inflow.upstreamDepth',
-                'gate-pool-too-shallow',
-                `the pool ${fmt(y0)} m deep above the gate cannot pass Q = ${fmt(Q)} m³/s`,
-                { upstreamDepth: y0, Q },
-                { cause: e },
-              );
-            }
+            const a = gateOr(
+              () => gateOpening(q, y0, Cc),
+              'inflow.upstreamDepth',
+              'gate-pool-too-shallow',
+              () => `the pool ${fmt(y0)} m deep above the gate cannot pass Q = ${fmt(Q)} m³/s`,
+              { upstreamDepth: y0, Q },
+            );
             return gateToe(q, a, y0);
           });
         }
@@ -256,19 +260,14 @@ export function prepareInflowToes(
               `the floor at ${fmt(z)} m lies above the water upstream of the gate`,
               { floorElevation: z },
             );
-          let a: number;
-          try {
-            a = gateOpening(q, y0, Cc);
-          } catch (e) {
-            if (!(e instanceof RangeError)) throw e;
-            throw new InputError(
-              'inflow.upstreamElevation',
-              'gate-pool-too-shallow',
+          const a = gateOr(
+            () => gateOpening(q, y0, Cc),
+            'inflow.upstreamElevation',
+            'gate-pool-too-shallow',
+            () =>
               `the pool above the gate (${fmt(y0)} m deep on a floor at ${fmt(z)} m) cannot pass Q = ${fmt(Q)} m³/s`,
-              { upstreamDepth: y0, Q },
-              { cause: e },
-            );
-          }
+            { upstreamDepth: y0, Q },
+          );
           return gateToe(q, a, y0);
         },
         floorDependent: true,

@@ -245,7 +245,7 @@ export function requireStudySize(input: unknown): void {
         size.field === 'basinWidth'
           ? `basinWidth must not exceed ${limit} m (got ${size.value} m)`
           : `${size.field}: at most ${limit} ${size.field.startsWith('discharges') ? 'discharges' : 'rows'} (got ${size.value})`,
-        { max: limit },
+        { min: 0, max: limit },
       );
     }
   }
