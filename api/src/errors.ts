@@ -8,6 +8,7 @@ export type ErrorCode =
   | 'not_found'
   | 'conflict'
   | 'plan_limit'
+  | 'read_only'
   | 'rate_limited'
   | 'payload_too_large'
   | 'invalid_token'
@@ -49,7 +50,25 @@ export const forbidden = (message = 'Your role does not allow this.') =>
   new ApiError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
 export const conflict = (message: string) => new ApiError(409, 'conflict', message);
-export const planLimit = (message: string) => new ApiError(403, 'plan_limit', message);
+/**
+ * A plan's limit or feature refused the action: 403 `plan_limit`, `details.limit` naming the
+ * limit or feature (see common/src/plans.ts) and `details.liftedBy` the plan that lifts it
+ * (absent when no plan does, e.g. seats on a paid plan: buy seats).
+ */
+export const planLimit = (message: string, limit?: string, liftedBy?: string | null) =>
+  new ApiError(
+    403,
+    'plan_limit',
+    message,
+    limit === undefined
+      ? undefined
+      : liftedBy === undefined || liftedBy === null
+        ? { limit }
+        : { limit, liftedBy },
+  );
+/** The firm or the project is read-only (billing, or over a plan's project limit): 403. */
+export const readOnly = (message: string, reason: string) =>
+  new ApiError(403, 'read_only', message, { reason });
 export const rateLimited = (
   message = 'Too many attempts. Wait a little and try again.',
   retryAfterSeconds?: number,

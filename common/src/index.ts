@@ -39,3 +39,26 @@ export * from './basins';
 
 // Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
 export * from './drawing';
+
+// Plans: the one plan table (limits, features, the plan that lifts each) and billing states
+export {
+  BILLING_STATUSES,
+  PLAN_FEATURES,
+  PLAN_LIMIT_NAMES,
+  PLAN_ORDER,
+  PLAN_TABLE,
+  WRITABLE_PROJECTS_RULE,
+  allowedWhileReadOnly,
+  featureLiftedBy,
+  featureLimitText,
+  limitFor,
+  limitLiftedBy,
+  limitReachedText,
+  minimumSeats,
+  planAllows,
+  planName,
+  type BillingStatus,
+  type PlanDefinition,
+  type PlanFeature,
+  type PlanLimitName,
+} from './plans';

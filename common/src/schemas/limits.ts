@@ -16,26 +16,8 @@ export type InvitableRole = (typeof INVITABLE_ROLES)[number];
 export const PLANS = ['concept', 'professional', 'firm'] as const;
 export type Plan = (typeof PLANS)[number];
 
-export interface PlanLimits {
-  /** Largest number of projects a firm may hold; null = unlimited. */
-  maxProjects: number | null;
-  /** Largest number of seats (active members + pending invitations); null = as bought. */
-  maxSeats: number | null;
-  /** Seats a new firm on this plan starts with. */
-  defaultSeats: number;
-}
-
-export const PLAN_LIMITS: Readonly<Record<Plan, PlanLimits>> = {
-  concept: { maxProjects: 3, maxSeats: 1, defaultSeats: 1 },
-  professional: { maxProjects: null, maxSeats: null, defaultSeats: 1 },
-  firm: { maxProjects: null, maxSeats: null, defaultSeats: 3 },
-};
-
-/** Seats a firm can actually fill: what it bought, capped by its plan. */
-export function seatLimit(plan: Plan, seats: number): number {
-  const cap = PLAN_LIMITS[plan].maxSeats;
-  return cap === null ? seats : Math.min(seats, cap);
-}
+// The plan table lives in ../plans.ts; PLAN_LIMITS and seatLimit are its older face.
+export { PLAN_LIMITS, seatLimit, type PlanLimits } from '../plans';
 
 export const PROJECT_UNITS = ['SI', 'US'] as const;
 export type ProjectUnits = (typeof PROJECT_UNITS)[number];
