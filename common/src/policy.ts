@@ -21,6 +21,11 @@ export const POLICY = {
   'projects.delete': ['owner', 'admin', 'engineer'],
   'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'designs.write': ['owner', 'admin', 'engineer'],
+  'brand.read': ['owner', 'admin'],
+  'brand.update': ['owner', 'admin'],
+  'brand.logo.upload': ['owner', 'admin'],
+  'brand.logo.remove': ['owner', 'admin'],
+  'brand.logo.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;
