@@ -24,7 +24,9 @@ export async function uploadLogo(req: Request, res: Response): Promise<void> {
   const file = req.file;
   if (file === undefined)
     throw validationError({ logo: 'Choose a PNG or JPEG file.' }, 'Choose a PNG or JPEG file.');
-  res.json(presentBrand(await brand.storeLogo(authOf(req).firm.id, file.buffer)));
+  res.json(
+    presentBrand(await brand.storeLogo(authOf(req).firm.id, file.buffer, file.originalname)),
+  );
 }
 
 export async function removeLogo(req: Request, res: Response): Promise<void> {

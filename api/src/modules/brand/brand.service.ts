@@ -76,7 +76,10 @@ const badImage = (message: string) =>
  * magic bytes, at most 1 MB, dimensions read from the header within 4000 × 4000 before any
  * pixel is decoded; then re-encodes it (PNG, fitting 1024 px) so what is stored is our own file.
  */
-export async function checkedLogo(bytes: Buffer): Promise<{ type: LogoType; data: Buffer }> {
+export async function checkedLogo(
+  bytes: Buffer,
+  fileName = '',
+): Promise<{ type: LogoType; data: Buffer }> {
   if (bytes.length === 0) throw badImage('The file is empty. Choose a PNG or JPEG logo.');
   if (bytes.length > LOGO_LIMITS.maxBytes) throw payloadTooLarge('The logo is larger than 1 MB.');
   const type = sniffImageType(bytes);
@@ -84,6 +87,21 @@ export async function checkedLogo(bytes: Buffer): Promise<{ type: LogoType; data
     throw unsupportedImage(
       'The logo must be a PNG or JPEG image (checked by its content; SVG and other formats are not accepted).',
     );
+  // The content decides the type; a name that claims the other type is refused rather than
+  // guessed (a PNG renamed .jpg is usually a mistake the user should see).
+  const extension = /\.([a-z0-9]+)$/i.exec(fileName)?.[1]?.toLowerCase();
+  const named =
+    extension === 'png'
+      ? 'image/png'
+      : extension === 'jpg' || extension === 'jpeg'
+        ? 'image/jpeg'
+        : null;
+  if (named !== null && named !== type) {
+    const is = type === 'image/png' ? 'a PNG' : 'a JPEG';
+    throw badImage(
+      `This file is ${is} image but its name ends in .${extension}. Rename it to .${type === 'image/png' ? 'png' : 'jpg'} and upload it again.`,
+    );
+  }
   let meta: Metadata;
   try {
     meta = await sharp(bytes, { limitInputPixels: false }).metadata();
@@ -119,8 +137,8 @@ export async function checkedLogo(bytes: Buffer): Promise<{ type: LogoType; data
   }
 }
 
-export async function storeLogo(firmId: string, bytes: Buffer): Promise<Firm> {
-  const logo = await checkedLogo(bytes);
+export async function storeLogo(firmId: string, bytes: Buffer, fileName = ''): Promise<Firm> {
+  const logo = await checkedLogo(bytes, fileName);
   return sequelize.transaction(async (transaction) => {
     const firm = await Firm.findByPk(firmId, { transaction, lock: transaction.LOCK.UPDATE });
     if (firm === null) throw notFound();
