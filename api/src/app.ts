@@ -16,6 +16,7 @@ import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
+import { billingRouter, billingWebhookRouter } from './modules/billing/billing.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -70,6 +71,8 @@ export function createApp(options: AppOptions = {}): express.Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  // The payment service's events are verified on their raw bytes: before the JSON parser.
+  api.use('/billing', billingWebhookRouter());
   api.use(jsonBody());
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
@@ -80,6 +83,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/members', membersRouter());
   api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
+  api.use('/billing', billingRouter());
 
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))

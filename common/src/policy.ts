@@ -21,6 +21,12 @@ export const POLICY = {
   'projects.delete': ['owner', 'admin', 'engineer'],
   'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'designs.write': ['owner', 'admin', 'engineer'],
+  'billing.read': ['owner', 'admin'],
+  'billing.checkout': ['owner'],
+  'billing.seats': ['owner'],
+  'billing.cancel': ['owner'],
+  'billing.resume': ['owner'],
+  'billing.portal': ['owner'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;
