@@ -43,6 +43,8 @@ export interface FakeStripe {
   url: string;
   /** Events sent (or being sent) to the webhook, oldest first, with their delivery outcome. */
   deliveries: { event: Obj; attempts: number; delivered: boolean }[];
+  /** Where events go from now on (null: nowhere). */
+  setWebhookUrl(url: string | null): void;
   /** Drives a renewal of a subscription whose payment fails (invoice.payment_failed, past_due). */
   failRenewal(subscriptionId: string): void;
   /** Drives a successful renewal (invoice.paid, active). */
@@ -203,18 +205,19 @@ export async function startFakeStripe(options: FakeStripeOptions): Promise<FakeS
     return `${prefix}_${randomBytes(6).toString('hex')}${state.seq.toString(36)}`;
   };
 
+  let webhookUrl = options.webhookUrl;
   const deliveries: FakeStripe['deliveries'] = [];
   const timers = new Set<NodeJS.Timeout>();
   let closed = false;
   let baseUrl = '';
 
   async function deliver(entry: FakeStripe['deliveries'][number]): Promise<void> {
-    if (options.webhookUrl === null || closed) return;
+    if (webhookUrl === null || closed) return;
     entry.attempts += 1;
     const body = JSON.stringify(entry.event);
     let ok: boolean;
     try {
-      const res = await fetch(options.webhookUrl, {
+      const res = await fetch(webhookUrl, {
         method: 'POST',
         headers: {
           'content-type': 'application/json; charset=utf-8',
@@ -770,6 +773,9 @@ table{border-collapse:collapse}td{padding:.2rem .8rem .2rem 0}</style></head>
     port,
     url: baseUrl,
     deliveries,
+    setWebhookUrl: (url) => {
+      webhookUrl = url;
+    },
     failRenewal: (subscriptionId) => renew(subscriptionId, false),
     payRenewal: (subscriptionId) => payOpenInvoices(subscriptionId),
     async close() {
