@@ -104,6 +104,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, can: 'members.list', title: 'Team' },
   },
   {
+    path: '/billing',
+    name: 'billing',
+    component: () => import('@/views/BillingView.vue'),
+    meta: { requiresAuth: true, can: 'billing.read', title: 'Billing' },
+  },
+  {
     path: '/account',
     name: 'account',
     component: () => import('@/views/AccountView.vue'),
