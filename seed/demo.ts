@@ -4,10 +4,20 @@ import type { Plan, ProjectStatus, ProjectUnits, Role } from '@basinwright/commo
 
 export const DEMO_PASSWORD = 'basinwright-demo';
 
-export const demoFirm: { name: string; plan: Plan; seats: number; brandColor: string } = {
+export interface DemoFirm {
+  name: string;
+  plan: Plan;
+  seats: number;
+  brandColor: string | null;
+}
+
+// The demo firm starts on the free Concept plan (one seat) so its owner can show the upgrade
+// through the fake checkout. Its five members were there before: members over the seat count
+// keep their access; new invitations are refused until the firm buys seats.
+export const demoFirm: DemoFirm = {
   name: 'Harrow & Lune Engineering',
-  plan: 'firm',
-  seats: 5,
+  plan: 'concept',
+  seats: 1,
   brandColor: '#0f6e6e',
 };
 
@@ -51,4 +61,53 @@ export const demoProjects: {
       'Single 6 ft × 6 ft concrete box culvert; design discharge 420 cfs. Outlet basin to protect the run below the lane.',
     createdByEmail: 'engineer@harrow-lune.example',
   },
+];
+
+// A second invented firm on the Concept plan that has reached its project limit (3 projects):
+// "New project" shows the upgrade prompt.
+export const conceptFirm: DemoFirm = {
+  name: 'Kestrel Bank Hydraulics',
+  plan: 'concept',
+  seats: 1,
+  brandColor: null,
+};
+
+export const conceptUsers: typeof demoUsers = [
+  { name: 'Orla Kestrel', email: 'owner@kestrel-bank.example', role: 'owner' },
+];
+
+export const conceptProjects: typeof demoProjects = [
+  {
+    name: 'Brackenhope weir apron',
+    client: 'Brackenhope Angling Association',
+    location: 'Brackenhope Beck, below the old mill weir',
+    units: 'SI',
+    status: 'draft',
+    notes: 'Apron repair study below a low masonry weir.',
+    createdByEmail: 'owner@kestrel-bank.example',
+  },
+  {
+    name: 'Sallowmere overflow channel',
+    client: 'Sallowmere Estate',
+    location: 'Sallowmere lake, north overflow',
+    units: 'SI',
+    status: 'draft',
+    notes: 'Overflow channel from the lake to the beck.',
+    createdByEmail: 'owner@kestrel-bank.example',
+  },
+  {
+    name: 'Thornby Lane culvert outlet',
+    client: 'Thornby Parish',
+    location: 'Thornby Lane, at the ford',
+    units: 'US',
+    status: 'draft',
+    notes: 'Outlet protection for a lane culvert.',
+    createdByEmail: 'owner@kestrel-bank.example',
+  },
+];
+
+/** Every demo firm the seed loads, with its members and projects. */
+export const demoFirms = [
+  { firm: demoFirm, users: demoUsers, projects: demoProjects },
+  { firm: conceptFirm, users: conceptUsers, projects: conceptProjects },
 ];

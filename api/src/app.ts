@@ -16,6 +16,7 @@ import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
+import { brandRouter } from './modules/brand/brand.routes';
 import { billingRouter, billingWebhookRouter } from './modules/billing/billing.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
@@ -83,6 +84,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/members', membersRouter());
   api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
+  api.use('/firm/brand', brandRouter());
   api.use('/billing', billingRouter());
 
   // engine routes

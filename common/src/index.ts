@@ -62,3 +62,5 @@ export {
   type PlanFeature,
   type PlanLimitName,
 } from './plans';
+// The firm's brand: contrast of the brand colour against white text (WCAG 2.x), logo limits
+export * from './brand';

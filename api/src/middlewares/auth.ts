@@ -1,8 +1,9 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
-import { can, type Action } from '@basinwright/common';
-import { forbidden, unauthorized } from '../errors';
+import { allowedWhileReadOnly, can, type Action } from '@basinwright/common';
+import { forbidden, readOnly, unauthorized } from '../errors';
 import { Firm, sequelize, User } from '../models';
 import { verifyToken } from '../modules/auth/auth.tokens';
+import { BILLING_READ_ONLY_MESSAGE, effectiveBillingStatus } from '../modules/plans/plans.service';
 import { SessionChecker } from './session-check';
 
 export interface AuthContext {
@@ -38,7 +39,10 @@ export const authenticate: RequestHandler = async (
   next: NextFunction,
 ) => {
   const claims = verifyToken(bearerToken(req));
-  const user = await User.findByPk(claims.sub, { include: [{ model: Firm, as: 'firm' }] });
+  // The logo's bytes are not needed to authorize; brand code loads them itself.
+  const user = await User.findByPk(claims.sub, {
+    include: [{ model: Firm, as: 'firm', attributes: { exclude: ['logo'] } }],
+  });
   if (
     user === null ||
     user.firm === undefined ||
@@ -74,11 +78,23 @@ export function authOf(req: Request): AuthContext {
   return req.auth;
 }
 
-/** Allows the request only when the member's role may perform `action` (see POLICY). */
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Allows the request only when the member's role may perform `action` (see POLICY), and, while
+ * the firm is read-only for billing (an unpaid grace ended), refuses every write but signing
+ * out, one's own profile and billing itself (`allowedWhileReadOnly`): everything stays readable.
+ */
 export function authorize(action: Action): RequestHandler {
   return (req, _res, next) => {
-    const { user } = authOf(req);
+    const { user, firm } = authOf(req);
     if (!can(user.role, action)) throw forbidden();
+    if (
+      !READS.has(req.method) &&
+      !allowedWhileReadOnly(action) &&
+      effectiveBillingStatus(firm) === 'read_only'
+    )
+      throw readOnly(BILLING_READ_ONLY_MESSAGE, 'billing');
     next();
   };
 }

@@ -1,4 +1,5 @@
-import type { Plan, Role } from '@basinwright/common';
+import type { BillingStatus, Plan, Role } from '@basinwright/common';
+import { effectiveBillingStatus } from '../plans/plans.service';
 import type { Firm, User } from '../../models';
 
 export interface UserView {
@@ -15,6 +16,9 @@ export interface FirmView {
   name: string;
   plan: Plan;
   seats: number;
+  /** In force now: a past-due firm whose grace has ended reads 'read_only'. */
+  billingStatus: BillingStatus;
+  graceEndsAt: string | null;
 }
 
 export interface SessionView {
@@ -36,7 +40,14 @@ export function presentUser(user: User): UserView {
 }
 
 export function presentFirm(firm: Firm): FirmView {
-  return { id: firm.id, name: firm.name, plan: firm.plan, seats: firm.seats };
+  return {
+    id: firm.id,
+    name: firm.name,
+    plan: firm.plan,
+    seats: firm.seats,
+    billingStatus: effectiveBillingStatus(firm),
+    graceEndsAt: firm.graceEndsAt === null ? null : firm.graceEndsAt.toISOString(),
+  };
 }
 
 export function presentSession(token: string, user: User, firm: Firm): SessionView {

@@ -5,13 +5,14 @@ import {
   type InvitationCreateInput,
 } from '@basinwright/common';
 import { Op } from 'sequelize';
-import { conflict, invalidToken, notFound, planLimit } from '../../errors';
+import { conflict, invalidToken, notFound } from '../../errors';
 import { invitationMail, invitedElsewhereMail, sendMail } from '../../mail';
 import { Firm, Invitation, sequelize, User } from '../../models';
 import { hashEmailToken, hashPassword, isUuid, newEmailToken } from '../../security';
 import { EMAIL_TAKEN, type Session } from '../auth/auth.service';
 import { issueToken } from '../auth/auth.tokens';
-import { lockFirm, seatLimitMessage, seatsInUse } from '../members/members.service';
+import { lockFirm, seatsInUse } from '../members/members.service';
+import { seatLimitError } from '../plans/plans.service';
 
 const invitedBy = { model: User, as: 'invitedBy', attributes: ['id', 'name'] };
 
@@ -60,7 +61,7 @@ export async function createInvitation(
       await previous.destroy({ transaction });
     }
     if ((await seatsInUse(firm.id, transaction)) >= seatLimit(firm.plan, firm.seats)) {
-      throw planLimit(seatLimitMessage(firm));
+      throw seatLimitError(firm);
     }
     const invitation = await Invitation.create(
       {
@@ -132,7 +133,7 @@ export async function acceptInvitation(input: AcceptInvitationInput): Promise<Se
       throw conflict(EMAIL_TAKEN);
     // The invitation already holds a seat; the plan may have shrunk since it was sent.
     if ((await seatsInUse(firm.id, transaction)) > seatLimit(firm.plan, firm.seats))
-      throw planLimit(seatLimitMessage(firm));
+      throw seatLimitError(firm);
     const user = await User.create(
       {
         firmId: firm.id,

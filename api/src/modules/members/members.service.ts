@@ -1,8 +1,9 @@
 import { seatLimit, type MemberUpdateInput } from '@basinwright/common';
 import { Op, type Transaction } from 'sequelize';
-import { conflict, forbidden, notFound, planLimit } from '../../errors';
+import { conflict, forbidden, notFound } from '../../errors';
 import { Firm, Invitation, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
+import { seatLimitError } from '../plans/plans.service';
 
 /** Seats taken: active members plus open (unaccepted, unexpired) invitations. */
 export async function seatsInUse(firmId: string, transaction: Transaction): Promise<number> {
@@ -14,13 +15,6 @@ export async function seatsInUse(firmId: string, transaction: Transaction): Prom
     }),
   ]);
   return members + invitations;
-}
-
-export function seatLimitMessage(firm: Firm): string {
-  const limit = seatLimit(firm.plan, firm.seats);
-  return firm.plan === 'concept'
-    ? 'The Concept plan has a single seat. Upgrade to add members.'
-    : `All ${limit} seats are taken. Add seats, deactivate a member or withdraw an invitation first.`;
 }
 
 /**
@@ -84,7 +78,7 @@ export async function updateMember(
 
     if (input.active === true && !member.active) {
       if ((await seatsInUse(firm.id, transaction)) >= seatLimit(firm.plan, firm.seats)) {
-        throw planLimit(seatLimitMessage(firm));
+        throw seatLimitError(firm);
       }
     }
 

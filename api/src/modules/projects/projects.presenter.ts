@@ -12,6 +12,8 @@ export interface ProjectView {
   createdBy: { id: string; name: string } | null;
   createdAt: string;
   updatedAt: string;
+  /** Why the project cannot be changed now (plan's project cap after a downgrade, billing); null: editable. */
+  readOnly: { reason: 'billing' | 'project_over_limit'; message: string } | null;
 }
 
 /** What the presenter reads of a project: a model instance or a row of the list query. */
@@ -20,7 +22,10 @@ export type ProjectRecord = Pick<
   'id' | 'name' | 'client' | 'location' | 'units' | 'status' | 'notes' | 'createdAt' | 'updatedAt'
 > & { createdBy?: { id: string; name: string } | null };
 
-export function presentProject(project: ProjectRecord): ProjectView {
+export function presentProject(
+  project: ProjectRecord,
+  readOnly: ProjectView['readOnly'] = null,
+): ProjectView {
   const by = project.createdBy ?? null;
   return {
     id: project.id,
@@ -33,5 +38,6 @@ export function presentProject(project: ProjectRecord): ProjectView {
     createdBy: by === null ? null : { id: by.id, name: by.name },
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
+    readOnly: readOnly === null ? null : { reason: readOnly.reason, message: readOnly.message },
   };
 }

@@ -1,16 +1,15 @@
 import {
-  PLAN_LIMITS,
   PROJECT_STATUSES,
-  type Plan,
   type ProjectCreateInput,
   type ProjectListQuery,
   type ProjectUpdateInput,
 } from '@basinwright/common';
 import { Op, QueryTypes, type WhereOptions } from 'sequelize';
-import { notFound, planLimit } from '../../errors';
+import { notFound } from '../../errors';
 import { Project, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
 import { lockFirm } from '../members/members.service';
+import { requireBelowLimit } from '../plans/plans.service';
 import type { ProjectRecord } from './projects.presenter';
 
 const createdBy = { model: User, as: 'createdBy', attributes: ['id', 'name'] };
@@ -127,16 +126,15 @@ export async function getProject(firmId: string, id: string): Promise<Project> {
   return project;
 }
 
-/** Creates a project; the Concept plan holds at most 3 (counted under the firm's row lock). */
+/** Creates a project within the plan's project cap (counted under the firm's row lock). */
 export async function createProject(actor: User, input: ProjectCreateInput): Promise<Project> {
   const id = await sequelize.transaction(async (transaction) => {
     const firm = await lockFirm(actor.firmId, transaction);
-    const max = PLAN_LIMITS[firm.plan as Plan].maxProjects;
-    if (max !== null && (await Project.count({ where: { firmId: firm.id }, transaction })) >= max) {
-      throw planLimit(
-        `The Concept plan holds up to ${max} projects. Upgrade, or delete a project first.`,
-      );
-    }
+    requireBelowLimit(
+      firm,
+      'projects',
+      await Project.count({ where: { firmId: firm.id }, transaction }),
+    );
     const project = await Project.create(
       { ...input, firmId: firm.id, createdById: actor.id },
       { transaction },
