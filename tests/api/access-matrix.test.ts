@@ -34,8 +34,29 @@ interface RouteCase {
   /** OpenAPI path template under /api/v1. */
   path: string;
   /** Prepares what the request needs; returns the concrete path, body and a check of the side effect. */
-  prepare(): Promise<{ url: string; body?: object; changed?: () => Promise<boolean> }>;
+  prepare(): Promise<{
+    url: string;
+    body?: object;
+    /** A multipart upload instead of a JSON body: the field and the file. */
+    file?: { field: string; bytes: Buffer; filename: string; contentType: string };
+    changed?: () => Promise<boolean>;
+  }>;
   success: number;
+}
+
+/** A 2 × 2 PNG made with sharp, for the logo routes. */
+async function smallPng(): Promise<Buffer> {
+  const sharp = (await import('sharp')).default;
+  return sharp({ create: { width: 2, height: 2, channels: 3, background: '#0f6e6e' } })
+    .png()
+    .toBuffer();
+}
+
+async function withLogo(): Promise<void> {
+  await h.models.Firm.update(
+    { logo: await smallPng(), logoType: 'image/png', logoUpdatedAt: new Date() },
+    { where: { id: firmId } },
+  );
 }
 
 /** Links the matrix firm to a paid subscription at the stand-in (or to none). */
@@ -229,6 +250,69 @@ const routes: RouteCase[] = [
     },
   },
   {
+    action: 'brand.read',
+    method: 'get',
+    path: '/firm/brand',
+    success: 200,
+    prepare: async () => ({ url: '/firm/brand' }),
+  },
+  {
+    action: 'brand.update',
+    method: 'put',
+    path: '/firm/brand',
+    success: 200,
+    prepare: async () => {
+      const footer = `Footer ${uniqueEmail('f')}`;
+      return {
+        url: '/firm/brand',
+        body: { footer },
+        changed: async () => (await h.models.Firm.findByPk(firmId))?.proposalFooter === footer,
+      };
+    },
+  },
+  {
+    action: 'brand.logo.read',
+    method: 'get',
+    path: '/firm/brand/logo',
+    success: 200,
+    prepare: async () => {
+      await withLogo();
+      return { url: '/firm/brand/logo?size=64' };
+    },
+  },
+  {
+    action: 'brand.logo.upload',
+    method: 'put',
+    path: '/firm/brand/logo',
+    success: 200,
+    prepare: async () => {
+      await h.models.Firm.update({ logo: null, logoType: null }, { where: { id: firmId } });
+      return {
+        url: '/firm/brand/logo',
+        file: {
+          field: 'logo',
+          bytes: await smallPng(),
+          filename: 'logo.png',
+          contentType: 'image/png',
+        },
+        changed: async () => (await h.models.Firm.findByPk(firmId))?.logo !== null,
+      };
+    },
+  },
+  {
+    action: 'brand.logo.remove',
+    method: 'delete',
+    path: '/firm/brand/logo',
+    success: 204,
+    prepare: async () => {
+      await withLogo();
+      return {
+        url: '/firm/brand/logo',
+        changed: async () => (await h.models.Firm.findByPk(firmId))?.logo === null,
+      };
+    },
+  },
+  {
     action: 'billing.read',
     method: 'get',
     path: '/billing',
@@ -322,20 +406,30 @@ describe('the route table covers every guarded route', () => {
 
 describe.each(routes)('$method $path ($action)', (route) => {
   it('without a token: 401', async () => {
-    const { url, body } = await route.prepare();
+    const { url, body, file } = await route.prepare();
     const agent = h.http();
-    const res = await agent[route.method](`/api/v1${url}`).send(body ?? {});
+    const req = agent[route.method](`/api/v1${url}`);
+    const res = await (file === undefined
+      ? req.send(body ?? {})
+      : req.attach(file.field, file.bytes, {
+          filename: file.filename,
+          contentType: file.contentType,
+        }));
     expect(res.status).toBe(401);
     expect(res.body.code).toBe('unauthorized');
   });
 
   it.each(ROLES)('as %s: allowed only if the policy says so', async (role: Role) => {
     const member = await addMember(h, firmId, role);
-    const { url, body, changed } = await route.prepare();
+    const { url, body, file, changed } = await route.prepare();
     const agent = h.http();
-    const res = await agent[route.method](`/api/v1${url}`)
-      .set(bearer(member.token))
-      .send(body ?? {});
+    const req = agent[route.method](`/api/v1${url}`).set(bearer(member.token));
+    const res = await (file === undefined
+      ? req.send(body ?? {})
+      : req.attach(file.field, file.bytes, {
+          filename: file.filename,
+          contentType: file.contentType,
+        }));
     const allowed = (POLICY[route.action] as readonly Role[]).includes(role);
     if (allowed) {
       expect(res.status, JSON.stringify(res.body)).toBe(route.success);
