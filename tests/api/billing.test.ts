@@ -394,6 +394,61 @@ describe('the owner buys, adds a seat, cancels and resumes through the stand-in'
     );
   });
 
+  it('an event the app did not take is sent again, with a growing pause, until it is', async () => {
+    const firm = await firmRow(owner.firm.id);
+    const { port } = server.address() as AddressInfo;
+    // The endpoint answers 404 for now: the stand-in must keep trying.
+    pay.fake.setWebhookUrl(`http://127.0.0.1:${port}/api/v1/billing/not-here`);
+    const before = pay.fake.deliveries.length;
+    pay.fake.failRenewal(firm.stripeSubscriptionId ?? '');
+    const failed = () =>
+      pay.fake.deliveries.slice(before).find((d) => d.event.type === 'invoice.payment_failed');
+    await waitUntil('two tries', async () => (failed()?.attempts ?? 0) >= 2);
+    expect(failed()?.delivered).toBe(false);
+    expect((await firmRow(owner.firm.id)).billingStatus).toBe('active');
+    pay.fake.setWebhookUrl(`http://127.0.0.1:${port}/api/v1/billing/webhook`);
+    await waitUntil('delivered', async () => failed()?.delivered === true);
+    await waitUntil(
+      'past due',
+      async () => (await firmRow(owner.firm.id)).billingStatus === 'past_due',
+    );
+    pay.fake.payRenewal(firm.stripeSubscriptionId ?? '');
+    await waitUntil(
+      'active',
+      async () => (await firmRow(owner.firm.id)).billingStatus === 'active',
+    );
+  });
+
+  it("the stand-in's page: a declined card or going back buys nothing", async () => {
+    const other = await signUpFirm(h, 'decliner');
+    const res = await h
+      .http()
+      .post('/api/v1/billing/checkout')
+      .set(bearer(other.token))
+      .send({ plan: 'firm', seats: 3 });
+    expect(res.status).toBe(200);
+    const declined = await fetch(`${res.body.url}/decline`, { method: 'POST' });
+    expect(declined.status).toBe(402);
+    expect(await declined.text()).toContain('declined');
+    const back = await fetch(`${res.body.url}/cancel`, { method: 'POST', redirect: 'manual' });
+    expect(back.status).toBe(303);
+    expect(back.headers.get('location')).toContain('/billing?checkout=cancelled');
+    const firm = await firmRow(other.firm.id);
+    expect(firm.plan).toBe('concept');
+    expect(firm.stripeSubscriptionId).toBeNull();
+  });
+
+  it("fewer than the Firm plan's three seats is refused before the payment page", async () => {
+    const small = await signUpFirm(h, 'small');
+    const res = await h
+      .http()
+      .post('/api/v1/billing/checkout')
+      .set(bearer(small.token))
+      .send({ plan: 'firm', seats: 2 });
+    expect(res.status).toBe(409);
+    expect(res.body.message).toMatch(/at least 3 seats/);
+  });
+
   it('the payment page link for the owner', async () => {
     const res = await h.http().post('/api/v1/billing/portal').set(bearer(owner.token)).send({});
     expect(res.status).toBe(200);
