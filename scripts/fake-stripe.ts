@@ -699,6 +699,7 @@ table{border-collapse:collapse}td{padding:.2rem .8rem .2rem 0}</style></head>
       session.status = 'complete';
       session.payment_status = 'paid';
       session.subscription = sub.id;
+      emit('customer.subscription.created', sub);
       emit('checkout.session.completed', publicSession(session));
       emit('invoice.paid', state.invoices[sub.latest_invoice as string] as Obj);
       save();

@@ -324,6 +324,11 @@ describe('the owner buys, adds a seat, cancels and resumes through the stand-in'
     const firm = await firmRow(owner.firm.id);
     expect(firm.seats).toBe(2);
     expect(firm.stripeSubscriptionId).toMatch(/^sub_/);
+    // the subscription's own event brings the paid period (30 days in the stand-in)
+    await waitUntil(
+      'the period',
+      async () => (await firmRow(owner.firm.id)).currentPeriodEnd !== null,
+    );
     // A second Checkout while subscribed is refused: change the seats instead.
     const again = await h
       .http()
