@@ -26,6 +26,9 @@ async function change(
   return h.models.sequelize.transaction((t) => applyPlanChange(firmId, values, t));
 }
 
+const invite = (token: string, email = uniqueEmail('x')) =>
+  h.http().post('/api/v1/members/invitations').set(bearer(token)).send({ email, role: 'viewer' });
+
 const createProject = (token: string, name: string) =>
   h.http().post('/api/v1/projects').set(bearer(token)).send({ name, units: 'SI' });
 
@@ -66,11 +69,7 @@ describe('the project cap (Concept: 3)', () => {
 describe('seats', () => {
   it('Concept has one seat: an invitation is plan_limit (seats, lifted by Professional)', async () => {
     const firm = await signUpFirm(h, 'plan-seat');
-    const res = await h
-      .http()
-      .post('/api/v1/members/invitations')
-      .set(bearer(firm.token))
-      .send({ email: uniqueEmail('x'), role: 'viewer' });
+    const res = await invite(firm.token, uniqueEmail('x'));
     expect(res.status).toBe(403);
     expect(res.body).toMatchObject({
       code: 'plan_limit',
@@ -81,11 +80,7 @@ describe('seats', () => {
   it('on a paid plan a full firm is told to add seats (no plan lifts it)', async () => {
     const firm = await signUpFirm(h, 'plan-seat-paid');
     await setPlan(h, firm.firm.id, 'professional', 1);
-    const res = await h
-      .http()
-      .post('/api/v1/members/invitations')
-      .set(bearer(firm.token))
-      .send({ email: uniqueEmail('x'), role: 'viewer' });
+    const res = await invite(firm.token, uniqueEmail('x'));
     expect(res.status).toBe(403);
     expect(res.body.code).toBe('plan_limit');
     expect(res.body.details).toEqual({ limit: 'seats' });
@@ -96,15 +91,7 @@ describe('seats', () => {
     const firm = await signUpFirm(h, 'plan-race');
     await setPlan(h, firm.firm.id, 'professional', 6); // the owner holds 1 of 6 → 5 free
     const emails = Array.from({ length: 20 }, (_, i) => uniqueEmail(`race${i}`));
-    const results = await Promise.all(
-      emails.map((email) =>
-        h
-          .http()
-          .post('/api/v1/members/invitations')
-          .set(bearer(firm.token))
-          .send({ email, role: 'viewer' }),
-      ),
-    );
+    const results = await Promise.all(emails.map((email) => invite(firm.token, email)));
     const statuses = results.map((r) => r.status);
     expect(statuses.filter((s) => s === 201)).toHaveLength(5);
     expect(statuses.filter((s) => s === 403)).toHaveLength(15);
@@ -124,11 +111,7 @@ describe('seats', () => {
       const res = await h.http().get('/api/v1/projects').set(bearer(member.token));
       expect(res.status).toBe(200);
     }
-    const invited = await h
-      .http()
-      .post('/api/v1/members/invitations')
-      .set(bearer(firm.token))
-      .send({ email: uniqueEmail('late'), role: 'viewer' });
+    const invited = await invite(firm.token, uniqueEmail('late'));
     expect(invited.body.code).toBe('plan_limit');
     expect(await h.models.User.count({ where: { firmId: firm.firm.id, active: true } })).toBe(3);
   });

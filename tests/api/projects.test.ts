@@ -36,11 +36,13 @@ describe('projects CRUD', () => {
         'location',
         'name',
         'notes',
+        'readOnly',
         'status',
         'units',
         'updatedAt',
       ].sort(),
     );
+    expect(made.body.readOnly).toBeNull();
     const id = made.body.id as string;
     const read = await h.http().get(`/api/v1/projects/${id}`).set(bearer(firm.token));
     expect(read.body).toEqual(made.body);

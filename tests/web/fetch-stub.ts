@@ -31,6 +31,8 @@ export const demoFirm = {
   name: 'Harrow & Lune Engineering',
   plan: 'firm' as const,
   seats: 5,
+  billingStatus: 'active' as const,
+  graceEndsAt: null,
 };
 
 export function demoUser(role: 'owner' | 'admin' | 'engineer' | 'estimator' | 'viewer') {

@@ -42,12 +42,13 @@ export const statusColor = (status: ProjectStatus): string => statuses[status].c
 export const unitsLabel = (units: Units): string =>
   units === 'SI' ? 'SI (metric)' : 'US customary';
 
+// Only what each role can do in the app today; a role gains a line when its feature arrives.
 export const roleDescriptions: Record<Role, string> = {
-  owner: 'Everything, including billing and closing the firm account',
-  admin: 'Manages members, seats, firm profile and price books',
-  engineer: 'Creates and edits projects and designs; issues proposals',
-  estimator: 'Reads designs; edits quantities, price books and estimates',
-  viewer: 'Reads projects, designs and proposals',
+  owner: 'Everything an admin can do, and makes or removes owners',
+  admin: 'Manages members, invitations and the firm brand; creates and edits projects and designs',
+  engineer: 'Creates and edits projects and designs',
+  estimator: 'Reads projects and designs',
+  viewer: 'Reads projects and designs',
 };
 
 export const projectStatuses: readonly ProjectStatus[] = PROJECT_STATUSES;

@@ -44,6 +44,8 @@ export function setUnauthorizedHandler(handler: UnauthorizedHandler | null): voi
 export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   body?: unknown;
+  /** A multipart body (file uploads) instead of JSON. */
+  form?: FormData;
   query?: Record<string, string | number | undefined | null>;
   signal?: AbortSignal;
 }
@@ -123,8 +125,10 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   const headers: Record<string, string> = { Accept: 'application/json' };
   const token = tokenSource();
   if (token) headers.Authorization = `Bearer ${token}`;
-  let body: string | undefined;
-  if (options.body !== undefined) {
+  let body: string | FormData | undefined;
+  if (options.form !== undefined) {
+    body = options.form; // the browser sets the multipart boundary
+  } else if (options.body !== undefined) {
     headers['Content-Type'] = 'application/json';
     body = JSON.stringify(options.body);
   }
@@ -163,6 +167,26 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
       'The server sent a reply we could not read.',
     );
   }
+}
+
+/** Fetches a binary answer (an image) with the session's token; throws ApiError like request(). */
+export async function requestBlob(path: string, options: RequestOptions = {}): Promise<Blob> {
+  const headers: Record<string, string> = {};
+  const token = tokenSource();
+  if (token) headers.Authorization = `Bearer ${token}`;
+  let response: Response;
+  try {
+    response = await fetch(buildUrl(path, options.query), { headers, signal: options.signal });
+  } catch (cause) {
+    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
+    throw new ApiError(0, 'network_error', 'Could not reach the server.');
+  }
+  if (!response.ok) {
+    const error = await errorFromResponse(response);
+    if (error.status === 401 && token && onUnauthorized) onUnauthorized(error);
+    throw error;
+  }
+  return response.blob();
 }
 
 /** A message fit to show a person, for any thrown value. */

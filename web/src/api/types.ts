@@ -1,9 +1,9 @@
 // Response shapes of the API (see the API contract). Request bodies come from the shared
 // yup schemas in @basinwright/common.
 
-import type { Plan, ProjectStatus, ProjectUnits, Role } from '@basinwright/common';
+import type { BillingStatus, Plan, ProjectStatus, ProjectUnits, Role } from '@basinwright/common';
 
-export type { Plan, ProjectStatus, Role };
+export type { BillingStatus, Plan, ProjectStatus, Role };
 export type Units = ProjectUnits;
 
 export interface PersonRef {
@@ -25,6 +25,9 @@ export interface Firm {
   name: string;
   plan: Plan;
   seats: number;
+  /** In force now; 'read_only' refuses every change (an unpaid grace period has ended). */
+  billingStatus: BillingStatus;
+  graceEndsAt: string | null;
 }
 
 export interface Session {
@@ -44,6 +47,8 @@ export interface Project {
   createdBy: PersonRef | null;
   createdAt: string;
   updatedAt: string;
+  /** Why it cannot be changed now (plan's project limit after a downgrade, billing); null: editable. */
+  readOnly: { reason: 'billing' | 'project_over_limit'; message: string } | null;
 }
 
 export interface Invitation {
@@ -64,4 +69,16 @@ export interface Page<T> {
 
 export interface ItemList<T> {
   items: T[];
+}
+
+/** The firm's brand (GET /firm/brand). */
+export interface Brand {
+  firmName: string;
+  plan: Plan;
+  /** False on Concept: proposals print unbranded, with the Concept plan watermark. */
+  onProposals: boolean;
+  color: string | null;
+  footer: string | null;
+  sealStatement: string | null;
+  logo: { updatedAt: string } | null;
 }

@@ -104,6 +104,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, can: 'members.list', title: 'Team' },
   },
   {
+    path: '/firm/brand',
+    name: 'brand',
+    component: () => import('@/views/BrandView.vue'),
+    meta: { requiresAuth: true, can: 'brand.read', title: 'Firm brand' },
+  },
+  {
     path: '/billing',
     name: 'billing',
     component: () => import('@/views/BillingView.vue'),
