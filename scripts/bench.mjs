@@ -85,6 +85,10 @@ try {
     SMTP_PORT: '1',
     APP_URL: 'http://127.0.0.1',
     LOG_LEVEL: 'silent',
+    // Required in production; the benchmarks never reach billing (a closed loopback port if so).
+    STRIPE_SECRET_KEY: 'sk_test_bench',
+    STRIPE_WEBHOOK_SECRET: 'whsec_test_bench',
+    STRIPE_API_BASE: 'http://127.0.0.1:9',
     BENCH_RESULTS: resultsFile,
   };
   runTs('api/src/db/migrate.ts', env, { quiet: true });

@@ -380,6 +380,27 @@ export function startMaildev({ smtpPort, webPort, mailDir }) {
   );
 }
 
+/**
+ * The local stand-in for the payment service (scripts/fake-stripe.ts) on 127.0.0.1: resolves
+ * the child and the STRIPE_* settings that point the API at it. Its events go to `webhookUrl`.
+ */
+export async function startFakeStripe({ port, webhookUrl, stateFile = null }) {
+  const settings = {
+    STRIPE_SECRET_KEY: `sk_test_local_${randomBytes(12).toString('hex')}`,
+    STRIPE_WEBHOOK_SECRET: `whsec_local_${randomBytes(24).toString('hex')}`,
+    STRIPE_API_BASE: `http://127.0.0.1:${port}`,
+  };
+  const child = startTs('fake payments', 'scripts/fake-stripe.ts', {
+    FAKE_STRIPE_PORT: String(port),
+    FAKE_STRIPE_KEY: settings.STRIPE_SECRET_KEY,
+    FAKE_STRIPE_WEBHOOK_URL: webhookUrl,
+    FAKE_STRIPE_WEBHOOK_SECRET: settings.STRIPE_WEBHOOK_SECRET,
+    ...(stateFile ? { FAKE_STRIPE_STATE: stateFile } : {}),
+  });
+  await waitForHttp(`http://127.0.0.1:${port}/pay/none`, 60000);
+  return { child, settings };
+}
+
 /** Why a child process ended, in words, from its exit code or signal. */
 export function exitReason(code, signal) {
   if (signal === 'SIGABRT')

@@ -15,6 +15,7 @@ import {
   runTs,
   secretFile,
   startChild,
+  startFakeStripe,
   startMaildev,
   startTs,
   stopChild,
@@ -87,6 +88,18 @@ async function main() {
 
   const smtpPort = await pickPort(Number(process.env.SMTP_PORT ?? 1025));
   const mailWebPort = await pickPort(Number(process.env.MAIL_WEB_PORT ?? 1080));
+  const payPort = await pickPort(Number(process.env.FAKE_STRIPE_PORT ?? 12111));
+  // The payment service: the local stand-in unless a real key is configured. Its state is kept
+  // beside the database (the customers and subscriptions the firms refer to).
+  let payments = null;
+  if (!process.env.STRIPE_SECRET_KEY) {
+    payments = await startFakeStripe({
+      port: payPort,
+      webhookUrl: `http://127.0.0.1:${port}/api/v1/billing/webhook`,
+      stateFile: path.join(dataDir, 'fake-stripe.json'),
+    });
+    children.push(payments.child);
+  }
   const env = {
     NODE_ENV: dev ? 'development' : 'production',
     HOST: '127.0.0.1',
@@ -98,6 +111,7 @@ async function main() {
     MAIL_FROM: process.env.MAIL_FROM ?? 'Basinwright <no-reply@basinwright.invalid>',
     APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${dev ? 5173 : port}`,
     ...(dev ? {} : { WEB_DIST: path.join(ROOT, 'web', 'dist') }),
+    ...(payments ? payments.settings : {}),
   };
   if (!process.env.JWT_SECRET) secretFile(env.JWT_SECRET_FILE);
 
@@ -138,6 +152,7 @@ async function main() {
   log('');
   log(`Basinwright is running at ${url}`);
   log(`Sent e-mail (password resets, invitations): http://127.0.0.1:${mailWebPort}/`);
+  if (payments) log(`Payments: a local stand-in on http://127.0.0.1:${payPort}/ (no money moves)`);
   log('Demo sign-ins (password for all: basinwright-demo):');
   for (const role of ['owner', 'admin', 'engineer', 'estimator', 'viewer']) {
     log(`  ${role.padEnd(9)} ${role}@harrow-lune.example`);

@@ -17,6 +17,7 @@ import {
   run,
   runTs,
   startChild,
+  startFakeStripe,
   startMaildev,
   startTs,
   stopChild,
@@ -103,6 +104,12 @@ async function main() {
   // each request to the next one in turn (tests/e2e/two-processes.test.ts checks both served).
   const appPort = await freePort();
   const apiPorts = { first: await freePort(), second: await freePort() };
+  // The payment service's stand-in, its events sent through the proxy like the browser's requests.
+  const payments = await startFakeStripe({
+    port: await freePort(),
+    webhookUrl: `http://127.0.0.1:${appPort}/api/v1/billing/webhook`,
+  });
+  children.push(payments.child);
   const e2eEnv = {
     NODE_ENV: 'production',
     HOST: '127.0.0.1',
@@ -114,6 +121,7 @@ async function main() {
     APP_URL: `http://127.0.0.1:${appPort}`,
     WEB_DIST: path.join(ROOT, 'web', 'dist'),
     LOG_LEVEL: 'warn',
+    ...payments.settings,
   };
   runTs('api/src/db/migrate.ts', e2eEnv, { quiet: true });
   runTs('seed/run.ts', e2eEnv, { quiet: true });

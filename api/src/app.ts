@@ -17,6 +17,7 @@ import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { brandRouter } from './modules/brand/brand.routes';
+import { billingRouter, billingWebhookRouter } from './modules/billing/billing.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -71,6 +72,8 @@ export function createApp(options: AppOptions = {}): express.Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  // The payment service's events are verified on their raw bytes: before the JSON parser.
+  api.use('/billing', billingWebhookRouter());
   api.use(jsonBody());
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
@@ -82,6 +85,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
   api.use('/firm/brand', brandRouter());
+  api.use('/billing', billingRouter());
 
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))

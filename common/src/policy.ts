@@ -26,6 +26,12 @@ export const POLICY = {
   'brand.logo.upload': ['owner', 'admin'],
   'brand.logo.remove': ['owner', 'admin'],
   'brand.logo.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'billing.read': ['owner', 'admin'],
+  'billing.checkout': ['owner'],
+  'billing.seats': ['owner'],
+  'billing.cancel': ['owner'],
+  'billing.resume': ['owner'],
+  'billing.portal': ['owner'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -11,9 +11,13 @@ import {
   uniqueEmail,
   TEST_PASSWORD,
 } from '../support/api-app';
+import { fakePaymentsForFile } from '../support/fake-payments';
 
 let firmId = '';
 let ownerId = '';
+
+// The billing routes call the payment service: its local stand-in runs for this file.
+const pay = fakePaymentsForFile();
 
 const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'matrix');
@@ -53,6 +57,20 @@ async function withLogo(): Promise<void> {
     { logo: await smallPng(), logoType: 'image/png', logoUpdatedAt: new Date() },
     { where: { id: firmId } },
   );
+}
+
+/** Links the matrix firm to a paid subscription at the stand-in (or to none). */
+async function subscribed(yes: boolean): Promise<string | null> {
+  if (!yes) {
+    await h.models.Firm.update({ stripeSubscriptionId: null }, { where: { id: firmId } });
+    return null;
+  }
+  const { customer, subscription } = await pay.subscribe(firmId, 'firm', 1000);
+  await h.models.Firm.update(
+    { stripeCustomerId: customer, stripeSubscriptionId: subscription },
+    { where: { id: firmId } },
+  );
+  return subscription;
 }
 
 async function newProject(name = 'Matrix project') {
@@ -292,6 +310,78 @@ const routes: RouteCase[] = [
         url: '/firm/brand/logo',
         changed: async () => (await h.models.Firm.findByPk(firmId))?.logo === null,
       };
+    },
+  },
+  {
+    action: 'billing.read',
+    method: 'get',
+    path: '/billing',
+    success: 200,
+    prepare: async () => ({ url: '/billing' }),
+  },
+  {
+    action: 'billing.checkout',
+    method: 'post',
+    path: '/billing/checkout',
+    success: 200,
+    prepare: async () => {
+      await subscribed(false);
+      // 1000 seats: at least the seats the matrix's members take
+      return { url: '/billing/checkout', body: { plan: 'firm', seats: 1000 } };
+    },
+  },
+  {
+    action: 'billing.seats',
+    method: 'patch',
+    path: '/billing/seats',
+    success: 202,
+    prepare: async () => {
+      const sub = await subscribed(true);
+      return {
+        url: '/billing/seats',
+        body: { seats: 999 },
+        changed: async () =>
+          (await pay.stripe.subscriptions.retrieve(sub ?? '')).items.data[0]?.quantity === 999,
+      };
+    },
+  },
+  {
+    action: 'billing.cancel',
+    method: 'post',
+    path: '/billing/cancel',
+    success: 202,
+    prepare: async () => {
+      const sub = await subscribed(true);
+      return {
+        url: '/billing/cancel',
+        changed: async () =>
+          (await pay.stripe.subscriptions.retrieve(sub ?? '')).cancel_at_period_end,
+      };
+    },
+  },
+  {
+    action: 'billing.resume',
+    method: 'post',
+    path: '/billing/resume',
+    success: 202,
+    prepare: async () => {
+      const sub = await subscribed(true);
+      await pay.stripe.subscriptions.update(sub ?? '', { cancel_at_period_end: true });
+      return {
+        url: '/billing/resume',
+        changed: async () =>
+          !(await pay.stripe.subscriptions.retrieve(sub ?? '')).cancel_at_period_end,
+      };
+    },
+  },
+  {
+    action: 'billing.portal',
+    method: 'post',
+    path: '/billing/portal',
+    success: 200,
+    prepare: async () => {
+      await subscribed(true);
+      return { url: '/billing/portal' };
     },
   },
 ];

@@ -6,6 +6,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import openapi from '../../api/src/openapi.json' with { type: 'json' };
 import { addMember, bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
+import { fakePaymentsForFile } from '../support/fake-payments';
 
 const RUNS = 10_000;
 /** Far beyond any answer on a busy machine: a request still open then has hung. */
@@ -56,6 +57,9 @@ let ownerToken = '';
 let viewerToken = '';
 let projectId = '';
 let memberId = '';
+
+// The billing routes call the payment service: its local stand-in runs for this file.
+fakePaymentsForFile();
 
 const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'generated');

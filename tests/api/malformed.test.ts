@@ -3,6 +3,7 @@ import openapi from '../../api/src/openapi.json' with { type: 'json' };
 import { MAX_JSON_DEPTH } from '../../api/src/middlewares/request-shape';
 import { fenwickDesign } from '../../seed/designs';
 import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
+import { fakePaymentsForFile } from '../support/fake-payments';
 
 // Every operation of the OpenAPI document, fed bodies, ids and query strings that are wrong in
 // every way we could think of: the answer is always a 4xx (or a success for input that is merely
@@ -12,6 +13,9 @@ let token = '';
 let firmId = '';
 let projectId = '';
 let memberId = '';
+
+// The billing routes call the payment service: its local stand-in runs for this file.
+fakePaymentsForFile();
 
 const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'malformed');
@@ -35,6 +39,25 @@ for (const [path, item] of Object.entries(
   for (const method of Object.keys(item)) {
     if (['get', 'post', 'put', 'patch', 'delete'].includes(method))
       operations.push({ method: method as Method, path });
+  }
+}
+
+/**
+ * Operations whose body is a signed event read as raw bytes (the payment service's webhook): it
+ * is never parsed before its signature is checked, so junk there is a 400 `bad_request` (no
+ * signature), not the JSON parser's `bad_json` or a field's 422. Checked as such below.
+ */
+const SIGNED_RAW = new Set(['/billing/webhook']);
+
+async function expectUnsignedRefused(raw: string, what: string): Promise<void> {
+  for (const path of SIGNED_RAW) {
+    const res = await h
+      .http()
+      .post(`/api/v1${path}`)
+      .set('Content-Type', 'application/json')
+      .send(raw);
+    expect(res.status, `${path} with ${what}`).toBe(400);
+    expect(res.body.code).toBe('bad_request');
   }
 }
 
@@ -223,7 +246,11 @@ describe('no operation answers 500 to malformed input', () => {
     const justOver = JSON.stringify(deep(MAX_JSON_DEPTH + 1));
     const deepArray = `${'['.repeat(MAX_JSON_DEPTH + 1)}${']'.repeat(MAX_JSON_DEPTH + 1)}`;
     const withBody = operations.filter(
-      (o) => o.method !== 'get' && o.method !== 'delete' && o.path !== '/auth/logout',
+      (o) =>
+        o.method !== 'get' &&
+        o.method !== 'delete' &&
+        o.path !== '/auth/logout' &&
+        !SIGNED_RAW.has(o.path),
     );
     for (const { method, path } of withBody) {
       for (const raw of [deepRaw, justOver, deepArray]) {
@@ -237,6 +264,8 @@ describe('no operation answers 500 to malformed input', () => {
         expect(res.body.code).toBe('bad_json');
       }
     }
+    for (const raw of [deepRaw, justOver, deepArray])
+      await expectUnsignedRefused(raw, `${raw.length} bytes of deep JSON`);
     // At the limit it is read (and then judged on its content, here a 401 for no session).
     const atLimit = await h
       .http()
@@ -313,7 +342,11 @@ describe('no operation answers 500 to malformed input', () => {
 
     it('on every operation with a body and in query strings', async () => {
       const withBody = operations.filter(
-        (o) => o.method !== 'get' && o.method !== 'delete' && o.path !== '/auth/logout',
+        (o) =>
+          o.method !== 'get' &&
+          o.method !== 'delete' &&
+          o.path !== '/auth/logout' &&
+          !SIGNED_RAW.has(o.path),
       );
       for (const { method, path } of withBody) {
         for (const [label, bad] of BAD_TEXT) {
@@ -327,6 +360,7 @@ describe('no operation answers 500 to malformed input', () => {
           expect(res.body.code).toBe('validation_error');
         }
       }
+      for (const [label, bad] of BAD_TEXT) await expectUnsignedRefused(`{"name":"${bad}"}`, label);
       for (const q of ['search=%00', 'search=%ED%A0%80x', 'search=a%00b&page=1']) {
         const res = await h.http().get(`/api/v1/projects?${q}`).set(bearer(token));
         expectClientError(res, `GET /projects?${q}`);

@@ -26,6 +26,8 @@ describe('configuration in production', () => {
     ['SMTP_HOST', /SMTP_HOST is required in production/],
     ['SMTP_PORT', /SMTP_PORT is required in production/],
     ['APP_URL', /APP_URL is required in production/],
+    ['STRIPE_SECRET_KEY', /STRIPE_SECRET_KEY is required in production/],
+    ['STRIPE_WEBHOOK_SECRET', /STRIPE_WEBHOOK_SECRET is required in production/],
   ])('refuses a production environment without %s', (name, message) => {
     const env: Record<string, string | undefined> = complete();
     delete env[name];
@@ -60,6 +62,8 @@ describe('the server process', () => {
       /SMTP_HOST is required in production/,
       /SMTP_PORT is required in production/,
       /APP_URL is required in production/,
+      /STRIPE_SECRET_KEY is required in production/,
+      /STRIPE_WEBHOOK_SECRET is required in production/,
     ])
       expect(output).toMatch(message);
     expect(output).not.toMatch(/listening on/);

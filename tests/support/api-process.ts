@@ -21,6 +21,11 @@ export function serverEnv(databaseUrl: string): Record<string, string> {
     APP_URL: TEST_APP_URL,
     LOG_LEVEL: 'info',
     WEB_DIST: '',
+    // Required in production; these processes never call the payment service, and if one did it
+    // would meet a closed loopback port, never the outside world.
+    STRIPE_SECRET_KEY: 'sk_test_process',
+    STRIPE_WEBHOOK_SECRET: 'whsec_test_process',
+    STRIPE_API_BASE: 'http://127.0.0.1:9',
   };
 }
 
@@ -29,7 +34,7 @@ function cleanEnv(): NodeJS.ProcessEnv {
   const env = { ...process.env };
   for (const key of Object.keys(env)) {
     if (
-      /^(NODE_ENV|HOST|PORT|DATABASE_|JWT_|BCRYPT_|SMTP_|MAIL_|APP_URL|LOG_LEVEL|WEB_DIST|TRUST_PROXY|MIGRATE_)/.test(
+      /^(NODE_ENV|HOST|PORT|DATABASE_|JWT_|BCRYPT_|SMTP_|MAIL_|APP_URL|LOG_LEVEL|WEB_DIST|TRUST_PROXY|MIGRATE_|STRIPE_|BILLING_)/.test(
         key,
       )
     )

@@ -27,6 +27,20 @@ export interface Config {
   migrateOnStart: boolean;
   /** The worker-thread pool that runs the engine off the event loop (calc.pool.ts). */
   compute: ComputeConfig;
+  /** The payment service (modules/billing): the real one, or the local fake by STRIPE_API_BASE. */
+  stripe: StripeConfig;
+}
+
+export interface StripeConfig {
+  secretKey: string;
+  /** signs the events the payment service POSTs to /api/v1/billing/webhook */
+  webhookSecret: string;
+  /** null: the SDK's own address (the real service); else where the local fake listens */
+  apiBase: { host: string; port: number; protocol: 'http' | 'https' } | null;
+  /** the per-seat price of each paid plan */
+  prices: { professional: string; firm: string };
+  /** days a firm whose payment failed keeps working before it becomes read-only */
+  graceDays: number;
 }
 
 export interface ComputeConfig {
@@ -202,6 +216,48 @@ export function loadConfig(env: Env): Config {
     nice: readInt(env, 'CALC_NICE', 10, 0, 19, problems),
   };
 
+  // Outside production the payment settings default to the local fake's (scripts/fake-stripe.ts);
+  // in production the secret key and the webhook secret must be given.
+  if (production) {
+    for (const [name, what] of [
+      ['STRIPE_SECRET_KEY', "the payment service's secret API key"],
+      ['STRIPE_WEBHOOK_SECRET', "the webhook endpoint's signing secret"],
+    ] as const) {
+      if (blank(env[name])) problems.push(`${name} is required in production (${what}).`);
+    }
+  }
+  let apiBase: StripeConfig['apiBase'] = null;
+  if (!blank(env.STRIPE_API_BASE)) {
+    try {
+      const url = new URL(env.STRIPE_API_BASE.trim());
+      if (url.protocol !== 'http:' && url.protocol !== 'https:') throw new Error('protocol');
+      const protocol = url.protocol === 'http:' ? 'http' : 'https';
+      apiBase = {
+        host: url.hostname,
+        port: url.port === '' ? (protocol === 'http' ? 80 : 443) : Number(url.port),
+        protocol,
+      };
+    } catch {
+      problems.push(
+        `STRIPE_API_BASE must be an http(s) URL such as http://127.0.0.1:12111 (got "${env.STRIPE_API_BASE}").`,
+      );
+    }
+  }
+  const stripe: StripeConfig = {
+    secretKey: blank(env.STRIPE_SECRET_KEY) ? 'sk_test_local' : env.STRIPE_SECRET_KEY.trim(),
+    webhookSecret: blank(env.STRIPE_WEBHOOK_SECRET)
+      ? 'whsec_local'
+      : env.STRIPE_WEBHOOK_SECRET.trim(),
+    apiBase,
+    prices: {
+      professional: blank(env.STRIPE_PRICE_PROFESSIONAL)
+        ? 'price_professional_seat'
+        : env.STRIPE_PRICE_PROFESSIONAL.trim(),
+      firm: blank(env.STRIPE_PRICE_FIRM) ? 'price_firm_seat' : env.STRIPE_PRICE_FIRM.trim(),
+    },
+    graceDays: readInt(env, 'BILLING_GRACE_DAYS', 14, 1, 90, problems),
+  };
+
   const config: Config = {
     nodeEnv,
     host,
@@ -220,6 +276,7 @@ export function loadConfig(env: Env): Config {
     trustProxy: readTrustProxy(env.TRUST_PROXY),
     migrateOnStart: env.MIGRATE_ON_START === '1' || env.MIGRATE_ON_START === 'true',
     compute,
+    stripe,
   };
   if (problems.length > 0) throw new ConfigError(problems);
   return config;

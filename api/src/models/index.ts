@@ -1,4 +1,5 @@
 import { sequelize } from '../db/sequelize';
+import { BillingEvent } from './BillingEvent';
 import { Design } from './Design';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
@@ -15,6 +16,7 @@ Invitation.initModel(sequelize);
 PasswordReset.initModel(sequelize);
 Design.initModel(sequelize);
 SignupRequest.initModel(sequelize);
+BillingEvent.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -29,4 +31,14 @@ Project.hasOne(Design, { as: 'design', foreignKey: 'projectId' });
 Design.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 Design.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
 
-export { sequelize, Design, Firm, Invitation, PasswordReset, Project, SignupRequest, User };
+export {
+  sequelize,
+  BillingEvent,
+  Design,
+  Firm,
+  Invitation,
+  PasswordReset,
+  Project,
+  SignupRequest,
+  User,
+};

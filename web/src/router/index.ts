@@ -110,6 +110,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, can: 'brand.read', title: 'Firm brand' },
   },
   {
+    path: '/billing',
+    name: 'billing',
+    component: () => import('@/views/BillingView.vue'),
+    meta: { requiresAuth: true, can: 'billing.read', title: 'Billing' },
+  },
+  {
     path: '/account',
     name: 'account',
     component: () => import('@/views/AccountView.vue'),

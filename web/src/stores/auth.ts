@@ -107,6 +107,13 @@ export const useAuthStore = defineStore('auth', () => {
     firm.value = me.firm;
   }
 
+  /** Reads the firm again (its plan and seats change through billing): the plan badge follows. */
+  async function refreshFirm(): Promise<void> {
+    const me = await authApi.me();
+    user.value = me.user;
+    firm.value = me.firm;
+  }
+
   /** Changes the password; the server ends every other session and hands this one a new token. */
   async function changePassword(currentPassword: string, newPassword: string): Promise<void> {
     setSession(await authApi.changePassword({ currentPassword, newPassword }));
@@ -138,6 +145,7 @@ export const useAuthStore = defineStore('auth', () => {
     signUp,
     confirmSignUp,
     resetPassword,
+    refreshFirm,
     acceptInvitation,
     updateProfile,
     changePassword,

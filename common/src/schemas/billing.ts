@@ -1,0 +1,27 @@
+import { number, object, string, type InferType } from 'yup';
+import type { Plan } from './limits';
+
+/** Plans bought through the payment service (Concept is free and never bought). */
+export const PAID_PLANS = ['professional', 'firm'] as const satisfies readonly Plan[];
+export type PaidPlan = (typeof PAID_PLANS)[number];
+
+/** Most seats one firm may buy in one step (a bound on input, not a plan limit). */
+export const MAX_SEATS = 1000;
+
+const seatsField = number()
+  .typeError('Seats must be a whole number.')
+  .required('Give the number of seats.')
+  .integer('Seats must be a whole number.')
+  .min(1, 'Buy at least one seat.')
+  .max(MAX_SEATS, `At most ${MAX_SEATS} seats.`);
+
+export const checkoutSchema = object({
+  plan: string<PaidPlan>()
+    .required('Choose a plan.')
+    .oneOf(PAID_PLANS, 'Choose Professional or Firm.'),
+  seats: seatsField,
+});
+export type CheckoutInput = InferType<typeof checkoutSchema>;
+
+export const seatChangeSchema = object({ seats: seatsField });
+export type SeatChangeInput = InferType<typeof seatChangeSchema>;
