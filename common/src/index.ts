@@ -39,3 +39,38 @@ export * from './basins';
 
 // Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
 export * from './drawing';
+
+// Take-off of a sized design: quantities by element, their assumptions, the project's units
+export {
+  DEFAULT_SOIL,
+  SOIL_KINDS,
+  SOIL_SIDE_SLOPES,
+  TAKEOFF_ASSUMPTIONS,
+  TAKEOFF_ASSUMPTION_KEYS,
+  TAKEOFF_ASSUMPTION_LABELS,
+  TAKEOFF_ELEMENTS,
+  TAKEOFF_ITEM_KINDS,
+  TAKEOFF_QUANTITY_KINDS,
+  assumptionFromSI,
+  assumptionToSI,
+  formatTakeoff,
+  formatTakeoffTotals,
+  pitVolume,
+  takeoff,
+  takeoffAssumptions,
+  takeoffOverridesFromSI,
+  takeoffOverridesToSI,
+  takeoffQuantity,
+  type DisplayTakeoffLine,
+  type SoilKind,
+  type Takeoff,
+  type TakeoffAssumption,
+  type TakeoffAssumptionKey,
+  type TakeoffAssumptionSpec,
+  type TakeoffAssumptionUnit,
+  type TakeoffElement,
+  type TakeoffItemKind,
+  type TakeoffLine,
+  type TakeoffOverrides,
+  type TakeoffQuantityKind,
+} from './takeoff';
