@@ -74,3 +74,37 @@ export {
   type TakeoffOverrides,
   type TakeoffQuantityKind,
 } from './takeoff';
+// Concept estimate maths: priced lines, location factor, percentages, escalation, AACE range
+export {
+  AACE_BANDS,
+  AACE_CLASSES,
+  AACE_SOURCE,
+  ESTIMATE_STEPS,
+  PRICE_UNITS,
+  estimate,
+  isPriceUnit,
+  quantityInUnit,
+  type AaceClass,
+  type EstimateInput,
+  type EstimateLineInput,
+  type EstimateLineResult,
+  type EstimatePercentages,
+  type EstimateResult,
+  type PriceUnit,
+} from './estimate';
+// The sized types side by side and the cheapest design that works (width × type search)
+export {
+  cheapestDesign,
+  checkRates,
+  compareAlternatives,
+  costOf,
+  holdsEverywhere,
+  measuresOf,
+  rangeAtWidth,
+  siRate,
+  type CheapestSearchInput,
+  type CheapestSearchResult,
+  type SearchPoint,
+  type TypeMeasures,
+  type UnitRates,
+} from './search';
