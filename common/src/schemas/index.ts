@@ -7,3 +7,5 @@ export * from './study';
 export * from './design';
 export * from './brand';
 export * from './billing';
+export * from './takeoff';
+export * from './search';
