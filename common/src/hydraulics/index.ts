@@ -52,6 +52,15 @@ export {
   type ToeConditions,
 } from './inflow';
 export type { HeadwaterSpec, InflowNote, StudyInflow, Toe } from './toeByInflow';
+export {
+  CHUTE_SLOPE_RANGE,
+  chuteDepthAt,
+  chuteFoot,
+  chuteProfile,
+  validateChute,
+  type ChuteGeometry,
+  type ChuteProfile,
+} from './chute';
 export * from './tailwater';
 export {
   directStepProfile,
