@@ -39,3 +39,6 @@ export * from './basins';
 
 // Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
 export * from './drawing';
+
+// Uncertainty: sensitivity of the floor (tornado data) and the seeded risk of sweep-out
+export * from './uncertainty';

@@ -4,7 +4,7 @@
 // SI units. [Chow 1959, §10-2 (direct step), §5-6 (Manning); S2 profile below a crest, §9-3]
 import { G } from '../units/constants';
 import { InputError } from '../errors';
-import { ENGINE_LIMITS } from '../schemas/limits';
+import { CHUTE_SLOPE_RANGE, ENGINE_LIMITS } from '../schemas/limits';
 import { _froude, _normalDepth } from './depths';
 import { requireInRange, requirePositive } from './guards';
 import { directStepProfile, type ProfilePoint } from './profiles';
@@ -19,9 +19,6 @@ export interface ChuteGeometry {
   /** Manning's n of the chute lining (formed concrete ≈ 0.013–0.015, common practice) */
   manningN: number;
 }
-
-/** Chute slopes accepted (tan θ): gentler than 1V:1000H is not a chute; steeper than 1V:0.1H is a drop. */
-export const CHUTE_SLOPE_RANGE = { min: 0.001, max: 10 } as const;
 
 /** Depth steps of each stretch of the tabulated profile (three stretches, each nearer yn). */
 const STEPS = 200;

@@ -53,7 +53,6 @@ export {
 } from './inflow';
 export type { HeadwaterSpec, InflowNote, StudyInflow, Toe } from './toeByInflow';
 export {
-  CHUTE_SLOPE_RANGE,
   chuteDepthAt,
   chuteFoot,
   chuteProfile,

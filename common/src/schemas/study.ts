@@ -21,8 +21,7 @@ import type { TailwaterSpec } from '../hydraulics/tailwater';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../range/types';
-import { ENGINE_LIMITS } from './limits';
-import { CHUTE_SLOPE_RANGE } from '../hydraulics/chute';
+import { CHUTE_SLOPE_RANGE, ENGINE_LIMITS } from './limits';
 
 /** Discharges one study may analyse (ENGINE_LIMITS.maxDischarges, the reason there). */
 export const MAX_STUDY_DISCHARGES = ENGINE_LIMITS.maxDischarges;
