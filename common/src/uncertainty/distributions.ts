@@ -2,8 +2,9 @@
 // one uniform number each (so a seed fixes every sample). Pure; no units of their own.
 // Uniform and triangular: closed forms [e.g. Evans, Hastings & Peacock, Statistical
 // Distributions]; the normal truncated to [low, high]: Φ⁻¹(Φ(a) + u·(Φ(b) − Φ(a))) with the
-// error function and its inverse from simple-statistics.
-import { errorFunction, probit } from 'simple-statistics';
+// error function of simple-statistics (|error| < 1.2e-7) and Acklam's rational approximation of
+// Φ⁻¹ (relative error < 1.15e-9; simple-statistics' probit is good to about 1e-3 only).
+import { errorFunction } from 'simple-statistics';
 import { InputError } from '../errors';
 
 export type Distribution =
@@ -61,6 +62,39 @@ export function validateDistribution(d: Distribution, field: string): void {
     `${field}.kind`,
     'invalid',
     `${field}.kind must be 'uniform', 'triangular' or 'normal'`,
+  );
+}
+
+/** Φ⁻¹ by P. J. Acklam's rational approximation (2003; relative error below 1.15e-9). */
+function probit(p: number): number {
+  const a = [
+    -39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716,
+    2.506628277459239,
+  ];
+  const b = [
+    -54.47609879822406, 161.5858368580409, -155.6989798598866, 66.80131188771972,
+    -13.28068155288572,
+  ];
+  const c = [
+    -0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734,
+    4.374664141464968, 2.938163982698783,
+  ];
+  const d = [0.007784695709041462, 0.3224671290700398, 2.445134137142996, 3.754408661907416];
+  const q0 = Math.min(Math.max(p, 1e-300), 1 - 1e-16);
+  const lowTail = 0.02425;
+  if (q0 < lowTail) {
+    const q = Math.sqrt(-2 * Math.log(q0));
+    return (
+      (((((c[0]! * q + c[1]!) * q + c[2]!) * q + c[3]!) * q + c[4]!) * q + c[5]!) /
+      ((((d[0]! * q + d[1]!) * q + d[2]!) * q + d[3]!) * q + 1)
+    );
+  }
+  if (q0 > 1 - lowTail) return -probit(1 - q0);
+  const q = q0 - 0.5;
+  const r = q * q;
+  return (
+    ((((((a[0]! * r + a[1]!) * r + a[2]!) * r + a[3]!) * r + a[4]!) * r + a[5]!) * q) /
+    (((((b[0]! * r + b[1]!) * r + b[2]!) * r + b[3]!) * r + b[4]!) * r + 1)
   );
 }
 

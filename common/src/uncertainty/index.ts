@@ -30,3 +30,4 @@ export {
   type UncertaintyRequest,
   type UncertaintyResult,
 } from './run';
+export { uncertaintyFromSI, uncertaintyToSI } from './edge';

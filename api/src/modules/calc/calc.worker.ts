@@ -5,7 +5,9 @@ import {
   hydraulicJump,
   locateJump,
   runStudy,
+  runUncertainty,
   toSI,
+  uncertaintyToSI,
   type JumpLengthMethod,
   type JumpLocation,
   type JumpResult,
@@ -13,6 +15,8 @@ import {
   type Section,
   type StudyInput,
   type StudyResult,
+  type UncertaintyRequest,
+  type UncertaintyResult,
 } from '@basinwright/common';
 import { presentJump, presentStudy } from './calc.presenter';
 
@@ -28,13 +32,16 @@ export type ComputeTask =
   | { kind: 'study'; input: StudyInput }
   /** the study's presented result as JSON text, for a route that only sends it on */
   | { kind: 'study-json'; input: StudyInput }
-  | { kind: 'jump-position'; body: JumpSituation };
+  | { kind: 'jump-position'; body: JumpSituation }
+  /** sensitivity and seeded risk of the floor (common/src/uncertainty); input in its units */
+  | { kind: 'uncertainty'; input: StudyInput; uncertainty: UncertaintyRequest };
 
 export interface ComputeResults {
   jump: JumpResult;
   study: StudyResult;
   'study-json': string;
   'jump-position': JumpLocation;
+  uncertainty: UncertaintyResult;
 }
 
 /** An error thrown by the engine, as plain data: its class, name, message and own properties. */
@@ -65,6 +72,8 @@ function run(task: ComputeTask): unknown {
       return JSON.stringify(presentStudy(runStudy(toSI(task.input))));
     case 'jump-position':
       return locateJump(task.body);
+    case 'uncertainty':
+      return runUncertainty(toSI(task.input), uncertaintyToSI(task.uncertainty, task.input.units));
   }
 }
 
