@@ -265,7 +265,7 @@ export const UNCERTAINTY_LIMITS = {
   factor: { min: 0.2, max: 5 },
   depth: { SI: 20, US: 65 },
   confidence: { min: 0.5, max: 0.99 },
-  maxBasisLength: 300,
+  maxBasisLength: 1000,
 } as const;
 
 /** Slopes of a computed chute (tan θ): gentler than 1V:1000H is no chute, steeper than 10V:1H is a drop. */
