@@ -10,6 +10,8 @@ import {
   chuteFoot,
   chuteProfile,
   runStudy,
+  studyInputSchema,
+  toSI,
   type StudyInput,
 } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
@@ -131,5 +133,30 @@ describe('the study with the chute computed', () => {
     const t = r.designJump.toe;
     expectRel(t.y1 + (t.v1 * t.v1) / (2 * G), foot.energy, 1e-9);
     expect(t.y1).toBeLessThan(foot.y); // the same energy spread wider runs shallower
+  });
+});
+
+describe('the chute field at the edges', () => {
+  it('the shared schema keeps it and refuses a slope outside its range; toSI turns its width from feet', () => {
+    const raw = {
+      ...fenwickDesign,
+      inflow: { ...fenwickDesign.inflow, chute: { slope: 0.5, manningN: 0.014, width: 10 } },
+    };
+    const cast = studyInputSchema.validateSync(raw, { stripUnknown: true });
+    expect(cast.inflow.kind === 'chute' && cast.inflow.chute).toEqual({
+      slope: 0.5,
+      manningN: 0.014,
+      width: 10,
+    });
+    expect(() =>
+      studyInputSchema.validateSync({
+        ...raw,
+        inflow: { ...raw.inflow, chute: { slope: 20, manningN: 0.014 } },
+      }),
+    ).toThrow('The chute slope must not exceed 10.');
+    // 1 ft = 0.3048 m exactly (NIST); slope and n have no unit
+    const si = toSI({ ...(cast as StudyInput), units: 'US' });
+    const c = si.inflow.kind === 'chute' ? si.inflow.chute : undefined;
+    expect(c).toEqual({ slope: 0.5, manningN: 0.014, width: 10 * 0.3048 });
   });
 });
