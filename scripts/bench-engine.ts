@@ -8,7 +8,12 @@
 // Run: node --import tsx --conditions=@basinwright/source scripts/bench-engine.ts
 import {
   cheapestDesign,
+  defaultUncertainInputs,
+  makeTailwaterRating,
+  prepareRange,
   runStudy,
+  runUncertainty,
+  solveFloor,
   type CheapestSearchResult,
   type StudyInput,
 } from '@basinwright/common';
@@ -168,3 +173,71 @@ record({
   unit: 'ratio',
   target: { op: '<=', value: 1 },
 });
+
+// Uncertainty (issue 12): 2,000 Monte Carlo samples with the default spreads on the demo design
+// against one runStudy, and against its budget: 2,000 tailwater ratings over the range plus
+// 2,000 floor solves on the prepared range (what each sample cannot avoid). CPU time of this
+// process: the ratios should not move with other load on the machine.
+{
+  const cpuSince = (c0: NodeJS.CpuUsage): number => {
+    const c = process.cpuUsage(c0);
+    return (c.user + c.system) / 1000;
+  };
+  const design = fenwickDesign;
+  const spec = {
+    inputs: defaultUncertainInputs(design),
+    samples: 2000,
+    seed: 'bench',
+    confidence: 0.9,
+  };
+  runUncertainty(design, { ...spec, samples: 200 }); // warm up
+  const study: number[] = [];
+  for (let i = 0; i < 9; i++) study.push(once(design).cpu);
+  const mc: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const c0 = process.cpuUsage();
+    runUncertainty(design, spec);
+    mc.push(cpuSince(c0));
+  }
+  const range = prepareRange(design);
+  const tw = design.tailwater;
+  if (tw.kind !== 'manning') throw new Error('the demo rates its tailwater by Manning');
+  const budget: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const c0 = process.cpuUsage();
+    for (let s = 0; s < 2000; s++) {
+      const rating = makeTailwaterRating(
+        { ...tw, manningN: tw.manningN * (0.8 + (0.4 * s) / 2000) },
+        design.channelBedElevation,
+      );
+      solveFloor({ ...range, tw: range.Qs.map((Q) => rating(Q)) }, 1);
+    }
+    budget.push(cpuSince(c0));
+  }
+  const tStudy = median(study);
+  const tMc = median(mc);
+  const tBudget = median(budget);
+  console.log(
+    `uncertainty, 2,000 samples: ${tMc.toFixed(0)} ms = ${(tMc / tStudy).toFixed(1)} × one runStudy (${tStudy.toFixed(1)} ms); ` +
+      `${(tMc / tBudget).toFixed(2)} × 2,000 tailwater ratings + floor solves (${tBudget.toFixed(0)} ms; target ≤ 1.5)`,
+  );
+  record({
+    name: 'engine.uncertainty.2000',
+    label: 'uncertainty, 2,000 samples',
+    value: tMc,
+    unit: 'ms',
+  });
+  record({
+    name: 'ratio.uncertainty.2000vsStudy',
+    label: 'uncertainty 2,000 samples ÷ one runStudy',
+    value: tMc / tStudy,
+    unit: 'ratio',
+  });
+  record({
+    name: 'ratio.uncertainty.2000vsBudget',
+    label: 'uncertainty 2,000 samples ÷ (2,000 tailwater ratings + floor solves)',
+    value: tMc / tBudget,
+    unit: 'ratio',
+    target: { op: '<=', value: 1.5 },
+  });
+}

@@ -133,3 +133,5 @@ export {
   type TypeMeasures,
   type UnitRates,
 } from './search';
+// Uncertainty: sensitivity of the floor (tornado data) and the seeded risk of sweep-out
+export * from './uncertainty';

@@ -12,6 +12,7 @@ import type {
   JumpSituation,
   Verdict,
 } from '@basinwright/common';
+import type { Distribution, UncertainKey } from '@basinwright/common';
 import type { Plan, ProjectStatus, Role, Units } from '@/api/types';
 
 const roles: Record<Role, string> = {
@@ -272,3 +273,27 @@ export const JUMP_CLASS_BANDS: ReadonlyArray<{
   { jumpClass: 'steady', from: 4.5, to: 9, color: '#d1fae5' },
   { jumpClass: 'strong', from: 9, to: null, color: '#e0f2fe' },
 ];
+
+// The Uncertainty panel (Jump check step): the uncertain inputs in plain words.
+export const UNCERTAIN_INPUT_LABEL: Record<UncertainKey, string> = {
+  downstreamN: "Downstream channel Manning's n (× design value)",
+  ratingShift: 'Tailwater rating shift (depth, + up)',
+  bedLowering: 'Long-term bed lowering (depth)',
+  chuteLoss: 'Chute loss allowance, Cv or K, or chute n (× design value)',
+  weirC: 'Weir coefficient C (× design value)',
+  designDischarge: 'Design discharge (× design value)',
+};
+/** The short name of each input on the tornado chart. */
+export const UNCERTAIN_INPUT_SHORT: Record<UncertainKey, string> = {
+  downstreamN: 'Downstream n',
+  ratingShift: 'Rating shift',
+  bedLowering: 'Bed lowering',
+  chuteLoss: 'Chute loss',
+  weirC: 'Weir C',
+  designDischarge: 'Design discharge',
+};
+export const DISTRIBUTION_LABEL: Record<Distribution['kind'], string> = {
+  uniform: 'Uniform',
+  triangular: 'Triangular',
+  normal: 'Normal (truncated)',
+};

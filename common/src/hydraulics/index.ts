@@ -52,6 +52,14 @@ export {
   type ToeConditions,
 } from './inflow';
 export type { HeadwaterSpec, InflowNote, StudyInflow, Toe } from './toeByInflow';
+export {
+  chuteDepthAt,
+  chuteFoot,
+  chuteProfile,
+  validateChute,
+  type ChuteGeometry,
+  type ChuteProfile,
+} from './chute';
 export * from './tailwater';
 export {
   directStepProfile,

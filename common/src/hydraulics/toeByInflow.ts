@@ -22,6 +22,7 @@ import {
   type ToeConditions,
 } from './inflow';
 import { createMonotoneInterpolant, type Interpolant } from './interpolate';
+import { chuteFoot, chuteProfile, validateChute, type ChuteGeometry } from './chute';
 import { validateSection, type Section } from './sections';
 
 export type HeadwaterSpec =
@@ -38,6 +39,11 @@ export type StudyInflow =
       lossModel: LossModel;
       /** velocity head of the approach flow added to the headwater, m (default 0: negligible) */
       approachVelocityHead?: number;
+      /**
+       * the chute's own geometry: when given, y1 comes from its friction (critical depth on the
+       * crest, the step method down the chute; chute.ts) and `lossModel` is not applied
+       */
+      chute?: ChuteGeometry;
     }
   | {
       kind: 'gate';
@@ -111,6 +117,45 @@ export function prepareInflowToes(
   if (!inflow || typeof inflow !== 'object')
     throw new InputError('inflow', 'invalid', 'inflow must be given');
   const notes: InflowNote[] = [];
+  /** The toe from the chute's computed profile, tabulated once per discharge (chute.ts). */
+  const computedChute = (crest: number, geo: ChuteGeometry): InflowToes => {
+    validateChute(geo);
+    const bc = geo.width ?? b;
+    const profiles = Qs.map((Q) => chuteProfile(geo, bc, Q));
+    const y1Of = (i: number, z: number): number => {
+      const foot = chuteFoot(profiles[i]!, crest - z);
+      if (!foot) return -1;
+      // The same width: the chute's depth is y1; else its energy is carried onto the floor.
+      return bc === b ? foot.y : _toeDepthOrNegative(Qs[i]! / b, foot.energy, { kind: 'none' });
+    };
+    return {
+      y1At: y1Of,
+      toeAt: (i, z) => {
+        const y1 = y1Of(i, z);
+        if (!(y1 > 0))
+          throw new InputError(
+            'floorElevation',
+            'above-energy-line',
+            `the floor at ${fmt(z)} m leaves no chute below the crest at ${fmt(crest)} m to carry Q = ${fmt(Qs[i]!)} m³/s onto it`,
+            { floorElevation: z, Q: Qs[i]! },
+          );
+        const q = Qs[i]! / b;
+        const v1 = q / y1;
+        const H0 = crest + 1.5 * profiles[i]!.yc - z; // critical flow on the crest: E = 1.5·yc
+        return {
+          q,
+          y1,
+          v1,
+          fr1: v1 / Math.sqrt(G * y1),
+          H0,
+          headLoss: Math.max(0, H0 - y1 - (v1 * v1) / (2 * G)),
+          gate: null,
+        };
+      },
+      floorDependent: true,
+      notes,
+    };
+  };
   switch (inflow.kind) {
     case 'chute': {
       requireFinite('inflow.crestElevation', inflow.crestElevation);
@@ -148,6 +193,7 @@ export function prepareInflowToes(
           'invalid',
           `inflow.headwater.kind must be 'weir' or 'table'`,
         );
+      if (inflow.chute !== undefined) return computedChute(inflow.crestElevation, inflow.chute);
       const loss = inflow.lossModel;
       const energy = hws.map((h) => h + hv);
       return {

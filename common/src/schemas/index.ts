@@ -9,3 +9,4 @@ export * from './brand';
 export * from './billing';
 export * from './takeoff';
 export * from './search';
+export * from './uncertainty';

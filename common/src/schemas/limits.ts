@@ -284,3 +284,23 @@ export const SEARCH_LIMITS = {
   maxWidthSteps: 41,
   defaultWidthSteps: 9,
 } as const;
+
+/**
+ * Bounds of an uncertainty run (common/src/uncertainty), each with its reason. Samples: each
+ * costs a floor solve (and a tailwater rating when the downstream n varies), so 20,000 keeps a
+ * run on the demo design within seconds; factors multiply a design value (0.2–5 covers every
+ * spread of Manning's n between texts' minimum and maximum with room); depths are a rating shift
+ * or a bed lowering, within the span the site checks allow (MAX_ELEVATION_SPAN is far larger;
+ * 20 m / 65 ft is more than any degradation a concept study should carry); the confidence of the
+ * floor is read from the samples, so it stays where a few thousand samples say something.
+ */
+export const UNCERTAINTY_LIMITS = {
+  maxSamples: 20_000,
+  factor: { min: 0.2, max: 5 },
+  depth: { SI: 20, US: 65 },
+  confidence: { min: 0.5, max: 0.99 },
+  maxBasisLength: 1000,
+} as const;
+
+/** Slopes of a computed chute (tan θ): gentler than 1V:1000H is no chute, steeper than 10V:1H is a drop. */
+export const CHUTE_SLOPE_RANGE = { min: 0.001, max: 10 } as const;

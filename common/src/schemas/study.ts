@@ -21,7 +21,7 @@ import type { TailwaterSpec } from '../hydraulics/tailwater';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../range/types';
-import { ENGINE_LIMITS } from './limits';
+import { CHUTE_SLOPE_RANGE, ENGINE_LIMITS } from './limits';
 
 /** Discharges one study may analyse (ENGINE_LIMITS.maxDischarges, the reason there). */
 export const MAX_STUDY_DISCHARGES = ENGINE_LIMITS.maxDischarges;
@@ -309,6 +309,22 @@ const inflowSchema = byKind<StudyInflow, 'kind'>('kind', 'the inflow type', {
     lossModel: lossModelSchema,
     approachVelocityHead: num('the approach velocity head')
       .min(0, 'The approach velocity head must not be negative.')
+      .optional(),
+    // The chute computed (hydraulics/chute.ts): its geometry replaces the loss allowance.
+    chute: object({
+      slope: num('the chute slope')
+        .min(CHUTE_SLOPE_RANGE.min, `The chute slope must be at least ${CHUTE_SLOPE_RANGE.min}.`)
+        .max(CHUTE_SLOPE_RANGE.max, `The chute slope must not exceed ${CHUTE_SLOPE_RANGE.max}.`)
+        .required('Enter the chute slope.'),
+      width: num('the chute width')
+        .positive('The chute width must be greater than zero.')
+        .optional(),
+      manningN: num("the chute's Manning's n")
+        .min(N_RANGE.min, `The chute's Manning's n must be at least ${N_RANGE.min}.`)
+        .max(N_RANGE.max, `The chute's Manning's n must not exceed ${N_RANGE.max}.`)
+        .required("Enter the chute's Manning's n."),
+    })
+      .default(undefined)
       .optional(),
   }),
   gate: object({

@@ -3,8 +3,13 @@
 // older one supersedes it: the worker is ended and a fresh one started, so long runs never queue
 // behind each other and a late answer to an older input is never shown. Where there is no
 // Worker (jsdom in the unit tests) the study runs in the thread, synchronously.
-import type { CheapestSearchResult, DissipatorTypeId } from '@basinwright/common';
+import type {
+  CheapestSearchResult,
+  DissipatorTypeId,
+  UncertaintyRequest,
+} from '@basinwright/common';
 import type { StudyOutcome } from '@/composables/useStudy';
+import type { UncertaintyOutcome } from '@/composables/useUncertainty';
 
 /** One evaluation: the form's raw values and the basin type chosen beside them. */
 export interface StudyRequest {
@@ -227,6 +232,106 @@ export function createSearchClient(options: {
           resolve(evaluate(request));
         };
         own.postMessage({ id, search: { body: plainCopy(request.body) } });
+      });
+    },
+    cancel,
+    dispose: cancel,
+  };
+}
+
+// The Uncertainty panel's run (composables/useUncertainty.ts) in a worker of its own, on the
+// same script: progress messages while it runs, cancelled by ending the worker.
+
+/** Page → worker: one uncertainty run. */
+export interface UncertaintyCall {
+  kind: 'uncertainty';
+  id: number;
+  raw: unknown;
+  spec: UncertaintyRequest;
+}
+
+/** Worker → page: progress while it runs, then the outcome. */
+export type UncertaintyMessage =
+  | { id: number; progress: { done: number; total: number } }
+  | { id: number; outcome: UncertaintyOutcome };
+
+export interface UncertaintyPort {
+  postMessage(call: UncertaintyCall): void;
+  terminate(): void;
+  onmessage: ((event: MessageEvent<UncertaintyMessage>) => void) | null;
+  onerror: ((event: Event) => void) | null;
+}
+
+export interface UncertaintyClient {
+  /** the outcome, or null when cancelled (or superseded by a newer run) */
+  run(
+    raw: unknown,
+    spec: UncertaintyRequest,
+    onProgress: (done: number, total: number) => void,
+  ): Promise<UncertaintyOutcome | null>;
+  cancel(): void;
+  dispose(): void;
+}
+
+/**
+ * Runs in a worker (a fresh one for each run; cancel ends it), or in the thread where there is
+ * no Worker or the worker failed to load.
+ */
+export function createUncertaintyClient(options: {
+  spawn: (() => UncertaintyPort) | null;
+  evaluate: (
+    raw: unknown,
+    spec: UncertaintyRequest,
+    onProgress: (done: number, total: number) => void,
+  ) => UncertaintyOutcome;
+}): UncertaintyClient {
+  const { spawn, evaluate } = options;
+  let port: UncertaintyPort | null = null;
+  let pending: ((o: UncertaintyOutcome | null) => void) | null = null;
+  let lastId = 0;
+  let failed = spawn === null;
+  const cancel = (): void => {
+    port?.terminate();
+    port = null;
+    const done = pending;
+    pending = null;
+    done?.(null);
+  };
+  return {
+    run(raw, spec, onProgress) {
+      cancel();
+      if (failed || spawn === null) return Promise.resolve(evaluate(raw, spec, onProgress));
+      const id = ++lastId;
+      const own = spawn();
+      port = own;
+      return new Promise((resolve) => {
+        pending = resolve;
+        own.onmessage = (event) => {
+          if (own !== port || event.data.id !== id) return;
+          if ('progress' in event.data) {
+            onProgress(event.data.progress.done, event.data.progress.total);
+            return;
+          }
+          own.terminate();
+          port = null;
+          pending = null;
+          resolve(event.data.outcome);
+        };
+        own.onerror = (event) => {
+          if (own !== port) return;
+          event.preventDefault?.();
+          own.terminate();
+          port = null;
+          pending = null;
+          failed = true;
+          resolve(evaluate(raw, spec, onProgress));
+        };
+        own.postMessage({
+          kind: 'uncertainty',
+          id,
+          raw: plainCopy(raw),
+          spec: plainCopy(spec) as UncertaintyRequest,
+        });
       });
     },
     cancel,

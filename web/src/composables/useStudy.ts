@@ -34,6 +34,8 @@ const FIELD_WORDS: Array<[RegExp, string]> = [
   [/^inflow\.lossModel\b/, 'Loss allowance'],
   [/^inflow\.outlet\b/, 'Outlet flow'],
   [/^inflow\.toe\b/, 'Toe conditions'],
+  [/^inflow\.chute\b/, 'Chute'],
+  [/^uncertainty\b/, 'Uncertain inputs'],
   [/^inflow\b/, 'Inflow'],
   [/^floorElevation\b/, 'Floor elevation'],
   [/^tailwaterFactor\b/, 'Tailwater factor'],

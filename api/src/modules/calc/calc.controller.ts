@@ -1,5 +1,10 @@
 import type { Request, Response } from 'express';
-import type { CheapestRequest, JumpSituation, StudyInput } from '@basinwright/common';
+import type {
+  CheapestRequest,
+  JumpSituation,
+  StudyInput,
+  UncertaintyRequest,
+} from '@basinwright/common';
 import * as calc from './calc.service';
 
 // The worker presents the results (calc.worker.ts): the controllers only send them.
@@ -22,4 +27,13 @@ export async function jumpPosition(req: Request, res: Response): Promise<void> {
 export async function cheapest(req: Request, res: Response): Promise<void> {
   // Cast by validate(cheapestRequestSchema).
   res.json(await calc.calculateCheapest(req.body as CheapestRequest));
+}
+
+export async function uncertainty(req: Request, res: Response): Promise<void> {
+  // Cast by validate(uncertaintyRequestSchema).
+  res.json(
+    await calc.calculateUncertainty(
+      req.body as { input: StudyInput; uncertainty: UncertaintyRequest },
+    ),
+  );
 }

@@ -60,6 +60,12 @@ function largest(task: ComputeTask): { field: string; label: string; value: numb
     const [top] = studySizes(task.body.input);
     if (top !== undefined) return { ...top, field: `input.${top.field}` };
   }
+  if (task.kind === 'uncertainty')
+    return {
+      field: 'uncertainty.samples',
+      label: 'the number of samples',
+      value: task.uncertainty.samples,
+    };
   return { field: 'body', label: 'the request', value: NaN };
 }
 

@@ -4,6 +4,7 @@ import {
   jumpRequestSchema,
   jumpSituationSchema,
   studyInputSchema,
+  uncertaintyRequestSchema,
 } from '@basinwright/common';
 import { authenticateSession } from '../../middlewares/auth';
 import { validate } from '../../middlewares/validate';
@@ -21,5 +22,6 @@ export function calcRouter(auth: RequestHandler = authenticateSession): Router {
   router.post('/study', validate(studyInputSchema), controller.study);
   router.post('/jump-position', validate(jumpSituationSchema), controller.jumpPosition);
   router.post('/cheapest', validate(cheapestRequestSchema), controller.cheapest);
+  router.post('/uncertainty', validate(uncertaintyRequestSchema), controller.uncertainty);
   return router;
 }

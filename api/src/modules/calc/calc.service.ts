@@ -6,6 +6,8 @@ import type {
   JumpSituation,
   StudyInput,
   StudyResult,
+  UncertaintyRequest,
+  UncertaintyResult,
 } from '@basinwright/common';
 import { ApiError, fromEngineError } from '../../errors';
 import { computePool } from './calc.pool';
@@ -69,6 +71,25 @@ export async function calculateJumpPosition(body: JumpSituation): Promise<JumpLo
 export async function calculateCheapest(body: CheapestRequest): Promise<CheapestSearchResult> {
   try {
     return await computePool().run({ kind: 'cheapest', body });
+  } catch (error) {
+    throw fromEngineError(error, '', body.input.units);
+  }
+}
+
+/**
+ * Sensitivity and seeded risk of the floor (POST /calc/uncertainty): the study input in its own
+ * units, depths of the uncertain inputs in the same units; the result is SI.
+ */
+export async function calculateUncertainty(body: {
+  input: StudyInput;
+  uncertainty: UncertaintyRequest;
+}): Promise<UncertaintyResult> {
+  try {
+    return await computePool().run({
+      kind: 'uncertainty',
+      input: body.input,
+      uncertainty: body.uncertainty,
+    });
   } catch (error) {
     throw fromEngineError(error, '', body.input.units);
   }

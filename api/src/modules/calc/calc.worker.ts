@@ -6,9 +6,11 @@ import {
   hydraulicJump,
   locateJump,
   runStudy,
+  runUncertainty,
   toSI,
   type CheapestRequest,
   type CheapestSearchResult,
+  uncertaintyToSI,
   type JumpLengthMethod,
   type JumpLocation,
   type JumpResult,
@@ -16,6 +18,8 @@ import {
   type Section,
   type StudyInput,
   type StudyResult,
+  type UncertaintyRequest,
+  type UncertaintyResult,
 } from '@basinwright/common';
 import { presentJump, presentStudy } from './calc.presenter';
 
@@ -33,7 +37,9 @@ export type ComputeTask =
   | { kind: 'study-json'; input: StudyInput }
   | { kind: 'jump-position'; body: JumpSituation }
   /** the cheapest design over width × passing types (POST /calc/cheapest) */
-  | { kind: 'cheapest'; body: CheapestRequest };
+  | { kind: 'cheapest'; body: CheapestRequest }
+  /** sensitivity and seeded risk of the floor (common/src/uncertainty); input in its units */
+  | { kind: 'uncertainty'; input: StudyInput; uncertainty: UncertaintyRequest };
 
 export interface ComputeResults {
   jump: JumpResult;
@@ -41,6 +47,7 @@ export interface ComputeResults {
   'study-json': string;
   'jump-position': JumpLocation;
   cheapest: CheapestSearchResult;
+  uncertainty: UncertaintyResult;
 }
 
 /** An error thrown by the engine, as plain data: its class, name, message and own properties. */
@@ -73,6 +80,8 @@ function run(task: ComputeTask): unknown {
       return locateJump(task.body);
     case 'cheapest':
       return cheapestFromRequest(task.body);
+    case 'uncertainty':
+      return runUncertainty(toSI(task.input), uncertaintyToSI(task.uncertainty, task.input.units));
   }
 }
 
