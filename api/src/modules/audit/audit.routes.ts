@@ -5,13 +5,13 @@ import * as controller from './audit.controller';
 /** The firm's audit trail: GET /audit (the firm's latest steps). */
 export function auditRouter(): Router {
   const router = Router();
-  router.get('/', guard('audit.read'), controller.listFirm);
+  router.get('/', guard('audit.firm'), controller.listFirm);
   return router;
 }
 
 /** GET /projects/:id/audit: every step on one project. */
 export function projectAuditRouter(): Router {
   const router = Router();
-  router.get('/:id/audit', guard('audit.read'), controller.listProject);
+  router.get('/:id/audit', guard('audit.project'), controller.listProject);
   return router;
 }

@@ -9,10 +9,10 @@ export function reviewersRouter(): Router {
   const router = Router();
   router.put(
     '/:id/reviewer',
-    guard('reviewers.manage'),
+    guard('reviewers.mark'),
     validate(reviewerMarkSchema),
     controller.mark,
   );
-  router.delete('/:id/reviewer', guard('reviewers.manage'), controller.unmark);
+  router.delete('/:id/reviewer', guard('reviewers.unmark'), controller.unmark);
   return router;
 }

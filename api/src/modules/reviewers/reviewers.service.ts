@@ -29,7 +29,7 @@ export async function markReviewer(
     });
     if (member === null) throw notFound(NO_MEMBER);
     if (!member.active) throw conflict('Reactivate the member before marking them as reviewer.');
-    if (!can(member.role, 'versions.review')) {
+    if (!can(member.role, 'versions.approve')) {
       throw conflict('A reviewer needs the owner, admin or engineer role.');
     }
     const existing = await ReviewerCredential.findOne({

@@ -7,7 +7,7 @@ import * as controller from './versions.controller';
 /** A project's issued versions and their review, under /projects/:id/versions. */
 export function versionsRouter(): Router {
   const router = Router();
-  router.get('/:id/versions', guard('versions.read'), controller.list);
+  router.get('/:id/versions', guard('versions.list'), controller.list);
   router.post(
     '/:id/versions',
     guard('versions.issue'),
@@ -16,19 +16,18 @@ export function versionsRouter(): Router {
   );
   router.get('/:id/versions/:versionId', guard('versions.read'), controller.read);
   // An issued version never changes: every attempt answers 409 (404 when there is none).
-  router.put('/:id/versions/:versionId', guard('versions.issue'), controller.refuseChange);
-  router.patch('/:id/versions/:versionId', guard('versions.issue'), controller.refuseChange);
-  router.delete('/:id/versions/:versionId', guard('versions.issue'), controller.refuseChange);
+  router.put('/:id/versions/:versionId', guard('versions.change'), controller.refuseChange);
+  router.delete('/:id/versions/:versionId', guard('versions.delete'), controller.refuseChange);
   router.post('/:id/versions/:versionId/send', guard('versions.send'), controller.send);
   router.post(
     '/:id/versions/:versionId/approve',
-    guard('versions.review'),
+    guard('versions.approve'),
     validate(reviewApproveSchema),
     controller.approve,
   );
   router.post(
     '/:id/versions/:versionId/return',
-    guard('versions.review'),
+    guard('versions.return'),
     validate(reviewReturnSchema),
     controller.giveBack,
   );
