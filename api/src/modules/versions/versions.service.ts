@@ -140,14 +140,16 @@ export async function issueVersion(
   return getVersion(firmId, projectId, id);
 }
 
-/** The version under a row lock, refusing a superseded one for a review step. */
+/**
+ * The version under a row lock, refusing a superseded one for a review step. The caller has
+ * checked the project (getProject) before the transaction: every query here uses it.
+ */
 async function lockVersion(
   firmId: string,
   projectId: string,
   versionId: string,
   transaction: Transaction,
 ): Promise<DesignVersion> {
-  await getProject(firmId, projectId);
   if (!isUuid(versionId)) throw notFound(NOT_FOUND);
   const version = await DesignVersion.findOne({
     where: { id: versionId, firmId, projectId },
@@ -181,6 +183,7 @@ export async function sendForReview(
   versionId: string,
 ): Promise<{ version: DesignVersion; latest: number }> {
   const firmId = actor.firmId;
+  await getProject(firmId, projectId);
   await sequelize.transaction(async (transaction) => {
     const version = await lockVersion(firmId, projectId, versionId, transaction);
     if (version.reviewState !== 'not_sent' && version.reviewState !== 'returned') {
@@ -233,6 +236,7 @@ export async function decide(
   body: ReviewApproveInput | ReviewReturnInput,
 ): Promise<{ version: DesignVersion; latest: number }> {
   const firmId = actor.firmId;
+  await getProject(firmId, projectId);
   await sequelize.transaction(async (transaction) => {
     const credential = await ReviewerCredential.findOne({
       where: { userId: actor.id, firmId },
