@@ -268,6 +268,23 @@ describe('review and sign-off', () => {
   });
 });
 
+describe('reviewer marks', () => {
+  it("only an owner changes an owner's mark; an inactive member cannot be marked", async () => {
+    const admin = await addMember(h, firmId, 'admin');
+    const mark = { licenceNumber: 'PE-9', jurisdiction: 'Harrowdale', statement: 'Reviewed.' };
+    const byAdmin = await api(admin.token).put(`/members/${owner.id}/reviewer`, mark);
+    expect(byAdmin.status).toBe(403);
+    expect(await h.models.ReviewerCredential.findByPk(owner.id)).toBeNull();
+    expect((await api(owner.token).put(`/members/${owner.id}/reviewer`, mark)).status).toBe(200);
+    expect((await api(admin.token).delete(`/members/${owner.id}/reviewer`)).status).toBe(403);
+    expect(await h.models.ReviewerCredential.findByPk(owner.id)).not.toBeNull();
+    const gone = await addMember(h, firmId, 'engineer', { active: false });
+    expect((await api(admin.token).put(`/members/${gone.id}/reviewer`, mark)).status).toBe(409);
+    expect((await api(admin.token).put(`/members/${gone.id}/reviewer`, {})).status).toBe(422);
+    await api(owner.token).delete(`/members/${owner.id}/reviewer`);
+  });
+});
+
 describe("another firm's data answers 404 and changes nothing", () => {
   it('on every new route', async () => {
     const { id } = await newProjectWithDraft('Cross-firm');
