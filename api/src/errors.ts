@@ -50,6 +50,23 @@ export const forbidden = (message = 'Your role does not allow this.') =>
   new ApiError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
 export const conflict = (message: string) => new ApiError(409, 'conflict', message);
+
+/**
+ * A 409 that carries the server's current copy (`current`), so a client whose copy is stale can
+ * reload it or compare it with its own: a draft saved or issued from a stale revision.
+ */
+export class StaleCopyError extends ApiError {
+  constructor(
+    message: string,
+    readonly current: unknown,
+  ) {
+    super(409, 'conflict', message);
+  }
+
+  override toJSON(): { code: ErrorCode; message: string; current: unknown } {
+    return { code: this.code, message: this.message, current: this.current };
+  }
+}
 /**
  * A plan's limit or feature refused the action: 403 `plan_limit`, `details.limit` naming the
  * limit or feature (see common/src/plans.ts) and `details.liftedBy` the plan that lifts it

@@ -32,6 +32,21 @@ export const POLICY = {
   'billing.cancel': ['owner'],
   'billing.resume': ['owner'],
   'billing.portal': ['owner'],
+  // Issued versions and their review (one action a route: the role × route test pairs them).
+  'versions.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'versions.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'versions.issue': ['owner', 'admin', 'engineer'],
+  // an issued version never changes: these answer 409 to whoever may issue
+  'versions.change': ['owner', 'admin', 'engineer'],
+  'versions.delete': ['owner', 'admin', 'engineer'],
+  'versions.send': ['owner', 'admin', 'engineer'],
+  // and the member must be marked as licensed reviewer, and not the version's issuer or sender
+  'versions.approve': ['owner', 'admin', 'engineer'],
+  'versions.return': ['owner', 'admin', 'engineer'],
+  'reviewers.mark': ['owner', 'admin'],
+  'reviewers.unmark': ['owner', 'admin'],
+  'audit.project': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'audit.firm': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -10,3 +10,4 @@ export * from './billing';
 export * from './takeoff';
 export * from './search';
 export * from './uncertainty';
+export * from './version';

@@ -1,7 +1,15 @@
 // Response shapes of the API (see the API contract). Request bodies come from the shared
 // yup schemas in @basinwright/common.
 
-import type { BillingStatus, Plan, ProjectStatus, ProjectUnits, Role } from '@basinwright/common';
+import type {
+  BillingStatus,
+  DesignStatus,
+  Plan,
+  ProjectStatus,
+  ProjectUnits,
+  ReviewState,
+  Role,
+} from '@basinwright/common';
 
 export type { BillingStatus, Plan, ProjectStatus, Role };
 export type Units = ProjectUnits;
@@ -49,6 +57,21 @@ export interface Project {
   updatedAt: string;
   /** Why it cannot be changed now (plan's project limit after a downgrade, billing); null: editable. */
   readOnly: { reason: 'billing' | 'project_over_limit'; message: string } | null;
+  /** the design's review status (its latest issued version's) */
+  designStatus: DesignStatus;
+  latestVersion: { id: string; number: number; reviewState: ReviewState; issuedAt: string } | null;
+}
+
+/** A member marked as licensed reviewer: what is printed with their signature. */
+export interface ReviewerMark {
+  licenceNumber: string;
+  jurisdiction: string;
+  statement: string;
+}
+
+/** A member on the Team page. */
+export interface Member extends User {
+  reviewer: ReviewerMark | null;
 }
 
 export interface Invitation {

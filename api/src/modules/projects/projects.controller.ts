@@ -5,25 +5,28 @@ import { presentProject } from './projects.presenter';
 import * as projects from './projects.service';
 import type { Firm, Project } from '../../models';
 import { readOnlyReasons, requireProjectWritable } from '../plans/plans.service';
+import { latestVersions } from '../versions/versions.service';
 
 export async function list(req: Request, res: Response): Promise<void> {
   const { firm } = authOf(req);
   // Cast by validate(projectListQuerySchema, 'query').
   const page = await projects.listProjects(firm.id, res.locals.query as ProjectListQuery);
-  const reasons = await readOnlyReasons(
-    firm,
-    page.items.map((item) => item.id),
-  );
+  const ids = page.items.map((item) => item.id);
+  const reasons = await readOnlyReasons(firm, ids);
+  const latest = await latestVersions(firm.id, ids);
   res.json({
     ...page,
-    items: page.items.map((item) => presentProject(item, reasons.get(item.id) ?? null)),
+    items: page.items.map((item) =>
+      presentProject(item, reasons.get(item.id) ?? null, latest.get(item.id) ?? null),
+    ),
   });
 }
 
-/** One project with its read-only reason (plan's project cap, billing). */
+/** One project with its read-only reason (plan's project cap, billing) and latest issued version. */
 async function presentOne(firm: Firm, project: Project) {
   const reasons = await readOnlyReasons(firm, [project.id]);
-  return presentProject(project, reasons.get(project.id) ?? null);
+  const latest = await latestVersions(firm.id, [project.id]);
+  return presentProject(project, reasons.get(project.id) ?? null, latest.get(project.id) ?? null);
 }
 
 export async function create(req: Request, res: Response): Promise<void> {

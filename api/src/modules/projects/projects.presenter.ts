@@ -1,4 +1,10 @@
-import type { ProjectStatus, ProjectUnits } from '@basinwright/common';
+import {
+  designStatusOf,
+  type DesignStatus,
+  type ProjectStatus,
+  type ProjectUnits,
+  type ReviewState,
+} from '@basinwright/common';
 import type { Project } from '../../models';
 
 export interface ProjectView {
@@ -14,6 +20,17 @@ export interface ProjectView {
   updatedAt: string;
   /** Why the project cannot be changed now (plan's project cap after a downgrade, billing); null: editable. */
   readOnly: { reason: 'billing' | 'project_over_limit'; message: string } | null;
+  /** the design's review status: its latest issued version's (draft when none is issued or sent) */
+  designStatus: DesignStatus;
+  latestVersion: { id: string; number: number; reviewState: ReviewState; issuedAt: string } | null;
+}
+
+/** The latest issued version of a project, as the list and the project page show it. */
+export interface LatestVersionRecord {
+  id: string;
+  number: number;
+  reviewState: ReviewState;
+  issuedAt: Date;
 }
 
 /** What the presenter reads of a project: a model instance or a row of the list query. */
@@ -25,6 +42,7 @@ export type ProjectRecord = Pick<
 export function presentProject(
   project: ProjectRecord,
   readOnly: ProjectView['readOnly'] = null,
+  latest: LatestVersionRecord | null = null,
 ): ProjectView {
   const by = project.createdBy ?? null;
   return {
@@ -39,5 +57,15 @@ export function presentProject(
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
     readOnly: readOnly === null ? null : { reason: readOnly.reason, message: readOnly.message },
+    designStatus: designStatusOf(latest?.reviewState ?? null),
+    latestVersion:
+      latest === null
+        ? null
+        : {
+            id: latest.id,
+            number: latest.number,
+            reviewState: latest.reviewState,
+            issuedAt: latest.issuedAt.toISOString(),
+          },
   };
 }
