@@ -39,3 +39,5 @@ export * from './basins';
 
 // Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
 export * from './drawing';
+// Charts shared by the web and the proposal PDF: data in the user's units, and SVG
+export * from './charts';
