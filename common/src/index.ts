@@ -33,6 +33,8 @@ export {
 export * from './study';
 // The version of runStudy's answer, stored beside a saved result
 export { ENGINE_VERSION } from './version';
+// Issued versions, review and the audit trail: states, key figures, comparison
+export * from './versions';
 
 // Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation
 export * from './basins';

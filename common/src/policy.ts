@@ -21,6 +21,13 @@ export const POLICY = {
   'projects.delete': ['owner', 'admin', 'engineer'],
   'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'designs.write': ['owner', 'admin', 'engineer'],
+  'versions.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'versions.issue': ['owner', 'admin', 'engineer'],
+  'versions.send': ['owner', 'admin', 'engineer'],
+  // and the member must be marked as licensed reviewer, and not the version's issuer or sender
+  'versions.review': ['owner', 'admin', 'engineer'],
+  'reviewers.manage': ['owner', 'admin'],
+  'audit.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

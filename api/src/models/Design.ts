@@ -25,6 +25,8 @@ export class Design extends Model<InferAttributes<Design>, InferCreationAttribut
   declare result: CreationOptional<StudyResult | null>;
   declare engineVersion: CreationOptional<string | null>;
   declare computedAt: CreationOptional<Date | null>;
+  /** the draft's save counter: the optimistic-concurrency token (a save must send the one it read) */
+  declare revision: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -42,6 +44,7 @@ export class Design extends Model<InferAttributes<Design>, InferCreationAttribut
         result: { type: DataTypes.JSONB, allowNull: true },
         engineVersion: { type: DataTypes.STRING(32), allowNull: true },
         computedAt: { type: DataTypes.DATE, allowNull: true },
+        revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

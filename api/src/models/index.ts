@@ -1,9 +1,12 @@
 import { sequelize } from '../db/sequelize';
+import { AuditEvent } from './AuditEvent';
 import { Design } from './Design';
+import { DesignVersion } from './DesignVersion';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
 import { Project } from './Project';
+import { ReviewerCredential } from './ReviewerCredential';
 import { SignupRequest } from './SignupRequest';
 import { User } from './User';
 
@@ -15,6 +18,9 @@ Invitation.initModel(sequelize);
 PasswordReset.initModel(sequelize);
 Design.initModel(sequelize);
 SignupRequest.initModel(sequelize);
+DesignVersion.initModel(sequelize);
+ReviewerCredential.initModel(sequelize);
+AuditEvent.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -28,5 +34,21 @@ PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
 Project.hasOne(Design, { as: 'design', foreignKey: 'projectId' });
 Design.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 Design.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
+Design.hasMany(DesignVersion, { as: 'versions', foreignKey: 'designId' });
+DesignVersion.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+User.hasOne(ReviewerCredential, { as: 'reviewer', foreignKey: 'userId' });
+ReviewerCredential.belongsTo(User, { as: 'user', foreignKey: 'userId' });
 
-export { sequelize, Design, Firm, Invitation, PasswordReset, Project, SignupRequest, User };
+export {
+  sequelize,
+  AuditEvent,
+  Design,
+  DesignVersion,
+  Firm,
+  Invitation,
+  PasswordReset,
+  Project,
+  ReviewerCredential,
+  SignupRequest,
+  User,
+};

@@ -1,4 +1,5 @@
 import { mixed, object, type ObjectSchema } from 'yup';
+import { revisionSchema } from './version';
 import type { StudyInput } from '../range/types';
 import { studyInputSchema } from './study';
 
@@ -10,6 +11,11 @@ export interface DesignSaveInput {
   input: StudyInput;
   /** what steers the dissipator catalogue: the chosen type, overrides of defaults */
   options?: Record<string, unknown> | null;
+  /**
+   * the draft revision this copy was based on (from GET); required once a design exists — a save
+   * without it, or based on another revision, is refused with 409 and the current copy
+   */
+  revision?: number | null;
 }
 
 /** PUT /projects/:id/design: the study input in the project's units, and the catalogue options. */
@@ -19,4 +25,5 @@ export const designSaveSchema: ObjectSchema<DesignSaveInput> = object({
     .nullable()
     .optional()
     .test('object', 'The design options must be an object.', (v) => v == null || isPlainObject(v)),
+  revision: revisionSchema.nullable().optional(),
 });
