@@ -22,6 +22,8 @@ export interface ChartMark {
   label: string;
   color: string;
   dash?: 'dashed' | 'dotted';
+  /** a horizontal line's label at the start (left) instead of the end, to keep clear of another */
+  labelAtStart?: boolean;
 }
 
 export interface ChartSpec {
@@ -123,7 +125,10 @@ export function energyChartSpec(d: JumpDiagrams, units: UnitSystem): ChartSpec {
     mark('yc', d.criticalDepth, CHART_COLOURS.slate700, 'dashed'),
   ];
   if (d.tailwaterDepth !== null)
-    marks.push(mark('Tailwater', d.tailwaterDepth, CHART_COLOURS.slate, 'dashed'));
+    marks.push({
+      ...mark('Tailwater', d.tailwaterDepth, CHART_COLOURS.slate, 'dashed'),
+      labelAtStart: true,
+    });
   for (const [name, x] of [
     ['E1', d.specificEnergy.E1],
     ['E2', d.specificEnergy.E2],

@@ -49,7 +49,7 @@ export function chartToSvg(spec: ChartSpec, opts: ChartSvgOptions = {}): string 
   const font = esc(opts.fontFamily ?? 'Lato, Helvetica, Arial, sans-serif');
   const left = 70,
     right = 24,
-    top = 30 + 18 * Math.ceil(spec.series.length / 3),
+    top = 48 + 18 * Math.ceil(spec.series.length / 3),
     bottom = 56;
   const xs = spec.series.flatMap((s) => s.points.map((p) => p[0]));
   const ys = spec.series.flatMap((s) => s.points.map((p) => p[1]));
@@ -98,7 +98,9 @@ export function chartToSvg(spec: ChartSpec, opts: ChartSvgOptions = {}): string 
       const y = Y(m.at);
       return [
         `<line x1="${f(left)}" y1="${f(y)}" x2="${f(W - right)}" y2="${f(y)}" stroke="${m.color}" stroke-width="1.2"${dash}/>`,
-        T(W - right - 4, y - 3, m.label, 10.5, ' text-anchor="end"', m.color),
+        m.labelAtStart
+          ? T(left + 4, y - 3, m.label, 10.5, '', m.color)
+          : T(W - right - 4, y - 3, m.label, 10.5, ' text-anchor="end"', m.color),
       ];
     }
     const x = X(m.at);
@@ -118,10 +120,11 @@ export function chartToSvg(spec: ChartSpec, opts: ChartSvgOptions = {}): string 
       for (const p of s.points)
         out.push(`<circle cx="${f(X(p[0]))}" cy="${f(Y(p[1]))}" r="2.6" fill="${s.color}"/>`);
   }
+  out.push(T(left, 16, spec.title, 13, ' font-weight="bold"'));
   // legend: up to three entries a line above the plot
   spec.series.forEach((s, i) => {
     const lx = left + (i % 3) * ((W - left - right) / 3);
-    const ly = 16 + 18 * Math.floor(i / 3);
+    const ly = 38 + 18 * Math.floor(i / 3);
     const dash = s.dash ? ` stroke-dasharray="${DASH[s.dash]}"` : '';
     out.push(
       `<line x1="${f(lx)}" y1="${f(ly - 4)}" x2="${f(lx + 24)}" y2="${f(ly - 4)}" stroke="${s.color}" stroke-width="${Math.max(1.5, s.width)}"${dash}/>`,
