@@ -15,6 +15,7 @@ import { invitationsRouter } from './modules/invitations/invitations.routes';
 import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
+import { proposalsRouter } from './modules/proposals/proposals.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
@@ -79,6 +80,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/invitations', invitationsRouter(limits));
   api.use('/members', membersRouter());
   api.use('/projects', designsRouter());
+  api.use('/projects', proposalsRouter());
   api.use('/projects', projectsRouter());
 
   // engine routes

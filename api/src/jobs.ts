@@ -12,6 +12,8 @@ import { newEmailToken } from './security';
 // here, after the response, so the response path is the same for every address.
 
 export const MAIL_QUEUE = 'mail';
+/** Proposal PDFs to draw: the job holds the proposal's id (the row says the rest). */
+export const PROPOSAL_QUEUE = 'proposal-render';
 
 /** What a mail job does; the data holds no secret (tokens are made by the job itself). */
 export type MailJob =
@@ -19,6 +21,7 @@ export type MailJob =
 
 let started: Promise<PgBoss> | undefined;
 let workerId: string | undefined;
+let proposalWorkerId: string | undefined;
 
 function boss(): Promise<PgBoss> {
   started ??= (async () => {
@@ -34,6 +37,14 @@ function boss(): Promise<PgBoss> {
       retryLimit: 5,
       retryDelay: 30,
       retryBackoff: true,
+    });
+    // A render that fails is recorded on the proposal, not retried; a process that dies while
+    // drawing leaves the job to be taken again when it expires.
+    await instance.createQueue(PROPOSAL_QUEUE, {
+      name: PROPOSAL_QUEUE,
+      retryLimit: 2,
+      retryDelay: 5,
+      expireInSeconds: 600,
     });
     return instance;
   })();
@@ -91,12 +102,40 @@ export async function queueMail(job: MailJob): Promise<void> {
   if (workerId !== undefined) instance.notifyWorker(workerId);
 }
 
-/** Stops the worker and closes the queue's connections (shutdown, tests). */
+/**
+ * Starts this process's proposal worker (idempotent): one job at a time, drawn in the
+ * proposal worker thread (modules/proposals/proposal.pool.ts).
+ */
+export async function startProposalWorker(): Promise<void> {
+  const instance = await boss();
+  const { runProposalJob } = await import('./modules/proposals/proposals.service');
+  proposalWorkerId ??= await instance.work<{ proposalId: string }>(
+    PROPOSAL_QUEUE,
+    { pollingIntervalSeconds: 2, batchSize: 1 },
+    async (jobs) => {
+      for (const job of jobs) await runProposalJob(job.data.proposalId);
+    },
+  );
+}
+
+/** Queues the drawing of a proposal and wakes this process's proposal worker. */
+export async function queueProposal(proposalId: string): Promise<void> {
+  const instance = await boss();
+  await instance.send(PROPOSAL_QUEUE, { proposalId });
+  await startProposalWorker();
+  if (proposalWorkerId !== undefined) instance.notifyWorker(proposalWorkerId);
+}
+
+/** Stops the workers and closes the queue's connections (shutdown, tests). */
 export async function stopJobs(): Promise<void> {
   const current = started;
   started = undefined;
   workerId = undefined;
-  if (current === undefined) return;
-  const instance = await current.catch(() => undefined);
-  await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  proposalWorkerId = undefined;
+  if (current !== undefined) {
+    const instance = await current.catch(() => undefined);
+    await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  }
+  const { closeProposalPool } = await import('./modules/proposals/proposal.pool');
+  await closeProposalPool();
 }

@@ -35,6 +35,8 @@ export * from './study';
 export { ENGINE_VERSION } from './version';
 // Issued versions, review and the audit trail: states, key figures, comparison
 export * from './versions';
+// The proposal PDF: rendering states and its sections
+export * from './proposals';
 
 // Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation
 export * from './basins';

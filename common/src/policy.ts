@@ -28,6 +28,9 @@ export const POLICY = {
   'versions.review': ['owner', 'admin', 'engineer'],
   'reviewers.manage': ['owner', 'admin'],
   'audit.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.create': ['owner', 'admin', 'engineer'],
+  'proposals.send': ['owner', 'admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -27,6 +27,8 @@ export interface Config {
   migrateOnStart: boolean;
   /** The worker-thread pool that runs the engine off the event loop (calc.pool.ts). */
   compute: ComputeConfig;
+  /** The proposal PDF (modules/proposals): the most pages one may have. */
+  proposalMaxPages: number;
 }
 
 export interface ComputeConfig {
@@ -220,6 +222,7 @@ export function loadConfig(env: Env): Config {
     trustProxy: readTrustProxy(env.TRUST_PROXY),
     migrateOnStart: env.MIGRATE_ON_START === '1' || env.MIGRATE_ON_START === 'true',
     compute,
+    proposalMaxPages: readInt(env, 'PROPOSAL_MAX_PAGES', 40, 2, 1000, problems),
   };
   if (problems.length > 0) throw new ConfigError(problems);
   return config;

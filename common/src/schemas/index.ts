@@ -6,3 +6,4 @@ export * from './project';
 export * from './study';
 export * from './design';
 export * from './version';
+export * from './proposal';

@@ -61,23 +61,6 @@ export interface ProposalSource {
 /** The text of the free plan's watermark (product.md). */
 export const CONCEPT_WATERMARK = 'Concept plan';
 
-/** The proposal's sections, in order: the web's preview lists these. */
-export const PROPOSAL_SECTIONS = [
-  'Cover: project, client, version and review status',
-  'Key figures',
-  'Basis of design',
-  'Results over the discharge range',
-  'Tailwater against the depth the jump needs (chart)',
-  'Specific energy at the design discharge (chart)',
-  'Basin choice and the alternatives compared',
-  'Plan and section, dimensioned',
-  'Exit protection and slab flotation',
-  'Quantities and cost',
-  'Warnings and cautions',
-  'References',
-  'Prepared by and reviewed by',
-] as const;
-
 const TEAL = '#0f6e6e';
 const SLATE = '#334155';
 const MUTED = '#64748b';
