@@ -23,6 +23,26 @@ let started: Promise<PgBoss> | undefined;
 let workerId: string | undefined;
 let proposalWorkerId: string | undefined;
 
+/**
+ * Creates a queue, again after a deadlock: two API processes starting together create the
+ * same queues (and their tables) at once, and PostgreSQL then stops one of them (40P01).
+ */
+async function createQueue(
+  instance: PgBoss,
+  name: string,
+  options: Omit<PgBoss.Queue, 'name'>,
+): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await instance.createQueue(name, { name, ...options });
+      return;
+    } catch (error) {
+      const code = (error as { code?: unknown } | null)?.code;
+      if (code !== '40P01' || attempt >= 5) throw error;
+    }
+  }
+}
+
 function boss(): Promise<PgBoss> {
   started ??= (async () => {
     const instance = new PgBoss({
@@ -32,23 +52,22 @@ function boss(): Promise<PgBoss> {
     });
     instance.on('error', (error) => logger().error({ err: error }, 'job queue error'));
     await instance.start();
-    await instance.createQueue(MAIL_QUEUE, {
-      name: MAIL_QUEUE,
-      retryLimit: 5,
-      retryDelay: 30,
-      retryBackoff: true,
-    });
+    await createQueue(instance, MAIL_QUEUE, { retryLimit: 5, retryDelay: 30, retryBackoff: true });
     // A render that fails is recorded on the proposal, not retried; a process that dies while
     // drawing leaves the job to be taken again when it expires.
-    await instance.createQueue(PROPOSAL_QUEUE, {
-      name: PROPOSAL_QUEUE,
+    await createQueue(instance, PROPOSAL_QUEUE, {
       retryLimit: 2,
       retryDelay: 5,
       expireInSeconds: 600,
     });
     return instance;
   })();
-  return started;
+  // A queue that failed to start is tried afresh by the next caller, not remembered as failed.
+  const current = started;
+  current.catch(() => {
+    if (started === current) started = undefined;
+  });
+  return current;
 }
 
 /** Runs one mail job: looks the address up now and sends only what its owner should get. */

@@ -81,12 +81,55 @@ function stamp(d: Date): string {
   return `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 }
 
-/** "[src: USBR EM-25]" tags of the engine's sentences become "(USBR EM-25)"; their sources are collected. */
+/**
+ * The engine's provenance tags become plain citations and their sources are collected:
+ * "[src: USBR EM-25]" → "(USBR EM-25)"; a value recalled rather than read from the publication,
+ * "[mem: EM-25]", → "(EM-25, to be verified against the publication)".
+ */
 function cite(text: string, refs: Set<string>): string {
-  return text.replace(/\s*\[src: ([^\]]+)\]/g, (_m, src: string) => {
-    refs.add(src.trim());
-    return ` (${src.trim()})`;
-  });
+  return text
+    .replace(/\s*\[(src|mem): ([^\]]+)\]\s*/g, (_m, kind: string, src: string) => {
+      refs.add(src.trim());
+      return kind === 'src'
+        ? ` (${src.trim()}) `
+        : ` (${src.trim()}, to be verified against the publication) `;
+    })
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
+/** The full titles of the publications the engine's short citations name (facts of the trade). */
+const PUBLICATIONS: [RegExp, string][] = [
+  [
+    /EM-25|Peterka/,
+    'Peterka, A. J. (1958). Hydraulic Design of Stilling Basins and Energy Dissipators. Engineering Monograph No. 25, U.S. Bureau of Reclamation.',
+  ],
+  [/Chow 1959/, 'Chow, V. T. (1959). Open-Channel Hydraulics. McGraw-Hill.'],
+  [/Design of Small Dams/, 'U.S. Bureau of Reclamation. Design of Small Dams.'],
+  [
+    /HEC-14/,
+    'Federal Highway Administration (2006). Hydraulic Design of Energy Dissipators for Culverts and Channels. Hydraulic Engineering Circular No. 14, 3rd ed.',
+  ],
+  [
+    /Blaisdell/,
+    'Blaisdell, F. W. (1948). Development and hydraulic design, Saint Anthony Falls stilling basin. Transactions of the ASCE, 113.',
+  ],
+  [/Henderson/, 'Henderson, F. M. (1966). Open Channel Flow. Macmillan.'],
+];
+
+/** The references list: the full titles of the publications cited, then any other source named. */
+function referenceList(refs: Set<string>): string[] {
+  const titles = new Set<string>();
+  const others = new Set<string>();
+  for (const r of refs) {
+    const hits = PUBLICATIONS.filter(([re]) => re.test(r));
+    if (hits.length) for (const [, title] of hits) titles.add(title);
+    else others.add(r);
+  }
+  return [
+    ...[...titles].sort((a, b) => a.localeCompare(b)),
+    ...[...others].sort((a, b) => a.localeCompare(b)),
+  ];
 }
 
 /** A data URL pdfmake can draw (PNG or JPEG only). */
@@ -350,7 +393,7 @@ export function proposalDocument(source: ProposalSource): {
   ];
   content.push(heading('Results over the discharge range', accent, true));
   content.push({
-    text: `On the study floor at ${f.withUnit(r.floor.elevation, 'length')}, tailwater factor C = ${r.floor.tailwaterFactor}. The design discharge is in bold. Least margin ${f.withUnit(r.floor.leastMargin.margin, 'length')} at ${f.withUnit(r.floor.leastMargin.Q, 'discharge')}.`,
+    text: `On the study floor at ${f.withUnit(r.floor.elevation, 'length')}, tailwater factor C = ${r.floor.tailwaterFactor}. The margin is the tailwater depth less C·y2: where it is ≤ 0 the tailwater cannot hold the jump at the toe. The design discharge is in bold. Least margin ${f.withUnit(r.floor.leastMargin.margin, 'length')} at ${f.withUnit(r.floor.leastMargin.Q, 'discharge')}.`,
     margin: [0, 0, 0, 6],
   });
   content.push({
@@ -595,11 +638,15 @@ export function proposalDocument(source: ProposalSource): {
   content.push({ text: 'Cautions', style: 'h2', color: accent });
   content.push({ ul: studyCautions(units), margin: [0, 0, 0, 8] });
 
-  // ——— References
-  for (const s of design?.sources ?? []) cite(s, refs);
+  // ——— Relations and references
+  const relations = (design?.sources ?? []).map((s) => cite(phraseMessage(s, units), refs));
   if (design) refs.add(design.source);
+  if (relations.length) {
+    content.push({ text: 'Relations used', style: 'h2', color: accent });
+    content.push({ ul: relations, fontSize: 8.5, margin: [0, 0, 0, 6] });
+  }
   content.push({ text: 'References: the published methods used', style: 'h2', color: accent });
-  content.push({ ol: [...refs].sort((a, b) => a.localeCompare(b)), fontSize: 8.5 });
+  content.push({ ol: referenceList(refs), fontSize: 8.5 });
 
   // ——— Prepared by / reviewed by
   const approved = review.state === 'approved';

@@ -6,11 +6,19 @@ import path from 'node:path';
 import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { threadId } from 'node:worker_threads';
-import pdfmake from 'pdfmake';
 import { woffToSfnt } from './woff';
 import { proposalDocument, type ProposalSource } from './proposal.document';
 
 const require = createRequire(import.meta.url);
+
+/** The slice of pdfmake 0.3's server API used here (the package ships no types). */
+interface PdfMake {
+  setFonts(fonts: Record<string, Record<string, string>>): void;
+  setUrlAccessPolicy(callback: (url: string) => boolean): void;
+  setLocalAccessPolicy(callback: (file: string) => boolean): void;
+  createPdf(definition: object): { getBuffer(): Promise<Buffer> };
+}
+const pdfmake = require('pdfmake') as PdfMake;
 const FONT_DIR = path.join(path.dirname(require.resolve('lato-font/package.json')), 'fonts');
 const font = (name: string): string => path.join(FONT_DIR, name, `${name}.woff`);
 
