@@ -52,3 +52,20 @@ export const demoProjects: {
     createdByEmail: 'engineer@harrow-lune.example',
   },
 ];
+
+/** Members marked as licensed reviewer (invented licence and jurisdiction). */
+export const demoReviewers: {
+  email: string;
+  licenceNumber: string;
+  jurisdiction: string;
+  statement: string;
+}[] = [
+  {
+    email: 'owner@harrow-lune.example',
+    licenceNumber: 'PE-HL-20417',
+    jurisdiction: 'Harrowdale Board of Professional Engineers',
+    statement:
+      'I have reviewed this concept design and find it suitable for the purpose stated. ' +
+      'Final design remains subject to site investigation and the approving authority.',
+  },
+];

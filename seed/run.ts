@@ -2,7 +2,7 @@
 // as they are (nothing is duplicated or overwritten), missing ones are added.
 //   node --import tsx --conditions=@basinwright/source seed/run.ts
 import { ConfigError, getConfig } from '../api/src/config/env';
-import { DEMO_PASSWORD, demoFirm, demoProjects, demoUsers } from './demo';
+import { DEMO_PASSWORD, demoFirm, demoProjects, demoReviewers, demoUsers } from './demo';
 import { demoDesigns } from './designs';
 
 async function main(): Promise<number> {
@@ -12,7 +12,8 @@ async function main(): Promise<number> {
     console.error(`seed: ${error instanceof ConfigError ? error.message : String(error)}`);
     return 1;
   }
-  const { Design, Firm, Project, sequelize, User } = await import('../api/src/models');
+  const { Design, Firm, Project, ReviewerCredential, sequelize, User } =
+    await import('../api/src/models');
   const { hashPassword } = await import('../api/src/security');
   const { computeStoredStudy } = await import('../api/src/modules/designs/designs.service');
   const added: string[] = [];
@@ -52,6 +53,17 @@ async function main(): Promise<number> {
           added.push(`${demo.role} ${demo.email}`);
         }
         users.set(demo.email, user);
+      }
+      for (const { email, ...credential } of demoReviewers) {
+        const user = users.get(email);
+        if (user === undefined) continue;
+        const found = await ReviewerCredential.findByPk(user.id, { transaction });
+        if (found !== null) continue;
+        await ReviewerCredential.create(
+          { ...credential, userId: user.id, firmId: firm.id, markedById: user.id },
+          { transaction },
+        );
+        added.push(`reviewer mark of ${email}`);
       }
       for (const demo of demoProjects) {
         const found = await Project.findOne({

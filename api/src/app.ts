@@ -17,6 +17,9 @@ import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { proposalsRouter } from './modules/proposals/proposals.routes';
 import { calcRouter } from './modules/calc/calc.routes';
+import { versionsRouter } from './modules/versions/versions.routes';
+import { reviewersRouter } from './modules/reviewers/reviewers.routes';
+import { auditRouter, projectAuditRouter } from './modules/audit/audit.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -78,8 +81,12 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/health', healthRouter(options.healthDatabase ?? defaultSequelize));
   api.use('/auth', authRouter(limits));
   api.use('/invitations', invitationsRouter(limits));
+  api.use('/members', reviewersRouter());
   api.use('/members', membersRouter());
   api.use('/projects', designsRouter());
+  api.use('/projects', versionsRouter());
+  api.use('/projects', projectAuditRouter());
+  api.use('/audit', auditRouter());
   api.use('/projects', proposalsRouter());
   api.use('/projects', projectsRouter());
 

@@ -49,6 +49,23 @@ export const forbidden = (message = 'Your role does not allow this.') =>
   new ApiError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new ApiError(404, 'not_found', message);
 export const conflict = (message: string) => new ApiError(409, 'conflict', message);
+
+/**
+ * A 409 that carries the server's current copy (`current`), so a client whose copy is stale can
+ * reload it or compare it with its own: a draft saved or issued from a stale revision.
+ */
+export class StaleCopyError extends ApiError {
+  constructor(
+    message: string,
+    readonly current: unknown,
+  ) {
+    super(409, 'conflict', message);
+  }
+
+  override toJSON(): { code: ErrorCode; message: string; current: unknown } {
+    return { code: this.code, message: this.message, current: this.current };
+  }
+}
 export const planLimit = (message: string) => new ApiError(403, 'plan_limit', message);
 export const rateLimited = (
   message = 'Too many attempts. Wait a little and try again.',

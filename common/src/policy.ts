@@ -21,15 +21,26 @@ export const POLICY = {
   'projects.delete': ['owner', 'admin', 'engineer'],
   'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'designs.write': ['owner', 'admin', 'engineer'],
+  // Issued versions and their review (one action a route: the role × route test pairs them).
+  'versions.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'versions.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'versions.issue': ['owner', 'admin', 'engineer'],
+  // an issued version never changes: these answer 409 to whoever may issue
+  'versions.change': ['owner', 'admin', 'engineer'],
+  'versions.delete': ['owner', 'admin', 'engineer'],
   'versions.send': ['owner', 'admin', 'engineer'],
   // and the member must be marked as licensed reviewer, and not the version's issuer or sender
-  'versions.review': ['owner', 'admin', 'engineer'],
-  'reviewers.manage': ['owner', 'admin'],
-  'audit.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
-  'proposals.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'versions.approve': ['owner', 'admin', 'engineer'],
+  'versions.return': ['owner', 'admin', 'engineer'],
+  'reviewers.mark': ['owner', 'admin'],
+  'reviewers.unmark': ['owner', 'admin'],
+  'audit.project': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'audit.firm': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  // The proposal PDF of an issued version (one action a route).
+  'proposals.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'proposals.create': ['owner', 'admin', 'engineer'],
+  'proposals.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.download': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'proposals.send': ['owner', 'admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;
 

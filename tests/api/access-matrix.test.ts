@@ -29,14 +29,69 @@ interface RouteCase {
   method: Method;
   /** OpenAPI path template under /api/v1. */
   path: string;
-  /** Prepares what the request needs; returns the concrete path, body and a check of the side effect. */
-  prepare(): Promise<{ url: string; body?: object; changed?: () => Promise<boolean> }>;
+  /**
+   * Prepares what the request needs; returns the concrete path, body and a check of the side
+   * effect. `actor` is the member about to send it (none for the request without a token).
+   */
+  prepare(actor?: {
+    id: string;
+  }): Promise<{ url: string; body?: object; changed?: () => Promise<boolean> }>;
   success: number;
 }
 
 async function newProject(name = 'Matrix project') {
   return h.models.Project.create({ firmId, name, units: 'SI', createdById: ownerId });
 }
+
+/** A project with a saved draft (revision 1) and, when asked, version 1 issued by the owner in `state`. */
+async function withVersion(state: 'not_sent' | 'in_review' | null) {
+  const { computeStoredStudy } = await import('../../api/src/modules/designs/designs.service');
+  const { figuresOf } = await import('@basinwright/common');
+  const project = await newProject();
+  const stored = computeStoredStudy(fenwickDesign);
+  const design = await h.models.Design.create({
+    firmId,
+    projectId: project.id,
+    input: fenwickDesign,
+    options: null,
+    updatedById: ownerId,
+    ...stored,
+  });
+  if (state === null) return { project, design, version: null };
+  const version = await h.models.DesignVersion.create({
+    firmId,
+    projectId: project.id,
+    designId: design.id,
+    number: 1,
+    designRevision: design.revision,
+    input: design.input,
+    options: null,
+    result: stored.result,
+    engineVersion: stored.engineVersion,
+    computedAt: stored.computedAt,
+    figures: figuresOf(stored.result),
+    issuedById: ownerId,
+    issuedByName: 'Owner of matrix',
+    reviewState: state,
+    ...(state === 'in_review' ? { sentById: ownerId, sentAt: new Date() } : {}),
+  });
+  return { project, design, version };
+}
+
+/** The actor marked as licensed reviewer (so an allowed role's approval succeeds). */
+async function markReviewer(actor: { id: string } | undefined) {
+  if (actor === undefined) return;
+  await h.models.ReviewerCredential.upsert({
+    userId: actor.id,
+    firmId,
+    licenceNumber: 'M-1',
+    jurisdiction: 'Matrix',
+    statement: 'Reviewed in the matrix.',
+    markedById: ownerId,
+  });
+}
+
+const versionState = async (id: string) => (await h.models.DesignVersion.findByPk(id))?.reviewState;
 
 /** Every authenticated route, with the policy action that guards it. */
 const routes: RouteCase[] = [
@@ -210,6 +265,152 @@ const routes: RouteCase[] = [
       };
     },
   },
+  {
+    action: 'versions.list',
+    method: 'get',
+    path: '/projects/{id}/versions',
+    success: 200,
+    prepare: async () => ({
+      url: `/projects/${(await withVersion('not_sent')).project.id}/versions`,
+    }),
+  },
+  {
+    action: 'versions.read',
+    method: 'get',
+    path: '/projects/{id}/versions/{versionId}',
+    success: 200,
+    prepare: async () => {
+      const { project, version } = await withVersion('not_sent');
+      return { url: `/projects/${project.id}/versions/${version?.id}` };
+    },
+  },
+  {
+    action: 'versions.issue',
+    method: 'post',
+    path: '/projects/{id}/versions',
+    success: 201,
+    prepare: async () => {
+      const { project, design } = await withVersion(null);
+      return {
+        url: `/projects/${project.id}/versions`,
+        body: { revision: design.revision, note: 'matrix' },
+        changed: async () =>
+          (await h.models.DesignVersion.count({ where: { projectId: project.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'versions.change',
+    method: 'put',
+    path: '/projects/{id}/versions/{versionId}',
+    // an issued version never changes: whoever may issue is told so
+    success: 409,
+    prepare: async () => {
+      const { project, version } = await withVersion('not_sent');
+      return {
+        url: `/projects/${project.id}/versions/${version?.id}`,
+        body: { note: 'changed' },
+      };
+    },
+  },
+  {
+    action: 'versions.delete',
+    method: 'delete',
+    path: '/projects/{id}/versions/{versionId}',
+    success: 409,
+    prepare: async () => {
+      const { project, version } = await withVersion('not_sent');
+      return { url: `/projects/${project.id}/versions/${version?.id}` };
+    },
+  },
+  {
+    action: 'versions.send',
+    method: 'post',
+    path: '/projects/{id}/versions/{versionId}/send',
+    success: 200,
+    prepare: async () => {
+      const { project, version } = await withVersion('not_sent');
+      const id = version?.id ?? '';
+      return {
+        url: `/projects/${project.id}/versions/${id}/send`,
+        changed: async () => (await versionState(id)) === 'in_review',
+      };
+    },
+  },
+  {
+    action: 'versions.approve',
+    method: 'post',
+    path: '/projects/{id}/versions/{versionId}/approve',
+    success: 200,
+    prepare: async (actor) => {
+      await markReviewer(actor);
+      const { project, version } = await withVersion('in_review');
+      const id = version?.id ?? '';
+      return {
+        url: `/projects/${project.id}/versions/${id}/approve`,
+        body: {},
+        changed: async () => (await versionState(id)) === 'approved',
+      };
+    },
+  },
+  {
+    action: 'versions.return',
+    method: 'post',
+    path: '/projects/{id}/versions/{versionId}/return',
+    success: 200,
+    prepare: async (actor) => {
+      await markReviewer(actor);
+      const { project, version } = await withVersion('in_review');
+      const id = version?.id ?? '';
+      return {
+        url: `/projects/${project.id}/versions/${id}/return`,
+        body: { comments: 'Check the tailwater rating.' },
+        changed: async () => (await versionState(id)) === 'returned',
+      };
+    },
+  },
+  {
+    action: 'reviewers.mark',
+    method: 'put',
+    path: '/members/{id}/reviewer',
+    success: 200,
+    prepare: async () => {
+      const target = await addMember(h, firmId, 'engineer');
+      return {
+        url: `/members/${target.id}/reviewer`,
+        body: { licenceNumber: 'PE-1', jurisdiction: 'Matrix', statement: 'Reviewed.' },
+        changed: async () => (await h.models.ReviewerCredential.findByPk(target.id)) !== null,
+      };
+    },
+  },
+  {
+    action: 'reviewers.unmark',
+    method: 'delete',
+    path: '/members/{id}/reviewer',
+    success: 204,
+    prepare: async () => {
+      const target = await addMember(h, firmId, 'engineer');
+      await markReviewer(target);
+      return {
+        url: `/members/${target.id}/reviewer`,
+        changed: async () => (await h.models.ReviewerCredential.findByPk(target.id)) === null,
+      };
+    },
+  },
+  {
+    action: 'audit.project',
+    method: 'get',
+    path: '/projects/{id}/audit',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${(await newProject()).id}/audit` }),
+  },
+  {
+    action: 'audit.firm',
+    method: 'get',
+    path: '/audit',
+    success: 200,
+    prepare: async () => ({ url: '/audit' }),
+  },
 ];
 
 describe('the route table covers every guarded route', () => {
@@ -241,7 +442,7 @@ describe.each(routes)('$method $path ($action)', (route) => {
 
   it.each(ROLES)('as %s: allowed only if the policy says so', async (role: Role) => {
     const member = await addMember(h, firmId, role);
-    const { url, body, changed } = await route.prepare();
+    const { url, body, changed } = await route.prepare(member);
     const agent = h.http();
     const res = await agent[route.method](`/api/v1${url}`)
       .set(bearer(member.token))

@@ -31,12 +31,16 @@ const h = apiForFile(async () => {
 });
 
 const get = (id: string, t = token) => h.http().get(`/api/v1/projects/${id}/design`).set(bearer(t));
-const put = (id: string, body: unknown, t = token) =>
-  h
+/** A save based on the current copy: it sends the revision it read (optimistic concurrency). */
+const put = async (id: string, body: object, t = token) => {
+  const current = await get(id, t);
+  const revision = (current.body as { revision?: number | null }).revision ?? null;
+  return h
     .http()
     .put(`/api/v1/projects/${id}/design`)
     .set(bearer(t))
-    .send(body as object);
+    .send({ ...body, revision });
+};
 
 describe('GET/PUT /projects/:id/design', () => {
   it('a project without a design answers with nulls', async () => {
@@ -47,6 +51,7 @@ describe('GET/PUT /projects/:id/design', () => {
       input: null,
       options: null,
       updatedAt: null,
+      revision: null,
       updatedBy: null,
       result: null,
       engineVersion: null,

@@ -6,6 +6,8 @@ export interface DesignView {
   input: StudyInput | null;
   options: Record<string, unknown> | null;
   updatedAt: string | null;
+  /** the draft's revision: send it back with the next save (null before the first save) */
+  revision: number | null;
   updatedBy: { id: string; name: string } | null;
   /** the study result computed on the last save (SI); null before the first save or for a design saved before results were kept */
   result: StudyResult | null;
@@ -23,6 +25,7 @@ export function presentDesign(projectId: string, design: Design | null): DesignV
       input: null,
       options: null,
       updatedAt: null,
+      revision: null,
       updatedBy: null,
       result: null,
       engineVersion: null,
@@ -35,6 +38,7 @@ export function presentDesign(projectId: string, design: Design | null): DesignV
     input: design.input,
     options: design.options,
     updatedAt: design.updatedAt.toISOString(),
+    revision: design.revision,
     updatedBy: by === null ? null : { id: by.id, name: by.name },
     result: design.result ?? null,
     engineVersion: design.engineVersion ?? null,

@@ -6,10 +6,12 @@ import {
   type StudyInput,
   type StudyResult,
 } from '@basinwright/common';
-import { validationError } from '../../errors';
+import { UniqueConstraintError } from 'sequelize';
+import { StaleCopyError, validationError } from '../../errors';
 import { calculateStudy } from '../calc/calc.service';
 import { Design, Project, sequelize, User } from '../../models';
 import { getProject } from '../projects/projects.service';
+import { presentDesign } from './designs.presenter';
 
 const updatedBy = { model: User, as: 'updatedBy', attributes: ['id', 'name'] };
 
@@ -55,27 +57,53 @@ export async function saveDesign(
     engineVersion: ENGINE_VERSION,
     computedAt: new Date(),
   };
-  const id = await sequelize.transaction(async (transaction) => {
-    const existing = await Design.findOne({
-      where: { firmId, projectId },
-      transaction,
-      lock: true,
-    });
-    const values = {
-      input: body.input,
-      options: body.options ?? null,
-      updatedById: userId,
-      ...study,
-    };
-    const saved = existing
-      ? await existing.update(values, { transaction })
-      : await Design.create({ firmId, projectId, ...values }, { transaction });
-    // The project list sorts by last change: saving a design is a change of the project.
-    await Project.update(
-      { updatedAt: new Date() },
-      { where: { id: projectId, firmId }, transaction },
+  const stale = (current: Design) =>
+    new StaleCopyError(
+      body.revision == null
+        ? 'This design has been saved before: reload it, then save your changes on the current copy.'
+        : `Someone saved this design after you opened it (it is now at revision ${current.revision}). Reload it or compare before saving again.`,
+      presentDesign(projectId, current),
     );
-    return saved.id;
-  });
+  let id: string;
+  try {
+    id = await sequelize.transaction(async (transaction) => {
+      // The row lock makes saves of one design take turns: the second of two saves based on
+      // the same revision finds it moved on and is refused with the current copy.
+      const existing = await Design.findOne({
+        where: { firmId, projectId },
+        include: [updatedBy],
+        transaction,
+        // the design's row only (the author is an outer join)
+        lock: { level: transaction.LOCK.UPDATE, of: Design },
+      });
+      if (existing !== null && existing.revision !== body.revision) throw stale(existing);
+      const values = {
+        input: body.input,
+        options: body.options ?? null,
+        updatedById: userId,
+        ...study,
+      };
+      const saved = existing
+        ? await existing.update({ ...values, revision: existing.revision + 1 }, { transaction })
+        : await Design.create({ firmId, projectId, ...values }, { transaction });
+      // The project list sorts by last change: saving a design is a change of the project.
+      await Project.update(
+        { updatedAt: new Date() },
+        { where: { id: projectId, firmId }, transaction },
+      );
+      return saved.id;
+    });
+  } catch (error) {
+    // Two first saves at once: the second meets the first's row (one design a project).
+    if (error instanceof UniqueConstraintError) {
+      const current = await Design.findOne({
+        where: { firmId, projectId },
+        include: [updatedBy],
+        rejectOnEmpty: true,
+      });
+      throw stale(current);
+    }
+    throw error;
+  }
   return Design.findOne({ where: { id, firmId }, include: [updatedBy], rejectOnEmpty: true });
 }

@@ -3,9 +3,15 @@ import type { MemberUpdateInput } from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
 import { presentMember, presentMembers } from './members.presenter';
 import * as members from './members.service';
+import { credentialsOf } from '../reviewers/reviewers.service';
 
 export async function list(req: Request, res: Response): Promise<void> {
-  res.json(presentMembers(await members.listMembers(authOf(req).firm.id)));
+  const firmId = authOf(req).firm.id;
+  const [users, reviewers] = await Promise.all([
+    members.listMembers(firmId),
+    credentialsOf(firmId),
+  ]);
+  res.json(presentMembers(users, reviewers));
 }
 
 export async function update(req: Request<{ id: string }>, res: Response): Promise<void> {

@@ -3,6 +3,7 @@ import type { ProjectCreateInput, ProjectListQuery, ProjectUpdateInput } from '@
 import { authOf } from '../../middlewares/auth';
 import { presentProject } from './projects.presenter';
 import * as projects from './projects.service';
+import { latestVersions } from '../versions/versions.service';
 
 export async function list(req: Request, res: Response): Promise<void> {
   // Cast by validate(projectListQuerySchema, 'query').
@@ -10,7 +11,11 @@ export async function list(req: Request, res: Response): Promise<void> {
     authOf(req).firm.id,
     res.locals.query as ProjectListQuery,
   );
-  res.json({ ...page, items: page.items.map(presentProject) });
+  const latest = await latestVersions(
+    authOf(req).firm.id,
+    page.items.map((p) => p.id),
+  );
+  res.json({ ...page, items: page.items.map((p) => presentProject(p, latest.get(p.id) ?? null)) });
 }
 
 export async function create(req: Request, res: Response): Promise<void> {
@@ -19,16 +24,21 @@ export async function create(req: Request, res: Response): Promise<void> {
 }
 
 export async function read(req: Request<{ id: string }>, res: Response): Promise<void> {
-  res.json(presentProject(await projects.getProject(authOf(req).firm.id, req.params.id)));
+  const firmId = authOf(req).firm.id;
+  const project = await projects.getProject(firmId, req.params.id);
+  const latest = await latestVersions(firmId, [project.id]);
+  res.json(presentProject(project, latest.get(project.id) ?? null));
 }
 
 export async function update(req: Request<{ id: string }>, res: Response): Promise<void> {
+  const firmId = authOf(req).firm.id;
   const project = await projects.updateProject(
-    authOf(req).firm.id,
+    firmId,
     req.params.id,
     req.body as ProjectUpdateInput,
   );
-  res.json(presentProject(project));
+  const latest = await latestVersions(firmId, [project.id]);
+  res.json(presentProject(project, latest.get(project.id) ?? null));
 }
 
 export async function remove(req: Request<{ id: string }>, res: Response): Promise<void> {

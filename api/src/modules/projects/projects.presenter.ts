@@ -1,4 +1,10 @@
-import type { ProjectStatus, ProjectUnits } from '@basinwright/common';
+import {
+  designStatusOf,
+  type DesignStatus,
+  type ProjectStatus,
+  type ProjectUnits,
+  type ReviewState,
+} from '@basinwright/common';
 import type { Project } from '../../models';
 
 export interface ProjectView {
@@ -12,6 +18,17 @@ export interface ProjectView {
   createdBy: { id: string; name: string } | null;
   createdAt: string;
   updatedAt: string;
+  /** the design's review status: its latest issued version's (draft when none is issued or sent) */
+  designStatus: DesignStatus;
+  latestVersion: { id: string; number: number; reviewState: ReviewState; issuedAt: string } | null;
+}
+
+/** The latest issued version of a project, as the list and the project page show it. */
+export interface LatestVersionRecord {
+  id: string;
+  number: number;
+  reviewState: ReviewState;
+  issuedAt: Date;
 }
 
 /** What the presenter reads of a project: a model instance or a row of the list query. */
@@ -20,7 +37,10 @@ export type ProjectRecord = Pick<
   'id' | 'name' | 'client' | 'location' | 'units' | 'status' | 'notes' | 'createdAt' | 'updatedAt'
 > & { createdBy?: { id: string; name: string } | null };
 
-export function presentProject(project: ProjectRecord): ProjectView {
+export function presentProject(
+  project: ProjectRecord,
+  latest: LatestVersionRecord | null = null,
+): ProjectView {
   const by = project.createdBy ?? null;
   return {
     id: project.id,
@@ -33,5 +53,15 @@ export function presentProject(project: ProjectRecord): ProjectView {
     createdBy: by === null ? null : { id: by.id, name: by.name },
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
+    designStatus: designStatusOf(latest?.reviewState ?? null),
+    latestVersion:
+      latest === null
+        ? null
+        : {
+            id: latest.id,
+            number: latest.number,
+            reviewState: latest.reviewState,
+            issuedAt: latest.issuedAt.toISOString(),
+          },
   };
 }

@@ -7,7 +7,7 @@ import * as controller from './proposals.controller';
 /** A project's proposals, under /projects/:id/proposals. */
 export function proposalsRouter(): Router {
   const router = Router();
-  router.get('/:id/proposals', guard('proposals.read'), controller.list);
+  router.get('/:id/proposals', guard('proposals.list'), controller.list);
   router.post(
     '/:id/proposals',
     guard('proposals.create'),
@@ -15,7 +15,7 @@ export function proposalsRouter(): Router {
     controller.create,
   );
   router.get('/:id/proposals/:proposalId', guard('proposals.read'), controller.read);
-  router.get('/:id/proposals/:proposalId/pdf', guard('proposals.read'), controller.pdf);
+  router.get('/:id/proposals/:proposalId/pdf', guard('proposals.download'), controller.pdf);
   router.post(
     '/:id/proposals/:proposalId/send',
     guard('proposals.send'),

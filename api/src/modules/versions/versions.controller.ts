@@ -1,0 +1,66 @@
+import type { Request, Response } from 'express';
+import type { ReviewApproveInput, ReviewReturnInput, VersionIssueInput } from '@basinwright/common';
+import { authOf } from '../../middlewares/auth';
+import { presentVersion, presentVersionList } from './versions.presenter';
+import * as versions from './versions.service';
+
+type VersionParams = { id: string; versionId: string };
+
+export async function list(req: Request<{ id: string }>, res: Response): Promise<void> {
+  const { versions: items, status } = await versions.listVersions(
+    authOf(req).firm.id,
+    req.params.id,
+  );
+  res.json(presentVersionList(items, status));
+}
+
+export async function issue(req: Request<{ id: string }>, res: Response): Promise<void> {
+  const { version, latest } = await versions.issueVersion(
+    authOf(req).user,
+    req.params.id,
+    req.body as VersionIssueInput,
+  );
+  res.status(201).json(presentVersion(version, latest));
+}
+
+export async function read(req: Request<VersionParams>, res: Response): Promise<void> {
+  const { id, versionId } = req.params;
+  const { version, latest } = await versions.getVersion(authOf(req).firm.id, id, versionId);
+  res.json(presentVersion(version, latest));
+}
+
+export async function refuseChange(req: Request<VersionParams>): Promise<void> {
+  await versions.refuseChange(authOf(req).firm.id, req.params.id, req.params.versionId);
+}
+
+export async function send(req: Request<VersionParams>, res: Response): Promise<void> {
+  const { id, versionId } = req.params;
+  const { version, latest } = await versions.sendForReview(authOf(req).user, id, versionId);
+  res.json(presentVersion(version, latest));
+}
+
+export async function approve(req: Request<VersionParams>, res: Response): Promise<void> {
+  const { id, versionId } = req.params;
+  const body = req.body as ReviewApproveInput;
+  const { version, latest } = await versions.decide(
+    authOf(req).user,
+    id,
+    versionId,
+    'approve',
+    body,
+  );
+  res.json(presentVersion(version, latest));
+}
+
+export async function giveBack(req: Request<VersionParams>, res: Response): Promise<void> {
+  const { id, versionId } = req.params;
+  const body = req.body as ReviewReturnInput;
+  const { version, latest } = await versions.decide(
+    authOf(req).user,
+    id,
+    versionId,
+    'return',
+    body,
+  );
+  res.json(presentVersion(version, latest));
+}
