@@ -123,14 +123,14 @@ const FIGURE_FIELDS: (keyof VersionFigures)[] = [
 ];
 
 /**
- * What changed from version `a` to version `b`: the input values (and catalogue options, under
- * `options.`) that differ, path by path, and the key figures that differ. A value present on one
- * side only reads `undefined` on the other.
+ * The input values (and catalogue options, under `options.`) that differ from `a` to `b`, path
+ * by path in path order; a value present on one side only reads `undefined` on the other. Used
+ * to compare two versions and a draft with the copy someone else saved.
  */
-export function compareVersions(
-  a: { input: unknown; options: unknown; figures: VersionFigures },
-  b: { input: unknown; options: unknown; figures: VersionFigures },
-): VersionComparison {
+export function compareInputs(
+  a: { input: unknown; options: unknown },
+  b: { input: unknown; options: unknown },
+): InputChange[] {
   const before = leaves({ input: a.input, options: a.options ?? {} }, '', new Map());
   const after = leaves({ input: b.input, options: b.options ?? {} }, '', new Map());
   const paths = [...new Set([...before.keys(), ...after.keys()])].sort();
@@ -142,8 +142,16 @@ export function compareVersions(
       inputs.push({ path: path.replace(/^input\./, ''), before: x, after: y });
     }
   }
+  return inputs;
+}
+
+/** What changed from version `a` to version `b`: the inputs (compareInputs) and the key figures. */
+export function compareVersions(
+  a: { input: unknown; options: unknown; figures: VersionFigures },
+  b: { input: unknown; options: unknown; figures: VersionFigures },
+): VersionComparison {
   const figures: FigureChange[] = FIGURE_FIELDS.filter((f) => a.figures[f] !== b.figures[f]).map(
     (field) => ({ field, before: a.figures[field], after: b.figures[field] }),
   );
-  return { inputs, figures };
+  return { inputs: compareInputs(a, b), figures };
 }

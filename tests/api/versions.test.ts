@@ -113,6 +113,7 @@ describe('issued versions', () => {
     const list = await api(viewer.token).get(`/projects/${id}/versions`);
     expect(list.status).toBe(200);
     expect(list.body.status).toBe('draft');
+    expect(list.body.reviewer).toBe(false);
     expect(list.body.items).toHaveLength(1);
     expect(list.body.items[0].figures).toEqual(v.figures);
     expect(list.body.items[0].input).toBeUndefined();

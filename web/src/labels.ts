@@ -3,6 +3,9 @@ import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
 import type {
   Confidence,
   CriterionId,
+  DesignStatus,
+  ReviewState,
+  VersionFigures,
   CriterionStatus,
   DebrisLevel,
   DissipatorFamily,
@@ -271,3 +274,47 @@ export const JUMP_CLASS_BANDS: ReadonlyArray<{
   { jumpClass: 'steady', from: 4.5, to: 9, color: '#d1fae5' },
   { jumpClass: 'strong', from: 9, to: null, color: '#e0f2fe' },
 ];
+
+// ---- Issued versions, review and the audit trail ----
+
+const reviewStates: Record<ReviewState, { label: string; color: string }> = {
+  not_sent: { label: 'Not sent for review', color: 'default' },
+  in_review: { label: 'In review', color: 'gold' },
+  approved: { label: 'Approved', color: 'green' },
+  returned: { label: 'Returned', color: 'red' },
+};
+export const reviewStateLabel = (s: ReviewState): string => reviewStates[s].label;
+export const reviewStateColor = (s: ReviewState): string => reviewStates[s].color;
+
+const designStatuses: Record<DesignStatus, { label: string; color: string }> = {
+  draft: { label: 'Draft', color: 'default' },
+  in_review: { label: 'In review', color: 'gold' },
+  approved: { label: 'Approved', color: 'green' },
+  returned: { label: 'Returned', color: 'red' },
+};
+/** The design's review status (its latest issued version's), as the list and project page show it. */
+export const designStatusLabel = (s: DesignStatus): string => designStatuses[s].label;
+export const designStatusColor = (s: DesignStatus): string => designStatuses[s].color;
+
+export const HISTORY_TITLE = 'Issued versions';
+export const AUDIT_TITLE = 'Audit trail';
+export const NOT_PRICED = 'Not priced';
+export const STALE_SAVE_TITLE = 'Someone else saved this design';
+
+/** An input path of a comparison in plain words: "tailwater.points.2.Q" → "tailwater › points › 3 › Q". */
+export const inputPathLabel = (path: string): string =>
+  path
+    .split('.')
+    .map((p) => (/^\d+$/.test(p) ? String(Number(p) + 1) : p))
+    .join(' › ');
+
+const figureNames: Record<keyof VersionFigures, string> = {
+  floorElevation: 'Floor elevation',
+  type: 'Type',
+  typeName: 'Type name',
+  length: 'Length',
+  concrete: 'Concrete',
+  cost: 'Cost',
+  costStatus: 'Priced',
+};
+export const figureLabel = (f: keyof VersionFigures): string => figureNames[f];

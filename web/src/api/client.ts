@@ -16,6 +16,8 @@ export class ApiError extends Error {
     readonly details: FieldErrors | undefined = undefined,
     /** Seconds from a Retry-After header (429). */
     readonly retryAfter: number | undefined = undefined,
+    /** The whole error body (a 409 for a stale copy carries the server's `current` copy). */
+    readonly body: unknown = undefined,
   ) {
     super(message);
   }
@@ -95,7 +97,14 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
   const status = response.status;
   const retryAfter = parseRetryAfter(response.headers.get('Retry-After'));
   if (isRecord(body) && typeof body.code === 'string' && typeof body.message === 'string') {
-    return new ApiError(status, body.code, body.message, toFieldErrors(body.details), retryAfter);
+    return new ApiError(
+      status,
+      body.code,
+      body.message,
+      toFieldErrors(body.details),
+      retryAfter,
+      body,
+    );
   }
   const message =
     FALLBACK_MESSAGES[status] ??

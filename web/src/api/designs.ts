@@ -2,7 +2,7 @@
 // the project's units, as the user typed it; the server runs the study on toSI(input) and keeps
 // the result beside it, with the engine version that computed it.
 import type { DissipatorTypeId, StudyInput, StudyResult } from '@basinwright/common';
-import { request } from './client';
+import { ApiError, request } from './client';
 import type { PersonRef } from './types';
 
 /** What the workspace keeps beside the study input. */
@@ -17,6 +17,8 @@ export interface Design {
   input: StudyInput | null;
   options: DesignOptions | null;
   updatedAt: string | null;
+  /** the draft's revision: sent back with the next save (null before the first save) */
+  revision: number | null;
   updatedBy: PersonRef | null;
   /** the study result the server computed on the last save (SI); null before results were kept */
   result: StudyResult | null;
@@ -29,6 +31,15 @@ export interface Design {
 export interface DesignBody {
   input: StudyInput;
   options?: DesignOptions;
+  /** the revision this copy was based on; a stale one is refused (StaleDesignError) */
+  revision: number | null;
+}
+
+/** The server's current copy when a save or an issue was based on a stale revision (409). */
+export function staleCopyOf(error: unknown): Design | null {
+  if (!(error instanceof ApiError) || error.status !== 409) return null;
+  const body = error.body as { current?: Design } | undefined;
+  return body?.current ?? null;
 }
 
 const path = (projectId: string) => `/projects/${encodeURIComponent(projectId)}/design`;

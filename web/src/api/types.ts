@@ -1,7 +1,14 @@
 // Response shapes of the API (see the API contract). Request bodies come from the shared
 // yup schemas in @basinwright/common.
 
-import type { Plan, ProjectStatus, ProjectUnits, Role } from '@basinwright/common';
+import type {
+  DesignStatus,
+  Plan,
+  ProjectStatus,
+  ProjectUnits,
+  ReviewState,
+  Role,
+} from '@basinwright/common';
 
 export type { Plan, ProjectStatus, Role };
 export type Units = ProjectUnits;
@@ -44,6 +51,21 @@ export interface Project {
   createdBy: PersonRef | null;
   createdAt: string;
   updatedAt: string;
+  /** the design's review status (its latest issued version's) */
+  designStatus: DesignStatus;
+  latestVersion: { id: string; number: number; reviewState: ReviewState; issuedAt: string } | null;
+}
+
+/** A member marked as licensed reviewer: what is printed with their signature. */
+export interface ReviewerMark {
+  licenceNumber: string;
+  jurisdiction: string;
+  statement: string;
+}
+
+/** A member on the Team page. */
+export interface Member extends User {
+  reviewer: ReviewerMark | null;
 }
 
 export interface Invitation {

@@ -128,10 +128,17 @@ export function useDesign(projectId: Ref<string>) {
   const saving = ref(false);
 
   /** Saves the form's values (in the project's units); throws ApiError so the form can show it. */
-  async function save(values: StudyInput, options: DesignOptions): Promise<Design> {
+  async function save(
+    values: StudyInput,
+    options: DesignOptions,
+    /** the revision to save on top of (the server's current copy's, when saving over it on purpose) */
+    basedOn?: number | null,
+  ): Promise<Design> {
     saving.value = true;
     try {
-      const saved = await designsApi.save(projectId.value, { input: values, options });
+      // Based on the copy we loaded: a save by someone else since is refused (409, staleCopyOf).
+      const revision = basedOn !== undefined ? basedOn : (data.value?.design.revision ?? null);
+      const saved = await designsApi.save(projectId.value, { input: values, options, revision });
       if (data.value) data.value = { ...data.value, design: saved };
       return saved;
     } finally {
@@ -139,9 +146,14 @@ export function useDesign(projectId: Ref<string>) {
     }
   }
 
+  /** Takes the server's current copy as ours (after a refused save: reload theirs). */
+  function adopt(current: Design): void {
+    if (data.value) data.value = { ...data.value, design: current };
+  }
+
   watch(projectId, () => void reload(), { immediate: true });
 
-  return { project, design, busy, saving, error, reload, save };
+  return { project, design, busy, saving, error, reload, save, adopt };
 }
 
 /** What the step components share with the workspace: values, errors, edit rights, units. */

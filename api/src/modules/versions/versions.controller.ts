@@ -7,11 +7,13 @@ import * as versions from './versions.service';
 type VersionParams = { id: string; versionId: string };
 
 export async function list(req: Request<{ id: string }>, res: Response): Promise<void> {
-  const { versions: items, status } = await versions.listVersions(
-    authOf(req).firm.id,
-    req.params.id,
-  );
-  res.json(presentVersionList(items, status));
+  const { user, firm } = authOf(req);
+  const {
+    versions: items,
+    status,
+    reviewer,
+  } = await versions.listVersions(firm.id, req.params.id, user.id);
+  res.json(presentVersionList(items, status, reviewer));
 }
 
 export async function issue(req: Request<{ id: string }>, res: Response): Promise<void> {

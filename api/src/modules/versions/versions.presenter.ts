@@ -86,10 +86,18 @@ export function presentVersion(v: DesignVersion, latestNumber: number): VersionV
   };
 }
 
+export interface VersionList {
+  items: VersionSummary[];
+  status: DesignStatus;
+  /** the signed-in member is marked as licensed reviewer (may approve or return others' versions) */
+  reviewer: boolean;
+}
+
 export function presentVersionList(
   versions: DesignVersion[],
   status: DesignStatus,
-): { items: VersionSummary[]; status: DesignStatus } {
+  reviewer: boolean,
+): VersionList {
   const latest = versions[0]?.number ?? 0;
-  return { items: versions.map((v) => presentVersionSummary(v, latest)), status };
+  return { items: versions.map((v) => presentVersionSummary(v, latest)), status, reviewer };
 }

@@ -33,17 +33,19 @@ async function latestNumber(
   return max ?? 0;
 }
 
-/** The project's issued versions, newest first, and the design's status. */
+/** The project's issued versions, newest first, the design's status, and whether `userId` is a marked reviewer. */
 export async function listVersions(
   firmId: string,
   projectId: string,
-): Promise<{ versions: DesignVersion[]; status: DesignStatus }> {
+  userId: string,
+): Promise<{ versions: DesignVersion[]; status: DesignStatus; reviewer: boolean }> {
   await getProject(firmId, projectId); // 404 for a missing or another firm's project
   const versions = await DesignVersion.findAll({
     where: { firmId, projectId },
     order: [['number', 'DESC']],
   });
-  return { versions, status: designStatusOf(versions[0]?.reviewState ?? null) };
+  const reviewer = (await ReviewerCredential.count({ where: { firmId, userId } })) > 0;
+  return { versions, status: designStatusOf(versions[0]?.reviewState ?? null), reviewer };
 }
 
 /** One issued version of one of the firm's projects, and the project's latest number. */
