@@ -17,7 +17,11 @@ const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const HEALTH_CONCURRENCY = Number(process.env.BENCH_HEALTH_CONCURRENCY ?? 4);
 
 // The demo design issued once, straight in the database (invented demo data).
-const firm = await Firm.create({ name: 'Harrow & Lune Engineering (bench)', plan: 'firm', seats: 3 });
+const firm = await Firm.create({
+  name: 'Harrow & Lune Engineering (bench)',
+  plan: 'firm',
+  seats: 3,
+});
 const owner = await User.create({
   firmId: firm.id,
   name: 'Bench engineer',
