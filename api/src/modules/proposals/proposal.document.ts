@@ -318,7 +318,7 @@ export function proposalDocument(source: ProposalSource): {
     input.discharges.kind === 'range'
       ? `${input.discharges.count} discharges from ${input.discharges.min} to ${input.discharges.max} ${Q}`
       : `${input.discharges.values.length} discharges listed: ${input.discharges.values.join(', ')} ${Q}`;
-  content.push(heading('Basis of design', accent, true));
+  content.push({ text: '', margin: [0, 12, 0, 0] }, heading('Basis of design', accent));
   content.push(
     keyValueTable([
       [
