@@ -32,6 +32,7 @@ const design = {
   options: null,
   updatedAt: '2025-01-02T00:00:00.000Z',
   updatedBy: { id: 'u-engineer', name: 'Demo engineer' },
+  revision: 1,
 };
 
 afterEach(() => vi.unstubAllGlobals());
@@ -46,6 +47,10 @@ async function mountAs(
     'GET /auth/me': { status: 200, body: { user: demoUser(role), firm: demoFirm } },
     'GET /projects/p1': { status: 200, body: project },
     'GET /projects/p1/design': { status: 200, body: design },
+    'GET /projects/p1/versions': {
+      status: 200,
+      body: { items: [], status: 'draft', reviewer: false },
+    },
     ...(put ? { 'PUT /projects/p1/design': put } : {}),
   });
   const router = createAppRouter(createMemoryHistory());
@@ -92,10 +97,80 @@ describe('DesignWorkspaceView', () => {
     window.dispatchEvent(new KeyboardEvent('keydown', { key: 's', ctrlKey: true }));
     await vi.waitFor(() => expect(api.calls.some((c) => c.method === 'PUT')).toBe(true));
     const put = api.calls.find((c) => c.method === 'PUT')!;
-    const body = JSON.parse(String(put.init.body)) as { input: StudyInput; options: object };
+    const body = JSON.parse(String(put.init.body)) as {
+      input: StudyInput;
+      options: object;
+      revision: number;
+    };
     expect(body.input).toEqual({ ...input, basinWidth: 12.5 });
     expect(body.options).toEqual({});
+    // based on the copy it loaded (optimistic concurrency)
+    expect(body.revision).toBe(1);
     await vi.waitFor(() => expect(wrapper.find('[data-test="unsaved"]').exists()).toBe(false));
+    wrapper.unmount();
+  });
+
+  it('a save refused because someone else saved first keeps the changes and offers compare, reload or save over', async () => {
+    const theirs = { ...design, input: { ...input, basinWidth: 14 }, revision: 2 };
+    let puts = 0;
+    const { wrapper, api } = await mountAs('engineer', (init) => {
+      puts += 1;
+      const body = JSON.parse(String(init.body)) as { revision: number; input: StudyInput };
+      // the first save is based on revision 1: stale; saving over theirs is based on 2
+      return body.revision === 2
+        ? { status: 200, body: { ...theirs, input: body.input, revision: 3 } }
+        : {
+            status: 409,
+            body: {
+              code: 'conflict',
+              message: 'Someone saved this design after you opened it.',
+              current: theirs,
+            },
+          };
+    });
+    const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
+    await width.setValue('12.5');
+    await width.trigger('blur');
+    await wrapper.find('[data-test="save-design"]').trigger('click');
+    await vi.waitFor(() => expect(wrapper.find('[data-test="stale-save"]').exists()).toBe(true));
+    // nothing silently overwritten, nothing of ours lost
+    expect(wrapper.find('[data-test="stale-save"]').text()).toContain(
+      'Your changes are still here',
+    );
+    expect(wrapper.find<HTMLInputElement>('#design-basinWidth').element.value).toBe('12.5');
+    await wrapper.find('[data-test="stale-compare"]').trigger('click');
+    await vi.waitFor(() =>
+      expect(document.querySelector('[data-test="stale-changes"]')).not.toBeNull(),
+    );
+    const rows = [...document.querySelectorAll('[data-test="stale-changes"] tr')].map((r) =>
+      [...r.querySelectorAll('td')].map((td) => td.textContent?.trim()).join(' '),
+    );
+    expect(rows).toContain('basinWidth 14 12.5');
+    // saving mine over theirs, knowingly, is based on their revision
+    await wrapper.find('[data-test="stale-save-ours"]').trigger('click');
+    await vi.waitFor(() => expect(puts).toBe(2));
+    const last = api.calls.filter((c) => c.method === 'PUT').at(-1)!;
+    expect(JSON.parse(String(last.init.body)).revision).toBe(2);
+    await vi.waitFor(() => expect(wrapper.find('[data-test="stale-save"]').exists()).toBe(false));
+    wrapper.unmount();
+  });
+
+  it('reloading their copy after a refused save shows their values', async () => {
+    const theirs = { ...design, input: { ...input, basinWidth: 14 }, revision: 2 };
+    const { wrapper } = await mountAs('engineer', () => ({
+      status: 409,
+      body: { code: 'conflict', message: 'Someone saved this design.', current: theirs },
+    }));
+    const width = wrapper.find<HTMLInputElement>('#design-basinWidth');
+    await width.setValue('12.5');
+    await width.trigger('blur');
+    await wrapper.find('[data-test="save-design"]').trigger('click');
+    await vi.waitFor(() => expect(wrapper.find('[data-test="stale-reload"]').exists()).toBe(true));
+    await wrapper.find('[data-test="stale-reload"]').trigger('click');
+    await vi.waitFor(() =>
+      expect(wrapper.find<HTMLInputElement>('#design-basinWidth').element.value).toBe('14'),
+    );
+    expect(wrapper.find('[data-test="stale-save"]').exists()).toBe(false);
     wrapper.unmount();
   });
 

@@ -20,6 +20,13 @@ const fenwick = {
   createdBy: { id: 'u-engineer', name: 'Demo engineer' },
   createdAt: '2025-01-02T00:00:00.000Z',
   updatedAt: '2025-01-03T00:00:00.000Z',
+  designStatus: 'approved',
+  latestVersion: {
+    id: 'v-1',
+    number: 1,
+    reviewState: 'approved',
+    issuedAt: '2025-01-03T00:00:00.000Z',
+  },
 };
 
 afterEach(() => {
@@ -73,6 +80,9 @@ describe('ProjectListView', () => {
     expect(row.text()).toContain('In review');
     expect(row.text()).toContain('SI');
     expect(row.text()).toContain('Fenwick Estates');
+    // the design's review status, from its latest issued version
+    expect(row.find('[data-test="design-status-p-fenwick"]').text()).toBe('Approved');
+    expect(row.text()).toContain('v1');
     wrapper.unmount();
   });
 

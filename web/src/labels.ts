@@ -293,8 +293,11 @@ const designStatuses: Record<DesignStatus, { label: string; color: string }> = {
   returned: { label: 'Returned', color: 'red' },
 };
 /** The design's review status (its latest issued version's), as the list and project page show it. */
-export const designStatusLabel = (s: DesignStatus): string => designStatuses[s].label;
-export const designStatusColor = (s: DesignStatus): string => designStatuses[s].color;
+// A project from a server without design review reads as a draft.
+export const designStatusLabel = (s: DesignStatus | undefined): string =>
+  (designStatuses[s ?? 'draft'] ?? designStatuses.draft).label;
+export const designStatusColor = (s: DesignStatus | undefined): string =>
+  (designStatuses[s ?? 'draft'] ?? designStatuses.draft).color;
 
 export const HISTORY_TITLE = 'Issued versions';
 export const AUDIT_TITLE = 'Audit trail';

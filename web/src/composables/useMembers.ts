@@ -1,11 +1,11 @@
 import { shallowRef } from 'vue';
 import { membersApi } from '@/api/members';
-import type { Invitation, Role, User } from '@/api/types';
+import type { Invitation, Member, ReviewerMark, Role, User } from '@/api/types';
 import { useResource } from '@/composables/useResource';
 
 /** The team page's data: members and pending invitations, and the changes made to them. */
 export function useMembers() {
-  const members = shallowRef<User[]>([]);
+  const members = shallowRef<Member[]>([]);
   const invitations = shallowRef<Invitation[]>([]);
   // The two lists change one by one below; a load replaces both.
   const { busy, error, reload } = useResource(
@@ -18,7 +18,24 @@ export function useMembers() {
   );
 
   function replaceMember(updated: User): void {
-    members.value = members.value.map((m) => (m.id === updated.id ? updated : m));
+    members.value = members.value.map((m) =>
+      m.id === updated.id ? { ...updated, reviewer: m.reviewer } : m,
+    );
+  }
+
+  function setReviewer(id: string, reviewer: ReviewerMark | null): void {
+    members.value = members.value.map((m) => (m.id === id ? { ...m, reviewer } : m));
+  }
+
+  async function markReviewer(id: string, mark: ReviewerMark): Promise<ReviewerMark> {
+    const saved = await membersApi.markReviewer(id, mark);
+    setReviewer(id, saved);
+    return saved;
+  }
+
+  async function unmarkReviewer(id: string): Promise<void> {
+    await membersApi.unmarkReviewer(id);
+    setReviewer(id, null);
   }
 
   async function changeRole(id: string, role: Role): Promise<User> {
@@ -46,5 +63,17 @@ export function useMembers() {
 
   void reload();
 
-  return { members, invitations, busy, error, reload, changeRole, setActive, invite, revoke };
+  return {
+    members,
+    invitations,
+    busy,
+    error,
+    reload,
+    changeRole,
+    setActive,
+    invite,
+    revoke,
+    markReviewer,
+    unmarkReviewer,
+  };
 }

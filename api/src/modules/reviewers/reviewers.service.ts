@@ -1,10 +1,11 @@
 import { can, type ReviewerMarkInput } from '@basinwright/common';
-import { conflict, notFound } from '../../errors';
+import { conflict, forbidden, notFound } from '../../errors';
 import { ReviewerCredential, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
 import { recordAudit } from '../audit/audit.service';
 
 const NO_MEMBER = 'No such member.';
+const OWNERS_ONLY = "Only an owner can change an owner's reviewer mark.";
 
 /** The firm's reviewer credentials by member id. */
 export async function credentialsOf(firmId: string): Promise<Map<string, ReviewerCredential>> {
@@ -28,6 +29,7 @@ export async function markReviewer(
       transaction,
     });
     if (member === null) throw notFound(NO_MEMBER);
+    if (actor.role !== 'owner' && member.role === 'owner') throw forbidden(OWNERS_ONLY);
     if (!member.active) throw conflict('Reactivate the member before marking them as reviewer.');
     if (!can(member.role, 'versions.approve')) {
       throw conflict('A reviewer needs the owner, admin or engineer role.');
@@ -71,6 +73,7 @@ export async function unmarkReviewer(actor: User, memberId: string): Promise<voi
       transaction,
     });
     if (member === null) throw notFound(NO_MEMBER);
+    if (actor.role !== 'owner' && member.role === 'owner') throw forbidden(OWNERS_ONLY);
     const removed = await ReviewerCredential.destroy({
       where: { userId: member.id, firmId: actor.firmId },
       transaction,
