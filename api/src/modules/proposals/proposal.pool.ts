@@ -3,7 +3,6 @@
 // (jobs.ts) hand it one proposal at a time.
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import { getConfig } from '../../config/env';
 import type { RenderReply, RenderTask } from './proposal.worker';
 
 const workerFile = fileURLToPath(
@@ -13,6 +12,9 @@ const workerFile = fileURLToPath(
 const workerExecArgv = workerFile.endsWith('.ts')
   ? ['--import', 'tsx', '--conditions=@basinwright/source']
   : [];
+
+/** The render thread's nice increment (Linux, via piscina). */
+export const PROPOSAL_NICE = 19;
 
 let pool: Piscina<RenderTask, RenderReply> | undefined;
 
@@ -25,7 +27,9 @@ export function renderInWorker(task: RenderTask): Promise<RenderReply> {
     maxThreads: 1,
     idleTimeout: 60_000,
     resourceLimits: { maxOldGenerationSizeMb: 768 },
-    niceIncrement: getConfig().compute.nice,
+    // Background work nobody waits on in a request: the lowest priority Linux gives (19), so
+    // request handling and the engine's calculations (CALC_NICE) win the CPU over a render.
+    niceIncrement: PROPOSAL_NICE,
   });
   return pool.run(task);
 }
