@@ -2,8 +2,6 @@
 // process in the same run, and /health latency while a 5,000-discharge study runs in the
 // compute pool against idle; load comes from a separate process (scripts/bench-load.mjs).
 // Every figure is recorded (scripts/bench-results.ts) for bench.mjs's summary and JSON file.
-import { execFile } from 'node:child_process';
-import { promisify } from 'node:util';
 import express from 'express';
 import { ENGINE_LIMITS, type StudyInput } from '@basinwright/common';
 import { createApp } from '../api/src/app';
@@ -15,44 +13,9 @@ import { record } from './bench-results';
 import { Firm, User } from '../api/src/models';
 import { issueToken } from '../api/src/modules/auth/auth.tokens';
 import { hashPassword } from '../api/src/security';
-import { listen } from './bench-listen';
+import { listen, load, median, BENCH_SECONDS as SECONDS } from './bench-listen';
 
-const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONCURRENCY = Number(process.env.BENCH_CONCURRENCY ?? 50);
-
-const execFileAsync = promisify(execFile);
-
-// Asynchronous on purpose: the servers under load run on this process's event loop.
-interface LoadResult {
-  ok: number;
-  bad: number;
-  rps: number;
-  p50: number;
-  p99: number;
-  max: number;
-}
-async function load(
-  url: string,
-  method: string,
-  body: unknown,
-  headers: Record<string, string>,
-  concurrency = CONCURRENCY,
-): Promise<LoadResult> {
-  const { stdout: out } = await execFileAsync(
-    process.execPath,
-    [
-      'scripts/bench-load.mjs',
-      url,
-      method,
-      body === undefined ? '-' : JSON.stringify(body),
-      JSON.stringify(headers),
-      String(SECONDS),
-      String(concurrency),
-    ],
-    { encoding: 'utf8' },
-  );
-  return JSON.parse(out.trim()) as LoadResult;
-}
 
 const bare = express();
 bare.use(express.json());
@@ -127,7 +90,6 @@ for (let round = 0; round < ROUNDS; round += 1) {
     errors += r.bad;
   }
 }
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
 const ratioOf = (name: 'plain' | 'stack' | 'open') =>
   median(rps.jump.map((j, i) => j / (rps[name][i] ?? NaN)));
 console.log(

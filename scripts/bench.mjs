@@ -3,7 +3,7 @@
 // (the built app on a seeded database, in Chromium) in one go. Each script records its figures
 // (scripts/bench-results.ts); at the end this prints every ratio against its target and writes
 // all figures to .bench/latest.json (and a dated copy) to compare runs. `npm run bench --
-// engine` (or http, browser) runs only the ones named.
+// engine` (or http, proposal, browser, list) runs only the ones named.
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -99,6 +99,10 @@ try {
   if (wanted('http')) {
     log('HTTP benchmark');
     runTs('scripts/bench-http.ts', env);
+  }
+  if (wanted('proposal')) {
+    log('proposal benchmark (render time, /health while five proposals render)');
+    runTs('scripts/bench-proposal.ts', env);
   }
   if (wanted('browser')) {
     log('browser benchmark (Chromium, CPU 4× slower)');

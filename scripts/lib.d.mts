@@ -3,6 +3,7 @@ import type { ChildProcess } from 'node:child_process';
 
 export const ROOT: string;
 export function ensurePostgres(): string;
+export function ensurePoppler(): void;
 export function freePort(): Promise<number>;
 export class PrivateCluster {
   constructor(options: { dir: string; port: number; bin: string });

@@ -130,6 +130,15 @@ export function ensureChromium() {
   return '/usr/bin/chromium';
 }
 
+/** poppler-utils (pdftotext, pdffonts, pdftoppm): the proposal tests read their PDFs with them. */
+export function ensurePoppler() {
+  const tools = ['pdftotext', 'pdffonts', 'pdftoppm'];
+  const present = () => tools.every((t) => fs.existsSync(`/usr/bin/${t}`));
+  if (present()) return;
+  aptInstall(['poppler-utils']);
+  if (!present()) throw new Error('poppler-utils did not install pdftotext, pdffonts, pdftoppm');
+}
+
 export function freePort() {
   return new Promise((resolve, reject) => {
     const srv = net.createServer();

@@ -12,6 +12,7 @@ import {
   ensureChromium,
   ensureNodeModules,
   ensurePostgres,
+  ensurePoppler,
   freePort,
   log,
   run,
@@ -81,6 +82,7 @@ async function main() {
   ensureNodeModules();
   const bin = ensurePostgres();
   ensureChromium();
+  ensurePoppler();
 
   if (!partial) {
     check('type-check common', 'npx', ['tsc', '--noEmit', '-p', 'common']);

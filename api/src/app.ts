@@ -15,6 +15,7 @@ import { invitationsRouter } from './modules/invitations/invitations.routes';
 import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
+import { proposalsRouter } from './modules/proposals/proposals.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { brandRouter } from './modules/brand/brand.routes';
 import { billingRouter, billingWebhookRouter } from './modules/billing/billing.routes';
@@ -90,6 +91,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/projects', versionsRouter());
   api.use('/projects', projectAuditRouter());
   api.use('/audit', auditRouter());
+  api.use('/projects', proposalsRouter());
   api.use('/projects', projectsRouter());
   api.use('/firm/brand', brandRouter());
   api.use('/billing', billingRouter());

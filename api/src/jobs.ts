@@ -12,6 +12,8 @@ import { newEmailToken } from './security';
 // here, after the response, so the response path is the same for every address.
 
 export const MAIL_QUEUE = 'mail';
+/** Proposal PDFs to draw: the job holds the proposal's id (the row says the rest). */
+export const PROPOSAL_QUEUE = 'proposal-render';
 
 /** What a mail job does; the data holds no secret (tokens are made by the job itself). */
 export type MailJob =
@@ -19,6 +21,27 @@ export type MailJob =
 
 let started: Promise<PgBoss> | undefined;
 let workerId: string | undefined;
+let proposalWorkerId: string | undefined;
+
+/**
+ * Creates a queue, again after a deadlock: two API processes starting together create the
+ * same queues (and their tables) at once, and PostgreSQL then stops one of them (40P01).
+ */
+async function createQueue(
+  instance: PgBoss,
+  name: string,
+  options: Omit<PgBoss.Queue, 'name'>,
+): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await instance.createQueue(name, { name, ...options });
+      return;
+    } catch (error) {
+      const code = (error as { code?: unknown } | null)?.code;
+      if (code !== '40P01' || attempt >= 5) throw error;
+    }
+  }
+}
 
 function boss(): Promise<PgBoss> {
   started ??= (async () => {
@@ -29,15 +52,22 @@ function boss(): Promise<PgBoss> {
     });
     instance.on('error', (error) => logger().error({ err: error }, 'job queue error'));
     await instance.start();
-    await instance.createQueue(MAIL_QUEUE, {
-      name: MAIL_QUEUE,
-      retryLimit: 5,
-      retryDelay: 30,
-      retryBackoff: true,
+    await createQueue(instance, MAIL_QUEUE, { retryLimit: 5, retryDelay: 30, retryBackoff: true });
+    // A render that fails is recorded on the proposal, not retried; a process that dies while
+    // drawing leaves the job to be taken again when it expires.
+    await createQueue(instance, PROPOSAL_QUEUE, {
+      retryLimit: 2,
+      retryDelay: 5,
+      expireInSeconds: 600,
     });
     return instance;
   })();
-  return started;
+  // A queue that failed to start is tried afresh by the next caller, not remembered as failed.
+  const current = started;
+  current.catch(() => {
+    if (started === current) started = undefined;
+  });
+  return current;
 }
 
 /** Runs one mail job: looks the address up now and sends only what its owner should get. */
@@ -91,12 +121,40 @@ export async function queueMail(job: MailJob): Promise<void> {
   if (workerId !== undefined) instance.notifyWorker(workerId);
 }
 
-/** Stops the worker and closes the queue's connections (shutdown, tests). */
+/**
+ * Starts this process's proposal worker (idempotent): one job at a time, drawn in the
+ * proposal worker thread (modules/proposals/proposal.pool.ts).
+ */
+export async function startProposalWorker(): Promise<void> {
+  const instance = await boss();
+  const { runProposalJob } = await import('./modules/proposals/proposals.service');
+  proposalWorkerId ??= await instance.work<{ proposalId: string }>(
+    PROPOSAL_QUEUE,
+    { pollingIntervalSeconds: 2, batchSize: 1 },
+    async (jobs) => {
+      for (const job of jobs) await runProposalJob(job.data.proposalId);
+    },
+  );
+}
+
+/** Queues the drawing of a proposal and wakes this process's proposal worker. */
+export async function queueProposal(proposalId: string): Promise<void> {
+  const instance = await boss();
+  await instance.send(PROPOSAL_QUEUE, { proposalId });
+  await startProposalWorker();
+  if (proposalWorkerId !== undefined) instance.notifyWorker(proposalWorkerId);
+}
+
+/** Stops the workers and closes the queue's connections (shutdown, tests). */
 export async function stopJobs(): Promise<void> {
   const current = started;
   started = undefined;
   workerId = undefined;
-  if (current === undefined) return;
-  const instance = await current.catch(() => undefined);
-  await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  proposalWorkerId = undefined;
+  if (current !== undefined) {
+    const instance = await current.catch(() => undefined);
+    await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  }
+  const { closeProposalPool } = await import('./modules/proposals/proposal.pool');
+  await closeProposalPool();
 }

@@ -7,6 +7,14 @@ export interface MailMessage {
   subject: string;
   text: string;
   html: string;
+  /** the sender's display name instead of the configured one (the address stays ours) */
+  fromName?: string;
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
+}
+
+/** The configured sender's address, without its display name. */
+function senderAddress(mailFrom: string): string {
+  return /<([^>]+)>/.exec(mailFrom)?.[1] ?? mailFrom;
 }
 
 let transport: Transporter | undefined;
@@ -30,7 +38,11 @@ function transporter(): Transporter {
  */
 export async function sendMail(message: MailMessage): Promise<void> {
   try {
-    await transporter().sendMail({ from: getConfig().mailFrom, ...message });
+    const { fromName, ...rest } = message;
+    const configured = getConfig().mailFrom;
+    const from =
+      fromName === undefined ? configured : { name: fromName, address: senderAddress(configured) };
+    await transporter().sendMail({ ...rest, from });
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     throw Object.assign(

@@ -16,7 +16,7 @@ async function main(): Promise<void> {
   const { createApp } = await import('./app');
   const { createMigrator } = await import('./db/umzug');
   const { closeMail } = await import('./mail');
-  const { startMailWorker, stopJobs } = await import('./jobs');
+  const { startMailWorker, startProposalWorker, stopJobs } = await import('./jobs');
   const { closeComputePool, computePool } = await import('./modules/calc/calc.pool');
   const { logger } = await import('./logger');
   const { readDurability, weakDurability } = await import('./db/durability');
@@ -47,6 +47,10 @@ async function main(): Promise<void> {
   // Mail queued by any API process (password resets, account notices) is sent by whichever
   // worker takes it; a failure here leaves the jobs queued for another process or a restart.
   startMailWorker().catch((error: unknown) => log.error({ err: error }, 'mail worker not started'));
+  // Proposals queued by any process are drawn by whichever worker takes them (one at a time).
+  startProposalWorker().catch((error: unknown) =>
+    log.error({ err: error }, 'proposal worker not started'),
+  );
 
   const app = createApp();
   computePool(); // start the engine's worker threads now, not on the first calculation

@@ -35,6 +35,8 @@ export * from './study';
 export { ENGINE_VERSION } from './version';
 // Issued versions, review and the audit trail: states, key figures, comparison
 export * from './versions';
+// The proposal PDF: rendering states and its sections
+export * from './proposals';
 
 // Dissipators: catalogue, screening, sizing (sizeJumpBasin), exit protection, flotation
 export * from './basins';
@@ -137,3 +139,5 @@ export {
 } from './search';
 // Uncertainty: sensitivity of the floor (tornado data) and the seeded risk of sweep-out
 export * from './uncertainty';
+// Charts shared by the web and the proposal PDF: data in the user's units, and SVG
+export * from './charts';

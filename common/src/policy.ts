@@ -47,6 +47,12 @@ export const POLICY = {
   'reviewers.unmark': ['owner', 'admin'],
   'audit.project': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'audit.firm': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  // The proposal PDF of an issued version (one action a route).
+  'proposals.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.create': ['owner', 'admin', 'engineer'],
+  'proposals.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.download': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'proposals.send': ['owner', 'admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -128,6 +128,20 @@ async function markReviewer(actor: { id: string } | undefined) {
   });
 }
 
+/** A proposal of an issued version in `status` (done: with a stand-in PDF's bytes). */
+async function withProposal(status: 'queued' | 'done') {
+  const { project, version } = await withVersion('not_sent');
+  const proposal = await h.models.Proposal.create({
+    firmId,
+    projectId: project.id,
+    versionId: version!.id,
+    requestedById: ownerId,
+    status,
+    ...(status === 'done' ? { pdf: Buffer.from('%PDF-1.7 matrix stand-in'), pages: 1 } : {}),
+  });
+  return { project, version: version!, proposal };
+}
+
 const versionState = async (id: string) => (await h.models.DesignVersion.findByPk(id))?.reviewState;
 
 /** Every authenticated route, with the policy action that guards it. */
@@ -582,6 +596,63 @@ const routes: RouteCase[] = [
     path: '/audit',
     success: 200,
     prepare: async () => ({ url: '/audit' }),
+  },
+  {
+    action: 'proposals.list',
+    method: 'get',
+    path: '/projects/{id}/proposals',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${(await newProject()).id}/proposals` }),
+  },
+  {
+    action: 'proposals.create',
+    method: 'post',
+    path: '/projects/{id}/proposals',
+    success: 202,
+    prepare: async () => {
+      const { project, version } = await withVersion('not_sent');
+      return {
+        url: `/projects/${project.id}/proposals`,
+        body: { versionId: version!.id },
+        changed: async () =>
+          (await h.models.Proposal.count({ where: { projectId: project.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'proposals.read',
+    method: 'get',
+    path: '/projects/{id}/proposals/{proposalId}',
+    success: 200,
+    prepare: async () => {
+      const { project, proposal } = await withProposal('queued');
+      return { url: `/projects/${project.id}/proposals/${proposal.id}` };
+    },
+  },
+  {
+    action: 'proposals.download',
+    method: 'get',
+    path: '/projects/{id}/proposals/{proposalId}/pdf',
+    success: 200,
+    prepare: async () => {
+      const { project, proposal } = await withProposal('done');
+      return { url: `/projects/${project.id}/proposals/${proposal.id}/pdf` };
+    },
+  },
+  {
+    action: 'proposals.send',
+    method: 'post',
+    path: '/projects/{id}/proposals/{proposalId}/send',
+    success: 200,
+    prepare: async () => {
+      const { project, proposal } = await withProposal('done');
+      return {
+        url: `/projects/${project.id}/proposals/${proposal.id}/send`,
+        body: { to: 'client-of-the-matrix@test.example' },
+        changed: async () =>
+          (await h.models.ProposalEmail.count({ where: { proposalId: proposal.id } })) === 1,
+      };
+    },
   },
 ];
 

@@ -29,6 +29,8 @@ export interface Config {
   compute: ComputeConfig;
   /** The payment service (modules/billing): the real one, or the local fake by STRIPE_API_BASE. */
   stripe: StripeConfig;
+  /** The proposal PDF (modules/proposals): the most pages one may have. */
+  proposalMaxPages: number;
 }
 
 export interface StripeConfig {
@@ -277,6 +279,7 @@ export function loadConfig(env: Env): Config {
     migrateOnStart: env.MIGRATE_ON_START === '1' || env.MIGRATE_ON_START === 'true',
     compute,
     stripe,
+    proposalMaxPages: readInt(env, 'PROPOSAL_MAX_PAGES', 40, 2, 1000, problems),
   };
   if (problems.length > 0) throw new ConfigError(problems);
   return config;

@@ -7,6 +7,8 @@ import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
 import { Project } from './Project';
+import { Proposal } from './Proposal';
+import { ProposalEmail } from './ProposalEmail';
 import { ReviewerCredential } from './ReviewerCredential';
 import { SignupRequest } from './SignupRequest';
 import { User } from './User';
@@ -23,6 +25,8 @@ BillingEvent.initModel(sequelize);
 DesignVersion.initModel(sequelize);
 ReviewerCredential.initModel(sequelize);
 AuditEvent.initModel(sequelize);
+Proposal.initModel(sequelize);
+ProposalEmail.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -40,6 +44,7 @@ Design.hasMany(DesignVersion, { as: 'versions', foreignKey: 'designId' });
 DesignVersion.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 User.hasOne(ReviewerCredential, { as: 'reviewer', foreignKey: 'userId' });
 ReviewerCredential.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+Proposal.hasMany(ProposalEmail, { as: 'emails', foreignKey: 'proposalId' });
 
 export {
   sequelize,
@@ -51,6 +56,8 @@ export {
   Invitation,
   PasswordReset,
   Project,
+  Proposal,
+  ProposalEmail,
   ReviewerCredential,
   SignupRequest,
   User,

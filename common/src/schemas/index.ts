@@ -11,3 +11,4 @@ export * from './takeoff';
 export * from './search';
 export * from './uncertainty';
 export * from './version';
+export * from './proposal';

@@ -246,3 +246,4 @@ export function resultToSI(result: StudyResult, system: UnitSystem): StudyResult
   return walk(result, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyResult;
 }
 export * from './phrase';
+export { unitFormat, type UnitFormat } from './format';

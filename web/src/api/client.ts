@@ -204,3 +204,32 @@ export function errorMessage(error: unknown): string {
   if (error instanceof Error) return error.message;
   return 'Something went wrong.';
 }
+
+/** Fetches a file from the API (a PDF): resolves with its bytes and name, throws ApiError. */
+export async function requestFile(
+  path: string,
+  signal?: AbortSignal,
+): Promise<{ blob: Blob; filename: string | null }> {
+  const headers: Record<string, string> = {};
+  const token = tokenSource();
+  if (token) headers.Authorization = `Bearer ${token}`;
+  let response: Response;
+  try {
+    response = await fetch(buildUrl(path, undefined), { headers, signal });
+  } catch (cause) {
+    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
+    throw new ApiError(
+      0,
+      'network_error',
+      'Could not reach the server. Check your connection and try again.',
+    );
+  }
+  if (!response.ok) {
+    const error = await errorFromResponse(response);
+    if (error.status === 401 && token && onUnauthorized) onUnauthorized(error);
+    throw error;
+  }
+  const disposition = response.headers.get('Content-Disposition') ?? '';
+  const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? null;
+  return { blob: await response.blob(), filename };
+}

@@ -3,15 +3,11 @@ import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
   InputError,
-  displayText,
-  UNIT_LABELS,
-  fromSIValue,
   phraseMessage,
   refusalText,
   runStudy,
   studyInputSchema,
   type DissipatorTypeId,
-  type QuantityKind,
   type StudyInput,
   type StudyResult,
   type UnitSystem,
@@ -165,29 +161,8 @@ export function useStudy(
   return { result, engineError, inputProblems, stale, pending, computing, runNow };
 }
 
-/** Numbers in the user's units, for tables, labels and the drawing. */
-export function unitFormat(units: UnitSystem) {
-  const label = (kind: QuantityKind): string => UNIT_LABELS[kind][units];
-  const value = (si: number, kind: QuantityKind): number => fromSIValue(si, kind, units);
-  // One rounding rule (common/src/units/rounding.ts): decimals by kind and unit system.
-  const num = (
-    si: number | null | undefined,
-    kind: QuantityKind | null,
-    digits?: number,
-  ): string =>
-    si === null || si === undefined || !Number.isFinite(si)
-      ? '—'
-      : displayText(kind ? value(si, kind) : si, kind, units, digits);
-  const withUnit = (si: number | null | undefined, kind: QuantityKind, digits?: number): string =>
-    si === null || si === undefined || !Number.isFinite(si)
-      ? '—'
-      : `${num(si, kind, digits)} ${label(kind)}`;
-  /** a value already in the user's units (chart axes and labels), with its unit */
-  const shown = (v: number, kind: QuantityKind): string =>
-    `${displayText(v, kind, units)} ${label(kind)}`;
-  return { label, value, num, withUnit, shown };
-}
-export type UnitFormat = ReturnType<typeof unitFormat>;
+/** Numbers in the user's units, for tables, labels and the drawing (shared with the PDF). */
+export { unitFormat, type UnitFormat } from '@basinwright/common';
 
 /** The floor the chosen basin is designed on, beside the free-jump floor the Jump check solves. */
 export interface GoverningFloor {

@@ -1,0 +1,743 @@
+// The proposal as a pdfmake document definition, built from one issued version: pure (no I/O,
+// no clock — the caller passes the time), so the worker renders exactly what a test reads.
+// Numbers come in the project's units through the one formatter (unitFormat) and the one
+// phraser of warnings (studyWarningText); the charts and the drawing are the same SVG builders
+// the web uses (common/src/charts, common/src/drawing).
+import {
+  chartToSvg,
+  drawingToSvg,
+  energyChartSpec,
+  phraseMessage,
+  rangeChartSpec,
+  studyCautions,
+  studyWarningText,
+  toSIValue,
+  unitFormat,
+  UNIT_LABELS,
+  type DrawingFormatter,
+  type Plan,
+  type QuantityKind,
+  type ReviewState,
+  type StudyInput,
+  type StudyResult,
+  type UnitSystem,
+} from '@basinwright/common';
+
+/** The firm's branding on a paid plan (null on Concept: the watermark instead). */
+export interface ProposalBrand {
+  color: string | null;
+  logo: { type: string; data: Buffer } | null;
+  footer: string | null;
+}
+
+/** Everything the proposal prints, gathered by the service from the database. */
+export interface ProposalSource {
+  firm: { name: string; plan: Plan; brand: ProposalBrand | null; sealStatement: string | null };
+  project: { name: string; client: string; location: string; units: UnitSystem };
+  version: {
+    number: number;
+    /** as saved, in the project's units */
+    input: StudyInput;
+    /** SI, as the server computed it */
+    result: StudyResult;
+    engineVersion: string;
+    computedAt: Date;
+    issuedByName: string;
+    issuedAt: Date;
+    note: string;
+  };
+  review: {
+    state: ReviewState;
+    reviewedByName: string | null;
+    reviewedAt: Date | null;
+    licence: string | null;
+    jurisdiction: string | null;
+    statement: string | null;
+  };
+  /** when the PDF is made (the caller's clock) */
+  generatedAt: Date;
+}
+
+/** The text of the free plan's watermark (product.md). */
+export const CONCEPT_WATERMARK = 'Concept plan';
+
+const TEAL = '#0f6e6e';
+const SLATE = '#334155';
+const MUTED = '#64748b';
+
+type Node = Record<string, unknown> | string;
+
+const REVIEW_WORDS: Record<ReviewState, string> = {
+  not_sent: 'Not reviewed: not sent for review',
+  in_review: 'Not reviewed: in review, not yet approved',
+  approved: 'Approved',
+  returned: 'Not reviewed: returned by the reviewer with comments',
+};
+
+function day(d: Date): string {
+  return d.toISOString().slice(0, 10);
+}
+function stamp(d: Date): string {
+  return `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+/**
+ * The engine's provenance tags become plain citations and their sources are collected:
+ * "[src: USBR EM-25]" → "(USBR EM-25)"; a value recalled rather than read from the publication,
+ * "[mem: EM-25]", → "(EM-25, to be verified against the publication)".
+ */
+function cite(text: string, refs: Set<string>): string {
+  return text
+    .replace(/\s*\[(src|mem): ([^\]]+)\]\s*/g, (_m, kind: string, src: string) => {
+      refs.add(src.trim());
+      return kind === 'src'
+        ? ` (${src.trim()}) `
+        : ` (${src.trim()}, to be verified against the publication) `;
+    })
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
+/** The full titles of the publications the engine's short citations name (facts of the trade). */
+const PUBLICATIONS: [RegExp, string][] = [
+  [
+    /EM-25|Peterka/,
+    'Peterka, A. J. (1958). Hydraulic Design of Stilling Basins and Energy Dissipators. Engineering Monograph No. 25, U.S. Bureau of Reclamation.',
+  ],
+  [/Chow 1959/, 'Chow, V. T. (1959). Open-Channel Hydraulics. McGraw-Hill.'],
+  [/Design of Small Dams/, 'U.S. Bureau of Reclamation. Design of Small Dams.'],
+  [
+    /HEC-14/,
+    'Federal Highway Administration (2006). Hydraulic Design of Energy Dissipators for Culverts and Channels. Hydraulic Engineering Circular No. 14, 3rd ed.',
+  ],
+  [
+    /Blaisdell/,
+    'Blaisdell, F. W. (1948). Development and hydraulic design, Saint Anthony Falls stilling basin. Transactions of the ASCE, 113.',
+  ],
+  [/Henderson/, 'Henderson, F. M. (1966). Open Channel Flow. Macmillan.'],
+];
+
+/** The references list: the full titles of the publications cited, then any other source named. */
+function referenceList(refs: Set<string>): string[] {
+  const titles = new Set<string>();
+  const others = new Set<string>();
+  for (const r of refs) {
+    const hits = PUBLICATIONS.filter(([re]) => re.test(r));
+    if (hits.length) for (const [, title] of hits) titles.add(title);
+    else others.add(r);
+  }
+  return [
+    ...[...titles].sort((a, b) => a.localeCompare(b)),
+    ...[...others].sort((a, b) => a.localeCompare(b)),
+  ];
+}
+
+/** A data URL pdfmake can draw (PNG or JPEG only). */
+function logoUrl(logo: ProposalBrand['logo']): string | null {
+  if (logo === null || !/^image\/(png|jpeg)$/.test(logo.type)) return null;
+  return `data:${logo.type};base64,${logo.data.toString('base64')}`;
+}
+
+function heading(text: string, color: string, pageBreak = false): Node {
+  return {
+    text,
+    style: 'h1',
+    color,
+    ...(pageBreak ? { pageBreak: 'before' } : {}),
+  };
+}
+
+function keyValueTable(rows: [string, string][]): Node {
+  return {
+    table: {
+      widths: [180, '*'],
+      body: rows.map(([k, v]) => [
+        { text: k, color: SLATE },
+        { text: v, bold: true },
+      ]),
+    },
+    layout: 'lightHorizontalLines',
+    margin: [0, 2, 0, 10],
+  };
+}
+
+function assumptionKind(unit: string): QuantityKind | null {
+  if (unit === '-' || unit === '°') return null;
+  return (
+    (Object.keys(UNIT_LABELS) as QuantityKind[]).find((k) => UNIT_LABELS[k].SI === unit) ?? null
+  );
+}
+
+/** The inflow case in words, numbers as saved in the project's units. */
+function inflowText(input: StudyInput, units: UnitSystem): string {
+  const L = UNIT_LABELS.length[units];
+  const i = input.inflow;
+  const loss = (
+    m: { kind: string; value?: number; Cv?: number; K?: number } | undefined,
+  ): string =>
+    m === undefined || m.kind === 'none'
+      ? 'no losses'
+      : m.kind === 'fraction'
+        ? `losses ${Math.round((m.value ?? 0) * 100)} % of the head`
+        : m.kind === 'velocityCoefficient'
+          ? `velocity coefficient Cv = ${m.Cv}`
+          : `loss coefficient K = ${m.K}`;
+  switch (i.kind) {
+    case 'chute': {
+      const hw =
+        i.headwater.kind === 'weir'
+          ? `weir crest ${i.headwater.L} ${L} long, coefficient C = ${i.headwater.C} ${UNIT_LABELS.weirCoefficient[units]}`
+          : `reservoir rating table (${i.headwater.rows.length} points)`;
+      return `Chute or spillway from a crest at ${i.crestElevation} ${L}: ${hw}; ${loss(i.lossModel)}.`;
+    }
+    case 'gate':
+      return `Sluice gate, contraction coefficient Cc = ${i.Cc}${i.opening !== undefined ? `, opening ${i.opening} ${L}` : ''}${i.upstreamDepth !== undefined ? `, upstream depth ${i.upstreamDepth} ${L}` : ''}${i.upstreamElevation !== undefined ? `, upstream water at ${i.upstreamElevation} ${L}` : ''}.`;
+    case 'pipe':
+      return `Pipe or culvert outlet, invert at ${i.invertElevation} ${L}: ${
+        i.outlet.kind === 'barrel'
+          ? `${i.outlet.section.shape} barrel, slope ${i.outlet.slope}, Manning's n ${i.outlet.manningN}`
+          : `outlet table (${i.outlet.rows.length} points)`
+      }; ${loss(i.lossModel)}.`;
+    case 'known':
+      return 'Toe depth and velocity given at the design discharge.';
+  }
+}
+
+function tailwaterText(input: StudyInput, units: UnitSystem): string {
+  const L = UNIT_LABELS.length[units];
+  const t = input.tailwater;
+  if (t.kind === 'table')
+    return `Rating table of the downstream channel (${t.rows.length} points).`;
+  const s = t.section;
+  const shape =
+    s.shape === 'rectangular'
+      ? `rectangular, ${s.width} ${L} wide`
+      : s.shape === 'trapezoidal'
+        ? `trapezoidal, bottom ${s.bottomWidth} ${L}, side slopes ${s.sideSlope}H:1V`
+        : `circular, ${s.diameter} ${L} across`;
+  return `Normal depth (Manning's equation) in the downstream channel: ${shape}, slope ${t.slope}, n = ${t.manningN}.`;
+}
+
+const POSITION_WORDS: Record<string, string> = {
+  'at-toe': 'at the toe',
+  drowned: 'drowned',
+  'swept-out': 'swept out',
+  'leaves-basin': 'leaves the basin',
+};
+
+/**
+ * The proposal's pdfmake document definition. `maxPages` is checked by the caller from the
+ * footer's page count (`pageCount.value`).
+ */
+export function proposalDocument(source: ProposalSource): {
+  definition: Record<string, unknown>;
+  pageCount: { value: number };
+} {
+  const { firm, project, version, review } = source;
+  const units = project.units;
+  const r = version.result;
+  const f = unitFormat(units);
+  const refs = new Set<string>();
+  const brand = firm.brand;
+  const accent = brand?.color ?? (brand ? TEAL : SLATE);
+  const entry = r.design;
+  const design = entry?.design ?? null;
+  const designRow = r.rows[r.designIndex];
+  const floor =
+    design && (design.family === 'jump-basin' || design.family === 'impact-basin')
+      ? design.floorElevation
+      : design && design.family === 'riprap-apron'
+        ? design.invertElevation
+        : r.floor.elevation;
+  const content: Node[] = [];
+
+  // ——— Cover
+  const logo = brand ? logoUrl(brand.logo) : null;
+  content.push(
+    brand
+      ? {
+          columns: [
+            logo ? { image: logo, fit: [140, 60] } : { text: '' },
+            { text: firm.name, style: 'firm', color: accent, alignment: 'right' },
+          ],
+          margin: [0, 0, 0, 60],
+        }
+      : {
+          text: `${CONCEPT_WATERMARK} — prepared with Basinwright`,
+          color: MUTED,
+          margin: [0, 0, 0, 60],
+        },
+    { canvas: [{ type: 'rect', x: 0, y: 0, w: 515, h: 6, color: accent }] },
+    { text: 'Energy dissipator — concept design proposal', style: 'title', margin: [0, 18, 0, 8] },
+    { text: project.name, style: 'subtitle' },
+    keyValueTable([
+      ['Client', project.client || '—'],
+      ['Location', project.location || '—'],
+      ['Prepared by', firm.name],
+      [
+        'Issued version',
+        `Version ${version.number}, issued ${day(version.issuedAt)} by ${version.issuedByName}`,
+      ],
+      ['Review', REVIEW_WORDS[review.state]],
+      ['Units', units === 'SI' ? 'SI (metres, m³/s)' : 'US customary (feet, cfs)'],
+      ['Date of this document', day(source.generatedAt)],
+    ]),
+    {
+      text:
+        'Concept level only. This proposal sets out a concept design for discussion and budgeting; ' +
+        'it is not a construction design. See the cautions before relying on any figure.',
+      italics: true,
+      color: MUTED,
+      margin: [0, 30, 0, 0],
+    },
+  );
+
+  // ——— Key figures
+  content.push(heading('Key figures', accent, true));
+  content.push(
+    keyValueTable([
+      ['Design discharge', f.withUnit(r.input.designDischarge, 'discharge')],
+      ['Chosen dissipator', design ? design.name : 'None of the catalogue types suits this site'],
+      ['Basin floor elevation', f.withUnit(floor, 'length')],
+      ['Basin width', f.withUnit(r.input.basinWidth, 'length')],
+      ['Basin length', f.withUnit(design?.length, 'length')],
+      ['Concrete (neat line)', f.withUnit(design?.concrete.total, 'volume')],
+      ['Inflow Froude number at design', designRow ? designRow.fr1.toFixed(2) : '—'],
+      ['Inflow velocity at design', f.withUnit(designRow?.v1, 'velocity')],
+      ['Channel bed elevation', f.withUnit(r.input.channelBedElevation, 'length')],
+      ['Engine version', `${version.engineVersion} (computed ${stamp(version.computedAt)})`],
+    ]),
+  );
+  if (version.note) content.push({ text: `Note of the issuer: ${version.note}`, color: SLATE });
+
+  // ——— Basis of design
+  const input = version.input;
+  const Q = UNIT_LABELS.discharge[units];
+  const L = UNIT_LABELS.length[units];
+  const range =
+    input.discharges.kind === 'range'
+      ? `${input.discharges.count} discharges from ${input.discharges.min} to ${input.discharges.max} ${Q}`
+      : `${input.discharges.values.length} discharges listed: ${input.discharges.values.join(', ')} ${Q}`;
+  content.push({ text: '', margin: [0, 12, 0, 0] }, heading('Basis of design', accent));
+  content.push(
+    keyValueTable([
+      [
+        'Design discharge',
+        `${input.designDischarge} ${Q}${r.designDischargeAdded ? ' (added to the discharges checked)' : ''}`,
+      ],
+      ['Discharges checked', range],
+      ['Tailwater', tailwaterText(input, units)],
+      ['Inflow', inflowText(input, units)],
+      ['Channel bed', `${input.channelBedElevation} ${L}`],
+      ['Basin width', `${input.basinWidth} ${L}`],
+      [
+        'Jump length relation',
+        r.input.jumpLengthMethod === 'usbr' || r.input.jumpLengthMethod === undefined
+          ? 'USBR curve of jump length'
+          : String(r.input.jumpLengthMethod),
+      ],
+      [
+        'Floor',
+        r.floor.fixed
+          ? `Fixed by the engineer at ${f.withUnit(r.floor.elevation, 'length')}`
+          : 'Solved: the highest floor that holds the jump at every discharge',
+      ],
+    ]),
+  );
+  const changed = (r.dissipators?.assumptions ?? []).filter(
+    (a) => a.overridden || a.value !== a.defaultValue,
+  );
+  content.push({ text: 'Assumptions changed from their defaults', style: 'h2', color: accent });
+  if (changed.length === 0)
+    content.push({
+      text: 'None: every assumption is at its published or common-practice default.',
+    });
+  else
+    content.push({
+      table: {
+        headerRows: 1,
+        widths: ['*', 70, 70, 120],
+        body: [
+          ['Assumption', 'Used', 'Default', 'Source of the default'].map((t) => ({
+            text: t,
+            style: 'th',
+          })),
+          ...changed.map((a) => {
+            const kind = assumptionKind(a.unit);
+            const show = (v: number): string =>
+              kind ? f.withUnit(v, kind) : String(a.unit === '°' ? `${v}°` : v);
+            return [
+              a.label,
+              { text: show(a.value), alignment: 'right' },
+              { text: show(a.defaultValue), alignment: 'right' },
+              { text: a.source, fontSize: 7.5 },
+            ];
+          }),
+        ],
+      },
+      layout: 'lightHorizontalLines',
+    });
+
+  // ——— Results over the range
+  const cols: { head: string; get: (row: StudyResult['rows'][number]) => string }[] = [
+    { head: `Q (${Q})`, get: (x) => f.num(x.Q, 'discharge') },
+    { head: `y1 (${L})`, get: (x) => f.num(x.y1, 'length') },
+    { head: `V1 (${UNIT_LABELS.velocity[units]})`, get: (x) => f.num(x.v1, 'velocity') },
+    { head: 'Fr1', get: (x) => x.fr1.toFixed(2) },
+    { head: `y2 (${L})`, get: (x) => f.num(x.y2, 'length') },
+    { head: `Tailwater depth (${L})`, get: (x) => f.num(x.tailwaterDepth, 'length') },
+    { head: `C·y2 (${L})`, get: (x) => f.num(x.requiredDepth, 'length') },
+    { head: `Margin (${L})`, get: (x) => f.num(x.margin, 'length') },
+    { head: `Jump length (${L})`, get: (x) => f.num(x.length, 'length') },
+    { head: 'Jump', get: (x) => POSITION_WORDS[x.position] ?? x.position },
+  ];
+  content.push(heading('Results over the discharge range', accent, true));
+  content.push({
+    text: `On the study floor at ${f.withUnit(r.floor.elevation, 'length')}, tailwater factor C = ${r.floor.tailwaterFactor}. The margin is the tailwater depth less C·y2: where it is ≤ 0 the tailwater cannot hold the jump at the toe. The design discharge is in bold. Least margin ${f.withUnit(r.floor.leastMargin.margin, 'length')} at ${f.withUnit(r.floor.leastMargin.Q, 'discharge')}.`,
+    margin: [0, 0, 0, 6],
+  });
+  content.push({
+    table: {
+      headerRows: 1,
+      widths: cols.map((c) => (c.head === 'Jump' ? 58 : '*')),
+      body: [
+        cols.map((c) => ({ text: c.head, style: 'th' })),
+        ...r.rows.map((row) =>
+          cols.map((c, i) => ({
+            text: c.get(row),
+            bold: row.isDesign,
+            alignment: i === cols.length - 1 ? 'left' : 'right',
+          })),
+        ),
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    fontSize: 8,
+  });
+
+  // ——— Charts (the same data the web charts use)
+  const rangeRows =
+    design && design.family === 'jump-basin' && r.chosenFloor ? design.rows : r.rows;
+  const requiredLabel = `Required depth C·y2 (C = ${r.chosenFloor && design?.family === 'jump-basin' ? design.sizing.tailwaterFactor : r.floor.tailwaterFactor})`;
+  content.push(heading('Charts', accent, true));
+  content.push({
+    text:
+      rangeRows === r.rows
+        ? 'On the study floor, over the discharges checked.'
+        : `On the floor of the ${design?.name ?? 'chosen basin'} (${f.withUnit(floor, 'length')}), over the discharges checked.`,
+    margin: [0, 0, 0, 6],
+  });
+  content.push({
+    svg: chartToSvg(rangeChartSpec(rangeRows, units, requiredLabel), { fontFamily: 'Lato' }),
+    width: 515,
+  });
+  const diagrams = r.chosenFloor?.designJump.diagrams ?? r.diagrams;
+  content.push({ text: ' ', margin: [0, 6] });
+  content.push({
+    svg: chartToSvg(energyChartSpec(diagrams, units), { fontFamily: 'Lato' }),
+    width: 515,
+  });
+
+  // ——— Basin choice
+  content.push(heading('Basin choice', accent, true));
+  if (entry && design) {
+    const screened = r.screening.find((s) => s.type === entry.type);
+    content.push({
+      text: [{ text: `${design.name}. `, bold: true }, cite(screened?.summary ?? '', refs)],
+      margin: [0, 0, 0, 6],
+    });
+    if (screened)
+      content.push({
+        ul: screened.criteria.map(
+          (c) =>
+            `${c.status === 'pass' ? 'Meets' : c.status === 'warn' ? 'Marginal' : 'Fails'}: ${cite(phraseMessage(c.reason, units), refs)}`,
+        ),
+        margin: [0, 0, 0, 8],
+      });
+  } else content.push({ text: 'No catalogue type suits this site; see the screening below.' });
+  content.push({ text: 'Every type screened, in rank order', style: 'h2', color: accent });
+  content.push({
+    table: {
+      headerRows: 1,
+      widths: [120, 62, '*'],
+      body: [
+        ['Type', 'Verdict', 'Why'].map((t) => ({ text: t, style: 'th' })),
+        ...r.screening.map((s) => [
+          { text: s.name, bold: s.type === entry?.type },
+          s.verdict,
+          { text: cite(phraseMessage(s.summary, units), refs), fontSize: 8 },
+        ]),
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    fontSize: 8.5,
+  });
+  if (r.alternatives.length) {
+    content.push({ text: 'Alternatives compared', style: 'h2', color: accent });
+    const alt = (e: NonNullable<StudyResult['design']>) => {
+      const d = e.design;
+      const z =
+        d.family === 'jump-basin' || d.family === 'impact-basin'
+          ? d.floorElevation
+          : d.family === 'riprap-apron'
+            ? d.invertElevation
+            : null;
+      return [
+        { text: d.name, bold: e === entry },
+        { text: f.num(z, 'length'), alignment: 'right' },
+        { text: f.num(d.length, 'length'), alignment: 'right' },
+        { text: f.num(d.concrete.total, 'volume'), alignment: 'right' },
+        e.verdict,
+      ];
+    };
+    content.push({
+      table: {
+        headerRows: 1,
+        widths: ['*', 70, 70, 80, 70],
+        body: [
+          [
+            'Type',
+            `Floor (${L})`,
+            `Length (${L})`,
+            `Concrete (${UNIT_LABELS.volume[units]})`,
+            'Verdict',
+          ].map((t) => ({ text: t, style: 'th' })),
+          ...(entry ? [alt(entry)] : []),
+          ...r.alternatives.map(alt),
+        ],
+      },
+      layout: 'lightHorizontalLines',
+      fontSize: 8.5,
+    });
+  }
+
+  // ——— Drawing (landscape page)
+  if (entry) {
+    const format: DrawingFormatter = (value, quantity) =>
+      quantity === 'count'
+        ? String(Math.round(value))
+        : quantity === 'discharge'
+          ? f.withUnit(value, 'discharge', 1)
+          : f.withUnit(value, 'length', 2);
+    content.push({
+      text: 'Plan and section',
+      style: 'h1',
+      color: accent,
+      pageBreak: 'before',
+      pageOrientation: 'landscape',
+    });
+    content.push({
+      svg: drawingToSvg(entry.drawing, {
+        format,
+        width: 960,
+        fontFamily: 'Lato',
+        scaleUnit: { label: L, metres: toSIValue(1, 'length', units) },
+      }),
+      fit: [760, 440],
+    });
+  }
+
+  // ——— Exit protection and slab flotation
+  content.push({
+    text: 'Exit protection and slab flotation',
+    style: 'h1',
+    color: accent,
+    pageBreak: 'before',
+    pageOrientation: 'portrait',
+  });
+  const rip = design && 'riprap' in design ? design.riprap : null;
+  const slab = design && design.family === 'jump-basin' ? design.slab : null;
+  if (rip) {
+    content.push({ text: 'Riprap below the basin', style: 'h2', color: accent });
+    content.push(
+      keyValueTable([
+        ['Exit velocity', f.withUnit(rip.velocity, 'velocity')],
+        ['Median stone size D50', f.withUnit(rip.d50, 'length')],
+        ['Layer thickness', f.withUnit(rip.thickness, 'length')],
+        [
+          'Length × width',
+          `${f.withUnit(rip.length, 'length')} × ${f.withUnit(rip.width, 'length')}`,
+        ],
+        ['Bedding', rip.bedding],
+      ]),
+    );
+  }
+  if (slab) {
+    content.push({ text: 'Floor slab against uplift', style: 'h2', color: accent });
+    content.push(
+      keyValueTable([
+        ['Slab thickness used', f.withUnit(slab.thickness, 'length')],
+        [
+          'Thickness required',
+          `${f.withUnit(slab.requiredThickness, 'length')} (governed by ${slab.governedBy})`,
+        ],
+        ['Uplift head', f.withUnit(slab.upliftHead, 'length')],
+        [
+          'Safety factor against flotation',
+          `${slab.safetyFactorAchieved?.toFixed(2) ?? '—'} achieved, ${slab.safetyFactorRequired.toFixed(2)} required`,
+        ],
+      ]),
+    );
+    for (const n of slab.notes) content.push({ text: phraseMessage(n, units), color: SLATE });
+  }
+  if (!rip && !slab)
+    content.push({
+      text: 'The chosen dissipator has no riprap or floor slab sized by this study.',
+    });
+
+  // ——— Quantities and cost
+  content.push(heading('Quantities and cost', accent));
+  if (design) {
+    const c = design.concrete;
+    const V = UNIT_LABELS.volume[units];
+    content.push({
+      table: {
+        headerRows: 1,
+        widths: ['*', 100],
+        body: [
+          [
+            { text: 'Concrete by element (neat line)', style: 'th' },
+            { text: `Volume (${V})`, style: 'th', alignment: 'right' },
+          ],
+          ...(
+            [
+              ['Floor slab', c.slab],
+              ['Walls', c.walls],
+              ['Wingwalls', c.wingwalls],
+              ['Cutoffs', c.cutoffs],
+              ['Blocks', c.blocks],
+              ['End sill', c.sill],
+            ] as [string, number][]
+          ).map(([k, v]) => [k, { text: f.num(v, 'volume'), alignment: 'right' }]),
+          [
+            { text: 'Total', bold: true },
+            { text: f.num(c.total, 'volume'), alignment: 'right', bold: true },
+          ],
+        ],
+      },
+      layout: 'lightHorizontalLines',
+    });
+    content.push({ text: `Basis: ${c.basis}.`, fontSize: 8, color: MUTED, margin: [0, 4, 0, 6] });
+  }
+  content.push({
+    text: 'Quantities and cost: not priced yet. The full take-off (reinforcement, formwork, excavation, backfill, riprap and bedding) and the estimate with its accuracy range are not part of this version.',
+    bold: true,
+    color: SLATE,
+  });
+
+  // ——— Warnings and cautions
+  content.push(heading('Warnings and cautions', accent, true));
+  const warnings = [
+    ...r.warnings.map((w) => studyWarningText(w, units)),
+    ...(design?.warnings ?? []).map((w) => phraseMessage(w, units)),
+  ];
+  if (warnings.length) {
+    content.push({ text: 'What this study flags', style: 'h2', color: accent });
+    content.push({ ul: warnings.map((w) => cite(w, refs)), margin: [0, 0, 0, 8] });
+  }
+  content.push({ text: 'Cautions', style: 'h2', color: accent });
+  content.push({ ul: studyCautions(units), margin: [0, 0, 0, 8] });
+
+  // ——— Relations and references
+  const relations = (design?.sources ?? []).map((s) => cite(phraseMessage(s, units), refs));
+  if (design) refs.add(design.source);
+  if (relations.length) {
+    content.push({ text: 'Relations used', style: 'h2', color: accent });
+    content.push({ ul: relations, fontSize: 8.5, margin: [0, 0, 0, 6] });
+  }
+  content.push({ text: 'References: the published methods used', style: 'h2', color: accent });
+  content.push({ ol: referenceList(refs), fontSize: 8.5 });
+
+  // ——— Prepared by / reviewed by
+  const approved = review.state === 'approved';
+  content.push(heading('Prepared by and reviewed by', accent, true));
+  content.push({
+    columns: [
+      {
+        stack: [
+          { text: 'Prepared by', style: 'h2', color: accent },
+          { text: version.issuedByName, bold: true },
+          { text: firm.name },
+          { text: `Version ${version.number} issued ${stamp(version.issuedAt)}` },
+          ...(firm.sealStatement
+            ? [{ text: firm.sealStatement, italics: true, margin: [0, 6, 0, 0] }]
+            : []),
+        ],
+      },
+      {
+        stack: approved
+          ? [
+              { text: 'Reviewed by', style: 'h2', color: accent },
+              { text: review.reviewedByName ?? '—', bold: true },
+              { text: `Licence ${review.licence ?? '—'}, ${review.jurisdiction ?? '—'}` },
+              { text: `Approved ${review.reviewedAt ? stamp(review.reviewedAt) : '—'}` },
+              ...(review.statement
+                ? [{ text: review.statement, italics: true, margin: [0, 6, 0, 0] }]
+                : []),
+            ]
+          : [
+              { text: 'Reviewed by', style: 'h2', color: accent },
+              { text: 'NOT REVIEWED', bold: true, fontSize: 14, color: '#b42318' },
+              { text: REVIEW_WORDS[review.state] },
+              { text: 'No licensed engineer has approved this version.' },
+            ],
+      },
+    ],
+    columnGap: 24,
+  });
+
+  const pageCount = { value: 0 };
+  const footerText = brand?.footer ?? null;
+  const definition: Record<string, unknown> = {
+    pageSize: 'A4',
+    pageMargins: [40, 48, 40, 56],
+    info: {
+      title: `${project.name} — concept proposal, version ${version.number}`,
+      author: firm.name,
+      subject: 'Energy dissipator concept design proposal',
+      creator: 'Basinwright',
+    },
+    ...(brand
+      ? {}
+      : {
+          watermark: {
+            text: CONCEPT_WATERMARK,
+            color: '#94a3b8',
+            opacity: 0.18,
+            bold: true,
+            fontSize: 72,
+          },
+        }),
+    defaultStyle: { font: 'Lato', fontSize: 9.5, lineHeight: 1.2, color: '#0f172a' },
+    styles: {
+      title: { fontSize: 22, bold: true },
+      subtitle: { fontSize: 15, margin: [0, 0, 0, 18], color: SLATE },
+      firm: { fontSize: 16, bold: true },
+      h1: { fontSize: 15, bold: true, margin: [0, 0, 0, 8] },
+      h2: { fontSize: 11, bold: true, margin: [0, 10, 0, 4] },
+      th: { bold: true, color: SLATE, fontSize: 8 },
+    },
+    footer: (currentPage: number, count: number) => {
+      pageCount.value = Math.max(pageCount.value, count);
+      return {
+        columns: [
+          {
+            text: `${firm.name} · ${project.name} · version ${version.number}${footerText ? ` · ${footerText}` : ''}`,
+            fontSize: 7.5,
+            color: MUTED,
+          },
+          {
+            text: `Page ${currentPage} of ${count}`,
+            alignment: 'right',
+            fontSize: 7.5,
+            color: MUTED,
+            width: 80,
+          },
+        ],
+        margin: [40, 20, 40, 0],
+      };
+    },
+    content,
+  };
+  return { definition, pageCount };
+}
