@@ -16,6 +16,7 @@ import { membersRouter } from './modules/members/members.routes';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
+import { priceBooksRouter } from './modules/price-books/price-books.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -80,6 +81,7 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/members', membersRouter());
   api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
+  api.use('/price-books', priceBooksRouter());
 
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))

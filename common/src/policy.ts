@@ -21,6 +21,15 @@ export const POLICY = {
   'projects.delete': ['owner', 'admin', 'engineer'],
   'designs.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'designs.write': ['owner', 'admin', 'engineer'],
+  'priceBooks.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'priceBooks.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'priceBooks.export': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'priceBooks.create': ['owner', 'admin', 'estimator'],
+  'priceBooks.update': ['owner', 'admin', 'estimator'],
+  'priceBooks.items': ['owner', 'admin', 'estimator'],
+  'priceBooks.copy': ['owner', 'admin', 'estimator'],
+  'priceBooks.preview': ['owner', 'admin', 'estimator'],
+  'priceBooks.import': ['owner', 'admin', 'estimator'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

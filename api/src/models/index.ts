@@ -3,6 +3,8 @@ import { Design } from './Design';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
+import { PriceBook } from './PriceBook';
+import { PriceBookItem } from './PriceBookItem';
 import { Project } from './Project';
 import { SignupRequest } from './SignupRequest';
 import { User } from './User';
@@ -15,6 +17,8 @@ Invitation.initModel(sequelize);
 PasswordReset.initModel(sequelize);
 Design.initModel(sequelize);
 SignupRequest.initModel(sequelize);
+PriceBook.initModel(sequelize);
+PriceBookItem.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -28,5 +32,19 @@ PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
 Project.hasOne(Design, { as: 'design', foreignKey: 'projectId' });
 Design.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 Design.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
+Firm.hasMany(PriceBook, { as: 'priceBooks', foreignKey: 'firmId' });
+PriceBook.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+PriceBook.hasMany(PriceBookItem, { as: 'items', foreignKey: 'priceBookId' });
 
-export { sequelize, Design, Firm, Invitation, PasswordReset, Project, SignupRequest, User };
+export {
+  sequelize,
+  Design,
+  Firm,
+  Invitation,
+  PasswordReset,
+  PriceBook,
+  PriceBookItem,
+  Project,
+  SignupRequest,
+  User,
+};

@@ -5,3 +5,4 @@ export * from './member';
 export * from './project';
 export * from './study';
 export * from './design';
+export * from './priceBook';
