@@ -30,9 +30,47 @@ interface RouteCase {
   /** OpenAPI path template under /api/v1. */
   path: string;
   /** Prepares what the request needs; returns the concrete path, body and a check of the side effect. */
-  prepare(): Promise<{ url: string; body?: object; changed?: () => Promise<boolean> }>;
+  prepare(): Promise<{
+    url: string;
+    body?: object;
+    /** A multipart upload instead of a JSON body: text fields and one file. */
+    upload?: { fields: Record<string, string>; file: Buffer; name: string };
+    changed?: () => Promise<boolean>;
+  }>;
   success: number;
 }
+
+/** Sends the case's body: JSON, or multipart when it uploads a file. */
+function sendBody(
+  req: ReturnType<ReturnType<typeof h.http>['get']>,
+  prepared: Awaited<ReturnType<RouteCase['prepare']>>,
+) {
+  if (prepared.upload === undefined) return req.send(prepared.body ?? {});
+  for (const [key, value] of Object.entries(prepared.upload.fields)) req = req.field(key, value);
+  return req.attach('file', prepared.upload.file, prepared.upload.name);
+}
+
+async function newPriceBook(name = 'Matrix book') {
+  const book = await h.models.PriceBook.create({ firmId, name, createdById: ownerId });
+  await h.models.PriceBookItem.create({
+    firmId,
+    priceBookId: book.id,
+    code: 'C-1',
+    description: 'Concrete',
+    unit: 'm3',
+    unitPrice: 100,
+    currency: 'USD',
+  });
+  return book;
+}
+
+const PRICE_CSV = Buffer.from('Code,Description,Unit,Unit price\nX-9,Matrix item,m3,12.5\n');
+const PRICE_MAPPING = JSON.stringify({
+  code: 'Code',
+  description: 'Description',
+  unit: 'Unit',
+  unitPrice: 'Unit price',
+});
 
 async function newProject(name = 'Matrix project') {
   return h.models.Project.create({ firmId, name, units: 'SI', createdById: ownerId });
@@ -210,6 +248,111 @@ const routes: RouteCase[] = [
       };
     },
   },
+  {
+    action: 'priceBooks.list',
+    method: 'get',
+    path: '/price-books',
+    success: 200,
+    prepare: async () => ({ url: '/price-books' }),
+  },
+  {
+    action: 'priceBooks.create',
+    method: 'post',
+    path: '/price-books',
+    success: 201,
+    prepare: async () => {
+      const name = `Book ${uniqueEmail('b')}`;
+      return {
+        url: '/price-books',
+        body: { name },
+        changed: async () => (await h.models.PriceBook.count({ where: { firmId, name } })) > 0,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.read',
+    method: 'get',
+    path: '/price-books/{id}',
+    success: 200,
+    prepare: async () => ({ url: `/price-books/${(await newPriceBook()).id}` }),
+  },
+  {
+    action: 'priceBooks.update',
+    method: 'patch',
+    path: '/price-books/{id}',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}`,
+        body: { archived: true },
+        changed: async () => (await h.models.PriceBook.findByPk(book.id))?.archivedAt !== null,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.items',
+    method: 'put',
+    path: '/price-books/{id}/items',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}/items`,
+        body: { items: [{ code: 'N-1', description: 'New', unit: 'kg', unitPrice: 2 }] },
+        changed: async () =>
+          (await h.models.PriceBookItem.count({ where: { priceBookId: book.id, code: 'N-1' } })) ===
+          1,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.copy',
+    method: 'post',
+    path: '/price-books/{id}/copy',
+    success: 201,
+    prepare: async () => {
+      const book = await newPriceBook(`Copied ${uniqueEmail('c')}`);
+      return {
+        url: `/price-books/${book.id}/copy`,
+        changed: async () =>
+          (await h.models.PriceBook.count({ where: { firmId, name: `Copy of ${book.name}` } })) > 0,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.preview',
+    method: 'post',
+    path: '/price-books/import/preview',
+    success: 200,
+    prepare: async () => ({
+      url: '/price-books/import/preview',
+      upload: { fields: {}, file: PRICE_CSV, name: 'prices.csv' },
+    }),
+  },
+  {
+    action: 'priceBooks.import',
+    method: 'post',
+    path: '/price-books/{id}/import',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}/import`,
+        upload: { fields: { mapping: PRICE_MAPPING }, file: PRICE_CSV, name: 'prices.csv' },
+        changed: async () =>
+          (await h.models.PriceBookItem.count({ where: { priceBookId: book.id, code: 'X-9' } })) ===
+          1,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.export',
+    method: 'get',
+    path: '/price-books/{id}/export',
+    success: 200,
+    prepare: async () => ({ url: `/price-books/${(await newPriceBook()).id}/export?format=xlsx` }),
+  },
 ];
 
 describe('the route table covers every guarded route', () => {
@@ -232,20 +375,22 @@ describe('the route table covers every guarded route', () => {
 
 describe.each(routes)('$method $path ($action)', (route) => {
   it('without a token: 401', async () => {
-    const { url, body } = await route.prepare();
+    const prepared = await route.prepare();
     const agent = h.http();
-    const res = await agent[route.method](`/api/v1${url}`).send(body ?? {});
+    const res = await sendBody(agent[route.method](`/api/v1${prepared.url}`), prepared);
     expect(res.status).toBe(401);
     expect(res.body.code).toBe('unauthorized');
   });
 
   it.each(ROLES)('as %s: allowed only if the policy says so', async (role: Role) => {
     const member = await addMember(h, firmId, role);
-    const { url, body, changed } = await route.prepare();
+    const prepared = await route.prepare();
+    const { changed } = prepared;
     const agent = h.http();
-    const res = await agent[route.method](`/api/v1${url}`)
-      .set(bearer(member.token))
-      .send(body ?? {});
+    const res = await sendBody(
+      agent[route.method](`/api/v1${prepared.url}`).set(bearer(member.token)),
+      prepared,
+    );
     const allowed = (POLICY[route.action] as readonly Role[]).includes(role);
     if (allowed) {
       expect(res.status, JSON.stringify(res.body)).toBe(route.success);

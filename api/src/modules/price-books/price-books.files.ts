@@ -100,15 +100,19 @@ export function readCsv(data: Buffer): SheetTable {
   );
 }
 
-/** Cells to a table: the first non-blank row is the header; blank rows are skipped. */
+/** Cells to a table: a header row, then the data rows; blank rows are skipped. */
 function toTable(
   format: 'csv' | 'xlsx',
   decimalComma: boolean,
   lines: { line: number; cells: string[] }[],
 ): SheetTable {
   const filled = lines.filter((row) => !isBlank(row.cells));
-  const [header, ...rows] = filled;
-  if (header === undefined) return { format, decimalComma, headers: [], rows: [] };
+  // The header is the first row with two or more filled cells: a title above the table (one
+  // cell, or one merged across the columns) is skipped.
+  const at = filled.findIndex((row) => row.cells.filter((c) => c.trim() !== '').length >= 2);
+  const header = filled[at];
+  const rows = filled.slice(at + 1);
+  if (at < 0 || header === undefined) return { format, decimalComma, headers: [], rows: [] };
   if (rows.length > L.maxItems) throw tooManyRows();
   const headers = header.cells.map((cell) => cell.trim());
   return { format, decimalComma, headers, rows };
