@@ -39,3 +39,72 @@ export * from './basins';
 
 // Drawing of a sized basin: plan and section geometry, SVG (drawingToSvg)
 export * from './drawing';
+
+// Take-off of a sized design: quantities by element, their assumptions, the project's units
+export {
+  DEFAULT_SOIL,
+  SOIL_KINDS,
+  SOIL_SIDE_SLOPES,
+  TAKEOFF_ASSUMPTIONS,
+  TAKEOFF_ASSUMPTION_KEYS,
+  TAKEOFF_ASSUMPTION_LABELS,
+  TAKEOFF_ELEMENTS,
+  TAKEOFF_ITEM_KINDS,
+  TAKEOFF_QUANTITY_KINDS,
+  assumptionFromSI,
+  assumptionToSI,
+  formatTakeoff,
+  formatTakeoffTotals,
+  pitVolume,
+  takeoff,
+  takeoffAssumptions,
+  takeoffOverridesFromSI,
+  takeoffOverridesToSI,
+  takeoffQuantity,
+  type DisplayTakeoffLine,
+  type SoilKind,
+  type Takeoff,
+  type TakeoffAssumption,
+  type TakeoffAssumptionKey,
+  type TakeoffAssumptionSpec,
+  type TakeoffAssumptionUnit,
+  type TakeoffElement,
+  type TakeoffItemKind,
+  type TakeoffLine,
+  type TakeoffOverrides,
+  type TakeoffQuantityKind,
+} from './takeoff';
+// Concept estimate maths: priced lines, location factor, percentages, escalation, AACE range
+export {
+  AACE_BANDS,
+  AACE_CLASSES,
+  AACE_SOURCE,
+  ESTIMATE_STEPS,
+  PRICE_UNITS,
+  estimate,
+  isPriceUnit,
+  quantityInUnit,
+  type AaceClass,
+  type EstimateInput,
+  type EstimateLineInput,
+  type EstimateLineResult,
+  type EstimatePercentages,
+  type EstimateResult,
+  type PriceUnit,
+} from './estimate';
+// The sized types side by side and the cheapest design that works (width × type search)
+export {
+  cheapestDesign,
+  checkRates,
+  compareAlternatives,
+  costOf,
+  holdsEverywhere,
+  measuresOf,
+  rangeAtWidth,
+  siRate,
+  type CheapestSearchInput,
+  type CheapestSearchResult,
+  type SearchPoint,
+  type TypeMeasures,
+  type UnitRates,
+} from './search';

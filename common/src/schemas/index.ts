@@ -5,4 +5,5 @@ export * from './member';
 export * from './project';
 export * from './study';
 export * from './design';
+export * from './takeoff';
 export * from './priceBook';

@@ -250,3 +250,55 @@ export function requireStudySize(input: unknown): void {
     }
   }
 }
+
+/**
+ * Bounds on the take-off's overrides (SI; the schema converts them for a US form). Each keeps
+ * a figure within what a concrete hydraulic structure can have; the reason stands beside it.
+ */
+export const TAKEOFF_LIMITS = {
+  /** slab and wall thickness: 0.1 m is thinner than any reinforced slab with cover; 5 m is a mass-concrete block */
+  thickness: { min: 0.1, max: 5 },
+  /** waste and laps: a fraction of the neat quantity; more than doubling is a different job */
+  fraction: { min: 0, max: 1 },
+  /** reinforcement ratio, kg/m³: 0 is mass concrete; 400 is beyond any heavily reinforced member */
+  reinforcement: { min: 0, max: 400 },
+  /** working room each side, m */
+  workingRoom: { min: 0, max: 5 },
+  /** side slope H:V: 0 is a vertical (shored) cut; 4:1 is flatter than any temporary cut */
+  sideSlope: { min: 0, max: 4 },
+  /** bedding layer, m */
+  beddingThickness: { min: 0, max: 2 },
+  /** placed stone, kg/m³: between a loose rock fill and solid granite */
+  riprapDensity: { min: 1000, max: 3000 },
+  /** joint spacing, m: closer than 2 m is not a contraction joint pattern; 100 m is none */
+  jointSpacing: { min: 2, max: 100 },
+} as const;
+
+/** Bounds on an estimate's inputs (fractions unless said). */
+export const ESTIMATE_LIMITS = {
+  /** lines of one estimate: a concept estimate has tens; the bound keeps one request small */
+  maxLines: 2000,
+  /** a location factor outside 0.2–5 is a data-entry error, not a place */
+  locationFactor: { min: 0.2, max: 5 },
+  /** each percentage (mobilisation, care of water, contingency, overhead and profit) as a fraction */
+  percentage: { min: 0, max: 2 },
+  /** escalation rate a year, fraction (−20 % to +50 %) */
+  escalationRate: { min: -0.2, max: 0.5 },
+  /** years to the construction mid-point */
+  escalationYears: { min: 0, max: 30 },
+  /** a unit price or a quantity: non-negative and below 1e12 (no real line is larger) */
+  maxAmount: 1e12,
+  /** the reason for a quantity override, characters */
+  reasonMaxLength: 500,
+} as const;
+
+/** Bounds on the cheapest-design search. */
+export const SEARCH_LIMITS = {
+  /**
+   * widths tried: each one costs about one study (the range is prepared once), so 41 widths
+   * of a 5,000-discharge study stay within the API's time budget only for small studies; the
+   * pool's budget stops the rest with a 422
+   */
+  maxWidthSteps: 41,
+  defaultWidthSteps: 9,
+} as const;
