@@ -17,6 +17,7 @@ import { projectsRouter } from './modules/projects/projects.routes';
 import { designsRouter } from './modules/designs/designs.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { priceBooksRouter } from './modules/price-books/price-books.routes';
+import { estimatesRouter, projectEstimatesRouter } from './modules/estimates/estimates.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -82,6 +83,8 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/projects', designsRouter());
   api.use('/projects', projectsRouter());
   api.use('/price-books', priceBooksRouter());
+  api.use('/projects', projectEstimatesRouter());
+  api.use('/estimates', estimatesRouter());
 
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))

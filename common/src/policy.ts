@@ -30,6 +30,15 @@ export const POLICY = {
   'priceBooks.copy': ['owner', 'admin', 'estimator'],
   'priceBooks.preview': ['owner', 'admin', 'estimator'],
   'priceBooks.import': ['owner', 'admin', 'estimator'],
+  'takeoff.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'takeoff.write': ['owner', 'admin', 'engineer', 'estimator'],
+  'estimates.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'estimates.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'estimates.export': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
+  'estimates.create': ['owner', 'admin', 'engineer', 'estimator'],
+  'estimates.update': ['owner', 'admin', 'engineer', 'estimator'],
+  'estimates.override': ['owner', 'admin', 'engineer', 'estimator'],
+  'estimates.issue': ['owner', 'admin', 'engineer', 'estimator'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

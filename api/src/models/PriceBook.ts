@@ -21,6 +21,8 @@ export class PriceBook extends Model<
   declare currency: CreationOptional<string>;
   declare notes: CreationOptional<string>;
   declare archivedAt: CreationOptional<Date | null>;
+  /** The remembered mapping of take-off line keys to this book's item codes. */
+  declare takeoffMapping: CreationOptional<Record<string, string>>;
   declare createdById: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -37,6 +39,7 @@ export class PriceBook extends Model<
         currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'USD' },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         archivedAt: { type: DataTypes.DATE, allowNull: true },
+        takeoffMapping: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         createdById: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,5 +1,6 @@
 import { sequelize } from '../db/sequelize';
 import { Design } from './Design';
+import { DesignTakeoff, Estimate, EstimateAuditEntry } from './Estimate';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
@@ -19,6 +20,9 @@ Design.initModel(sequelize);
 SignupRequest.initModel(sequelize);
 PriceBook.initModel(sequelize);
 PriceBookItem.initModel(sequelize);
+Estimate.initModel(sequelize);
+EstimateAuditEntry.initModel(sequelize);
+DesignTakeoff.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -39,6 +43,9 @@ PriceBook.hasMany(PriceBookItem, { as: 'items', foreignKey: 'priceBookId' });
 export {
   sequelize,
   Design,
+  DesignTakeoff,
+  Estimate,
+  EstimateAuditEntry,
   Firm,
   Invitation,
   PasswordReset,

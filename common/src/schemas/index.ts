@@ -7,3 +7,4 @@ export * from './study';
 export * from './design';
 export * from './takeoff';
 export * from './priceBook';
+export * from './estimateRevision';
