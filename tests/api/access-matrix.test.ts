@@ -14,11 +14,13 @@ import {
 
 let firmId = '';
 let ownerId = '';
+let ownerToken = '';
 
 const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'matrix');
   firmId = firm.firm.id;
   ownerId = firm.user.id;
+  ownerToken = firm.token;
   await setPlan(h, firmId, 'firm', 1000);
 });
 
@@ -62,6 +64,47 @@ async function newPriceBook(name = 'Matrix book') {
     currency: 'USD',
   });
   return book;
+}
+
+let designedProject: Promise<string> | undefined;
+
+/** One project with a saved (computed) design, made once, for the take-off and estimate routes. */
+function projectWithDesign(): Promise<string> {
+  designedProject ??= (async () => {
+    const project = await newProject('Matrix designed project');
+    const res = await h
+      .http()
+      .put(`/api/v1/projects/${project.id}/design`)
+      .set(bearer(ownerToken))
+      .send({ input: fenwickDesign });
+    expect(res.status).toBe(200);
+    return project.id;
+  })();
+  return designedProject;
+}
+
+/** A draft revision on the designed project, priced by a book that maps one concrete line. */
+async function newEstimate() {
+  const projectId = await projectWithDesign();
+  const book = await newPriceBook();
+  await book.update({ takeoffMapping: { 'concrete.floorSlab': 'C-1' } });
+  const revision =
+    (await h.models.Estimate.max<number, InstanceType<typeof h.models.Estimate>>('revision', {
+      where: { projectId },
+    })) ?? 0;
+  return h.models.Estimate.create({
+    firmId,
+    projectId,
+    revision: revision + 1,
+    priceBookId: book.id,
+    settings: {
+      locationFactor: 1,
+      percentages: { mobilisation: 0, careOfWater: 0, contingency: 0, overheadAndProfit: 0 },
+      escalation: { annualRate: 0, years: 0 },
+      accuracy: { aaceClass: 5 },
+    },
+    createdById: ownerId,
+  });
 }
 
 const PRICE_CSV = Buffer.from('Code,Description,Unit,Unit price\nX-9,Matrix item,m3,12.5\n');
@@ -352,6 +395,108 @@ const routes: RouteCase[] = [
     path: '/price-books/{id}/export',
     success: 200,
     prepare: async () => ({ url: `/price-books/${(await newPriceBook()).id}/export?format=xlsx` }),
+  },
+  {
+    action: 'takeoff.read',
+    method: 'get',
+    path: '/projects/{id}/takeoff',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${await projectWithDesign()}/takeoff` }),
+  },
+  {
+    action: 'takeoff.write',
+    method: 'put',
+    path: '/projects/{id}/takeoff/overrides',
+    success: 200,
+    prepare: async () => {
+      const projectId = await projectWithDesign();
+      const design = await h.models.Design.findOne({ where: { projectId } });
+      await h.models.DesignTakeoff.destroy({ where: { designId: design!.id } });
+      return {
+        url: `/projects/${projectId}/takeoff/overrides`,
+        body: { overrides: { workingRoom: 0.9 } },
+        changed: async () =>
+          (await h.models.DesignTakeoff.count({ where: { designId: design!.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'estimates.list',
+    method: 'get',
+    path: '/projects/{id}/estimates',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${await projectWithDesign()}/estimates` }),
+  },
+  {
+    action: 'estimates.create',
+    method: 'post',
+    path: '/projects/{id}/estimates',
+    success: 201,
+    prepare: async () => {
+      const project = await newProject('Matrix estimate project');
+      return {
+        url: `/projects/${project.id}/estimates`,
+        body: {},
+        changed: async () =>
+          (await h.models.Estimate.count({ where: { projectId: project.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'estimates.read',
+    method: 'get',
+    path: '/estimates/{id}',
+    success: 200,
+    prepare: async () => ({ url: `/estimates/${(await newEstimate()).id}` }),
+  },
+  {
+    action: 'estimates.update',
+    method: 'patch',
+    path: '/estimates/{id}',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}`,
+        body: { priceBookId: null },
+        changed: async () => (await h.models.Estimate.findByPk(estimate.id))?.priceBookId === null,
+      };
+    },
+  },
+  {
+    action: 'estimates.override',
+    method: 'post',
+    path: '/estimates/{id}/overrides',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}/overrides`,
+        body: { key: 'concrete.floorSlab', quantity: 12, reason: 'Matrix check' },
+        changed: async () =>
+          (await h.models.EstimateAuditEntry.count({ where: { estimateId: estimate.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'estimates.issue',
+    method: 'post',
+    path: '/estimates/{id}/issue',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}/issue`,
+        changed: async () => (await h.models.Estimate.findByPk(estimate.id))?.status === 'issued',
+      };
+    },
+  },
+  {
+    action: 'estimates.export',
+    method: 'get',
+    path: '/estimates/{id}/export',
+    success: 200,
+    prepare: async () => ({ url: `/estimates/${(await newEstimate()).id}/export?format=xlsx` }),
   },
 ];
 

@@ -1,4 +1,4 @@
-import { number, object, string, type InferType } from 'yup';
+import { mixed, number, object, string, type InferType } from 'yup';
 import { AACE_CLASSES, PRICE_UNITS, type AaceClass, type PriceUnit } from '../estimate';
 import { ESTIMATE_LIMITS } from './limits';
 import { trimString } from './text';
@@ -75,9 +75,11 @@ export const estimateUpdateSchema = object({
     .optional(),
   settings: estimateSettingsSchema.default(undefined).optional(),
   /** take-off line key → price-book item code ('' to leave the line unpriced) */
-  mapping: object()
+  // mixed, not object(): validation strips unknown keys, and every key of a mapping is "unknown"
+  mapping: mixed<Record<string, string>>()
     .test('mapping-shape', 'The mapping pairs take-off lines with item codes.', (value) => {
       if (value === undefined) return true;
+      if (typeof value !== 'object' || value === null || Array.isArray(value)) return false;
       const entries = Object.entries(value as Record<string, unknown>);
       return (
         entries.length <= 200 &&
