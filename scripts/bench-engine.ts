@@ -3,8 +3,15 @@
 // then runStudy at 5,000 discharges (the most a study analyses).
 // The two sizes are run in alternation and the median taken, so background load on the
 // machine affects both alike; CPU time of this process is reported beside wall time.
+// Then the cheapest-design search (width × type, issue 9) on the demo design against one
+// runStudy of it: the range is prepared once, so the aim is ≤ (widths tried) × one study.
 // Run: node --import tsx --conditions=@basinwright/source scripts/bench-engine.ts
-import { runStudy, type StudyInput } from '@basinwright/common';
+import {
+  cheapestDesign,
+  runStudy,
+  type CheapestSearchResult,
+  type StudyInput,
+} from '@basinwright/common';
 import { fenwickDesign } from '../seed/designs';
 import { record } from './bench-results';
 
@@ -27,6 +34,86 @@ const median = (xs: number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
   return s[Math.floor(s.length / 2)]!;
 };
+
+// First, on a fresh heap (the 5,000-discharge runs below leave much garbage behind).
+// The width × type search on the demo design, against one runStudy of the same design.
+// Invented unit rates (the costs only order the designs; their values do not change the work).
+const searchRates = {
+  byKind: {
+    concrete: 300,
+    reinforcement: 2,
+    formwork: 50,
+    excavation: 15,
+    backfill: 10,
+    riprap: 60,
+  },
+};
+const searchWidths = 9;
+const searchOf = (): CheapestSearchResult =>
+  cheapestDesign({
+    study: fenwickDesign,
+    width: { min: 6, max: 24, steps: searchWidths },
+    rates: searchRates,
+  });
+// The same widths studied one by one with runStudy (what the search saves against).
+const searchedWidths = searchOf().widths;
+const studiesAtWidths = (): void => {
+  for (const w of searchedWidths) runStudy({ ...fenwickDesign, basinWidth: w });
+};
+for (let i = 0; i < 10; i++) {
+  runStudy(fenwickDesign); // warm up the JIT on all three
+  searchOf();
+  studiesAtWidths();
+}
+// CPU time of this process, medians of batches (a study of the demo design takes a few ms, too
+// short for one reading): the machine is shared, and wall time then measures the other
+// processes as much as this one. Wall time is printed beside it.
+const one: number[] = [];
+const all: number[] = [];
+const each: number[] = [];
+const oneWall: number[] = [];
+const allWall: number[] = [];
+const cpuMs = (c: NodeJS.CpuUsage): number => (c.user + c.system) / 1000;
+const batch = 10;
+for (let i = 0; i < Math.max(5, Math.ceil(Number(process.env.BENCH_ROUNDS ?? 15) / 2)); i++) {
+  let c0 = process.cpuUsage();
+  let t0 = performance.now();
+  for (let k = 0; k < batch; k++) runStudy(fenwickDesign);
+  oneWall.push((performance.now() - t0) / batch);
+  one.push(cpuMs(process.cpuUsage(c0)) / batch);
+  c0 = process.cpuUsage();
+  t0 = performance.now();
+  for (let k = 0; k < batch; k++) searchOf();
+  allWall.push((performance.now() - t0) / batch);
+  all.push(cpuMs(process.cpuUsage(c0)) / batch);
+  c0 = process.cpuUsage();
+  for (let k = 0; k < batch; k++) studiesAtWidths();
+  each.push(cpuMs(process.cpuUsage(c0)) / batch);
+}
+const oneMs = median(one);
+const searchMs = median(all);
+const searchRatio = searchMs / oneMs;
+const eachMs = median(each);
+const savedRatio = searchMs / eachMs;
+console.log(
+  `cheapest-design search, ${searchWidths} widths × every passing type: CPU ${searchMs.toFixed(1)} ms (wall ${median(allWall).toFixed(1)}); one runStudy CPU ${oneMs.toFixed(1)} ms (wall ${median(oneWall).toFixed(1)}); ratio (CPU) ${searchRatio.toFixed(2)} (target ≤ ${searchWidths}) ${searchRatio <= searchWidths ? 'OK' : 'OVER TARGET'}`,
+);
+console.log(
+  `  the same ${searchedWidths.length} widths studied one by one with runStudy: CPU ${eachMs.toFixed(1)} ms; search ÷ those ${savedRatio.toFixed(2)} (target ≤ 1) ${savedRatio <= 1 ? 'OK' : 'OVER TARGET'} (a study at the demo's own width costs less than at the others)`,
+);
+record({
+  name: 'engine.cheapestSearch.demo',
+  label: `cheapest-design search, ${searchWidths} widths (demo design, CPU time)`,
+  value: searchMs,
+  unit: 'ms',
+});
+record({
+  name: 'ratio.cheapestSearch.vsRunStudy',
+  label: `cheapest-design search ÷ one runStudy (${searchWidths} widths, CPU time)`,
+  value: searchRatio,
+  unit: 'ratio',
+  target: { op: '<=', value: searchWidths },
+});
 
 const small = demo(200);
 const large = demo(800);
@@ -73,4 +160,11 @@ record({
   label: 'runStudy, 5,000 discharges',
   value: median(h.map((x) => x.wall)),
   unit: 'ms',
+});
+record({
+  name: 'ratio.cheapestSearch.vsStudiesAtWidths',
+  label: 'cheapest-design search ÷ runStudy at each width searched (CPU time)',
+  value: savedRatio,
+  unit: 'ratio',
+  target: { op: '<=', value: 1 },
 });

@@ -95,6 +95,7 @@ export {
 // The sized types side by side and the cheapest design that works (width × type search)
 export {
   cheapestDesign,
+  cheapestFromRequest,
   checkRates,
   compareAlternatives,
   costOf,

@@ -147,6 +147,61 @@ describe('take-off of a simple rectangular basin (hand calculation)', () => {
   });
 });
 
+/**
+ * A basin with chute blocks, baffle piers, a dentated sill with a sloping face and a flared
+ * transition from a 2 m outlet: 6 m inside, 10 m long, walls 3 m × 0.3 m, slab 0.4 m.
+ */
+const blockedBasin = {
+  ...simpleBasin,
+  type: 'usbr-3',
+  width: 6,
+  length: 10,
+  walls: { height: 3, thickness: 0.3 },
+  slab: { thickness: 0.4 },
+  chuteBlocks: { count: 4, height: 0.5, width: 0.5, length: 1.0 },
+  baffleBlocks: { count: 3, height: 0.8, width: 0.6, length: 0.8, kind: 'baffle-piers' },
+  endSill: { kind: 'dentated', height: 0.6, length: 1.5, upstreamSlope: 2 },
+  flare: { fromWidth: 2, toWidth: 6, tanTheta: 0.1, angleDeg: 5.71, length: 20 },
+} as unknown as JumpBasinDesign;
+
+describe('take-off of blocks, piers, a sloping dentated sill and a transition (hand calculation)', () => {
+  const t = takeoff(blockedBasin, { concreteWaste: 0 });
+  it('blocks and piers as prisms (piers × 0.6 for their section)', () => {
+    // 4 chute blocks 0.5 × 1.0 × 0.5 = 4 × 0.25 = 1.0 m³; forms 4 × (2×0.5×0.5 + 2×1.0×0.5) = 6.0 m²
+    expectRel(line(t, 'concrete.chuteBlocks'), 1.0, 1e-12);
+    expectRel(line(t, 'formwork.chuteBlocks'), 6.0, 1e-12);
+    // 3 piers 0.6 wide × 0.8 long × 0.8 high × 0.6 = 3 × 0.2304 = 0.6912 m³
+    expectRel(line(t, 'concrete.bafflePiers'), 0.6912, 1e-12);
+    // forms 3 × (2 × 0.6 × 0.8 + 2 × 0.8 × 0.8 × 0.6) = 3 × 1.728 = 5.184 m²
+    expectRel(line(t, 'formwork.bafflePiers'), 5.184, 1e-12);
+    expectRel(line(t, 'reinforcement.bafflePiers'), 0.6912 * 80, 1e-12);
+  });
+  it('a dentated sill with a 2:1 upstream face', () => {
+    // section: a trapezoid 0.6 high, 1.5 at the base, 1.5 − 2×0.6 = 0.3 at the top:
+    // 0.6 × (1.5 + 0.3)/2 = 0.54 m²; × 6 m = 3.24 m³; × 0.6 for the teeth = 1.944 m³
+    expectRel(line(t, 'concrete.endSill'), 1.944, 1e-12);
+    // faces: downstream 0.6 high, upstream 0.6 × √(1 + 2²) = 1.3416 m along the slope;
+    // (0.6 + 1.341641) × 6 × 0.6 = 6.989907 m²
+    expectRel(line(t, 'formwork.endSill'), (0.6 + 0.6 * Math.sqrt(5)) * 6 * 0.6, 1e-12);
+  });
+  it('the transition: a trapezoidal floor and two flared walls', () => {
+    // flare 20 m long from 2 m to 6 m; floor 20 × ((2 + 6)/2 + 2 × 0.3) × 0.4 = 20 × 4.6 × 0.4 = 36.8 m³
+    // walls along the flare: 20 × √(1 + 0.1²) = 20.09975 m each; 2 × 20.09975 × 3 × 0.3 = 36.17955 m³
+    const wallLen = 20 * Math.sqrt(1.01);
+    expectRel(line(t, 'concrete.transition'), 36.8 + 2 * wallLen * 3 * 0.3, 1e-12);
+    // floor at the slab ratio, walls at the wall ratio: 36.8 × 100 + 36.17955 × 110
+    expectRel(line(t, 'reinforcement.transition'), 3680 + 2 * wallLen * 3 * 0.3 * 110, 1e-12);
+    // forms: both faces of both walls 4 × 20.09975 × 3, and the floor's two side edges 2 × 20 × 0.4
+    expectRel(line(t, 'formwork.transition'), 4 * wallLen * 3 + 16, 1e-12);
+  });
+  it('the structure is 30 m long with the transition: 3 joints', () => {
+    // joints every 9 m over 10 + 20 = 30 m: 3; each 6.6 + 2 × 3 = 12.6 m → 37.8 m
+    expectRel(line(t, 'joint.structure'), 37.8, 1e-12);
+    // waterstop: 37.8 + 2 × 30 = 97.8 m
+    expectRel(line(t, 'waterstop.structure'), 97.8, 1e-12);
+  });
+});
+
 describe('SI and US customary give the same totals', () => {
   const result = runStudy(fenwickDesign);
   const t = takeoff(result.design!);

@@ -6,5 +6,6 @@ export * from './project';
 export * from './study';
 export * from './design';
 export * from './takeoff';
+export * from './search';
 export * from './priceBook';
 export * from './estimateRevision';

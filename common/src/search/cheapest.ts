@@ -155,10 +155,13 @@ export function cheapestDesign(input: CheapestSearchInput): CheapestSearchResult
     lo = Math.min(b0, hi);
     basis.push(`no narrower than the flow entering the basin (${b0} m)`);
   }
+  // The designs at the narrowest width: the spread is read from them, and the grid reuses them.
+  let atLo: { width: number; res: ReturnType<typeof designDissipators> } | null = null;
   if (b0 !== null) {
     // The spread over the basin, from the design discharge at the narrowest width tried.
     try {
       const r0 = designDissipators(rangeAtWidth(base, lo), opts);
+      atLo = { width: lo, res: r0 };
       const lengths = [r0.design, ...r0.alternatives]
         .filter((e): e is DesignEntry => e !== null && e.design.family === 'jump-basin')
         .map((e) =>
@@ -190,7 +193,7 @@ export function cheapestDesign(input: CheapestSearchInput): CheapestSearchResult
   for (const W of widths) {
     let res;
     try {
-      res = designDissipators(rangeAtWidth(base, W), opts);
+      res = atLo?.width === W ? atLo.res : designDissipators(rangeAtWidth(base, W), opts);
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
       failures.push({ width: W, reason: e.message });

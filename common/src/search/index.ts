@@ -16,3 +16,4 @@ export {
   type CheapestSearchResult,
   type SearchPoint,
 } from './cheapest';
+export { cheapestFromRequest } from './request';

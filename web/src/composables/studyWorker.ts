@@ -3,7 +3,7 @@
 // older one supersedes it: the worker is ended and a fresh one started, so long runs never queue
 // behind each other and a late answer to an older input is never shown. Where there is no
 // Worker (jsdom in the unit tests) the study runs in the thread, synchronously.
-import type { DissipatorTypeId } from '@basinwright/common';
+import type { CheapestSearchResult, DissipatorTypeId } from '@basinwright/common';
 import type { StudyOutcome } from '@/composables/useStudy';
 
 /** One evaluation: the form's raw values and the basin type chosen beside them. */
@@ -133,5 +133,103 @@ export function createStudyClient(options: {
       job?.resolve(null);
       job = null;
     },
+  };
+}
+
+// ---- The cheapest-design search, in the same worker script (workers/study.worker.ts) ----
+
+/** One search: the request as the form gives it (study input, width limits, rates, overrides). */
+export interface SearchRequest {
+  body: unknown;
+}
+
+/** What a search gives back: the result, or the reason it could not run. */
+export interface SearchOutcome {
+  result: CheapestSearchResult | null;
+  /** readable message when the engine refused the input */
+  engineError: string | null;
+  /** schema messages when the request is not complete */
+  inputProblems: string[];
+}
+
+/** Page → worker (a search; a study call carries `request` instead). */
+export interface SearchCall {
+  id: number;
+  search: SearchRequest;
+}
+
+/** Worker → page. */
+export interface SearchAnswer {
+  id: number;
+  search: SearchOutcome;
+}
+
+/** What the search client uses of a Worker; a fake stands in for it in tests. */
+export interface SearchPort {
+  postMessage(call: SearchCall): void;
+  terminate(): void;
+  onmessage: ((event: MessageEvent<SearchAnswer>) => void) | null;
+  onerror: ((event: Event) => void) | null;
+}
+
+export interface SearchClient {
+  /**
+   * Runs a search in a fresh worker (ended once it answers). A newer run, cancel or dispose
+   * ends the one under way, which resolves with null. Without a worker, or when the worker
+   * fails to load or crashes, the search runs in the thread.
+   */
+  run(request: SearchRequest): Promise<SearchOutcome | null>;
+  cancel(): void;
+  dispose(): void;
+}
+
+export function createSearchClient(options: {
+  spawn: (() => SearchPort) | null;
+  evaluate: (request: SearchRequest) => SearchOutcome;
+}): SearchClient {
+  const { spawn, evaluate } = options;
+  let port: SearchPort | null = null;
+  let pending: ((outcome: SearchOutcome | null) => void) | null = null;
+  let lastId = 0;
+  let failed = spawn === null;
+
+  function cancel(): void {
+    port?.terminate();
+    port = null;
+    const done = pending;
+    pending = null;
+    done?.(null);
+  }
+
+  return {
+    run(request) {
+      cancel();
+      if (failed || spawn === null) return Promise.resolve(evaluate(request));
+      const id = ++lastId;
+      const own = spawn();
+      port = own;
+      return new Promise<SearchOutcome | null>((resolve) => {
+        pending = resolve;
+        own.onmessage = (event) => {
+          if (own !== port || event.data.id !== id) return;
+          own.terminate();
+          port = null;
+          pending = null;
+          resolve(event.data.search);
+        };
+        own.onerror = (event) => {
+          if (own !== port) return;
+          event.preventDefault?.();
+          own.terminate();
+          port = null;
+          pending = null;
+          failed = true;
+          resolve(evaluate(request));
+        };
+        own.postMessage({ id, search: { body: plainCopy(request.body) } });
+      });
+    },
+    cancel,
+    dispose: cancel,
   };
 }

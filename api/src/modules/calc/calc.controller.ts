@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import type { JumpSituation, StudyInput } from '@basinwright/common';
+import type { CheapestRequest, JumpSituation, StudyInput } from '@basinwright/common';
 import * as calc from './calc.service';
 
 // The worker presents the results (calc.worker.ts): the controllers only send them.
@@ -17,4 +17,9 @@ export async function study(req: Request, res: Response): Promise<void> {
 export async function jumpPosition(req: Request, res: Response): Promise<void> {
   // Cast by validate(jumpSituationSchema).
   res.json(await calc.calculateJumpPosition(req.body as JumpSituation));
+}
+
+export async function cheapest(req: Request, res: Response): Promise<void> {
+  // Cast by validate(cheapestRequestSchema).
+  res.json(await calc.calculateCheapest(req.body as CheapestRequest));
 }

@@ -56,6 +56,10 @@ function largest(task: ComputeTask): { field: string; label: string; value: numb
     const [top] = studySizes(task.input);
     if (top !== undefined) return top;
   }
+  if (task.kind === 'cheapest') {
+    const [top] = studySizes(task.body.input);
+    if (top !== undefined) return { ...top, field: `input.${top.field}` };
+  }
   return { field: 'body', label: 'the request', value: NaN };
 }
 

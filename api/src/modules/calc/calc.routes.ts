@@ -1,5 +1,10 @@
 import { Router, type RequestHandler } from 'express';
-import { jumpRequestSchema, jumpSituationSchema, studyInputSchema } from '@basinwright/common';
+import {
+  cheapestRequestSchema,
+  jumpRequestSchema,
+  jumpSituationSchema,
+  studyInputSchema,
+} from '@basinwright/common';
 import { authenticateSession } from '../../middlewares/auth';
 import { validate } from '../../middlewares/validate';
 import * as controller from './calc.controller';
@@ -15,5 +20,6 @@ export function calcRouter(auth: RequestHandler = authenticateSession): Router {
   router.post('/jump', validate(jumpRequestSchema), controller.jump);
   router.post('/study', validate(studyInputSchema), controller.study);
   router.post('/jump-position', validate(jumpSituationSchema), controller.jumpPosition);
+  router.post('/cheapest', validate(cheapestRequestSchema), controller.cheapest);
   return router;
 }

@@ -1,4 +1,6 @@
 import type {
+  CheapestRequest,
+  CheapestSearchResult,
   JumpLocation,
   JumpResult,
   JumpSituation,
@@ -60,5 +62,14 @@ export async function calculateJumpPosition(body: JumpSituation): Promise<JumpLo
     return await computePool().run({ kind: 'jump-position', body });
   } catch (error) {
     throw fromEngineError(error);
+  }
+}
+
+/** The cheapest design that works over width × passing types (SI result), in the pool. */
+export async function calculateCheapest(body: CheapestRequest): Promise<CheapestSearchResult> {
+  try {
+    return await computePool().run({ kind: 'cheapest', body });
+  } catch (error) {
+    throw fromEngineError(error, '', body.input.units);
   }
 }

@@ -2,10 +2,13 @@
 // long study never holds the API's event loop. Errors come back as data: structured cloning
 // would keep an Error's name and message but drop its own properties (field, code).
 import {
+  cheapestFromRequest,
   hydraulicJump,
   locateJump,
   runStudy,
   toSI,
+  type CheapestRequest,
+  type CheapestSearchResult,
   type JumpLengthMethod,
   type JumpLocation,
   type JumpResult,
@@ -28,13 +31,16 @@ export type ComputeTask =
   | { kind: 'study'; input: StudyInput }
   /** the study's presented result as JSON text, for a route that only sends it on */
   | { kind: 'study-json'; input: StudyInput }
-  | { kind: 'jump-position'; body: JumpSituation };
+  | { kind: 'jump-position'; body: JumpSituation }
+  /** the cheapest design over width × passing types (POST /calc/cheapest) */
+  | { kind: 'cheapest'; body: CheapestRequest };
 
 export interface ComputeResults {
   jump: JumpResult;
   study: StudyResult;
   'study-json': string;
   'jump-position': JumpLocation;
+  cheapest: CheapestSearchResult;
 }
 
 /** An error thrown by the engine, as plain data: its class, name, message and own properties. */
@@ -65,6 +71,8 @@ function run(task: ComputeTask): unknown {
       return JSON.stringify(presentStudy(runStudy(toSI(task.input))));
     case 'jump-position':
       return locateJump(task.body);
+    case 'cheapest':
+      return cheapestFromRequest(task.body);
   }
 }
 
