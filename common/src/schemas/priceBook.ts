@@ -1,4 +1,5 @@
 import { array, boolean, mixed, number, object, string, type InferType } from 'yup';
+import type { PriceUnit } from '../estimate';
 import { trimString } from './text';
 
 /** Bounds of a price book and of an import, each with its reason. */
@@ -137,3 +138,48 @@ export const priceExportQuerySchema = object({
     .default('csv'),
 });
 export type PriceExportQuery = InferType<typeof priceExportQuerySchema>;
+
+// How price books write units, squashed (lower case, ³ ² ^ . and spaces removed).
+const UNIT_WORDS: Record<string, PriceUnit> = {
+  m3: 'm3',
+  cum: 'm3',
+  cm: 'm3',
+  yd3: 'yd3',
+  cy: 'yd3',
+  cuyd: 'yd3',
+  ft3: 'ft3',
+  cf: 'ft3',
+  cuft: 'ft3',
+  kg: 'kg',
+  kgs: 'kg',
+  t: 't',
+  tonne: 't',
+  tonnes: 't',
+  lb: 'lb',
+  lbs: 'lb',
+  ton: 'ton',
+  tons: 'ton',
+  m2: 'm2',
+  sqm: 'm2',
+  ft2: 'ft2',
+  sf: 'ft2',
+  sqft: 'ft2',
+  yd2: 'yd2',
+  sy: 'yd2',
+  sqyd: 'yd2',
+  m: 'm',
+  lm: 'm',
+  ft: 'ft',
+  lf: 'ft',
+};
+
+/** The price unit a price book's unit text names (m³, m3, CY, SF, LF, …), or null. */
+export function priceUnitOf(text: string): PriceUnit | null {
+  const squashed = text
+    .toLowerCase()
+    .replace(/³/g, '3')
+    .replace(/²/g, '2')
+    .replace(/[\s^.]/g, '');
+  return UNIT_WORDS[squashed] ?? null;
+}
+

@@ -22,7 +22,11 @@ export interface PriceItem {
   dateNote?: string;
 }
 
-export type PriceBookWithItems = PriceBook & { items: PriceItem[] };
+export type PriceBookWithItems = PriceBook & {
+  items: PriceItem[];
+  /** take-off line key → item code, remembered by the book */
+  takeoffMapping?: Record<string, string>;
+};
 export type ImportMapping = Partial<Record<keyof PriceItem, string>>;
 
 export interface ImportPreview {

@@ -4,6 +4,7 @@ import {
   ESTIMATE_STEPS,
   PRICE_UNITS,
   estimate,
+  priceUnitOf,
   quantityInUnit,
   takeoff,
   takeoffOverridesSchema,
@@ -13,7 +14,6 @@ import {
   type EstimateResult,
   type EstimateSettings,
   type EstimateUpdateInput,
-  type PriceUnit,
   type Takeoff,
   type TakeoffOverrides,
   type TakeoffQuantityKind,
@@ -48,50 +48,6 @@ export const SI_UNIT: Record<TakeoffQuantityKind, string> = {
   area: 'm²',
   length: 'm',
 };
-
-// How price books write units, squashed (lower case, ³ ² ^ . and spaces removed).
-const UNIT_WORDS: Record<string, PriceUnit> = {
-  m3: 'm3',
-  cum: 'm3',
-  cm: 'm3',
-  yd3: 'yd3',
-  cy: 'yd3',
-  cuyd: 'yd3',
-  ft3: 'ft3',
-  cf: 'ft3',
-  cuft: 'ft3',
-  kg: 'kg',
-  kgs: 'kg',
-  t: 't',
-  tonne: 't',
-  tonnes: 't',
-  lb: 'lb',
-  lbs: 'lb',
-  ton: 'ton',
-  tons: 'ton',
-  m2: 'm2',
-  sqm: 'm2',
-  ft2: 'ft2',
-  sf: 'ft2',
-  sqft: 'ft2',
-  yd2: 'yd2',
-  sy: 'yd2',
-  sqyd: 'yd2',
-  m: 'm',
-  lm: 'm',
-  ft: 'ft',
-  lf: 'ft',
-};
-
-/** The price unit a price book's unit text names (m³, m3, CY, SF, LF, …), or null. */
-export function priceUnitOf(text: string): PriceUnit | null {
-  const squashed = text
-    .toLowerCase()
-    .replace(/³/g, '3')
-    .replace(/²/g, '2')
-    .replace(/[\s^.]/g, '');
-  return UNIT_WORDS[squashed] ?? null;
-}
 
 export interface TakeoffLineView {
   key: string;

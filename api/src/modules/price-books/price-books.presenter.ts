@@ -51,6 +51,10 @@ export function presentPriceBook(book: PriceBook, itemCount?: number): PriceBook
 
 export function presentPriceBookWithItems(
   book: PriceBook,
-): PriceBookView & { items: PriceBookItemView[] } {
-  return { ...presentPriceBook(book), items: (book.items ?? []).map(presentItem) };
+): PriceBookView & { items: PriceBookItemView[]; takeoffMapping: Record<string, string> } {
+  return {
+    ...presentPriceBook(book),
+    items: (book.items ?? []).map(presentItem),
+    takeoffMapping: book.takeoffMapping ?? {},
+  };
 }
