@@ -80,6 +80,17 @@ describe('estimate: take-off, price book, changed quantity, issue, download', ()
     expect([...readFileSync(path).subarray(0, 4)]).toEqual([0x50, 0x4b, 0x03, 0x04]);
   });
 
+  it('the engineer sees the cheapest passing type and width on the chart', async () => {
+    const { page } = await openAs('engineer@harrow-lune.example', 'estimate-engineer');
+    await page.goto(`${designUrl}?step=takeoff`);
+    await page.locator('[data-test="takeoff-concrete"]').waitFor();
+    await page.locator('[data-test="cheapest-run"]').click();
+    await page.locator('[data-test="cheapest-chart"]').waitFor();
+    await expect
+      .poll(() => page.locator('[data-test="cheapest-best"]').textContent())
+      .toMatch(/Cheapest that holds the jump at every discharge: .+ at [0-9.]+ m wide/);
+  });
+
   it('the viewer reads the issued estimate and is offered no change', async () => {
     const { page } = await openAs('viewer@harrow-lune.example', 'estimate-viewer');
     await page.goto(`${designUrl}?step=estimate`);
