@@ -182,4 +182,3 @@ export function priceUnitOf(text: string): PriceUnit | null {
     .replace(/[\s^.]/g, '');
   return UNIT_WORDS[squashed] ?? null;
 }
-
