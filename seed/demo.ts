@@ -127,3 +127,123 @@ export const demoReviewers: {
       'Final design remains subject to site investigation and the approving authority.',
   },
 ];
+/**
+ * The demo firm's one price book. Every rate is INVENTED for the demo (illustrative only, not
+ * a market price); the book's name and notes say so. `takeoffMapping` is the remembered
+ * mapping of take-off lines (kind.element) to its codes, by kind of work; riprap is priced by
+ * volume, so its mass line stays unmapped (it would count the stone twice).
+ */
+export const demoPriceBook: {
+  name: string;
+  currency: string;
+  notes: string;
+  items: {
+    code: string;
+    description: string;
+    unit: string;
+    unitPrice: number;
+    source: string;
+    dateNote: string;
+  }[];
+  codeByKind: Record<string, string>;
+} = {
+  name: 'Invented demo rates (illustrative, not real prices)',
+  currency: 'USD',
+  notes:
+    'Invented for the Basinwright demo. These unit rates are illustrative only: they come from ' +
+    'no supplier, survey or published index. Replace them with your firm’s own rates.',
+  items: [
+    {
+      code: 'CONC',
+      description: 'Structural concrete, placed and finished',
+      unit: 'm3',
+      unitPrice: 520,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'REBAR',
+      description: 'Reinforcement, cut, bent and fixed',
+      unit: 'kg',
+      unitPrice: 2.6,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'FORM',
+      description: 'Formwork to concrete faces',
+      unit: 'm2',
+      unitPrice: 65,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'EXC',
+      description: 'Structural excavation, any material',
+      unit: 'm3',
+      unitPrice: 18,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'FILL',
+      description: 'Backfill, compacted in layers',
+      unit: 'm3',
+      unitPrice: 14,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'RIP',
+      description: 'Riprap, placed',
+      unit: 'm3',
+      unitPrice: 95,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'BED',
+      description: 'Granular bedding under riprap',
+      unit: 'm3',
+      unitPrice: 48,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'GEO',
+      description: 'Geotextile separator, laid',
+      unit: 'm2',
+      unitPrice: 6.5,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'WSTOP',
+      description: 'PVC waterstop in joints',
+      unit: 'm',
+      unitPrice: 42,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+    {
+      code: 'JOINT',
+      description: 'Contraction joint, sealed',
+      unit: 'm',
+      unitPrice: 30,
+      source: 'Invented (demo)',
+      dateNote: 'Demo 2026',
+    },
+  ],
+  codeByKind: {
+    concrete: 'CONC',
+    reinforcement: 'REBAR',
+    formwork: 'FORM',
+    excavation: 'EXC',
+    backfill: 'FILL',
+    riprap: 'RIP',
+    bedding: 'BED',
+    geotextile: 'GEO',
+    waterstop: 'WSTOP',
+    joint: 'JOINT',
+  },
+};

@@ -2,7 +2,8 @@
 // as they are (nothing is duplicated or overwritten), missing ones are added.
 //   node --import tsx --conditions=@basinwright/source seed/run.ts
 import { ConfigError, getConfig } from '../api/src/config/env';
-import { DEMO_PASSWORD, demoFirms, demoReviewers } from './demo';
+import { TAKEOFF_ELEMENTS } from '@basinwright/common';
+import { DEMO_PASSWORD, demoFirms, demoPriceBook, demoReviewers } from './demo';
 import { demoDesigns } from './designs';
 
 async function main(): Promise<number> {
@@ -12,7 +13,7 @@ async function main(): Promise<number> {
     console.error(`seed: ${error instanceof ConfigError ? error.message : String(error)}`);
     return 1;
   }
-  const { Design, Firm, Project, ReviewerCredential, sequelize, User } =
+  const { Design, Firm, PriceBook, PriceBookItem, Project, ReviewerCredential, sequelize, User } =
     await import('../api/src/models');
   const { hashPassword } = await import('../api/src/security');
   const { computeStoredStudy } = await import('../api/src/modules/designs/designs.service');
@@ -101,6 +102,39 @@ async function main(): Promise<number> {
             { transaction },
           );
           added.push(`design of "${demo.projectName}"`);
+        }
+        // the invented price book belongs to the main demo firm only
+        if (firm.name === demoFirms[0]?.firm.name) {
+          const book = await PriceBook.findOne({
+            where: { firmId: firm.id, name: demoPriceBook.name },
+            transaction,
+          });
+          if (book === null) {
+            const { items, codeByKind, ...fields } = demoPriceBook;
+            const takeoffMapping: Record<string, string> = {};
+            for (const [kind, code] of Object.entries(codeByKind))
+              for (const element of TAKEOFF_ELEMENTS) takeoffMapping[`${kind}.${element}`] = code;
+            const made = await PriceBook.create(
+              {
+                ...fields,
+                firmId: firm.id,
+                takeoffMapping,
+                createdById: users.get('estimator@harrow-lune.example')?.id ?? null,
+              },
+              { transaction },
+            );
+            await PriceBookItem.bulkCreate(
+              items.map((item, position) => ({
+                ...item,
+                firmId: firm.id,
+                priceBookId: made.id,
+                currency: fields.currency,
+                position,
+              })),
+              { transaction },
+            );
+            added.push(`price book "${demoPriceBook.name}"`);
+          }
         }
       });
     if (added.length === 0) console.log('seed: demo data already present, nothing to add');

@@ -47,6 +47,8 @@ declare module 'vue' {
     ASteps: typeof import('ant-design-vue/es')['Steps']
     ASwitch: typeof import('ant-design-vue/es')['Switch']
     ATable: typeof import('ant-design-vue/es')['Table']
+    ATableSummaryCell: typeof import('ant-design-vue/es')['TableSummaryCell']
+    ATableSummaryRow: typeof import('ant-design-vue/es')['TableSummaryRow']
     ATag: typeof import('ant-design-vue/es')['Tag']
     ATextarea: typeof import('ant-design-vue/es')['Textarea']
     ATooltip: typeof import('ant-design-vue/es')['Tooltip']

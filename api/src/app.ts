@@ -22,6 +22,8 @@ import { billingRouter, billingWebhookRouter } from './modules/billing/billing.r
 import { versionsRouter } from './modules/versions/versions.routes';
 import { reviewersRouter } from './modules/reviewers/reviewers.routes';
 import { auditRouter, projectAuditRouter } from './modules/audit/audit.routes';
+import { priceBooksRouter } from './modules/price-books/price-books.routes';
+import { estimatesRouter, projectEstimatesRouter } from './modules/estimates/estimates.routes';
 import openapi from './openapi.json' with { type: 'json' };
 
 export interface AppOptions {
@@ -95,6 +97,9 @@ export function createApp(options: AppOptions = {}): express.Express {
   api.use('/projects', projectsRouter());
   api.use('/firm/brand', brandRouter());
   api.use('/billing', billingRouter());
+  api.use('/price-books', priceBooksRouter());
+  api.use('/projects', projectEstimatesRouter());
+  api.use('/estimates', estimatesRouter());
 
   // engine routes
   // (the engine helper mounts calcRouter from './modules/calc/calc.routes' here: api.use('/calc', calcRouter))

@@ -15,6 +15,7 @@ import { fakePaymentsForFile } from '../support/fake-payments';
 
 let firmId = '';
 let ownerId = '';
+let ownerToken = '';
 
 // The billing routes call the payment service: its local stand-in runs for this file.
 const pay = fakePaymentsForFile();
@@ -23,6 +24,7 @@ const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'matrix');
   firmId = firm.firm.id;
   ownerId = firm.user.id;
+  ownerToken = firm.token;
   await setPlan(h, firmId, 'firm', 1000);
 });
 
@@ -42,6 +44,8 @@ interface RouteCase {
     body?: object;
     /** A multipart upload instead of a JSON body: the field and the file. */
     file?: { field: string; bytes: Buffer; filename: string; contentType: string };
+    /** A multipart upload with text fields and one file (field name `file`). */
+    upload?: { fields: Record<string, string>; file: Buffer; name: string };
     changed?: () => Promise<boolean>;
   }>;
   success: number;
@@ -75,6 +79,85 @@ async function subscribed(yes: boolean): Promise<string | null> {
   );
   return subscription;
 }
+
+/** Sends the case's body: JSON, or multipart when it uploads a file. */
+function sendBody(
+  req: ReturnType<ReturnType<typeof h.http>['get']>,
+  prepared: Awaited<ReturnType<RouteCase['prepare']>>,
+) {
+  const { file } = prepared;
+  if (file !== undefined)
+    return req.attach(file.field, file.bytes, {
+      filename: file.filename,
+      contentType: file.contentType,
+    });
+  if (prepared.upload === undefined) return req.send(prepared.body ?? {});
+  for (const [key, value] of Object.entries(prepared.upload.fields)) req = req.field(key, value);
+  return req.attach('file', prepared.upload.file, prepared.upload.name);
+}
+
+async function newPriceBook(name = 'Matrix book') {
+  const book = await h.models.PriceBook.create({ firmId, name, createdById: ownerId });
+  await h.models.PriceBookItem.create({
+    firmId,
+    priceBookId: book.id,
+    code: 'C-1',
+    description: 'Concrete',
+    unit: 'm3',
+    unitPrice: 100,
+    currency: 'USD',
+  });
+  return book;
+}
+
+let designedProject: Promise<string> | undefined;
+
+/** One project with a saved (computed) design, made once, for the take-off and estimate routes. */
+function projectWithDesign(): Promise<string> {
+  designedProject ??= (async () => {
+    const project = await newProject('Matrix designed project');
+    const res = await h
+      .http()
+      .put(`/api/v1/projects/${project.id}/design`)
+      .set(bearer(ownerToken))
+      .send({ input: fenwickDesign });
+    expect(res.status).toBe(200);
+    return project.id;
+  })();
+  return designedProject;
+}
+
+/** A draft revision on the designed project, priced by a book that maps one concrete line. */
+async function newEstimate() {
+  const projectId = await projectWithDesign();
+  const book = await newPriceBook();
+  await book.update({ takeoffMapping: { 'concrete.floorSlab': 'C-1' } });
+  const revision =
+    (await h.models.Estimate.max<number, InstanceType<typeof h.models.Estimate>>('revision', {
+      where: { projectId },
+    })) ?? 0;
+  return h.models.Estimate.create({
+    firmId,
+    projectId,
+    revision: revision + 1,
+    priceBookId: book.id,
+    settings: {
+      locationFactor: 1,
+      percentages: { mobilisation: 0, careOfWater: 0, contingency: 0, overheadAndProfit: 0 },
+      escalation: { annualRate: 0, years: 0 },
+      accuracy: { aaceClass: 5 },
+    },
+    createdById: ownerId,
+  });
+}
+
+const PRICE_CSV = Buffer.from('Code,Description,Unit,Unit price\nX-9,Matrix item,m3,12.5\n');
+const PRICE_MAPPING = JSON.stringify({
+  code: 'Code',
+  description: 'Description',
+  unit: 'Unit',
+  unitPrice: 'Unit price',
+});
 
 async function newProject(name = 'Matrix project') {
   return h.models.Project.create({ firmId, name, units: 'SI', createdById: ownerId });
@@ -338,6 +421,27 @@ const routes: RouteCase[] = [
     },
   },
   {
+    action: 'priceBooks.list',
+    method: 'get',
+    path: '/price-books',
+    success: 200,
+    prepare: async () => ({ url: '/price-books' }),
+  },
+  {
+    action: 'priceBooks.create',
+    method: 'post',
+    path: '/price-books',
+    success: 201,
+    prepare: async () => {
+      const name = `Book ${uniqueEmail('b')}`;
+      return {
+        url: '/price-books',
+        body: { name },
+        changed: async () => (await h.models.PriceBook.count({ where: { firmId, name } })) > 0,
+      };
+    },
+  },
+  {
     action: 'versions.list',
     method: 'get',
     path: '/projects/{id}/versions',
@@ -468,6 +572,136 @@ const routes: RouteCase[] = [
     },
   },
   {
+    action: 'priceBooks.read',
+    method: 'get',
+    path: '/price-books/{id}',
+    success: 200,
+    prepare: async () => ({ url: `/price-books/${(await newPriceBook()).id}` }),
+  },
+  {
+    action: 'priceBooks.update',
+    method: 'patch',
+    path: '/price-books/{id}',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}`,
+        body: { archived: true },
+        changed: async () => (await h.models.PriceBook.findByPk(book.id))?.archivedAt !== null,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.items',
+    method: 'put',
+    path: '/price-books/{id}/items',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}/items`,
+        body: { items: [{ code: 'N-1', description: 'New', unit: 'kg', unitPrice: 2 }] },
+        changed: async () =>
+          (await h.models.PriceBookItem.count({ where: { priceBookId: book.id, code: 'N-1' } })) ===
+          1,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.copy',
+    method: 'post',
+    path: '/price-books/{id}/copy',
+    success: 201,
+    prepare: async () => {
+      const book = await newPriceBook(`Copied ${uniqueEmail('c')}`);
+      return {
+        url: `/price-books/${book.id}/copy`,
+        changed: async () =>
+          (await h.models.PriceBook.count({ where: { firmId, name: `Copy of ${book.name}` } })) > 0,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.preview',
+    method: 'post',
+    path: '/price-books/import/preview',
+    success: 200,
+    prepare: async () => ({
+      url: '/price-books/import/preview',
+      upload: { fields: {}, file: PRICE_CSV, name: 'prices.csv' },
+    }),
+  },
+  {
+    action: 'priceBooks.import',
+    method: 'post',
+    path: '/price-books/{id}/import',
+    success: 200,
+    prepare: async () => {
+      const book = await newPriceBook();
+      return {
+        url: `/price-books/${book.id}/import`,
+        upload: { fields: { mapping: PRICE_MAPPING }, file: PRICE_CSV, name: 'prices.csv' },
+        changed: async () =>
+          (await h.models.PriceBookItem.count({ where: { priceBookId: book.id, code: 'X-9' } })) ===
+          1,
+      };
+    },
+  },
+  {
+    action: 'priceBooks.export',
+    method: 'get',
+    path: '/price-books/{id}/export',
+    success: 200,
+    prepare: async () => ({ url: `/price-books/${(await newPriceBook()).id}/export?format=xlsx` }),
+  },
+  {
+    action: 'takeoff.read',
+    method: 'get',
+    path: '/projects/{id}/takeoff',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${await projectWithDesign()}/takeoff` }),
+  },
+  {
+    action: 'takeoff.write',
+    method: 'put',
+    path: '/projects/{id}/takeoff/overrides',
+    success: 200,
+    prepare: async () => {
+      const projectId = await projectWithDesign();
+      const design = await h.models.Design.findOne({ where: { projectId } });
+      await h.models.DesignTakeoff.destroy({ where: { designId: design!.id } });
+      return {
+        url: `/projects/${projectId}/takeoff/overrides`,
+        body: { overrides: { workingRoom: 0.9 } },
+        changed: async () =>
+          (await h.models.DesignTakeoff.count({ where: { designId: design!.id } })) === 1,
+      };
+    },
+  },
+  {
+    action: 'estimates.list',
+    method: 'get',
+    path: '/projects/{id}/estimates',
+    success: 200,
+    prepare: async () => ({ url: `/projects/${await projectWithDesign()}/estimates` }),
+  },
+  {
+    action: 'estimates.create',
+    method: 'post',
+    path: '/projects/{id}/estimates',
+    success: 201,
+    prepare: async () => {
+      const project = await newProject('Matrix estimate project');
+      return {
+        url: `/projects/${project.id}/estimates`,
+        body: {},
+        changed: async () =>
+          (await h.models.Estimate.count({ where: { projectId: project.id } })) === 1,
+      };
+    },
+  },
+  {
     action: 'versions.return',
     method: 'post',
     path: '/projects/{id}/versions/{versionId}/return',
@@ -545,6 +779,27 @@ const routes: RouteCase[] = [
     },
   },
   {
+    action: 'estimates.read',
+    method: 'get',
+    path: '/estimates/{id}',
+    success: 200,
+    prepare: async () => ({ url: `/estimates/${(await newEstimate()).id}` }),
+  },
+  {
+    action: 'estimates.update',
+    method: 'patch',
+    path: '/estimates/{id}',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}`,
+        body: { priceBookId: null },
+        changed: async () => (await h.models.Estimate.findByPk(estimate.id))?.priceBookId === null,
+      };
+    },
+  },
+  {
     action: 'billing.cancel',
     method: 'post',
     path: '/billing/cancel',
@@ -555,6 +810,21 @@ const routes: RouteCase[] = [
         url: '/billing/cancel',
         changed: async () =>
           (await pay.stripe.subscriptions.retrieve(sub ?? '')).cancel_at_period_end,
+      };
+    },
+  },
+  {
+    action: 'estimates.override',
+    method: 'post',
+    path: '/estimates/{id}/overrides',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}/overrides`,
+        body: { key: 'concrete.floorSlab', quantity: 12, reason: 'Matrix check' },
+        changed: async () =>
+          (await h.models.EstimateAuditEntry.count({ where: { estimateId: estimate.id } })) === 1,
       };
     },
   },
@@ -570,6 +840,19 @@ const routes: RouteCase[] = [
         url: '/billing/resume',
         changed: async () =>
           !(await pay.stripe.subscriptions.retrieve(sub ?? '')).cancel_at_period_end,
+      };
+    },
+  },
+  {
+    action: 'estimates.issue',
+    method: 'post',
+    path: '/estimates/{id}/issue',
+    success: 200,
+    prepare: async () => {
+      const estimate = await newEstimate();
+      return {
+        url: `/estimates/${estimate.id}/issue`,
+        changed: async () => (await h.models.Estimate.findByPk(estimate.id))?.status === 'issued',
       };
     },
   },
@@ -654,6 +937,13 @@ const routes: RouteCase[] = [
       };
     },
   },
+  {
+    action: 'estimates.export',
+    method: 'get',
+    path: '/estimates/{id}/export',
+    success: 200,
+    prepare: async () => ({ url: `/estimates/${(await newEstimate()).id}/export?format=xlsx` }),
+  },
 ];
 
 describe('the route table covers every guarded route', () => {
@@ -676,30 +966,22 @@ describe('the route table covers every guarded route', () => {
 
 describe.each(routes)('$method $path ($action)', (route) => {
   it('without a token: 401', async () => {
-    const { url, body, file } = await route.prepare();
+    const prepared = await route.prepare();
     const agent = h.http();
-    const req = agent[route.method](`/api/v1${url}`);
-    const res = await (file === undefined
-      ? req.send(body ?? {})
-      : req.attach(file.field, file.bytes, {
-          filename: file.filename,
-          contentType: file.contentType,
-        }));
+    const res = await sendBody(agent[route.method](`/api/v1${prepared.url}`), prepared);
     expect(res.status).toBe(401);
     expect(res.body.code).toBe('unauthorized');
   });
 
   it.each(ROLES)('as %s: allowed only if the policy says so', async (role: Role) => {
     const member = await addMember(h, firmId, role);
-    const { url, body, file, changed } = await route.prepare(member);
+    const prepared = await route.prepare(member);
+    const { changed } = prepared;
     const agent = h.http();
-    const req = agent[route.method](`/api/v1${url}`).set(bearer(member.token));
-    const res = await (file === undefined
-      ? req.send(body ?? {})
-      : req.attach(file.field, file.bytes, {
-          filename: file.filename,
-          contentType: file.contentType,
-        }));
+    const res = await sendBody(
+      agent[route.method](`/api/v1${prepared.url}`).set(bearer(member.token)),
+      prepared,
+    );
     const allowed = (POLICY[route.action] as readonly Role[]).includes(role);
     if (allowed) {
       expect(res.status, JSON.stringify(res.body)).toBe(route.success);

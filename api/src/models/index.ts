@@ -3,9 +3,12 @@ import { BillingEvent } from './BillingEvent';
 import { AuditEvent } from './AuditEvent';
 import { Design } from './Design';
 import { DesignVersion } from './DesignVersion';
+import { DesignTakeoff, Estimate, EstimateAuditEntry } from './Estimate';
 import { Firm } from './Firm';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
+import { PriceBook } from './PriceBook';
+import { PriceBookItem } from './PriceBookItem';
 import { Project } from './Project';
 import { Proposal } from './Proposal';
 import { ProposalEmail } from './ProposalEmail';
@@ -27,6 +30,11 @@ ReviewerCredential.initModel(sequelize);
 AuditEvent.initModel(sequelize);
 Proposal.initModel(sequelize);
 ProposalEmail.initModel(sequelize);
+PriceBook.initModel(sequelize);
+PriceBookItem.initModel(sequelize);
+Estimate.initModel(sequelize);
+EstimateAuditEntry.initModel(sequelize);
+DesignTakeoff.initModel(sequelize);
 
 Firm.hasMany(User, { as: 'users', foreignKey: 'firmId' });
 User.belongsTo(Firm, { as: 'firm', foreignKey: 'firmId' });
@@ -45,16 +53,24 @@ DesignVersion.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
 User.hasOne(ReviewerCredential, { as: 'reviewer', foreignKey: 'userId' });
 ReviewerCredential.belongsTo(User, { as: 'user', foreignKey: 'userId' });
 Proposal.hasMany(ProposalEmail, { as: 'emails', foreignKey: 'proposalId' });
+Firm.hasMany(PriceBook, { as: 'priceBooks', foreignKey: 'firmId' });
+PriceBook.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+PriceBook.hasMany(PriceBookItem, { as: 'items', foreignKey: 'priceBookId' });
 
 export {
   sequelize,
   AuditEvent,
   BillingEvent,
   Design,
+  DesignTakeoff,
   DesignVersion,
+  Estimate,
+  EstimateAuditEntry,
   Firm,
   Invitation,
   PasswordReset,
+  PriceBook,
+  PriceBookItem,
   Project,
   Proposal,
   ProposalEmail,

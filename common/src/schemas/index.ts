@@ -12,3 +12,5 @@ export * from './search';
 export * from './uncertainty';
 export * from './version';
 export * from './proposal';
+export * from './priceBook';
+export * from './estimateRevision';

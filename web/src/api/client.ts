@@ -137,6 +137,9 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   let body: string | FormData | undefined;
   if (options.form !== undefined) {
     body = options.form; // the browser sets the multipart boundary
+  } else if (options.body instanceof FormData) {
+    // A file upload: the browser writes the multipart Content-Type with its boundary.
+    body = options.body;
   } else if (options.body !== undefined) {
     headers['Content-Type'] = 'application/json';
     body = JSON.stringify(options.body);
@@ -196,6 +199,35 @@ export async function requestBlob(path: string, options: RequestOptions = {}): P
     throw error;
   }
   return response.blob();
+}
+
+/** Downloads a file the API makes (an export) and hands it to the browser under its name. */
+export async function download(
+  path: string,
+  query: RequestOptions['query'],
+  fallbackName: string,
+): Promise<void> {
+  const headers: Record<string, string> = {};
+  const token = tokenSource();
+  if (token) headers.Authorization = `Bearer ${token}`;
+  let response: Response;
+  try {
+    response = await fetch(buildUrl(path, query), { headers });
+  } catch {
+    throw new ApiError(0, 'network_error', 'Could not reach the server. Check your connection.');
+  }
+  if (!response.ok) throw await errorFromResponse(response);
+  const name =
+    /filename="([^"]+)"/.exec(response.headers.get('Content-Disposition') ?? '')?.[1] ??
+    fallbackName;
+  const url = URL.createObjectURL(await response.blob());
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = name;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  URL.revokeObjectURL(url);
 }
 
 /** A message fit to show a person, for any thrown value. */

@@ -98,6 +98,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { requiresAuth: true, title: 'Where the jump forms' },
   },
   {
+    path: '/price-books',
+    name: 'price-books',
+    component: () => import('@/views/PriceBooksView.vue'),
+    meta: { requiresAuth: true, can: 'priceBooks.list', title: 'Price books' },
+  },
+  {
     path: '/team',
     name: 'team',
     component: () => import('@/views/TeamView.vue'),

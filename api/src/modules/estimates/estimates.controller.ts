@@ -1,0 +1,66 @@
+import type { Request, Response } from 'express';
+import type {
+  EstimateCreateInput,
+  EstimateOverrideInput,
+  EstimateUpdateInput,
+  PriceExportQuery,
+} from '@basinwright/common';
+import { authOf } from '../../middlewares/auth';
+import { writeCsv, writeXlsx } from '../price-books/price-books.files';
+import * as estimates from './estimates.service';
+
+type IdReq = Request<{ id: string }>;
+
+export async function readTakeoff(req: IdReq, res: Response): Promise<void> {
+  res.json(await estimates.readTakeoff(authOf(req).firm.id, req.params.id));
+}
+
+export async function saveTakeoffOverrides(req: IdReq, res: Response): Promise<void> {
+  res.json(await estimates.saveTakeoffOverrides(authOf(req).user, req.params.id, req.body));
+}
+
+export async function list(req: IdReq, res: Response): Promise<void> {
+  res.json({ items: await estimates.listEstimates(authOf(req).firm.id, req.params.id) });
+}
+
+export async function create(req: IdReq, res: Response): Promise<void> {
+  const body = req.body as EstimateCreateInput;
+  res.status(201).json(await estimates.createEstimate(authOf(req).user, req.params.id, body));
+}
+
+export async function read(req: IdReq, res: Response): Promise<void> {
+  res.json(await estimates.readEstimate(authOf(req).firm.id, req.params.id));
+}
+
+export async function update(req: IdReq, res: Response): Promise<void> {
+  const body = req.body as EstimateUpdateInput;
+  res.json(await estimates.updateEstimate(authOf(req).firm.id, req.params.id, body));
+}
+
+export async function override(req: IdReq, res: Response): Promise<void> {
+  const body = req.body as EstimateOverrideInput;
+  res.json(await estimates.overrideQuantity(authOf(req).user, req.params.id, body));
+}
+
+export async function issue(req: IdReq, res: Response): Promise<void> {
+  res.json(await estimates.issueEstimate(authOf(req).user, req.params.id));
+}
+
+export async function exportEstimate(req: IdReq, res: Response): Promise<void> {
+  const { format } = res.locals.query as PriceExportQuery;
+  const v = await estimates.readEstimate(authOf(req).firm.id, req.params.id);
+  const { header, rows } = estimates.exportTable(v);
+  const stem = `estimate-revision-${v.revision}`;
+  if (format === 'xlsx') {
+    res.setHeader(
+      'Content-Type',
+      'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    );
+    res.setHeader('Content-Disposition', `attachment; filename="${stem}.xlsx"`);
+    res.send(await writeXlsx(`Estimate rev ${v.revision}`, header, rows));
+    return;
+  }
+  res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+  res.setHeader('Content-Disposition', `attachment; filename="${stem}.csv"`);
+  res.send(writeCsv(header, rows));
+}
