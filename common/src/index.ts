@@ -14,11 +14,16 @@ export * from './range';
 export { InputError, isInputError, type InputErrorCode } from './errors';
 export {
   INPUT_ERROR_CODES,
+  REASON_CODES,
   codedRefusalText,
   fieldWords,
   formatQuantity,
+  reasonText,
+  refusalDetailText,
   refusalText,
+  screeningSummaryText,
   studyWarningText,
+  typeName,
 } from './messages';
 // The study's warnings as data (code, severity, SI values with kinds, where); phrased in messages/
 export {
@@ -26,6 +31,8 @@ export {
   WARNING_SEVERITY,
   type StudyWarning,
   type StudyWarningCode,
+  type Quantity,
+  type Quoted,
   type WarningCause,
   type WarningSeverity,
 } from './warnings';

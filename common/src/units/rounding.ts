@@ -50,6 +50,20 @@ export function displayText(
   });
 }
 
+/**
+ * A number in a sentence: `figures` significant figures (three unless told), no trailing zeros,
+ * never an exponent; '?' when not finite.
+ * @example significant(49.2126, 3) // '49.2'
+ */
+export function significant(x: number, figures = 3): string {
+  if (!Number.isFinite(x)) return '?';
+  const a = Math.abs(x);
+  if (a === 0) return '0';
+  const decimals = Math.min(6, Math.max(0, figures - 1 - Math.floor(Math.log10(a))));
+  const text = x.toFixed(decimals);
+  return decimals > 0 ? text.replace(/\.?0+$/, '') : text;
+}
+
 /** Numbers in sentences: three significant figures, no trailing noise. */
 export function n3(x: number): string {
   if (!Number.isFinite(x)) return String(x);
