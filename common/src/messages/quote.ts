@@ -39,12 +39,12 @@ export interface Say {
  * @example sayer({ values: { v1: 16 }, kinds: { v1: 'velocity' } }, 'US')('v1') // '52.5 ft/s'
  */
 export function sayer(q: Quoted, units: UnitSystem): Say {
-  const text = (name: string, figures = 3): string => {
+  const text = (name: string, figures = 3, asPublished = true): string => {
     const si = q.values[name];
     if (si === undefined) return '?';
     const kind = q.kinds[name];
     if (!kind) return significant(si, figures);
-    const key = q.published?.[name];
+    const key = asPublished ? q.published?.[name] : undefined;
     if (key) {
       const f = PUBLISHED_FIGURES[key];
       if (f.units === units) return `${f.value} ${UNIT_LABELS[kind][units]}`;
@@ -54,17 +54,16 @@ export function sayer(q: Quoted, units: UnitSystem): Say {
       : `${quantityNumber(si, kind, units, figures)} ${UNIT_LABELS[kind][units]}`;
   };
   const say = ((name: string) => text(name)) as Say;
+  // The value against its limit, both at the same figures, until they differ (up to seven).
   say.pair = (name, limit) => {
-    const a = text(name);
-    const lim = text(limit);
     const x = q.values[name];
     const y = q.values[limit];
-    if (a !== lim || x === undefined || x === y) return a;
-    for (let k = 4; k <= 7; k++) {
-      const b = text(name, k);
-      if (b !== lim) return b;
+    if (x === undefined || y === undefined || x === y) return text(name);
+    for (let k = 3; k <= 7; k++) {
+      const a = text(name, k, false);
+      if (a !== text(limit, k, false)) return a;
     }
-    return a;
+    return text(name);
   };
   say.has = (name) => q.values[name] !== undefined;
   return say;
