@@ -1,7 +1,73 @@
 // Shared yup schemas: the same schema validates the web form and the API request.
-export * from './limits';
-export * from './auth';
-export * from './member';
-export * from './project';
-export * from './study';
-export * from './design';
+export {
+  ENGINE_LIMITS,
+  INVITABLE_ROLES,
+  type InvitableRole,
+  LIMITS,
+  type Plan,
+  PLAN_LIMITS,
+  type PlanLimits,
+  PLANS,
+  PROJECT_SORTS,
+  PROJECT_STATUSES,
+  PROJECT_UNITS,
+  type ProjectSort,
+  type ProjectStatus,
+  type ProjectUnits,
+  requireStudySize,
+  type Role,
+  ROLES,
+  seatLimit,
+  SORT_ORDERS,
+  type SortOrder,
+  type StudySize,
+  studySizes,
+  TOKEN_TTL_MS,
+  utf8ByteLength,
+} from './limits';
+export {
+  type AcceptInvitationInput,
+  acceptInvitationSchema,
+  type ChangePasswordInput,
+  changePasswordSchema,
+  type ConfirmSignupInput,
+  confirmSignupSchema,
+  currentPasswordSchema,
+  emailSchema,
+  emailTokenSchema,
+  type ForgotPasswordInput,
+  forgotPasswordSchema,
+  type LoginInput,
+  loginSchema,
+  newPasswordSchema,
+  personNameSchema,
+  type ProfileUpdateInput,
+  profileUpdateSchema,
+  type ResetPasswordInput,
+  resetPasswordSchema,
+  type SignupInput,
+  signupSchema,
+} from './auth';
+export {
+  type InvitationCreateInput,
+  invitationCreateSchema,
+  type MemberUpdateInput,
+  memberUpdateSchema,
+} from './member';
+export {
+  type ProjectCreateInput,
+  projectCreateSchema,
+  type ProjectListQuery,
+  projectListQuerySchema,
+  type ProjectUpdateInput,
+  projectUpdateSchema,
+} from './project';
+export {
+  dissipatorOptionsSchema,
+  jumpRequestSchema,
+  jumpSituationSchema,
+  MAX_STUDY_DISCHARGES,
+  sectionSchema,
+  studyInputSchema,
+} from './study';
+export { type DesignSaveInput, designSaveSchema } from './design';
