@@ -217,6 +217,8 @@ export {
   reasonText,
   refusalDetailText,
   refusalText,
+  ROW_NOTE_TEXT,
+  rowNoteText,
   screeningSummaryText,
   studyWarningText,
   typeName,

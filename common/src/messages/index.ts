@@ -9,5 +9,5 @@ export {
   refusalDetailText,
   refusalText,
 } from './refusals';
-export { formatQuantity, studyWarningText, typeName } from './warnings';
+export { ROW_NOTE_TEXT, formatQuantity, rowNoteText, studyWarningText, typeName } from './warnings';
 export { REASON_CODES, reasonText, screeningSummaryText } from './reasons';

@@ -3,7 +3,7 @@
 // quantities arrive SI with their kinds; each is converted and rounded by one rule (quote.ts).
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import type { DissipatorTypeId } from '../basins/types';
-import type { UnitSystem } from '../range/types';
+import type { RowNoteCode, UnitSystem } from '../range/types';
 import type { StudyWarning, StudyWarningCode } from '../warnings';
 import { cap, discharges, sayer, type Say } from './quote';
 import { codedRefusalText, refusalDetailText } from './refusals';
@@ -141,3 +141,17 @@ export function studyWarningText(w: StudyWarning, units: UnitSystem = 'SI'): str
   const u: UnitSystem = units === 'US' ? 'US' : 'SI';
   return SENTENCES[w.code](w, sayer(w, u), u);
 }
+
+/** The sentences of a study row's notes (StudyRow.noteCodes); they quote no quantity. */
+export const ROW_NOTE_TEXT: Readonly<Record<RowNoteCode, string>> = {
+  'swept-out': 'tailwater short of the sequent depth: the jump is pushed downstream of the toe',
+  'leaves-basin':
+    'tailwater below critical depth on the floor: the flow stays supercritical and leaves the basin',
+  drowned: 'jump drowned: tailwater above the required depth by more than the tolerance',
+  'tailwater-extended': 'tailwater extended beyond the rating table',
+  'gate-submerged':
+    'tailwater above the sequent depth of the vena contracta: the gate runs submerged and the free-flow gate equation does not apply',
+};
+
+/** The sentence of a study row's note. @example rowNoteText('drowned') */
+export const rowNoteText = (code: RowNoteCode): string => ROW_NOTE_TEXT[code];

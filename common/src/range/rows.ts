@@ -9,16 +9,6 @@ import { jumpPosition } from './position';
 import type { DischargeRange } from './prepare';
 import type { RowNoteCode, StudyRow, TailwaterFactor } from './types';
 
-const NOTE_TEXT: Record<RowNoteCode, string> = {
-  'swept-out': 'tailwater short of the sequent depth: the jump is pushed downstream of the toe',
-  'leaves-basin':
-    'tailwater below critical depth on the floor: the flow stays supercritical and leaves the basin',
-  drowned: 'jump drowned: tailwater above the required depth by more than the tolerance',
-  'tailwater-extended': 'tailwater extended beyond the rating table',
-  'gate-submerged':
-    'tailwater above the sequent depth of the vena contracta: the gate runs submerged and the free-flow gate equation does not apply',
-};
-
 /**
  * One row at discharge index i and floor z; InputError naming the discharge when no jump forms.
  * `sweepOut` false leaves the sweep-out distance out (null): rows read only for their toe and
@@ -102,7 +92,6 @@ export function rowAt(
     sweepOutDistance: sweep,
     gate,
     isDesign: i === r.designIndex,
-    notes: codes.map((k) => NOTE_TEXT[k]),
     noteCodes: codes,
   };
 }
