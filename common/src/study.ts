@@ -24,7 +24,7 @@ import type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './r
 
 export type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './result';
 
-/** The cautions carried by every result (product.md; hydraulics.md §7), SI wording. */
+/** The cautions carried by every result (product.md; hydraulics.md §7), SI wording; the edge shows studyCautions(units). */
 export const STUDY_CAUTIONS: readonly string[] = [
   'Concept level only: verify with detailed design before construction.',
   'Large or high-hazard structures, inflow velocities above 15 m/s, Froude numbers outside the tested ranges and asymmetric approach flow call for physical or numerical model studies.',
@@ -42,15 +42,6 @@ export function studyCautions(units: UnitSystem = 'SI'): string[] {
   return STUDY_CAUTIONS.map((c) =>
     c.replace('inflow velocities above 15 m/s', 'inflow velocities above about 50 ft/s (15 m/s)'),
   );
-}
-
-/** Options of runStudy that do not change any number. */
-export interface StudyOptions {
-  /**
-   * unit system of the sizing's warnings, notes and screening reasons; default the input's
-   * `displayUnits` (the study's own warnings are data, phrased by studyWarningText)
-   */
-  units?: UnitSystem;
 }
 
 /** The jump at the design discharge on floor z with factor C, and its diagrams. */
@@ -92,11 +83,7 @@ const positionsOf = (rows: readonly StudyRow[]): PositionRow[] =>
  * floor and on the chosen basin's floor, screening and designs, warnings and cautions.
  * SI in (an input marked US is refused), SI out. [hydraulics.md §1–3, §7]
  */
-export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyResult {
-  if (options.units !== undefined && options.units !== 'SI' && options.units !== 'US')
-    throw new RangeError(`options.units must be 'SI' or 'US'`);
-  const units: UnitSystem =
-    options.units ?? input?.displayUnits ?? input?.dissipators?.units ?? 'SI';
+export function runStudy(input: StudyInput): StudyResult {
   const range = prepareRange(input);
   const C = input.tailwaterFactor ?? RANGE_DEFAULTS.tailwaterFactor;
   const fixed = input.floorElevation !== undefined;
@@ -134,7 +121,7 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
   // Dissipators: each type on its own floor, screened, the chosen one and the alternatives designed.
   let dissipators: DissipatorStudyResult | null = null;
   try {
-    dissipators = designDissipators(range, { ...(input.dissipators ?? {}), units });
+    dissipators = designDissipators(range, input.dissipators ?? {});
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
     const w = studyWarning('dissipators-not-run');
@@ -191,7 +178,7 @@ export function runStudy(input: StudyInput, options: StudyOptions = {}): StudyRe
     diagrams: designJump.diagrams,
     chosenFloor,
     warnings,
-    cautions: studyCautions(units),
+    cautions: [...STUDY_CAUTIONS],
     screening: dissipators?.screening ?? [],
     recommendedType: dissipators?.recommended ?? null,
     design: dissipators?.design ?? null,

@@ -137,9 +137,10 @@ describe('GET/PUT /projects/:id/design', () => {
     // a fixed floor at 400 ft lies above the outlet's energy line of the Caldwell demo (invented scenario)
     const res = await put(usProject, { input: { ...caldwellDesign, floorElevation: 400 } });
     expect(res.status).toBe(422);
-    // 400 ft = 121.92 m exactly [NIST SP 811: 1 ft = 0.3048 m]; the engine computed it in m
+    // 400 ft = 121.92 m exactly [NIST SP 811: 1 ft = 0.3048 m]; the engine computed it in m;
+    // lengths are said to the hundredth (the one rounding rule, formatQuantity)
     expect(res.body.details['input.floorElevation']).toBe(
-      'The floor at 400 ft lies above the energy line of the inflow.',
+      'The floor at 400.00 ft lies above the energy line of the inflow.',
     );
     expect(res.body.message).not.toMatch(/\d m\b/);
   });

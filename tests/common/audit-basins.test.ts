@@ -3,6 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
+  studyWarningText,
   BASIN_DEFAULTS,
   culvertApronStoneSize,
   freeboard,
@@ -124,7 +125,10 @@ describe('SAF tailwater factor', () => {
     expect(s.fr1).toBeGreaterThan(28.3);
     expectRel(s.tailwaterFactor, 0.63875, 1e-12);
     expect(s.tailwaterFactor).toBeGreaterThanOrEqual(0.5); // the engine refuses C outside 0.5–2
-    expect(s.warnings.join(' ')).toMatch(/outside the tested range/);
+    expect(s.warnings.map((w) => w.code)).toContain('type-froude-outside');
+    expect(s.warnings.map((w) => studyWarningText(w)).join(' ')).toMatch(
+      /outside the tested range/,
+    );
   });
   it('the [mem] coefficients are overridable defaults (safTailwaterMid 0.9 → C 0.9 at Fr1 8)', () => {
     expectRel(safTailwaterFactor(8, { ...BASIN_DEFAULTS, safTailwaterMid: 0.9 }), 0.9, 1e-12);
@@ -188,13 +192,14 @@ describe('sizeJumpBasin: refusals and warnings', () => {
   it('one velocity caution per V1: Type III at V1 20 m/s says "not advised", not also a second cavitation line', () => {
     // width 5, Q 20, y1 0.2: V1 = 20 m/s
     const s = sizeJumpBasin('usbr-3', { width: 5, Q: 20, y1: 0.2 });
-    expect(s.warnings.filter((w) => /cavitat/i.test(w))).toHaveLength(1);
-    expect(s.warnings.join(' ')).toMatch(/not advised/);
+    expect(s.warnings.map((w) => w.code)).toEqual(['piers-not-advised']);
+    expect(s.warnings.map((w) => studyWarningText(w)).join(' ')).toMatch(/not advised/);
   });
   it('US wording: the same caution quotes ft/s (65.6 ft/s = 20 m/s) against the limit as published, 60 ft/s [from memory: EM-25]', () => {
-    const s = sizeJumpBasin('usbr-3', { width: 5, Q: 20, y1: 0.2 }, { units: 'US' });
-    expect(s.warnings.join(' ')).toMatch(/65\.6 ft\/s > 60 ft\/s:/);
-    expect(s.warnings.join(' ')).not.toMatch(/ m\/s/);
+    const s = sizeJumpBasin('usbr-3', { width: 5, Q: 20, y1: 0.2 });
+    const us = s.warnings.map((w) => studyWarningText(w, 'US')).join(' ');
+    expect(us).toMatch(/65\.6 ft\/s > 60 ft\/s:/);
+    expect(us).not.toMatch(/ m\/s/);
   });
 });
 

@@ -1,7 +1,7 @@
 // A perched culvert outlet (tailwater below the outlet invert), and the flotation case taking
 // the place of its defaults. Expected values from the relations named beside them.
 import { describe, expect, it } from 'vitest';
-import { runStudy, toSI, type StudyInput } from '@basinwright/common';
+import { reasonText, runStudy, toSI, type StudyInput } from '@basinwright/common';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';
 
@@ -24,7 +24,8 @@ describe('perched culvert outlet (invented demo data, seed/designs.ts)', () => {
     const apron = r.screening.find((s) => s.type === 'riprap-apron');
     const tw = apron?.criteria.find((c) => c.criterion === 'tailwater');
     expect(tw?.status).toBe('warn');
-    expect(tw?.reason).toMatch(/below the outlet invert/);
+    expect(tw?.code).toBe('apron-tailwater-perched');
+    expect(reasonText(tw!, 'US')).toMatch(/below the outlet invert/);
     // D50 = 0.2·D·(q/(√g·D^1.5))^(4/3)·(D/TW) for a box, q = Q/span [HEC-14 eq. 10.4; box form from memory]
     const stone = apron?.criteria.find((c) => c.criterion === 'stoneSize');
     const D = 6 * FT;
@@ -32,8 +33,8 @@ describe('perched culvert outlet (invented demo data, seed/designs.ts)', () => {
     const q = Q / (6 * FT);
     const expected =
       0.2 * D * Math.pow(q / (Math.sqrt(9.80665) * D ** 1.5), 4 / 3) * (D / (0.4 * D));
-    const shown = Number(/D50 ([\d.]+) ft/.exec(stone?.reason ?? '')?.[1]);
-    expectRel(shown * FT, expected, 0.01); // the reason rounds to 0.01 ft
+    expect(stone?.kinds.d50).toBe('length');
+    expectRel(stone?.values.d50 ?? NaN, expected, 1e-9); // SI, as computed
   });
 });
 

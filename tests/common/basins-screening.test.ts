@@ -7,6 +7,7 @@ import {
   type ScreeningContext,
   type TypeScreening,
 } from '../../common/src/basins';
+import { reasonText, screeningSummaryText } from '../../common/src/messages';
 import { expectRel } from '../support/tolerance';
 
 const g = 9.80665;
@@ -63,11 +64,12 @@ describe('velocity edges', () => {
     expect(status(screen([row(8, 15.24)]), 'usbr-3', 'velocity')).toBe('pass');
     expect(status(screen([row(8, 15.25)]), 'usbr-3', 'velocity')).toBe('warn');
     expect(status(screen([row(8, 15.25)]), 'saf', 'velocity')).toBe('warn');
-    const us = screenDissipators({ rows: [row(8, 15.25)], context: { ...chute, units: 'US' } });
+    const us = screenDissipators({ rows: [row(8, 15.25)], context: chute });
     const reason = us
       .find((x) => x.type === 'usbr-3')!
       .criteria.find((c) => c.criterion === 'velocity')!;
-    expect(reason.reason).toMatch(/ is above 50 ft\/s:/);
+    expect(reason.code).toBe('piers-cavitation-risk');
+    expect(reasonText(reason, 'US')).toMatch(/ is above 50 ft\/s:/);
   });
   it('V1 60 ft/s (18.288 m/s): Type III warn at it, fail above [from memory: EM-25]; SAF fail above it [src: Blaisdell]', () => {
     expect(status(screen([row(8, 18.288)]), 'usbr-3', 'velocity')).toBe('warn');
@@ -79,7 +81,7 @@ describe('velocity edges', () => {
     const s = screen([row(8, 20), row(10, 21)]);
     const t3 = s.find((x) => x.type === 'usbr-3')!;
     expect(t3.verdict).toBe('unsuitable');
-    expect(t3.summary).toMatch(/cavitate/);
+    expect(screeningSummaryText(t3, s)).toMatch(/cavitate/);
     expect(s[0]!.type).toBe('usbr-2');
     expect(s[0]!.verdict).toBe('recommended');
     // beyond 18 m/s a flip bucket is also flagged for a specialist study [from memory: EM-25]
@@ -103,11 +105,11 @@ describe('Type VI, Type IX, riprap apron', () => {
       'pass',
     );
     expect(status(screen([pipeRow(11.33, 6)], pipe), 'usbr-6', 'discharge')).toBe('fail');
-    const us = screenDissipators({ rows: [pipeRow(11.33, 6)], context: { ...pipe, units: 'US' } });
+    const us = screenDissipators({ rows: [pipeRow(11.33, 6)], context: pipe });
     const c = us
       .find((x) => x.type === 'usbr-6')!
       .criteria.find((x) => x.criterion === 'discharge')!;
-    expect(c.reason).toMatch(/exceeds the 400 cfs of the type/);
+    expect(reasonText(c, 'US')).toMatch(/exceeds the 400 cfs of the type/);
   });
   it('Type VI velocity up to 50 ft/s (15.24 m/s) [src: HEC-14 §9.4]', () => {
     expect(status(screen([pipeRow(5, 15.24)], pipe), 'usbr-6', 'velocity')).toBe('pass');
@@ -156,8 +158,8 @@ describe('tailwater, debris, verdicts and ranking', () => {
     expect(s.map((x) => x.rank)).toEqual(s.map((_, i) => i + 1));
     expect(s.filter((x) => x.verdict === 'recommended')).toHaveLength(1);
     for (const t of s) {
-      expect(t.summary.length).toBeGreaterThan(10);
-      for (const c of t.criteria) expect(c.reason.length).toBeGreaterThan(5);
+      expect(screeningSummaryText(t, s).length).toBeGreaterThan(10);
+      for (const c of t.criteria) expect(reasonText(c).length).toBeGreaterThan(5);
       expect(t.perDischarge.length).toBe(2);
     }
     // Fr 6–8 at moderate velocity: Type III is the shorter suitable basin and ranks first [EM-25 lengths from memory]

@@ -18,6 +18,7 @@ import {
   type3SillHeight,
   JUMP_BASIN_TYPES,
 } from '../../common/src/basins';
+import { studyWarningText } from '../../common/src/messages';
 import { expectRel } from '../support/tolerance';
 
 const g = 9.80665;
@@ -151,7 +152,8 @@ describe('USBR Type III', () => {
     expectRel(s.wallHeight, 5.412375826453062 + 2.3127138032026133, 1e-9);
   });
   it('warns of cavitation above 15 m/s (V1 17.7 m/s) [src: EM-25]', () => {
-    expect(s.warnings.some((w) => /cavitation/.test(w))).toBe(true);
+    expect(s.warnings.map((w) => w.code)).toContain('blocks-cavitation');
+    expect(s.warnings.map((w) => studyWarningText(w)).join(' ')).toMatch(/cavitation/);
   });
 });
 
@@ -181,7 +183,7 @@ describe('USBR Type II, IV, I and SAF', () => {
     expect(cb.spacing).toBeGreaterThanOrEqual(2.5 * 0.4 - 1e-12);
     expectRel(s.requiredTailwaterDepth / s.y2, 1.1, 1e-12);
     expectRel(s.length / s.y2, 5.25, 1e-9);
-    expect(s.warnings.some((w) => /oscillating/.test(w))).toBe(true);
+    expect(s.warnings.map((w) => w.code)).toContain('type-oscillating');
   });
   it('Type I: free-jump length 6.1·y2 at Fr 6 (USBR curve) [from memory: curve point; ≈ 6·y2 src], no blocks', () => {
     const s = sizeJumpBasin('usbr-1', { width: 4, Q: qFor(4, 0.3, 6), y1: 0.3 });
@@ -288,7 +290,7 @@ describe('Type VI and Type IX sizing', () => {
     expectRel(s.fr, 2.7096045345107256, 1e-9);
     expectRel(s.curveWidth, 2.531554243300983, 1e-9);
     expectRel(s.width, 2.55, 1e-9); // rounded up to 0.05 m (common practice)
-    expect(s.warnings.some((w) => /from memory/.test(w))).toBe(true);
+    expect(s.warnings.map((w) => studyWarningText(w)).join(' ')).toMatch(/from memory/);
   });
   it('Type IX: q 4 m²/s → yc 1.17724 m, baffles 0.8·yc, rows 2·h apart, walls 3·h, ≥ 4 rows [q limit src; proportions from memory: Design of Small Dams]', () => {
     const s = sizeBaffledApron({ Q: 20, width: 5, drop: 3 });
@@ -301,8 +303,12 @@ describe('Type VI and Type IX sizing', () => {
     expect(s.warnings).toHaveLength(0);
     expect(
       // the limit 60 cfs/ft = 5.5741824 m²/s [src: Design of Small Dams; NIST SP 811], phrased 5.57
-      sizeBaffledApron({ Q: 30, width: 5, drop: 3 }).warnings.some((w) => /5\.57 m²\/s/.test(w)),
-    ).toBe(true);
+      sizeBaffledApron({ Q: 30, width: 5, drop: 3 }).warnings.map((w) => studyWarningText(w)),
+    ).toEqual([expect.stringMatching(/5\.57 m²\/s/)]);
+    // … and exactly as published in a US project: 60 ft²/s
+    expect(
+      studyWarningText(sizeBaffledApron({ Q: 30, width: 5, drop: 3 }).warnings[0]!, 'US'),
+    ).toMatch(/exceeds the 60 ft²\/s of the type/);
   });
 });
 

@@ -6,8 +6,8 @@ import {
   DISPLAY_DECIMALS,
   displayDecimals,
   displayText,
-  n3,
-  phraser,
+  formatQuantity,
+  significant,
   type QuantityKind,
 } from '../../common/src';
 
@@ -25,11 +25,13 @@ describe('one display-rounding rule', () => {
     expect(displayText(null, 'discharge', 'US')).toBe('—');
     expect(displayText(Number.NaN, null, 'SI')).toBe('—');
   });
-  it('sentences: three significant figures, in the phraser too', () => {
-    expect(n3(49.2126)).toBe('49.2');
-    expect(n3(123.4)).toBe('123');
-    expect(n3(0.3048)).toBe('0.30');
+  it('sentences: three significant figures (lengths to the hundredth), in formatQuantity too', () => {
+    expect(significant(49.2126)).toBe('49.2');
+    expect(significant(123.4)).toBe('123');
+    expect(significant(0.3048)).toBe('0.305');
+    expect(significant(5)).toBe('5');
     // 15 m/s in US: 15 / 0.3048 = 49.2126 ft/s [NIST SP 811], three figures
-    expect(phraser('US').vel(15)).toBe('49.2 ft/s');
+    expect(formatQuantity(15, 'velocity', 'US')).toBe('49.2 ft/s');
+    expect(formatQuantity(0.3048, 'length', 'US')).toBe('1.00 ft');
   });
 });

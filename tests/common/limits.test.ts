@@ -2,6 +2,7 @@
 // and the engine, and the block-row fit that no longer grows without bound.
 import { describe, expect, it } from 'vitest';
 import {
+  studyWarningText,
   ENGINE_LIMITS,
   fitBlockRow,
   runStudy,
@@ -67,7 +68,10 @@ describe('the study bounds in the engine (direct callers, SI)', () => {
     const r = runStudy({ ...fenwickDesign, basinWidth: 200 });
     expect(r.rows.length).toBeGreaterThan(0);
     const notes = r.dissipators?.notes ?? [];
-    expect(notes.some((n) => /basinWidth: .*one (row|apron) may hold/.test(n))).toBe(true);
+    const said = notes
+      .filter((n) => n.code === 'type-not-designed')
+      .map((n) => studyWarningText(n));
+    expect(said.some((n) => /basin ?width: .*one (row|apron) may hold/i.test(n))).toBe(true);
   });
 
   it('runStudy refuses more discharges than the limit, naming the field', () => {

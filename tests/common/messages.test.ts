@@ -46,7 +46,8 @@ describe('refusal sentences', () => {
       expect(refusalText(e, 'US')).toBe(
         'The gate opening 9.84 ft is too large for 177 cfs: the water would not reach the gate. Give a smaller opening or a pool depth instead.',
       );
-      expect(refusalText(e, 'SI')).toContain('The gate opening 3.00 m is too large for 5.00 m³/s');
+      // one rounding rule (formatQuantity): lengths to the hundredth, discharges to three figures
+      expect(refusalText(e, 'SI')).toContain('The gate opening 3.00 m is too large for 5 m³/s');
     }
   });
 });

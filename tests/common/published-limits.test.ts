@@ -6,14 +6,21 @@ import {
   BASIN_DEFAULTS,
   BASIN_DEFAULT_PROVENANCE,
   PUBLISHED_FIGURES,
-  limitText,
+  limitQuantity,
   publishedSI,
   resolveDefaults,
+  type BasinDefaults,
+  type PublishedKey,
 } from '../../common/src/basins';
-import { phraser } from '../../common/src/units/phrase';
+import { sayer } from '../../common/src/messages/quote';
+import { quote } from '../../common/src/warnings';
 import { expectRel } from '../support/tolerance';
 
 const FT = 0.3048; // [NIST SP 811]
+
+/** A limit as a sentence says it: quoted by the engine, said at the edge. */
+const limitText = (units: 'SI' | 'US', d: BasinDefaults, key: PublishedKey): string =>
+  sayer(quote({ limit: limitQuantity(d, key) }), units)('limit');
 
 // The figures as published, with the confidence hydraulics.md §4 gives them.
 const EXPECTED = [
@@ -47,13 +54,13 @@ describe('limits published in US units', () => {
   });
   it('a US reason shows the figure exactly as published, never 49.2126 ft/s', () => {
     const d = resolveDefaults();
-    for (const [key, , , text] of EXPECTED) expect(limitText(phraser('US'), d, key)).toBe(text);
+    for (const [key, , , text] of EXPECTED) expect(limitText('US', d, key)).toBe(text);
   });
   it('an SI reason shows the converted value; an override is shown as the value in force', () => {
     const d = resolveDefaults();
-    expect(limitText(phraser('SI'), d, 'type3VelocityWarn')).toBe('15.2 m/s'); // 15.24 m/s, three figures
-    expect(limitText(phraser('SI'), d, 'type6MaxDischarge')).toBe('11.3 m³/s'); // 11.33 m³/s
+    expect(limitText('SI', d, 'type3VelocityWarn')).toBe('15.2 m/s'); // 15.24 m/s, three figures
+    expect(limitText('SI', d, 'type6MaxDischarge')).toBe('11.3 m³/s'); // 11.33 m³/s
     const over = resolveDefaults({ type3VelocityWarn: 12 });
-    expect(limitText(phraser('US'), over, 'type3VelocityWarn')).toBe('39.4 ft/s'); // 12 / 0.3048 = 39.37
+    expect(limitText('US', over, 'type3VelocityWarn')).toBe('39.4 ft/s'); // 12 / 0.3048 = 39.37
   });
 });

@@ -96,15 +96,15 @@ describe('engine messages in the project units (phraseMessage)', () => {
   // 1 ft = 0.3048 m exactly, so 1 ft³/s = 0.028316846592 m³/s and 1 yd³ = 0.764554857984 m³ [NIST SP 811]
   it('puts each SI quantity of a sentence in US customary', () => {
     expect(phraseMessage('floorElevation 121.92 m lies above the outlet’s energy line', 'US')).toBe(
-      'floorElevation 400 ft lies above the outlet’s energy line',
+      'floorElevation 400.00 ft lies above the outlet’s energy line',
     );
     expect(
       phraseMessage('y1 0.3048 m is not supercritical at Q 2.8316846592 m³/s over 3.048 m', 'US'),
-    ).toBe('y1 1 ft is not supercritical at Q 100 cfs over 10 ft');
+    ).toBe('y1 1.00 ft is not supercritical at Q 100 cfs over 10.00 ft');
     expect(phraseMessage('V1 4.572 m/s, q 0.09290304 m²/s, 0.764554857984 m³ of stone', 'US')).toBe(
       'V1 15 ft/s, q 1 ft²/s, 1 yd³ of stone',
     );
-    expect(phraseMessage('a drop of -0.6096 m.', 'US')).toBe('a drop of -2 ft.');
+    expect(phraseMessage('a drop of -0.6096 m.', 'US')).toBe('a drop of -2.00 ft.');
   });
   it('leaves numbers without a length unit, other words and SI messages alone', () => {
     const text =

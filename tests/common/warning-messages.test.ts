@@ -21,9 +21,18 @@ const FT = 0.3048; // 1 ft = 0.3048 m exactly (NIST SP 811)
 // Awkward SI quantities (invented) for a warning of every code: typed by code, so a new code
 // without a sample fails the type-check.
 const Q = 3.285410275704521;
+const L = 'length' as const;
+const V = 'velocity' as const;
+const D = 'discharge' as const;
+const U = 'unitDischarge' as const;
 const SAMPLES: Record<
   StudyWarningCode,
-  { values: Record<string, number>; kinds: Record<string, QuantityKind> }
+  {
+    values: Record<string, number>;
+    kinds: Record<string, QuantityKind>;
+    at?: StudyWarning['at'];
+    types?: StudyWarning['types'];
+  }
 > = {
   'design-discharge-added': { values: { Q }, kinds: { Q: 'discharge' } },
   'design-discharge-above-range': { values: { Q }, kinds: { Q: 'discharge' } },
@@ -55,6 +64,60 @@ const SAMPLES: Record<
   'froude-above-tested': { values: { count: 2, limit: 17 }, kinds: {} },
   'gate-submerged': { values: {}, kinds: {} },
   'dissipators-not-run': { values: {}, kinds: {} },
+  'type-froude-outside': { values: { fr1: 3.98765, lo: 4.5 }, kinds: {} },
+  'type-oscillating': { values: { fr1: 3.123456 }, kinds: {} },
+  'piers-not-advised': { values: { v1: 19.87654, limit: 18.288 }, kinds: { v1: V, limit: V } },
+  'saf-blocks-not-advised': {
+    values: { v1: 19.87654, limit: 18.288 },
+    kinds: { v1: V, limit: V },
+  },
+  'blocks-cavitation': { values: { v1: 16.54321, limit: 15.24 }, kinds: { v1: V, limit: V } },
+  'type2-unit-discharge': { values: { q: 47.123, limit: 46.4515 }, kinds: { q: U, limit: U } },
+  'type3-unit-discharge': { values: { q: 19.123, limit: 18.5806 }, kinds: { q: U, limit: U } },
+  'plain-apron-long': { values: { fr1: 9.87654, length: 41.23456 }, kinds: { length: L } },
+  'narrow-chute-blocks': { values: {}, kinds: {} },
+  'narrow-baffle-blocks': { values: {}, kinds: {} },
+  'narrow-sill-teeth': { values: {}, kinds: {} },
+  'type6-width-from-memory': { values: {}, kinds: {} },
+  'type6-narrower': {
+    values: { width: 2.123456, curveWidth: 2.531554 },
+    kinds: { width: L, curveWidth: L },
+  },
+  'type6-discharge-above': {
+    values: { Q: 11.33, limit: 11.3267386368 },
+    kinds: { Q: D, limit: D },
+  },
+  'type6-velocity-above': { values: { v: 15.25, limit: 15.24 }, kinds: { v: V, limit: V } },
+  'type6-baffle-overtopped': { values: { tw: 1.23456, max: 0.987654 }, kinds: { tw: L, max: L } },
+  'type9-unit-discharge': { values: { q: 6.123456, limit: 5.5741824 }, kinds: { q: U, limit: U } },
+  'basin-cavitation': {
+    values: { v1: 16.54321, Q, limit: 15.24 },
+    kinds: { v1: V, Q: D, limit: V },
+  },
+  'basin-oscillating': { values: { count: 3, Q }, kinds: { Q: D } },
+  'basin-froude-outside': { values: { count: 2, fr1: 17.54321, Q }, kinds: { Q: D } },
+  'basin-submergence': { values: { count: 7, ratio: 1.2345678, Q }, kinds: { Q: D } },
+  'basin-sweep-out': { values: { count: 1, Q }, kinds: { Q: D } },
+  'basin-sweep-out-margin': {
+    values: { Q, margin: 0.0123456, required: 4.56789 },
+    kinds: { Q: D, margin: L, required: L },
+  },
+  'slab-thick': { values: { need: 1.23456, thickness: 1.25 }, kinds: { need: L, thickness: L } },
+  'uplift-below-floor': { values: {}, kinds: {} },
+  'apron-tailwater-assumed': { values: {}, kinds: {} },
+  'apron-tailwater-held': {
+    values: { tw: 2.123456, low: 0.48, rise: 1.2, used: 1.2 },
+    kinds: { tw: L, low: L, rise: L, used: L },
+  },
+  'apron-stone-beyond-classes': {
+    values: { d50: 0.6123456, max: 0.55 },
+    kinds: { d50: L, max: L },
+  },
+  'type-not-designed': { values: {}, kinds: {}, at: { type: 'usbr-6' } },
+  'specialist-needed': { values: {}, kinds: {}, types: ['flip-bucket', 'slotted-bucket'] },
+  'no-catalogue-type': { values: {}, kinds: {} },
+  'jet-also-indicated': { values: {}, kinds: {} },
+  'chosen-not-designed': { values: {}, kinds: {}, at: { type: 'riprap-apron' } },
 };
 
 const sample = (code: StudyWarningCode): StudyWarning => ({

@@ -68,8 +68,16 @@ describe('warnings are shown once, under the floor they were found on', () => {
       values: { count: 2 },
       kinds: {},
     };
+    const narrow: StudyWarning = {
+      code: 'narrow-sill-teeth',
+      severity: 'caution',
+      values: {},
+      kinds: {},
+      at: { type: 'usbr-2' },
+    };
     const line = studyWarningText(gate, 'SI');
     const onlyStudy = studyWarningText(weak, 'SI');
+    const onlySizing = studyWarningText(narrow, 'SI');
     const d = result.design!.design;
     if (d.family !== 'jump-basin') throw new Error('jump basin expected');
     const dup: StudyResult = {
@@ -77,7 +85,7 @@ describe('warnings are shown once, under the floor they were found on', () => {
       warnings: [gate, gate, weak],
       design: {
         ...result.design!,
-        design: { ...d, warnings: [line, 'Only under sizing.', 'Only under sizing.'] },
+        design: { ...d, warnings: [gate, narrow, narrow] },
       },
     };
     const notes = mount(DesignResultNotes, {
@@ -92,7 +100,7 @@ describe('warnings are shown once, under the floor they were found on', () => {
     );
     expect(notes.findAll('[data-test="warnings-design-list"] li').map((li) => li.text())).toEqual([
       line,
-      'Only under sizing.',
+      onlySizing,
     ]);
     expect(notes.find('[data-test="warnings-study"]').text()).toBe(
       `The study, on the free-jump floor at ${result.floor.elevation.toFixed(2)} m (reference)`,
@@ -109,7 +117,7 @@ describe('warnings are shown once, under the floor they were found on', () => {
       props: { result: dup, units: 'SI' },
       global: { stubs },
     });
-    expect(sizing.text()).not.toContain('Only under sizing.');
+    expect(sizing.text()).not.toContain(onlySizing);
     sizing.unmount();
   });
 

@@ -61,7 +61,8 @@ describe('evaluateStudy', () => {
       new RangeError('floorElevation 121.92 m lies above the outlet’s energy line'),
       'US',
     );
-    expect(us).toContain('Floor elevation 400 ft lies above');
+    // lengths to the hundredth: the one display-rounding rule (formatQuantity)
+    expect(us).toContain('Floor elevation 400.00 ft lies above');
     expect(us).not.toContain('SI');
     expect(
       readableEngineError(

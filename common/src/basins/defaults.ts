@@ -16,7 +16,7 @@ export interface Provenance {
 }
 
 import { FOOT } from '../units/constants';
-import type { PhraseKind, Phraser } from '../units/phrase';
+import type { Quantity } from '../warnings';
 
 /** A figure as it was published: its number, the unit system it was printed in, and its kind. */
 export interface PublishedFigure {
@@ -72,26 +72,15 @@ const P = PUBLISHED_FIGURES;
 export type PublishedKey = keyof typeof PUBLISHED_FIGURES;
 
 /**
- * A limit in a sentence: exactly as published when the project works in the published system
- * and the engineer kept the default ('50 ft/s'); otherwise the value in force, phrased.
- * @example limitText(phraser('US'), resolveDefaults(), 'type3VelocityWarn') // '50 ft/s'
+ * A limit in force as a quantity to quote: its kind and SI value, and its key when the engineer
+ * kept the published default (then a project in the published system shows it exactly as
+ * published: '50 ft/s', never '49.2 ft/s'; common/src/messages phrases it).
+ * @example limitQuantity(resolveDefaults(), 'type3VelocityWarn') // { kind: 'velocity', si: 15.24, published: 'type3VelocityWarn' }
  */
-export function limitText(p: Phraser, d: BasinDefaults, key: PublishedKey): string {
-  const f: PublishedFigure = PUBLISHED_FIGURES[key];
-  const kind = f.kind as PhraseKind;
-  if (f.units === p.units && d[key] === BASIN_DEFAULTS[key]) return `${f.value} ${p.unit(kind)}`;
-  return `${p.num(d[key], kind)} ${p.unit(kind)}`;
-}
-
-/** A value and a published limit compared: the value with enough digits to differ from the limit. */
-export function limitPair(
-  p: Phraser,
-  si: number,
-  d: BasinDefaults,
-  key: PublishedKey,
-): [string, string] {
-  const kind = PUBLISHED_FIGURES[key].kind as PhraseKind;
-  return [p.pair(kind, si, d[key])[0], limitText(p, d, key)];
+export function limitQuantity(d: BasinDefaults, key: PublishedKey): Quantity {
+  const q: Quantity = { kind: PUBLISHED_FIGURES[key].kind, si: d[key] };
+  if (d[key] === BASIN_DEFAULTS[key]) q.published = key;
+  return q;
 }
 
 const DSD = 'USBR, Design of Small Dams';

@@ -1,17 +1,17 @@
 // The full design of a basin over the whole discharge range: floor, length, width and flare,
 // blocks, sill, walls, wingwalls, cutoffs, slab, riprap, quantities of concrete, warnings.
 import { getDissipator } from './catalogue';
-import {
-  limitText,
-  listAssumptions,
-  resolveDefaults,
-  type Assumption,
-  type BasinDefaults,
-} from './defaults';
+import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
 import { slabFlotation, type FlotationResult } from './flotation';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqFinite, reqPositive, roundUp } from './guards';
-import { jumpRules, jumpWarningItems, sizeJumpBasin, type JumpWarning } from './jumpBasin';
+import {
+  jumpBasinHydraulics,
+  jumpRules,
+  jumpWarningItems,
+  sizeJumpBasin,
+  type JumpWarning,
+} from './jumpBasin';
 import {
   designCulvertApron,
   riprapBelowSill,
@@ -26,7 +26,8 @@ import type {
   JumpBasinSizing,
   JumpBasinType,
 } from './types';
-import { n3, phraser, type Phraser, type PhraseUnits } from '../units/phrase';
+import { distinctWarnings, warn, type StudyWarning } from '../warnings';
+import { dis, len, lim, vel } from './types/shared';
 import { sizeImpactBasin, type ImpactBasinSizing } from './types/usbr6';
 import { sizeBaffledApron, type BaffledApronSizing } from './types/usbr9';
 import { designRow } from './types/shared';
@@ -50,8 +51,6 @@ export interface DesignOptions {
   };
   /** extra depth to set the floor below the solved one, m (a margin against sweep-out) */
   extraFloorDepth?: number;
-  /** unit system of warnings, notes and reasons (numbers stay SI); default SI, in a study the input's units */
-  units?: PhraseUnits;
   /** tailwater above C·y2 by more than this fraction drowns the jump (range/position.ts; default 0.10) */
   submergenceTolerance?: number;
 }
@@ -141,7 +140,8 @@ export interface JumpBasinDesign {
   /** per discharge: required and available tailwater, margin, basin length */
   rows: JumpBasinDesignRow[];
   concrete: ConcreteQuantities;
-  warnings: string[];
+  /** as data; phrase with studyWarningText(w, units) */
+  warnings: StudyWarning[];
   sources: string[];
   assumptions: Assumption[];
 }
@@ -175,8 +175,6 @@ export function designJumpBasin(
   options: DesignOptions = {},
 ): JumpBasinDesign {
   const d = resolveDefaults(options.defaults);
-  const units = options.units ?? 'SI';
-  const P = phraser(units);
   const W = reqPositive('width', input.width);
   const zf = reqFinite('floorElevation', input.floorElevation);
   const zb = reqFinite('channelBedElevation', input.channelBedElevation);
@@ -185,8 +183,15 @@ export function designJumpBasin(
   const m = getDissipator(input.type);
   const rules = jumpRules(input.type);
   const dr = pickDesignRow(input.rows, input.designQ);
-  const rows = input.rows.map((r) => {
-    const s = sizeJumpBasin(input.type, { width: W, Q: r.Q, y1: r.y1 }, { defaults: d });
+  // Every discharge needs only the type's hydraulics (the appurtenances are sized once, below).
+  const rows: JumpBasinDesignRow[] = input.rows.map((r) => {
+    const s = jumpBasinHydraulics(
+      rules,
+      W,
+      reqPositive('Q (discharge)', r.Q),
+      reqPositive('y1', r.y1),
+      d,
+    );
     const tw = r.tailwaterElevation - zf;
     const req = s.requiredTailwaterDepth;
     return {
@@ -199,14 +204,13 @@ export function designJumpBasin(
       requiredDepth: req,
       margin: tw - req,
       length: s.length,
-      s,
     };
   });
   const maxTw = Math.max(...rows.map((r) => r.tailwaterDepth));
   const sizing = sizeJumpBasin(
     input.type,
     { width: W, Q: dr.Q, y1: dr.y1 },
-    { defaults: d, maxTailwaterDepth: Math.max(0, maxTw), units },
+    { defaults: d, maxTailwaterDepth: Math.max(0, maxTw) },
   );
   const longest = rows.reduce((a, r) => (r.length > a.length ? r : a));
   const length = Math.max(longest.length, sizing.length);
@@ -262,7 +266,6 @@ export function designJumpBasin(
     wallThickness: wallT,
     wallHeight,
     safetyFactor: fl.safetyFactor ?? d.flotationSafetyFactor,
-    units,
     minThickness: fl.minThickness ?? d.minSlabThickness,
     concreteUnitWeight: d.concreteUnitWeight,
     waterUnitWeight: d.waterUnitWeight,
@@ -335,25 +338,28 @@ export function designJumpBasin(
     { fr1: sizing.fr1, v1: sizing.v1, q: sizing.q, y2: sizing.y2, length: sizing.length },
     rules,
     d,
-    units,
   );
-  const own = new Set(items.map((w) => w.text));
-  for (const text of sizing.warnings) if (!own.has(text)) items.push({ topic: 'narrow', text });
+  const own = new Set(items.map((w) => w.warning.code));
+  for (const warning of sizing.warnings)
+    if (!own.has(warning.code)) items.push({ topic: 'narrow', warning });
   const warnings = designWarnings(
     input.type,
     rows,
     items,
     d,
     rules.froudeRange,
-    P,
     options.submergenceTolerance,
   );
-  warnings.push(...slab.notes);
+  warnings.push(...slab.notes.map((n) => ({ ...n, at: { type: input.type } })));
   if (input.governingQ !== undefined && input.governingQ !== null) {
     const g = rows.reduce((a, r) => (r.margin < a.margin ? r : a));
     if (g.margin < 0.05 * g.y2) {
       warnings.push(
-        `Sweep-out margin: at ${P.Q(g.Q)} the tailwater ${P.len(g.margin) === P.len(0) ? 'just meets' : `exceeds by only ${P.len(Math.max(0, g.margin))}`} the required ${P.len(g.requiredDepth)} (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin`,
+        warn(
+          'basin-sweep-out-margin',
+          { Q: dis(g.Q), margin: len(Math.max(0, g.margin)), required: len(g.requiredDepth) },
+          { type: input.type, Q: g.Q },
+        ),
       );
     }
   }
@@ -394,7 +400,7 @@ export function designJumpBasin(
       tailwaterElevation: dr.tailwaterElevation,
       jumpLength,
     },
-    rows: rows.map(({ s: _s, ...r }) => r),
+    rows,
     concrete,
     warnings,
     sources: [
@@ -428,30 +434,40 @@ function designWarnings(
   sizing: readonly JumpWarning[],
   d: BasinDefaults,
   range: readonly [number, number],
-  P: Phraser,
   tolerance: number | undefined,
-): string[] {
-  const ranged: Array<{ topic: JumpWarning['topic'] | 'submergence' | 'sweepOut'; text: string }> =
-    [];
+): StudyWarning[] {
+  const ranged: Array<{
+    topic: JumpWarning['topic'] | 'submergence' | 'sweepOut';
+    w: StudyWarning;
+  }> = [];
+  const at = { type };
   const vMax = rows.reduce((a, r) => (r.v1 > a.v1 ? r : a));
   const strongVelocity = sizing.some((w) => w.topic === 'velocity');
   if (type !== 'usbr-1' && vMax.v1 > d.cavitationVelocity && !strongVelocity) {
     ranged.push({
       topic: 'cavitation',
-      text: `Cavitation risk: inflow velocity reaches ${P.vel(vMax.v1)} at ${P.Q(vMax.Q)} (> ${limitText(P, d, 'cavitationVelocity')}); model study advised`,
+      w: warn(
+        'basin-cavitation',
+        { v1: vel(vMax.v1), Q: dis(vMax.Q), limit: lim(d, 'cavitationVelocity') },
+        at,
+      ),
     });
   }
   const osc = rows.filter((r) => r.fr1 >= 2.5 && r.fr1 < 4.5);
   if (osc.length > 0)
     ranged.push({
       topic: 'oscillating',
-      text: `Oscillating jump (Fr1 2.5–4.5) at ${osc.length} discharge(s) from ${P.Q(osc[0]!.Q)}: waves downstream; wave suppressors may be needed`,
+      w: warn('basin-oscillating', { count: osc.length, Q: dis(osc[0]!.Q) }, at),
     });
   const out = rows.filter((r) => r.fr1 < range[0] || r.fr1 > range[1]);
   if (out.length > 0)
     ranged.push({
       topic: 'froude',
-      text: `Fr1 outside the tested range of the type at ${out.length} discharge(s) (e.g. Fr1 ${n3(out[0]!.fr1)} at ${P.Q(out[0]!.Q)}): model study`,
+      w: warn(
+        'basin-froude-outside',
+        { count: out.length, fr1: out[0]!.fr1, Q: dis(out[0]!.Q) },
+        at,
+      ),
     });
   const excess = rows.filter(
     (r) => jumpPosition(r.tailwaterDepth, r.requiredDepth, tolerance) === 'drowned',
@@ -462,21 +478,29 @@ function designWarnings(
     );
     ranged.push({
       topic: 'submergence',
-      text: `Excess submergence at ${excess.length} discharge(s): tailwater up to ${n3(worst.tailwaterDepth / worst.requiredDepth)}× the required depth (at ${P.Q(worst.Q)}); the jump is drowned and dissipates less`,
+      w: warn(
+        'basin-submergence',
+        {
+          count: excess.length,
+          ratio: worst.tailwaterDepth / worst.requiredDepth,
+          Q: dis(worst.Q),
+        },
+        at,
+      ),
     });
   }
   const short = rows.filter((r) => r.tailwaterDepth < r.requiredDepth - 1e-6);
   if (short.length > 0)
     ranged.push({
       topic: 'sweepOut',
-      text: `Tailwater short of the required depth at ${short.length} discharge(s) from ${P.Q(short[0]!.Q)}: the jump sweeps out`,
+      w: warn('basin-sweep-out', { count: short.length, Q: dis(short[0]!.Q) }, at),
     });
   const covered = new Set(ranged.map((r) => r.topic));
   // A velocity "not advised" at the design discharge also covers a cavitation caution there.
   const keep = sizing.filter(
     (w) => !covered.has(w.topic) && !(w.topic === 'cavitation' && strongVelocity),
   );
-  return [...new Set([...keep.map((w) => w.text), ...ranged.map((r) => r.text)])];
+  return distinctWarnings([...keep.map((w) => w.warning), ...ranged.map((r) => r.w)]);
 }
 
 export interface ImpactBasinDesign {
@@ -494,7 +518,8 @@ export interface ImpactBasinDesign {
   riprap: RiprapProtection;
   water: { Q: number; tailwaterElevation: number };
   concrete: ConcreteQuantities;
-  warnings: string[];
+  /** as data; phrase with studyWarningText(w, units) */
+  warnings: StudyWarning[];
   sources: string[];
   assumptions: Assumption[];
 }
@@ -513,11 +538,7 @@ export function designImpactBasin(
   const zf = reqFinite('floorElevation', c.floorElevation);
   const dr = pickDesignRow(c.rows, c.designQ);
   const maxTw = Math.max(...c.rows.map((r) => r.tailwaterElevation - zf));
-  const s = sizeImpactBasin(
-    { Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) },
-    d,
-    options.units ?? 'SI',
-  );
+  const s = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1, tailwaterDepth: Math.max(0, maxTw) }, d);
   const t = roundUp(Math.max(d.minWallThickness, s.width / 12), 0.05);
   const vExit =
     dr.Q /
@@ -576,7 +597,8 @@ export interface BaffledApronDesign {
   width: number;
   length: number;
   concrete: ConcreteQuantities;
-  warnings: string[];
+  /** as data; phrase with studyWarningText(w, units) */
+  warnings: StudyWarning[];
   sources: string[];
   assumptions: Assumption[];
 }
@@ -590,11 +612,7 @@ export function designBaffledApron(
   const drop =
     reqFinite('crestElevation', c.crestElevation) -
     reqFinite('channelBedElevation', c.channelBedElevation);
-  const s = sizeBaffledApron(
-    { Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) },
-    d,
-    options.units ?? 'SI',
-  );
+  const s = sizeBaffledApron({ Q: c.designQ, width: c.width, drop: Math.max(drop, 0.1) }, d);
   const t = options.flotation?.minThickness ?? d.minSlabThickness;
   const slab = s.slopeLength * (c.width + 2 * d.minWallThickness) * t;
   const walls = 2 * s.slopeLength * s.wallHeight * d.minWallThickness;
@@ -638,7 +656,8 @@ export interface RiprapApronDesign {
   width: number;
   length: number;
   concrete: ConcreteQuantities;
-  warnings: string[];
+  /** as data; phrase with studyWarningText(w, units) */
+  warnings: StudyWarning[];
   sources: string[];
   assumptions: Assumption[];
 }
@@ -663,7 +682,6 @@ export function designRiprapApron(
     shape: c.culvert.shape,
     ...(c.culvert.span !== undefined ? { span: c.culvert.span } : {}),
     ...(tw !== undefined ? { tailwater: tw } : {}),
-    units: options.units ?? 'SI',
   });
   return {
     family: 'riprap-apron',

@@ -2,7 +2,7 @@
 // slab) against uplift, with a safety factor. Per metre of basin length; SI (m, kN).
 import { BASIN_DEFAULTS } from './defaults';
 import { reqFinite, reqNonNegative, reqPositive, roundUp } from './guards';
-import { phraser, type PhraseUnits } from '../units/phrase';
+import { qty, warn, type StudyWarning } from '../warnings';
 
 export interface FlotationCase {
   /** basin floor (top of slab) elevation, m */
@@ -30,8 +30,6 @@ export interface FlotationCase {
   upliftFactor?: number;
   /** thickness step, m (default 0.05) */
   step?: number;
-  /** unit system of the notes' wording; default SI */
-  units?: PhraseUnits;
 }
 
 export interface FlotationResult {
@@ -48,7 +46,8 @@ export interface FlotationResult {
   /** per metre of basin length, kN/m */
   resisting: number;
   uplift: number;
-  notes: string[];
+  /** as data (slab-thick, uplift-below-floor) */
+  notes: StudyWarning[];
 }
 
 /**
@@ -81,7 +80,7 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const H = zu - zf;
   const walls = 2 * gc * tw * hw;
   const water = gw * d * W;
-  const notes: string[] = [];
+  const notes: StudyWarning[] = [];
   const denom = B * (gc - FS * gw * k);
   if (denom <= 0) {
     throw new RangeError(
@@ -93,12 +92,11 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const upliftHead = Math.max(0, H + thickness);
   const uplift = gw * k * B * upliftHead;
   const resisting = gc * B * thickness + walls + water;
-  const P = phraser(c.units ?? 'SI');
   if (need > 1.0)
     notes.push(
-      `Flotation needs a slab of ${P.len(need)} (${P.len(thickness)} used): consider underdrains (pressure relief) or anchors, which reduce the uplift`,
+      warn('slab-thick', { need: qty('length', need), thickness: qty('length', thickness) }),
     );
-  if (H <= 0) notes.push('The uplift level is below the floor: no flotation beyond the slab depth');
+  if (H <= 0) notes.push(warn('uplift-below-floor'));
   return {
     thickness,
     requiredThickness: need,

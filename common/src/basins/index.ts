@@ -1,6 +1,40 @@
 // Dissipators: catalogue, screening, sizing, exit protection, flotation, drawing. SI inside.
-export * from './types';
-export * from './defaults';
+export {
+  type BaffleSet,
+  type BlockSet,
+  type CriterionId,
+  type CriterionResult,
+  type CriterionStatus,
+  type DebrisLevel,
+  type DischargeRow,
+  type DissipatorFamily,
+  type DissipatorModule,
+  type DissipatorTypeId,
+  type EndSill,
+  type InflowKind,
+  type JumpBasinSizing,
+  type JumpBasinType,
+  type JumpRules,
+  type LimitEntry,
+  type ReasonCode,
+  type ScreeningContext,
+} from './types';
+export {
+  type Assumption,
+  BASIN_DEFAULT_PROVENANCE,
+  BASIN_DEFAULTS,
+  type BasinDefaultKey,
+  type BasinDefaults,
+  type Confidence,
+  limitQuantity,
+  listAssumptions,
+  type Provenance,
+  PUBLISHED_FIGURES,
+  type PublishedFigure,
+  type PublishedKey,
+  publishedSI,
+  resolveDefaults,
+} from './defaults';
 export { fitBlockRow, staggerBehind, staggeredRow, type BlockRow } from './blocks';
 export { freeboard } from './freeboard';
 export {
@@ -21,9 +55,34 @@ export {
   type ScreeningInput,
   type Verdict,
 } from './screening';
-export * from './riprap';
-export * from './flotation';
-export * from './design';
+export {
+  APRON_CLASSES,
+  type CulvertApron,
+  type CulvertApronStone,
+  culvertApronStoneSize,
+  designCulvertApron,
+  isbashStoneSize,
+  riprapBelowSill,
+  type RiprapProtection,
+  velocityStoneSize,
+} from './riprap';
+export { type FlotationCase, type FlotationResult, slabFlotation } from './flotation';
+export {
+  type BaffledApronDesign,
+  type ConcreteQuantities,
+  designBaffledApron,
+  designImpactBasin,
+  designJumpBasin,
+  type DesignOptions,
+  designRiprapApron,
+  type DesignRow,
+  type DissipatorDesign,
+  type ImpactBasinDesign,
+  type JumpBasinDesign,
+  type JumpBasinDesignRow,
+  type JumpDesignInput,
+  type RiprapApronDesign,
+} from './design';
 export {
   designDissipators,
   screeningContext,

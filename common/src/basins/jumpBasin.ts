@@ -2,19 +2,18 @@
 import { belangerRatio } from '../hydraulics';
 import { G } from '../units/constants';
 import { getDissipator, isJumpBasinType } from './catalogue';
-import { limitText, resolveDefaults, type BasinDefaults } from './defaults';
+import { resolveDefaults, type BasinDefaults } from './defaults';
 import { freeboard as usbrFreeboard } from './freeboard';
 import { reqNonNegative, reqPositive } from './guards';
 import type { JumpBasinSizing, JumpBasinType, JumpRules } from './types';
-import { n3, phraser, type PhraseUnits } from '../units/phrase';
+import { warn, type StudyWarning } from '../warnings';
+import { len, lim, udis, vel } from './types/shared';
 
 export interface SizeJumpBasinOptions {
   /** overrides of the from-memory defaults */
   defaults?: Partial<BasinDefaults>;
   /** largest tailwater depth above the floor, m (walls are raised to clear it) */
   maxTailwaterDepth?: number;
-  /** unit system of the warnings' wording (numbers stay SI); default SI */
-  units?: PhraseUnits;
 }
 
 /** What a sizing warning is about: a range-wide design says each topic once (design.ts). */
@@ -24,7 +23,55 @@ export type JumpWarningTopic =
 /** A sizing warning with its topic. */
 export interface JumpWarning {
   topic: JumpWarningTopic;
-  text: string;
+  warning: StudyWarning;
+}
+
+/** What a jump basin's rules give at one discharge (SI), before its appurtenances. */
+export interface JumpBasinHydraulics {
+  q: number;
+  v1: number;
+  fr1: number;
+  /** sequent depth, Bélanger, m */
+  y2: number;
+  /** the type's tailwater factor C */
+  factor: number;
+  /** C·y2, m */
+  requiredTailwaterDepth: number;
+  /** basin length, m */
+  length: number;
+}
+
+/**
+ * The hydraulics of a jump basin at one discharge: q = Q/width, V1 = q/y1, Fr1 = V1/√(g·y1),
+ * y2 by Bélanger [src: Chow 1959], C and the length by the type's rules. Inputs already checked
+ * positive; refuses a toe that is not supercritical. The part of sizeJumpBasin that every
+ * discharge of a design needs.
+ */
+export function jumpBasinHydraulics(
+  rules: JumpRules,
+  width: number,
+  Q: number,
+  y1: number,
+  d: BasinDefaults,
+): JumpBasinHydraulics {
+  const q = Q / width;
+  const v1 = q / y1;
+  const fr1 = v1 / Math.sqrt(G * y1);
+  if (fr1 <= 1)
+    throw new RangeError(
+      `y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
+    );
+  const y2 = y1 * belangerRatio(fr1);
+  const factor = rules.tailwaterFactor(fr1, d);
+  return {
+    q,
+    v1,
+    fr1,
+    y2,
+    factor,
+    requiredTailwaterDepth: factor * y2,
+    length: rules.length(fr1, y1, y2, d),
+  };
 }
 
 export function jumpRules(type: JumpBasinType): JumpRules {
@@ -57,17 +104,13 @@ export function sizeJumpBasin(
   const y1 = reqPositive('y1', c.y1);
   const d = resolveDefaults(options.defaults);
   const rules = jumpRules(type);
-  const q = Q / width;
-  const v1 = q / y1;
-  const fr1 = v1 / Math.sqrt(G * y1);
-  if (fr1 <= 1)
-    throw new RangeError(
-      `y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
-    );
-  const y2 = y1 * belangerRatio(fr1);
-  const factor = rules.tailwaterFactor(fr1, d);
-  const requiredTailwaterDepth = factor * y2;
-  const length = rules.length(fr1, y1, y2, d);
+  const { q, v1, fr1, y2, factor, requiredTailwaterDepth, length } = jumpBasinHydraulics(
+    rules,
+    width,
+    Q,
+    y1,
+    d,
+  );
   const app = rules.appurtenances({ fr1, y1, y2, width, length, d });
   const tw = Math.max(
     requiredTailwaterDepth,
@@ -77,19 +120,16 @@ export function sizeJumpBasin(
   );
   const fb = rules.freeboardRule === 'saf' ? y2 / 3 : usbrFreeboard(v1, y2, d.freeboardCoefficient);
   const wallHeight = rules.freeboardRule === 'saf' ? tw + fb : Math.max(y2, tw) + fb;
-  const items = jumpWarningItems(type, { fr1, v1, q, y2, length }, rules, d, options.units);
-  for (const [what, row] of [
-    ['chute or deflector blocks', app.chuteBlocks],
-    ['baffle or floor blocks', app.baffleBlocks],
-    ['sill teeth', app.endSill.teeth],
+  const items = jumpWarningItems(type, { fr1, v1, q, y2, length }, rules, d);
+  for (const [code, row] of [
+    ['narrow-chute-blocks', app.chuteBlocks],
+    ['narrow-baffle-blocks', app.baffleBlocks],
+    ['narrow-sill-teeth', app.endSill.teeth],
   ] as const) {
     if (row && 'narrow' in row && row.narrow)
-      items.push({
-        topic: 'narrow',
-        text: `the basin is too narrow for the ${what} rule: one narrowed block is shown; widen the basin`,
-      });
+      items.push({ topic: 'narrow', warning: warn(code, {}, { type }) });
   }
-  const warnings = items.map((w) => w.text);
+  const warnings = items.map((w) => w.warning);
   const sizing: JumpBasinSizing = {
     type,
     fr1,
@@ -119,65 +159,58 @@ export function sizeJumpBasin(
   return sizing;
 }
 
-/** The cautions of a type at one discharge, in plain words (numbers in `units`, default SI), each with its topic. */
+/** The cautions of a type at one discharge, as data, each with its topic. */
 export function jumpWarningItems(
   type: JumpBasinType,
   r: { fr1: number; v1: number; q: number; y2: number; length: number },
   rules: JumpRules,
   d: BasinDefaults,
-  units: PhraseUnits = 'SI',
 ): JumpWarning[] {
-  const P = phraser(units);
   const w: JumpWarning[] = [];
-  const add = (topic: JumpWarningTopic, text: string): void => {
-    w.push({ topic, text });
+  const at = { type };
+  const add = (topic: JumpWarningTopic, warning: StudyWarning): void => {
+    w.push({ topic, warning });
   };
   const [lo, hi] = rules.froudeRange;
   if (r.fr1 < lo || r.fr1 > hi) {
     add(
       'froude',
-      `Fr1 ${n3(r.fr1)} is outside the tested range ${lo}–${hi === Infinity ? '∞' : hi} of this type: model study`,
+      warn('type-froude-outside', { fr1: r.fr1, lo, hi: hi === Infinity ? undefined : hi }, at),
     );
   }
   if (r.fr1 >= 2.5 && r.fr1 < 4.5 && (type === 'usbr-1' || type === 'usbr-4' || type === 'saf')) {
-    add(
-      'oscillating',
-      `Fr1 ${n3(r.fr1)}: oscillating jump — waves may travel downstream; consider wave suppressors`,
-    );
+    add('oscillating', warn('type-oscillating', { fr1: r.fr1 }, at));
   }
   const hasBlocks = type !== 'usbr-1';
   // One velocity caution per type: the stronger "not advised" replaces the cavitation caution.
   if (type === 'usbr-3' && r.v1 > d.type3VelocityFail) {
     add(
       'velocity',
-      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'type3VelocityFail')}: baffle piers would cavitate and are not advised; use Type II`,
+      warn('piers-not-advised', { v1: vel(r.v1), limit: lim(d, 'type3VelocityFail') }, at),
     );
   } else if (type === 'saf' && r.v1 > d.safVelocityFail) {
     add(
       'velocity',
-      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'safVelocityFail')}: cavitation on the chute blocks; not advised for an SAF basin`,
+      warn('saf-blocks-not-advised', { v1: vel(r.v1), limit: lim(d, 'safVelocityFail') }, at),
     );
   } else if (hasBlocks && r.v1 > d.cavitationVelocity) {
     add(
       'cavitation',
-      `V1 ${P.vel(r.v1)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the blocks; model study advised`,
+      warn('blocks-cavitation', { v1: vel(r.v1), limit: lim(d, 'cavitationVelocity') }, at),
     );
   }
   if (type === 'usbr-3' && r.q > d.type3MaxUnitDischarge)
     add(
       'unitDischarge',
-      `q ${P.q(r.q)} above the ${limitText(P, d, 'type3MaxUnitDischarge')} of Type III`,
+      warn('type3-unit-discharge', { q: udis(r.q), limit: lim(d, 'type3MaxUnitDischarge') }, at),
     );
   if (type === 'usbr-2' && r.q > d.type2MaxUnitDischarge)
     add(
       'unitDischarge',
-      `q ${P.q(r.q)} above the ${limitText(P, d, 'type2MaxUnitDischarge')} tested for Type II`,
+      warn('type2-unit-discharge', { q: udis(r.q), limit: lim(d, 'type2MaxUnitDischarge') }, at),
     );
   if (type === 'usbr-1' && r.fr1 > 9) {
-    add(
-      'length',
-      `Fr1 ${n3(r.fr1)} > 9: a plain apron is long (${P.len(r.length)}); a basin with blocks is shorter`,
-    );
+    add('length', warn('plain-apron-long', { fr1: r.fr1, length: len(r.length) }, at));
   }
   return w;
 }

@@ -2,7 +2,7 @@
 import { G } from '../units/constants';
 import { BASIN_DEFAULTS } from './defaults';
 import { reqPositive, roundUp } from './guards';
-import { phraser, type PhraseUnits } from '../units/phrase';
+import { qty, warn, type StudyWarning } from '../warnings';
 
 /**
  * Isbash stone size, m: D = V²/(2g·C²·(Gs − 1)); C = 0.86 for high turbulence (below a
@@ -40,7 +40,7 @@ export interface CulvertApronStone {
   d50: number;
   /** tailwater used in the relation, m (bounded to 0.4·D–1.0·D) */
   tailwaterUsed: number;
-  warnings: string[];
+  warnings: StudyWarning[];
 }
 
 /**
@@ -57,27 +57,32 @@ export function culvertApronStoneSize(c: {
   shape?: 'circular' | 'box';
   tailwater?: number;
   g?: number;
-  /** unit system of the warnings' wording; default SI */
-  units?: PhraseUnits;
 }): CulvertApronStone {
-  const P = phraser(c.units ?? 'SI');
   const Q = reqPositive('Q (discharge)', c.Q);
   const D = reqPositive('rise (culvert diameter or rise)', c.rise);
   const g = reqPositive('g', c.g ?? G);
-  const warnings: string[] = [];
+  const at = { type: 'riprap-apron' as const };
+  const warnings: StudyWarning[] = [];
   let tw: number;
   if (c.tailwater === undefined) {
     tw = 0.4 * D;
-    warnings.push(
-      'Tailwater not known: taken as 0.4·D, the low bound of the relation (conservative)',
-    );
+    warnings.push(warn('apron-tailwater-assumed', {}, at));
   } else {
     if (!Number.isFinite(c.tailwater) || c.tailwater < 0)
       throw new RangeError(`tailwater must be a non-negative finite number (got ${c.tailwater})`);
     tw = Math.min(D, Math.max(0.4 * D, c.tailwater));
     if (tw !== c.tailwater) {
       warnings.push(
-        `Tailwater ${P.len(c.tailwater)} is outside 0.4·D–1.0·D (${P.num(0.4 * D, 'length')}–${P.len(D)}): held at ${P.len(tw)}`,
+        warn(
+          'apron-tailwater-held',
+          {
+            tw: qty('length', c.tailwater),
+            low: qty('length', 0.4 * D),
+            rise: qty('length', D),
+            used: qty('length', tw),
+          },
+          at,
+        ),
       );
     }
   }
@@ -181,7 +186,7 @@ export interface CulvertApron {
   widthAtOutlet: number;
   widthAtEnd: number;
   tailwaterUsed: number;
-  warnings: string[];
+  warnings: StudyWarning[];
   sources: string[];
 }
 
@@ -196,16 +201,18 @@ export function designCulvertApron(c: {
   span?: number;
   shape?: 'circular' | 'box';
   tailwater?: number;
-  units?: PhraseUnits;
 }): CulvertApron {
-  const P = phraser(c.units ?? 'SI');
   const stone = culvertApronStoneSize(c);
   const warnings = [...stone.warnings];
   const klass = APRON_CLASSES.find((k) => stone.d50 <= k.d50 + 1e-12);
   const use = klass ?? APRON_CLASSES[APRON_CLASSES.length - 1]!;
   if (!klass)
     warnings.push(
-      `Stone D50 ${P.len(stone.d50)} exceeds the largest apron class (${P.len(use.d50)}): use another dissipator`,
+      warn(
+        'apron-stone-beyond-classes',
+        { d50: qty('length', stone.d50), max: qty('length', use.d50) },
+        { type: 'riprap-apron' },
+      ),
     );
   const D = c.rise;
   const length = use.lengthRatio * D;

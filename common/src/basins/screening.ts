@@ -1,5 +1,6 @@
 // Screening: every catalogue type at every discharge, pass / warn / fail per criterion with a
-// reason, an overall verdict and a ranking.
+// coded reason, an overall verdict and a ranking. The sentences (reasons and each type's summary)
+// are made at the edge: reasonText and screeningSummaryText in common/src/messages/reasons.ts.
 import { DISSIPATOR_CATALOGUE, isJumpBasinType } from './catalogue';
 import { resolveDefaults, type BasinDefaults } from './defaults';
 import { sizeJumpBasin } from './jumpBasin';
@@ -17,7 +18,6 @@ import type {
 import { sizeBaffledApron } from './types/usbr9';
 import { sizeImpactBasin } from './types/usbr6';
 import { designRow } from './types/shared';
-import { phraser, type Phraser } from '../units/phrase';
 
 /**
  * Overall verdict of a type: 'recommended' (the best-ranked of the usable types), 'suitable'
@@ -41,8 +41,6 @@ export interface TypeScreening {
   rank: number;
   criteria: CriterionResult[];
   perDischarge: { Q: number; criteria: CriterionResult[] }[];
-  /** one or two sentences in plain words */
-  summary: string;
   /** basin length used in the ranking, m (absent for types not sized) */
   length?: number;
   /** concrete volume used in the ranking, m³ (rough when no design was given) */
@@ -71,27 +69,27 @@ export function aggregateCriteria(
   perRow: readonly CriterionResult[][],
   fixed: readonly CriterionResult[],
 ): CriterionResult[] {
-  const byId = new Map<CriterionId, CriterionResult[]>();
-  for (const list of [...perRow, fixed]) {
-    for (const c of list) {
-      const arr = byId.get(c.criterion) ?? [];
-      arr.push(c);
-      byId.set(c.criterion, arr);
+  // One pass, in order of first appearance: per criterion the worst status, the first outcome at
+  // it and how many share it; for a pass, the one at the largest discharge (the design case).
+  const byId = new Map<CriterionId, { pick: CriterionResult; worst: number; hits: number }>();
+  const visit = (c: CriterionResult): void => {
+    const o = ORDER[c.status];
+    const cur = byId.get(c.criterion);
+    if (!cur) byId.set(c.criterion, { pick: c, worst: o, hits: 1 });
+    else if (o > cur.worst) {
+      cur.pick = c;
+      cur.worst = o;
+      cur.hits = 1;
+    } else if (o === cur.worst) {
+      cur.hits++;
+      if (o === 0 && (c.atQ ?? 0) > (cur.pick.atQ ?? 0)) cur.pick = c;
     }
-  }
+  };
+  for (const list of perRow) for (const c of list) visit(c);
+  for (const c of fixed) visit(c);
   const out: CriterionResult[] = [];
-  for (const list of byId.values()) {
-    const worst = Math.max(...list.map((c) => ORDER[c.status]));
-    const hits = list.filter((c) => ORDER[c.status] === worst);
-    // For a pass, show the largest discharge (the design case); for a problem, the first where it occurs.
-    const pick =
-      worst === 0 ? hits.reduce((a, b) => ((b.atQ ?? 0) > (a.atQ ?? 0) ? b : a)) : hits[0]!;
-    const more =
-      worst > 0 && hits.length > 1
-        ? ` (and at ${hits.length - 1} other discharge${hits.length > 2 ? 's' : ''})`
-        : '';
-    out.push({ ...pick, reason: pick.reason + more });
-  }
+  for (const { pick, worst, hits } of byId.values())
+    out.push(worst > 0 && hits > 1 ? { ...pick, others: hits - 1 } : pick);
   return out;
 }
 
@@ -205,7 +203,6 @@ export function screenDissipators(input: ScreeningInput): TypeScreening[] {
       rank: 0,
       criteria,
       perDischarge: rows.map((r, i) => ({ Q: r.Q, criteria: perRow[i]! })),
-      summary: '',
       warnCount,
       failCount,
     };
@@ -223,8 +220,6 @@ export function screenDissipators(input: ScreeningInput): TypeScreening[] {
   results.forEach((r, i) => (r.rank = i + 1));
   const best = results.find((r) => r.verdict === 'suitable' || r.verdict === 'marginal');
   if (best) best.verdict = 'recommended';
-  const P = phraser(ctx.units ?? 'SI');
-  for (const r of results) r.summary = summarise(r, best, P);
   return results;
 }
 
@@ -233,29 +228,5 @@ function checkRow(r: DischargeRow): void {
     const v = r[k];
     if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0)
       throw new RangeError(`row.${k} must be a positive finite number (got ${String(v)})`);
-  }
-}
-
-function summarise(r: TypeScreening, best: TypeScreening | undefined, P: Phraser): string {
-  const fails = r.criteria.filter((c) => c.status === 'fail');
-  const warns = r.criteria.filter((c) => c.status === 'warn');
-  const len = r.length !== undefined ? ` Basin length about ${P.len(r.length)}.` : '';
-  switch (r.verdict) {
-    case 'recommended':
-      return warns.length === 0
-        ? `Recommended: passes every criterion at every discharge and ranks first.${len}`
-        : `Recommended with cautions: ${warns.map((w) => w.reason).join('; ')}.${len}`;
-    case 'suitable':
-      return `Suitable: passes every criterion${best ? `; ranks after ${best.name}` : ''}.${len}`;
-    case 'marginal':
-      return `Usable with cautions: ${warns.map((w) => w.reason).join('; ')}.${len}`;
-    case 'specialist': {
-      const why = r.criteria.filter((c) => c.status === 'pass').map((c) => c.reason);
-      return `Likely answer: ${why.join('; ')}. Needs a specialist study (usually with a physical model); not sized here.`;
-    }
-    case 'unsuitable':
-      if (r.family === 'jet')
-        return `Not indicated: ${r.criteria.map((c) => c.reason).join('; ')}.`;
-      return `Unsuitable: ${fails.map((f) => f.reason).join('; ')}.`;
   }
 }

@@ -10,10 +10,7 @@ import {
 } from '../range';
 import { DISSIPATOR_CATALOGUE, JUMP_BASIN_TYPES, isJumpBasinType } from './catalogue';
 import type { DissipatorStudyOptions } from './options';
-
-/** The published name of a type, for sentences (never the code id). */
-const nameOf = (id: DissipatorTypeId): string =>
-  DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'the chosen type';
+import { warn, warningCause, type StudyWarning } from '../warnings';
 import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
 import {
   designBaffledApron,
@@ -64,7 +61,13 @@ export interface DissipatorStudyResult {
   context: ScreeningContext;
   /** every default in force (from memory, common practice, sources) */
   assumptions: Assumption[];
-  notes: string[];
+  /** notes on the choice, as data (phrase with studyWarningText) */
+  notes: StudyWarning[];
+}
+
+/** A type the study could not design, with the refusal behind it. */
+function notDesigned(type: DissipatorTypeId, e: RangeError): StudyWarning {
+  return { ...warn('type-not-designed', {}, { type }), cause: warningCause(e, 'dissipators') };
 }
 
 function toRow(r: StudyRow): DesignRow {
@@ -98,7 +101,6 @@ export function screeningContext(
     inflow: inflow.kind,
     width: input.basinWidth,
     designQ: input.designDischarge,
-    units: opts.units ?? input.displayUnits ?? input.units,
   };
   if (input.submergenceTolerance !== undefined)
     ctx.submergenceTolerance = input.submergenceTolerance;
@@ -125,10 +127,8 @@ export function designDissipators(
 ): DissipatorStudyResult {
   const range: DischargeRange = 'Qs' in study ? study : prepareRange(study);
   const input = range.input;
-  // Words in the user's units unless told otherwise; every number stays SI.
   const opts: DissipatorStudyOptions = {
     ...options,
-    units: options.units ?? input.displayUnits ?? 'SI',
     submergenceTolerance: range.submergenceTolerance,
   };
   const d: BasinDefaults = resolveDefaults(opts.defaults);
@@ -140,7 +140,7 @@ export function designDissipators(
       throw new RangeError(`dissipators.chosenType: "${String(t)}" is not a type of the catalogue`);
   }
   const ctx = screeningContext(input, opts);
-  const notes: string[] = [];
+  const notes: StudyWarning[] = [];
   const extra = opts.extraFloorDepth ?? 0;
   if (!(Number.isFinite(extra) && extra >= 0))
     throw new RangeError(
@@ -151,7 +151,8 @@ export function designDissipators(
 
   // Rows at the natural level (for the types that need no floor solve).
   const naturalFloor = input.inflow.kind === 'pipe' ? input.inflow.invertElevation : bed;
-  const bedRows = rowsAt(range, fixedFloor ?? naturalFloor, 1).map(toRow);
+  // (read for the toe and tailwater only: no sweep-out profiles)
+  const bedRows = rowsAt(range, fixedFloor ?? naturalFloor, 1, false).map(toRow);
 
   const rowsByType: Partial<Record<DissipatorTypeId, DesignRow[]>> = {};
   const studyRowsByType: DissipatorStudyResult['rowsByType'] = {};
@@ -197,7 +198,7 @@ export function designDissipators(
       );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      notes.push(`${nameOf(type)}: no floor or design found (${e.message})`);
+      notes.push(notDesigned(type, e));
     }
   }
 
@@ -214,7 +215,7 @@ export function designDissipators(
     );
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
-    notes.push(`${nameOf('usbr-6')}: not sized (${e.message})`);
+    notes.push(notDesigned('usbr-6', e));
   }
   if (input.inflow.kind === 'chute') {
     try {
@@ -229,7 +230,7 @@ export function designDissipators(
       );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      notes.push(`${nameOf('usbr-9')}: not sized (${e.message})`);
+      notes.push(notDesigned('usbr-9', e));
     }
   }
   if (ctx.culvert) {
@@ -246,7 +247,7 @@ export function designDissipators(
       );
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      notes.push(`${nameOf('riprap-apron')}: not sized (${e.message})`);
+      notes.push(notDesigned('riprap-apron', e));
     }
   }
 
@@ -264,17 +265,12 @@ export function designDissipators(
   });
   const recommended = screening.find((s) => s.verdict === 'recommended')?.type ?? null;
   if (!recommended) {
-    const sp = screening.filter((s) => s.verdict === 'specialist').map((s) => s.name);
-    notes.push(
-      sp.length > 0
-        ? `No standard basin suits the whole range; ${sp.join(' or ')} is the likely answer: a specialist study is needed.`
-        : 'No catalogue type suits the whole range: change the width, the floor or the range, or seek a specialist design.',
-    );
+    const sp = screening.filter((s) => s.verdict === 'specialist').map((s) => s.type);
+    if (sp.length > 0) notes.push({ ...warn('specialist-needed'), types: sp });
+    else notes.push(warn('no-catalogue-type'));
   }
   if (screening.some((s) => s.verdict === 'specialist') && recommended) {
-    notes.push(
-      'A jet structure is also indicated (see the specialist types): compare with a specialist study.',
-    );
+    notes.push(warn('jet-also-indicated'));
   }
   const chosen = opts.chosenType ?? recommended;
   const entry = (type: DissipatorTypeId): DesignEntry | null => {
@@ -286,10 +282,7 @@ export function designDissipators(
   let design: DesignEntry | null = null;
   if (chosen) {
     design = entry(chosen);
-    if (!design)
-      notes.push(
-        `${nameOf(chosen)}: cannot be designed from this study (not sized, or its inputs are missing)`,
-      );
+    if (!design) notes.push(warn('chosen-not-designed', {}, { type: chosen }));
   }
   const altIds = new Set<DissipatorTypeId>([
     ...screening

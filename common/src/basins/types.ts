@@ -1,5 +1,6 @@
 // Shared shapes of the dissipator catalogue, screening and sizing. SI units throughout.
 import type { BasinDefaults } from './defaults';
+import type { Quoted, StudyWarning } from '../warnings';
 
 /** The jump basins sizeJumpBasin handles. */
 export type JumpBasinType = 'usbr-1' | 'usbr-2' | 'usbr-3' | 'usbr-4' | 'saf';
@@ -27,16 +28,103 @@ export type CriterionId =
 export type CriterionStatus = 'pass' | 'warn' | 'fail';
 
 /**
- * One criterion's outcome. For the jet types (flip bucket, slotted bucket) 'pass' means the
- * condition points to that type and 'fail' that it does not.
+ * Stable codes of the screening's reasons; the sentence of each is made at the edge by
+ * `reasonText(criterion, units)` in common/src/messages/reasons.ts.
  */
-export interface CriterionResult {
+export type ReasonCode =
+  | 'froude-below-range'
+  | 'froude-above-range'
+  | 'froude-at-least'
+  | 'froude-within'
+  | 'tailwater-unknown'
+  | 'tailwater-short'
+  | 'tailwater-drowned-design'
+  | 'tailwater-drowned-partial'
+  | 'tailwater-holds'
+  | 'debris-unstated'
+  | 'debris-none'
+  | 'debris-plain-apron'
+  | 'debris-blocks-teeth'
+  | 'debris-piers'
+  | 'debris-deflectors'
+  | 'debris-saf-blocks'
+  | 'debris-under-baffle'
+  | 'debris-apron-baffles'
+  | 'debris-riprap'
+  | 'discharge-no-limit'
+  | 'unit-discharge-no-limit'
+  | 'plain-apron-not-supercritical'
+  | 'plain-apron-weak-jump'
+  | 'plain-apron-oscillating'
+  | 'plain-apron-steady'
+  | 'plain-apron-strong'
+  | 'no-blocks-velocity'
+  | 'no-piers-velocity'
+  | 'unit-discharge-within-tested'
+  | 'unit-discharge-above-tested'
+  | 'velocity-within'
+  | 'piers-cavitation-risk'
+  | 'piers-would-cavitate'
+  | 'unit-discharge-within'
+  | 'unit-discharge-above-tests'
+  | 'deflectors-cavitation-risk'
+  | 'unit-discharge-small'
+  | 'chute-blocks-cavitation-risk'
+  | 'chute-blocks-not-advised'
+  | 'unit-discharge-small-structures'
+  | 'discharge-within'
+  | 'discharge-above-type'
+  | 'entry-velocity-within'
+  | 'entry-velocity-above'
+  | 'needs-no-tailwater'
+  | 'baffle-overtopped'
+  | 'impact-inflow-outlet'
+  | 'impact-inflow-chute'
+  | 'impact-inflow-other'
+  | 'apron-entry-over-crest'
+  | 'apron-entry-near-critical'
+  | 'apron-entry-supercritical'
+  | 'unit-discharge-exceeds'
+  | 'outlet-froude-low'
+  | 'outlet-froude-high'
+  | 'apron-tailwater-unknown'
+  | 'apron-tailwater-perched'
+  | 'apron-tailwater-outside'
+  | 'apron-tailwater-within'
+  | 'apron-stone'
+  | 'apron-stone-too-large'
+  | 'apron-inflow-outlet'
+  | 'apron-inflow-other'
+  | 'no-culvert'
+  | 'culvert-rise-within'
+  | 'culvert-rise-above'
+  | 'no-discharges'
+  | 'jet-velocity-high'
+  | 'jet-velocity-low'
+  | 'jet-head-high'
+  | 'jet-head-low'
+  | 'tailwater-not-known'
+  | 'bucket-tailwater-deep'
+  | 'bucket-tailwater-shallow';
+
+/**
+ * One criterion's outcome, as data: a stable `code`, the SI quantities it quotes with their
+ * kinds, and the published source it rests on (`source`, a citation tag). For the jet types
+ * (flip bucket, slotted bucket) 'pass' means the condition points to that type and 'fail' that
+ * it does not.
+ */
+export interface CriterionResult extends Quoted {
   criterion: CriterionId;
   status: CriterionStatus;
-  /** short reason in plain words, with the numbers in the context's unit system (default SI) */
-  reason: string;
+  code: ReasonCode;
+  /** citation tag of the rule, e.g. "[src: USBR EM-25]" */
+  source?: string;
+  /** the inflow kind a reason names (inflow criteria) */
+  inflow?: InflowKind;
   /** the discharge (m³/s) where this outcome occurs; absent for criteria that do not vary with Q */
   atQ?: number;
+  /** in the per-type summary: how many other discharges share this outcome */
+  others?: number;
 }
 
 /** One discharge of the study as the screening sees it (SI). */
@@ -78,8 +166,6 @@ export interface ScreeningContext {
   debris?: DebrisLevel;
   /** the culvert or pipe at the outlet, when there is one; rise = diameter for a pipe, m */
   culvert?: { shape: 'circular' | 'box'; rise: number; span?: number };
-  /** unit system of the reasons' wording (numbers stay SI); default SI */
-  units?: 'SI' | 'US';
 }
 
 /** A published limit, for display in the catalogue. */
@@ -163,7 +249,8 @@ export interface JumpBasinSizing {
   freeboard: number;
   /** from the floor to the top of the walls, m */
   wallHeight: number;
-  warnings: string[];
+  /** cautions at this discharge, as data (phrase with studyWarningText) */
+  warnings: StudyWarning[];
   /** additive: inflow velocity and unit discharge used, tailwater factor and its tag */
   v1: number;
   y1: number;

@@ -1,5 +1,18 @@
 // The hydraulics engine: SI inside (m, s, m³/s), pure, no I/O.
-export * from './sections';
+export {
+  area,
+  centroidDepth,
+  centroidMoment,
+  geometry,
+  hydraulicRadius,
+  maxDepth,
+  type Section,
+  sectionProperties,
+  type SectionProperties,
+  topWidth,
+  validateSection,
+  wettedPerimeter,
+} from './sections';
 export {
   criticalDepth,
   normalDepth,
@@ -33,7 +46,7 @@ export {
   type SlopingApronJump,
 } from './jump';
 export { G, RHO_WATER, MANNING_K_SI, MANNING_K_US } from '../units/constants';
-export * from './interpolate';
+export { createMonotoneInterpolant, type Interpolant, type Interpolated } from './interpolate';
 export {
   gateFlow,
   gateOpening,
@@ -60,7 +73,12 @@ export {
   type ChuteGeometry,
   type ChuteProfile,
 } from './chute';
-export * from './tailwater';
+export {
+  makeTailwaterRating,
+  type TailwaterAt,
+  type TailwaterRating,
+  type TailwaterSpec,
+} from './tailwater';
 export {
   directStepProfile,
   jumpToeDistance,
@@ -69,4 +87,4 @@ export {
   type JumpSituation,
   type ProfilePoint,
 } from './profiles';
-export * from './diagrams';
+export { type CurvePoint, jumpDiagrams, type JumpDiagrams } from './diagrams';

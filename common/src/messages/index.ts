@@ -1,5 +1,13 @@
 // The one place where the engine's codes become sentences, in SI or US customary: refusals
-// (refusals.ts) and the study's warnings (warnings.ts). The web, the API's 422s and the PDF
-// phrase through here; nothing parses a sentence back.
-export { INPUT_ERROR_CODES, codedRefusalText, fieldWords, refusalText } from './refusals';
-export { formatQuantity, studyWarningText } from './warnings';
+// (refusals.ts), the engine's warnings and notes (warnings.ts) and the screening's reasons and
+// summaries (reasons.ts); quote.ts says their quantities by the one rounding rule. The web, the
+// API's 422s and the PDF phrase through here; nothing parses a sentence back.
+export {
+  INPUT_ERROR_CODES,
+  codedRefusalText,
+  fieldWords,
+  refusalDetailText,
+  refusalText,
+} from './refusals';
+export { ROW_NOTE_TEXT, formatQuantity, rowNoteText, studyWarningText, typeName } from './warnings';
+export { REASON_CODES, reasonText, screeningSummaryText } from './reasons';

@@ -2,7 +2,24 @@
 // messages and the API's 422s both come from here). Quantities arrive SI with their codes; nothing
 // here parses a sentence.
 import { InputError, type InputErrorCode } from '../errors';
-import { phraseMessage, phraser, type Phraser, type PhraseUnits } from '../units/phrase';
+import { phraseMessage, type PhraseUnits } from '../units/phrase';
+import { formatQuantity } from './quote';
+
+/** Quantities in a refusal, by the one rounding rule (formatQuantity). */
+interface Phraser {
+  len(si: number): string;
+  Q(si: number): string;
+}
+const phrasers: Record<PhraseUnits, Phraser> = {
+  SI: {
+    len: (x) => formatQuantity(x, 'length', 'SI'),
+    Q: (x) => formatQuantity(x, 'discharge', 'SI'),
+  },
+  US: {
+    len: (x) => formatQuantity(x, 'length', 'US'),
+    Q: (x) => formatQuantity(x, 'discharge', 'US'),
+  },
+};
 
 /** Plain words for the input fields the engine names (never the internal key). */
 const FIELD_WORDS: Record<string, string> = {
@@ -102,7 +119,7 @@ export const INPUT_ERROR_CODES = Object.keys(SENTENCES) as InputErrorCode[];
  */
 export function refusalText(error: RangeError, units: PhraseUnits = 'SI'): string {
   if (error instanceof InputError) return codedRefusalText(error, units);
-  return phraseMessage(error.message, units);
+  return refusalDetailText(error.message, units);
 }
 
 /** The sentence of a refusal given as data: its field, code and SI quantities. */
@@ -110,5 +127,11 @@ export function codedRefusalText(
   refusal: { field: string; code: InputErrorCode; values: Values },
   units: PhraseUnits = 'SI',
 ): string {
-  return SENTENCES[refusal.code](fieldWords(refusal.field), refusal.values, phraser(units));
+  const P = phrasers[units === 'US' ? 'US' : 'SI'];
+  return SENTENCES[refusal.code](fieldWords(refusal.field), refusal.values, P);
+}
+
+/** The sentence of an uncoded refusal (SI), its quantities put in the unit system. */
+export function refusalDetailText(sentence: string, units: PhraseUnits = 'SI'): string {
+  return phraseMessage(sentence, units);
 }

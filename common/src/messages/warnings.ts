@@ -1,36 +1,15 @@
-// Sentences for the study's coded warnings (common/src/warnings.ts) in SI or US customary. The
-// quantities arrive SI with their kinds; each is converted and rounded by one rule here.
-import { fromSIValue, UNIT_LABELS, type QuantityKind } from '../units';
-import type { UnitSystem } from '../range/types';
+// Sentences for the engine's coded warnings (common/src/warnings.ts) in SI or US customary: the
+// study's own, each type's sizing and design cautions, and the notes on the choice of a type. The
+// quantities arrive SI with their kinds; each is converted and rounded by one rule (quote.ts).
+import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
+import type { DissipatorTypeId } from '../basins/types';
+import type { RowNoteCode, UnitSystem } from '../range/types';
 import type { StudyWarning, StudyWarningCode } from '../warnings';
-import { codedRefusalText } from './refusals';
+import { cap, discharges, sayer, type Say } from './quote';
+import { codedRefusalText, refusalDetailText } from './refusals';
 
-/** Significant figures of a quantity in a sentence, no trailing zeros, never an exponent. */
-function significant(x: number, figures: number): string {
-  if (!Number.isFinite(x)) return '?';
-  const a = Math.abs(x);
-  if (a === 0) return '0';
-  const decimals = Math.min(6, Math.max(0, figures - 1 - Math.floor(Math.log10(a))));
-  const text = x.toFixed(decimals);
-  return decimals > 0 ? text.replace(/\.?0+$/, '') : text;
-}
+export { formatQuantity } from './quote';
 
-/**
- * A quantity in a sentence, converted from SI and labelled: lengths and elevations to the
- * hundredth (m or ft, as drawings and levels are read), every other kind to three significant
- * figures (discharge, velocity, unit discharge).
- * @example formatQuantity(2.831684659, 'discharge', 'US') // '100 cfs'
- */
-export function formatQuantity(si: number, kind: QuantityKind, units: UnitSystem): string {
-  const v = fromSIValue(si, kind, units);
-  const text = kind === 'length' ? v.toFixed(2) : significant(v, 3);
-  return `${text} ${UNIT_LABELS[kind][units]}`;
-}
-
-/** "1 discharge", "3 discharges". */
-const discharges = (count: number): string => `${count} discharge${count === 1 ? '' : 's'}`;
-
-type Say = (name: string) => string;
 type Sentence = (w: StudyWarning, say: Say, units: UnitSystem) => string;
 
 /** The published round figure of the cavitation threshold in each system (hydraulics.md §7). */
@@ -55,8 +34,8 @@ const SENTENCES: Record<StudyWarningCode, Sentence> = {
     'Known toe conditions: the toe velocity is held the same at every discharge (y1 = q/V1) — an approximation; enter each discharge separately to refine.',
   'fixed-floor-above-required': (_w, say) =>
     `The fixed floor at elevation ${say('floorElevation')} is above the highest floor that holds the jump at every discharge (${say('requiredElevation')}).`,
-  'fixed-floor-unsolved': (w, say, units) =>
-    `No floor elevation holds the jump at every discharge; the fixed floor at ${say('floorElevation')} is checked as given.${w.cause ? ` ${codedRefusalText(w.cause, units)}` : ''}`,
+  'fixed-floor-unsolved': (_w, say, units) =>
+    `No floor elevation holds the jump at every discharge; the fixed floor at ${say('floorElevation')} is checked as given.${causeText(_w, units)}`,
   'sweep-out': (w, say) =>
     `Sweep-out: the tailwater is short of the required depth at ${discharges(w.values.count ?? 0)}, from ${say('Q')}.`,
   'excess-submergence': (w, say) =>
@@ -72,26 +51,107 @@ const SENTENCES: Record<StudyWarningCode, Sentence> = {
   'gate-submerged': () =>
     'The gate runs submerged at some discharges: the free-flow gate equation used for the toe does not apply there.',
   'dissipators-not-run': (w, _say, units) =>
-    `The dissipator types could not be screened and sized.${w.cause ? ` ${codedRefusalText(w.cause, units)}` : ''}`,
+    `The dissipator types could not be screened and sized.${causeText(w, units)}`,
+  'type-froude-outside': (_w, say) =>
+    `Fr1 ${say('fr1')} is outside the tested range ${say('lo')}–${say.has('hi') ? say('hi') : '∞'} of this type: model study.`,
+  'type-oscillating': (_w, say) =>
+    `Fr1 ${say('fr1')}: oscillating jump — waves may travel downstream; consider wave suppressors.`,
+  'piers-not-advised': (_w, say) =>
+    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: baffle piers would cavitate and are not advised; use Type II.`,
+  'saf-blocks-not-advised': (_w, say) =>
+    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation on the chute blocks; not advised for an SAF basin.`,
+  'blocks-cavitation': (_w, say) =>
+    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation risk on the blocks; model study advised.`,
+  'type2-unit-discharge': (_w, say) =>
+    `q ${say.pair('q', 'limit')} above the ${say('limit')} tested for Type II.`,
+  'type3-unit-discharge': (_w, say) =>
+    `q ${say.pair('q', 'limit')} above the ${say('limit')} of Type III.`,
+  'plain-apron-long': (_w, say) =>
+    `Fr1 ${say('fr1')} > 9: a plain apron is long (${say('length')}); a basin with blocks is shorter.`,
+  'narrow-chute-blocks': () =>
+    'The basin is too narrow for the chute or deflector blocks rule: one narrowed block is shown; widen the basin.',
+  'narrow-baffle-blocks': () =>
+    'The basin is too narrow for the baffle or floor blocks rule: one narrowed block is shown; widen the basin.',
+  'narrow-sill-teeth': () =>
+    'The basin is too narrow for the sill teeth rule: one narrowed block is shown; widen the basin.',
+  'type6-width-from-memory': () =>
+    'The Type VI width comes from a fit of the HEC-14 design curve recalled from memory: check W against the published curve.',
+  'type6-narrower': (_w, say) =>
+    `Width ${say('width')} is narrower than the ${say('curveWidth')} of the width curve.`,
+  'type6-discharge-above': (_w, say) =>
+    `Q ${say.pair('Q', 'limit')} exceeds the ${say('limit')} limit of the type [src: HEC-14 (2006) §9.4].`,
+  'type6-velocity-above': (_w, say) =>
+    `Entering velocity ${say.pair('v', 'limit')} exceeds ${say('limit')} [src: HEC-14 (2006) §9.4].`,
+  'type6-baffle-overtopped': (_w, say) =>
+    `Tailwater ${say('tw')} above the floor exceeds ${say('max')} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14].`,
+  'type9-unit-discharge': (_w, say) =>
+    `q ${say.pair('q', 'limit')} exceeds the ${say('limit')} of the type [src: USBR, Design of Small Dams / EM-25 Basin IX].`,
+  'basin-cavitation': (_w, say) =>
+    `Cavitation risk: inflow velocity reaches ${say.pair('v1', 'limit')} at ${say('Q')} (> ${say('limit')}); model study advised.`,
+  'basin-oscillating': (w, say) =>
+    `Oscillating jump (Fr1 2.5–4.5) at ${discharges(w.values.count)} from ${say('Q')}: waves downstream; wave suppressors may be needed.`,
+  'basin-froude-outside': (w, say) =>
+    `Fr1 outside the tested range of the type at ${discharges(w.values.count)} (e.g. Fr1 ${say('fr1')} at ${say('Q')}): model study.`,
+  'basin-submergence': (w, say) =>
+    `Excess submergence at ${discharges(w.values.count)}: tailwater up to ${say('ratio')}× the required depth (at ${say('Q')}); the jump is drowned and dissipates less.`,
+  'basin-sweep-out': (w, say) =>
+    `Tailwater short of the required depth at ${discharges(w.values.count)} from ${say('Q')}: the jump sweeps out.`,
+  'basin-sweep-out-margin': (w, say, units) =>
+    `Sweep-out margin: at ${say('Q')} the tailwater ${say('margin') === sayer({ values: { z: 0 }, kinds: { z: 'length' } }, units)('z') ? 'just meets' : `exceeds by only ${say('margin')}`} the required ${say('required')} (C·y2), so a tailwater lower than rated sweeps the jump out; an extra floor depth (lowering the floor) gives a margin.`,
+  'slab-thick': (_w, say) =>
+    `Flotation needs a slab of ${say('need')} (${say('thickness')} used): consider underdrains (pressure relief) or anchors, which reduce the uplift.`,
+  'uplift-below-floor': () =>
+    'The uplift level is below the floor: no flotation beyond the slab depth.',
+  'apron-tailwater-assumed': () =>
+    'Tailwater not known: taken as 0.4·D, the low bound of the relation (conservative).',
+  'apron-tailwater-held': (_w, say) =>
+    `Tailwater ${say('tw')} is outside 0.4·D–1.0·D (${say('low')}–${say('rise')}): held at ${say('used')}.`,
+  'apron-stone-beyond-classes': (_w, say) =>
+    `Stone D50 ${say('d50')} exceeds the largest apron class (${say('max')}): use another dissipator.`,
+  'type-not-designed': (w, _say, units) =>
+    `${typeName(w.at?.type)}: not designed.${causeText(w, units)}`,
+  'specialist-needed': (w) =>
+    `No standard basin suits the whole range; ${(w.types ?? []).map(typeName).join(' or ')} is the likely answer: a specialist study is needed.`,
+  'no-catalogue-type': () =>
+    'No catalogue type suits the whole range: change the width, the floor or the range, or seek a specialist design.',
+  'jet-also-indicated': () =>
+    'A jet structure is also indicated (see the specialist types): compare with a specialist study.',
+  'chosen-not-designed': (w) =>
+    `${typeName(w.at?.type)}: cannot be designed from this study (not sized, or its inputs are missing).`,
 };
 
-const cap = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
+/** The published name of a type (never its code id). */
+export function typeName(id: DissipatorTypeId | undefined): string {
+  return DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'The chosen type';
+}
 
-/** A pure number in a sentence (Froude number, tanθ, a limit): three significant figures. */
-const pure = (x: number | undefined): string => (x === undefined ? '?' : significant(x, 3));
+/** The refusal behind a warning, as a following sentence ('' when none). */
+function causeText(w: StudyWarning, units: UnitSystem): string {
+  if (!w.cause) return '';
+  if (w.cause.detail !== undefined) return ` ${refusalDetailText(w.cause.detail, units)}`;
+  return ` ${codedRefusalText(w.cause, units)}`;
+}
 
 /**
- * The sentence of a study warning in a unit system: its quantities converted and rounded by
+ * The sentence of an engine warning in a unit system: its quantities converted and rounded by
  * formatQuantity, its pure numbers to three significant figures.
  * @example studyWarningText(result.warnings[0], 'US')
  */
 export function studyWarningText(w: StudyWarning, units: UnitSystem = 'SI'): string {
   const u: UnitSystem = units === 'US' ? 'US' : 'SI';
-  const say: Say = (name) => {
-    const si = w.values[name];
-    const kind = w.kinds[name];
-    if (si === undefined) return '?';
-    return kind ? formatQuantity(si, kind, u) : pure(si);
-  };
-  return SENTENCES[w.code](w, say, u);
+  return SENTENCES[w.code](w, sayer(w, u), u);
 }
+
+/** The sentences of a study row's notes (StudyRow.noteCodes); they quote no quantity. */
+export const ROW_NOTE_TEXT: Readonly<Record<RowNoteCode, string>> = {
+  'swept-out': 'tailwater short of the sequent depth: the jump is pushed downstream of the toe',
+  'leaves-basin':
+    'tailwater below critical depth on the floor: the flow stays supercritical and leaves the basin',
+  drowned: 'jump drowned: tailwater above the required depth by more than the tolerance',
+  'tailwater-extended': 'tailwater extended beyond the rating table',
+  'gate-submerged':
+    'tailwater above the sequent depth of the vena contracta: the gate runs submerged and the free-flow gate equation does not apply',
+};
+
+/** The sentence of a study row's note. @example rowNoteText('drowned') */
+export const rowNoteText = (code: RowNoteCode): string => ROW_NOTE_TEXT[code];

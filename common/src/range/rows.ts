@@ -9,18 +9,18 @@ import { jumpPosition } from './position';
 import type { DischargeRange } from './prepare';
 import type { RowNoteCode, StudyRow, TailwaterFactor } from './types';
 
-const NOTE_TEXT: Record<RowNoteCode, string> = {
-  'swept-out': 'tailwater short of the sequent depth: the jump is pushed downstream of the toe',
-  'leaves-basin':
-    'tailwater below critical depth on the floor: the flow stays supercritical and leaves the basin',
-  drowned: 'jump drowned: tailwater above the required depth by more than the tolerance',
-  'tailwater-extended': 'tailwater extended beyond the rating table',
-  'gate-submerged':
-    'tailwater above the sequent depth of the vena contracta: the gate runs submerged and the free-flow gate equation does not apply',
-};
-
-/** One row at discharge index i and floor z; InputError naming the discharge when no jump forms. */
-export function rowAt(r: DischargeRange, i: number, z: number, C: TailwaterFactor): StudyRow {
+/**
+ * One row at discharge index i and floor z; InputError naming the discharge when no jump forms.
+ * `sweepOut` false leaves the sweep-out distance out (null): rows read only for their toe and
+ * tailwater (the screening at the channel bed) skip the profile computation.
+ */
+export function rowAt(
+  r: DischargeRange,
+  i: number,
+  z: number,
+  C: TailwaterFactor,
+  sweepOut = true,
+): StudyRow {
   const Q = r.Qs[i]!;
   const toe = r.toeAt(i, z);
   if (!(toe.fr1 > 1))
@@ -48,7 +48,9 @@ export function rowAt(r: DischargeRange, i: number, z: number, C: TailwaterFacto
       // is the tailwater (Bélanger, reversed), by the direct step method.
       const frTw = q / (twDepth * Math.sqrt(G * twDepth));
       const yToe = twDepth * belangerRatio(frTw);
-      sweep = yToe > toe.y1 ? _directStepDistance(r.basin, Q, r.floorManningN, 0, toe.y1, yToe) : 0;
+      if (sweepOut)
+        sweep =
+          yToe > toe.y1 ? _directStepDistance(r.basin, Q, r.floorManningN, 0, toe.y1, yToe) : 0;
       codes.push('swept-out');
     } else codes.push('leaves-basin');
   } else if (position === 'drowned') codes.push('drowned');
@@ -90,14 +92,18 @@ export function rowAt(r: DischargeRange, i: number, z: number, C: TailwaterFacto
     sweepOutDistance: sweep,
     gate,
     isDesign: i === r.designIndex,
-    notes: codes.map((k) => NOTE_TEXT[k]),
     noteCodes: codes,
   };
 }
 
-/** Every row of the range at floor z (m) with tailwater factor C. */
-export function rowsAt(r: DischargeRange, z: number, C: TailwaterFactor): StudyRow[] {
-  return r.Qs.map((_, i) => rowAt(r, i, z, C));
+/** Every row of the range at floor z (m) with tailwater factor C (`sweepOut` as in rowAt). */
+export function rowsAt(
+  r: DischargeRange,
+  z: number,
+  C: TailwaterFactor,
+  sweepOut = true,
+): StudyRow[] {
+  return r.Qs.map((_, i) => rowAt(r, i, z, C, sweepOut));
 }
 
 /** The row at the design discharge (exactly; the design discharge is always in the range). */

@@ -83,7 +83,7 @@ export interface StudyRow extends JumpResult {
   gate: { opening: number; upstreamDepth: number; submerged: boolean } | null;
   /** true on the row at the design discharge */
   isDesign: boolean;
-  notes: string[];
+  /** what to know about this row, as codes (phrase with rowNoteText) */
   noteCodes: RowNoteCode[];
 }
 

@@ -1,16 +1,144 @@
 // Shared yup schemas: the same schema validates the web form and the API request.
-export * from './limits';
-export * from './auth';
-export * from './member';
-export * from './project';
-export * from './study';
-export * from './design';
-export * from './brand';
-export * from './billing';
-export * from './takeoff';
-export * from './search';
-export * from './uncertainty';
-export * from './version';
-export * from './proposal';
-export * from './priceBook';
-export * from './estimateRevision';
+export {
+  CHUTE_SLOPE_RANGE,
+  ENGINE_LIMITS,
+  ESTIMATE_LIMITS,
+  INVITABLE_ROLES,
+  type InvitableRole,
+  LIMITS,
+  type Plan,
+  PLAN_LIMITS,
+  type PlanLimits,
+  PLANS,
+  PROJECT_SORTS,
+  PROJECT_STATUSES,
+  PROJECT_UNITS,
+  type ProjectSort,
+  type ProjectStatus,
+  type ProjectUnits,
+  requireStudySize,
+  type Role,
+  ROLES,
+  SEARCH_LIMITS,
+  seatLimit,
+  SORT_ORDERS,
+  type SortOrder,
+  type StudySize,
+  studySizes,
+  TAKEOFF_LIMITS,
+  TOKEN_TTL_MS,
+  UNCERTAINTY_LIMITS,
+  utf8ByteLength,
+} from './limits';
+export {
+  type AcceptInvitationInput,
+  acceptInvitationSchema,
+  type ChangePasswordInput,
+  changePasswordSchema,
+  type ConfirmSignupInput,
+  confirmSignupSchema,
+  currentPasswordSchema,
+  emailSchema,
+  emailTokenSchema,
+  type ForgotPasswordInput,
+  forgotPasswordSchema,
+  type LoginInput,
+  loginSchema,
+  newPasswordSchema,
+  personNameSchema,
+  type ProfileUpdateInput,
+  profileUpdateSchema,
+  type ResetPasswordInput,
+  resetPasswordSchema,
+  type SignupInput,
+  signupSchema,
+} from './auth';
+export {
+  type InvitationCreateInput,
+  invitationCreateSchema,
+  type MemberUpdateInput,
+  memberUpdateSchema,
+} from './member';
+export {
+  type ProjectCreateInput,
+  projectCreateSchema,
+  type ProjectListQuery,
+  projectListQuerySchema,
+  type ProjectUpdateInput,
+  projectUpdateSchema,
+} from './project';
+export {
+  dissipatorOptionsSchema,
+  jumpRequestSchema,
+  jumpSituationSchema,
+  MAX_STUDY_DISCHARGES,
+  sectionSchema,
+  studyInputSchema,
+} from './study';
+export { type DesignSaveInput, designSaveSchema } from './design';
+export { BRAND_TEXT_MAX, type BrandUpdateInput, brandUpdateSchema } from './brand';
+export {
+  type CheckoutInput,
+  checkoutSchema,
+  MAX_SEATS,
+  PAID_PLANS,
+  type PaidPlan,
+  type SeatChangeInput,
+  seatChangeSchema,
+} from './billing';
+export { takeoffOverrideBounds, takeoffOverridesSchema } from './takeoff';
+export { type CheapestRequest, cheapestRequestSchema } from './search';
+export {
+  uncertainInputSchema,
+  uncertaintyRequestSchema,
+  uncertaintySpecSchema,
+} from './uncertainty';
+export {
+  type ReviewApproveInput,
+  reviewApproveSchema,
+  type ReviewerMarkInput,
+  reviewerMarkSchema,
+  type ReviewReturnInput,
+  reviewReturnSchema,
+  revisionSchema,
+  type VersionIssueInput,
+  versionIssueSchema,
+} from './version';
+export {
+  type ProposalCreateInput,
+  proposalCreateSchema,
+  type ProposalSendInput,
+  proposalSendSchema,
+} from './proposal';
+export {
+  EXPORT_FORMATS,
+  type ExportFormat,
+  PRICE_BOOK_LIMITS,
+  PRICE_ITEM_FIELDS,
+  type PriceBookCreateInput,
+  priceBookCreateSchema,
+  type PriceBookUpdateInput,
+  priceBookUpdateSchema,
+  type PriceExportQuery,
+  priceExportQuerySchema,
+  type PriceImportMapping,
+  priceImportMappingSchema,
+  type PriceItemField,
+  type PriceItemInput,
+  priceItemSchema,
+  type PriceItemsInput,
+  priceItemsSchema,
+  priceUnitOf,
+  REQUIRED_PRICE_ITEM_FIELDS,
+} from './priceBook';
+export {
+  DEFAULT_ESTIMATE_SETTINGS,
+  type EstimateCreateInput,
+  estimateCreateSchema,
+  type EstimateOverrideInput,
+  estimateOverrideSchema,
+  type EstimateSettings,
+  estimateSettingsSchema,
+  type EstimateUpdateInput,
+  estimateUpdateSchema,
+} from './estimateRevision';

@@ -442,7 +442,7 @@ const defaultsOverrideSchema = mixed<Record<string, number>>()
 /**
  * The dissipator catalogue's options of a study (DissipatorStudyOptions in basins/study.ts):
  * debris, the culvert at the outlet, the chosen type and alternatives, default overrides, the
- * flotation case, an extra floor depth, the drawing and the wording units. Lengths in the
+ * flotation case, an extra floor depth and the drawing. Lengths in the
  * units named by the study's `units`.
  */
 export const dissipatorOptionsSchema = object({
@@ -497,7 +497,6 @@ export const dissipatorOptionsSchema = object({
   extraFloorDepth: num('the extra floor depth')
     .min(0, 'The extra floor depth must not be negative.')
     .optional(),
-  units: string().oneOf(['SI', 'US'], 'The wording units must be SI or US.').optional(),
   drawing: object({
     flowBearingDeg: num('the flow bearing')
       .min(0, 'The flow bearing must lie between 0 and 360 degrees.')

@@ -7,9 +7,21 @@ import type { StudyResult } from '../result';
 import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import { fieldKind } from './fields';
 
-export * from './constants';
-export * from './fields';
-export { DISPLAY_DECIMALS, DIMENSIONLESS_DECIMALS, displayDecimals, displayText } from './rounding';
+export { FOOT, G, MANNING_K_SI, MANNING_K_US, RHO_WATER } from './constants';
+export {
+  FIELD_KINDS,
+  fieldKind,
+  type KindsOf,
+  type NumericKeys,
+  STUDY_INPUT_KINDS,
+} from './fields';
+export {
+  DISPLAY_DECIMALS,
+  DIMENSIONLESS_DECIMALS,
+  displayDecimals,
+  displayText,
+  significant,
+} from './rounding';
 
 // `all` is typed optional only because of mathjs's lite builds; the full build always has it.
 if (!all) throw new Error('mathjs: the full build (all factories) is required');
@@ -245,5 +257,5 @@ export function resultToSI(result: StudyResult, system: UnitSystem): StudyResult
   if (system === 'SI') return result;
   return walk(result, [], (v, k) => toSIValue(v, k, 'US'), 'SI') as StudyResult;
 }
-export * from './phrase';
+export { phraseMessage, type PhraseUnits } from './phrase';
 export { unitFormat, type UnitFormat } from './format';

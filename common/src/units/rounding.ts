@@ -1,6 +1,6 @@
 // The one display-rounding rule (issue 7 item 3): how many decimals a quantity is shown with in
 // tables, labels and charts, by kind and unit system, and the three significant figures of
-// numbers inside sentences. The web's unitFormat and the phraser (units/phrase.ts) both read it.
+// numbers inside sentences. The web's unitFormat and common/src/messages (formatQuantity) read it.
 import type { QuantityKind } from './index';
 import type { UnitSystem } from '../range/types';
 
@@ -50,22 +50,16 @@ export function displayText(
   });
 }
 
-/** Numbers in sentences: three significant figures, no trailing noise. */
-export function n3(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
+/**
+ * A number in a sentence: `figures` significant figures (three unless told), no trailing zeros,
+ * never an exponent; '?' when not finite.
+ * @example significant(49.2126, 3) // '49.2'
+ */
+export function significant(x: number, figures = 3): string {
+  if (!Number.isFinite(x)) return '?';
   const a = Math.abs(x);
-  if (a >= 100) return x.toFixed(0);
-  if (a >= 10) return x.toFixed(1);
-  return x.toFixed(2);
-}
-
-/** Two numbers compared, three figures each unless that makes unequal numbers look equal (up to six decimals). */
-export function n3Pair(x: number, limit: number): [string, string] {
-  let a = n3(x);
-  let b = n3(limit);
-  for (let k = 3; a === b && x !== limit && k <= 6; k++) {
-    a = x.toFixed(k);
-    b = limit.toFixed(k);
-  }
-  return [a, b];
+  if (a === 0) return '0';
+  const decimals = Math.min(6, Math.max(0, figures - 1 - Math.floor(Math.log10(a))));
+  const text = x.toFixed(decimals);
+  return decimals > 0 ? text.replace(/\.?0+$/, '') : text;
 }

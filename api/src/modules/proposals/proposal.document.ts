@@ -11,6 +11,8 @@ import {
   rangeChartSpec,
   studyCautions,
   studyWarningText,
+  reasonText,
+  screeningSummaryText,
   toSIValue,
   unitFormat,
   UNIT_LABELS,
@@ -443,14 +445,17 @@ export function proposalDocument(source: ProposalSource): {
   if (entry && design) {
     const screened = r.screening.find((s) => s.type === entry.type);
     content.push({
-      text: [{ text: `${design.name}. `, bold: true }, cite(screened?.summary ?? '', refs)],
+      text: [
+        { text: `${design.name}. `, bold: true },
+        cite(screened ? screeningSummaryText(screened, r.screening, units) : '', refs),
+      ],
       margin: [0, 0, 0, 6],
     });
     if (screened)
       content.push({
         ul: screened.criteria.map(
           (c) =>
-            `${c.status === 'pass' ? 'Meets' : c.status === 'warn' ? 'Marginal' : 'Fails'}: ${cite(phraseMessage(c.reason, units), refs)}`,
+            `${c.status === 'pass' ? 'Meets' : c.status === 'warn' ? 'Marginal' : 'Fails'}: ${cite(reasonText(c, units), refs)}`,
         ),
         margin: [0, 0, 0, 8],
       });
@@ -465,7 +470,7 @@ export function proposalDocument(source: ProposalSource): {
         ...r.screening.map((s) => [
           { text: s.name, bold: s.type === entry?.type },
           s.verdict,
-          { text: cite(phraseMessage(s.summary, units), refs), fontSize: 8 },
+          { text: cite(screeningSummaryText(s, r.screening, units), refs), fontSize: 8 },
         ]),
       ],
     },
@@ -578,7 +583,7 @@ export function proposalDocument(source: ProposalSource): {
         ],
       ]),
     );
-    for (const n of slab.notes) content.push({ text: phraseMessage(n, units), color: SLATE });
+    for (const n of slab.notes) content.push({ text: studyWarningText(n, units), color: SLATE });
   }
   if (!rip && !slab)
     content.push({
@@ -629,7 +634,7 @@ export function proposalDocument(source: ProposalSource): {
   content.push(heading('Warnings and cautions', accent, true));
   const warnings = [
     ...r.warnings.map((w) => studyWarningText(w, units)),
-    ...(design?.warnings ?? []).map((w) => phraseMessage(w, units)),
+    ...(design?.warnings ?? []).map((w) => studyWarningText(w, units)),
   ];
   if (warnings.length) {
     content.push({ text: 'What this study flags', style: 'h2', color: accent });

@@ -2,9 +2,9 @@
 // sizing here: the screening says when one is the likely answer and that a specialist study
 // (and usually a physical model) is needed.
 import type { CriterionResult, DischargeRow, DissipatorModule } from '../types';
-import { limitText, type BasinDefaults } from '../defaults';
+import type { BasinDefaults } from '../defaults';
 import type { ScreeningContext } from '../types';
-import { crit, designRow, headOf, n3, ph } from './shared';
+import { crit, designRow, dis, headOf, len, lim, vel } from './shared';
 
 function energyCriteria(
   rows: readonly DischargeRow[],
@@ -12,38 +12,18 @@ function energyCriteria(
   limitKey: 'specialistVelocity' | 'cavitationVelocity',
   ctx: ScreeningContext,
 ): CriterionResult[] {
-  const P = ph(ctx);
   const dr = designRow(rows, ctx.designQ);
-  if (!dr) return [crit('velocity', 'fail', 'no discharges to screen')];
+  if (!dr) return [crit('velocity', 'fail', 'no-discharges')];
   const h = headOf(dr);
-  const velocityLimit = d[limitKey];
+  const v = { v1: vel(dr.v1), limit: lim(d, limitKey) };
+  const head = { head: len(h), limit: len(d.specialistHead) };
   return [
-    dr.v1 > velocityLimit
-      ? crit(
-          'velocity',
-          'pass',
-          `V1 ${P.vel(dr.v1)} at the largest discharge is beyond ${limitText(P, d, limitKey)}, where basins with blocks become doubtful`,
-          dr.Q,
-        )
-      : crit(
-          'velocity',
-          'fail',
-          `V1 ${P.vel(dr.v1)} ≤ ${limitText(P, d, limitKey)}: a stilling basin can serve`,
-          dr.Q,
-        ),
+    dr.v1 > d[limitKey]
+      ? crit('velocity', 'pass', 'jet-velocity-high', v, dr.Q)
+      : crit('velocity', 'fail', 'jet-velocity-low', v, dr.Q),
     h > d.specialistHead
-      ? crit(
-          'head',
-          'pass',
-          `head ${P.len(h)} above the floor exceeds ${P.len(d.specialistHead)} (common practice)`,
-          dr.Q,
-        )
-      : crit(
-          'head',
-          'fail',
-          `head ${P.len(h)} ≤ ${P.len(d.specialistHead)} (common practice)`,
-          dr.Q,
-        ),
+      ? crit('head', 'pass', 'jet-head-high', head, dr.Q)
+      : crit('head', 'fail', 'jet-head-low', head, dr.Q),
   ];
 }
 
@@ -92,7 +72,6 @@ export const slottedBucket: DissipatorModule = {
     c.some((x) => (x.criterion === 'velocity' || x.criterion === 'head') && x.status === 'pass') &&
     c.some((x) => x.criterion === 'tailwater' && x.status === 'pass'),
   screenFixed(ctx, d, rows) {
-    const P = ph(ctx);
     const [velocity, head] = energyCriteria(rows, d, 'cavitationVelocity', ctx);
     let worst: DischargeRow | undefined;
     let worstRatio = Infinity;
@@ -105,19 +84,23 @@ export const slottedBucket: DissipatorModule = {
       }
     }
     const tw = !worst
-      ? crit('tailwater', 'fail', 'tailwater not known')
+      ? crit('tailwater', 'fail', 'tailwater-not-known')
       : worstRatio >= d.slottedBucketTailwaterRatio
         ? crit(
             'tailwater',
             'pass',
-            `tailwater at bed level is ≥ ${n3(worstRatio)}× the sequent depth at every discharge: deep tailwater suits a submerged bucket [mem: EM-25]`,
+            'bucket-tailwater-deep',
+            { ratio: worstRatio },
             worst.Q,
+            '[mem: EM-25]',
           )
         : crit(
             'tailwater',
             'fail',
-            `tailwater at bed level is only ${n3(worstRatio)}× the sequent depth at ${P.Q(worst.Q)}: a submerged bucket needs deeper tailwater [mem: EM-25]`,
+            'bucket-tailwater-shallow',
+            { ratio: worstRatio, Q: dis(worst.Q) },
             worst.Q,
+            '[mem: EM-25]',
           );
     return [velocity!, head!, tw];
   },

@@ -1,7 +1,7 @@
 // Riprap apron at a small culvert outlet (HEC-14 ch. 10).
 import { culvertApronStoneSize, APRON_CLASSES } from '../riprap';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, n3, ph } from './shared';
+import { crit, debrisCriterion, len } from './shared';
 
 const TAG = '[src: HEC-14 (2006) ch. 10]';
 const MAX_D50 = APRON_CLASSES[APRON_CLASSES.length - 1]!.d50;
@@ -28,21 +28,11 @@ export const riprapApron: DissipatorModule = {
     },
   ],
   screenRow(row, ctx, d) {
-    const P = ph(ctx);
+    const fr = { fr: row.fr1, limit: d.apronMaxFroude };
     const out = [
       row.fr1 <= d.apronMaxFroude
-        ? crit(
-            'froude',
-            'pass',
-            `outlet Fr ${n3(row.fr1)} ≤ ${n3(d.apronMaxFroude)} [mem: HEC-14]`,
-            row.Q,
-          )
-        : crit(
-            'froude',
-            'warn',
-            `outlet Fr ${n3(row.fr1)} > ${n3(d.apronMaxFroude)}: a basin suits better [mem: HEC-14]`,
-            row.Q,
-          ),
+        ? crit('froude', 'pass', 'outlet-froude-low', fr, row.Q, '[mem: HEC-14]')
+        : crit('froude', 'warn', 'outlet-froude-high', fr, row.Q, '[mem: HEC-14]'),
     ];
     const c = ctx.culvert;
     if (!c) return out;
@@ -50,29 +40,22 @@ export const riprapApron: DissipatorModule = {
     // A perched outlet (tailwater below its invert) discharges freely: tailwater 0 above the invert.
     const perched = row.tailwaterDepth !== undefined && row.tailwaterDepth < 0;
     const tw = row.tailwaterDepth === undefined ? undefined : Math.max(0, row.tailwaterDepth);
+    const eq = '[src: HEC-14 eq. 10.4]';
     out.push(
       tw === undefined
-        ? crit(
-            'tailwater',
-            'warn',
-            'tailwater not known: the stone is sized for 0.4·D (conservative)',
-            row.Q,
-          )
+        ? crit('tailwater', 'warn', 'apron-tailwater-unknown', {}, row.Q)
         : perched
-          ? crit(
-              'tailwater',
-              'warn',
-              `tailwater is below the outlet invert (free outfall): the relation is held at 0.4 × rise [src: HEC-14 eq. 10.4]`,
-              row.Q,
-            )
+          ? crit('tailwater', 'warn', 'apron-tailwater-perched', {}, row.Q, eq)
           : tw < 0.4 * D || tw > D
             ? crit(
                 'tailwater',
                 'warn',
-                `tailwater ${P.len(tw)} is outside 0.4–1.0 × rise (${P.num(0.4 * D, 'length')}–${P.len(D)}): the relation is held at its bound [src: HEC-14 eq. 10.4]`,
+                'apron-tailwater-outside',
+                { tw: len(tw), low: len(0.4 * D), rise: len(D) },
                 row.Q,
+                eq,
               )
-            : crit('tailwater', 'pass', `tailwater ${P.len(tw)} within 0.4–1.0 × rise`, row.Q),
+            : crit('tailwater', 'pass', 'apron-tailwater-within', { tw: len(tw) }, row.Q),
     );
     const stone = culvertApronStoneSize({
       Q: row.Q,
@@ -83,41 +66,31 @@ export const riprapApron: DissipatorModule = {
     });
     out.push(
       stone.d50 <= MAX_D50
-        ? crit(
-            'stoneSize',
-            'pass',
-            `apron stone D50 ${P.len(stone.d50)} [src: HEC-14 eq. 10.4]`,
-            row.Q,
-          )
+        ? crit('stoneSize', 'pass', 'apron-stone', { d50: len(stone.d50) }, row.Q, eq)
         : crit(
             'stoneSize',
             'fail',
-            `apron stone D50 ${P.len(stone.d50)} exceeds the largest class ${P.len(MAX_D50)}: use a basin [mem: HEC-14]`,
+            'apron-stone-too-large',
+            { d50: len(stone.d50), max: len(MAX_D50) },
             row.Q,
+            '[mem: HEC-14]',
           ),
     );
     return out;
   },
   screenFixed(ctx, d) {
-    const P = ph(ctx);
     const c = ctx.culvert;
     const inflow =
       ctx.inflow === 'culvert' || ctx.inflow === 'pipe'
-        ? crit('inflow', 'pass', `a ${ctx.inflow} outlet`)
-        : crit(
-            'inflow',
-            'fail',
-            `an apron protects a culvert outlet; this inflow is a ${ctx.inflow}`,
-          );
+        ? crit('inflow', 'pass', 'apron-inflow-outlet')
+        : crit('inflow', 'fail', 'apron-inflow-other');
+    inflow.inflow = ctx.inflow;
+    const rise = c ? { rise: len(c.rise), limit: len(d.apronMaxRise) } : {};
     const size = !c
-      ? crit('culvertSize', 'fail', 'no culvert given')
+      ? crit('culvertSize', 'fail', 'no-culvert')
       : c.rise <= d.apronMaxRise
-        ? crit('culvertSize', 'pass', `rise ${P.len(c.rise)} ≤ ${P.len(d.apronMaxRise)} ${TAG}`)
-        : crit(
-            'culvertSize',
-            'fail',
-            `rise ${P.len(c.rise)} exceeds ${P.len(d.apronMaxRise)} ${TAG}`,
-          );
-    return [inflow, size, debrisCriterion(ctx, 'pass', 'pass', 'riprap is not harmed by debris')];
+        ? crit('culvertSize', 'pass', 'culvert-rise-within', rise, undefined, TAG)
+        : crit('culvertSize', 'fail', 'culvert-rise-above', rise, undefined, TAG);
+    return [inflow, size, debrisCriterion(ctx, 'pass', 'pass', 'debris-riprap')];
   },
 };

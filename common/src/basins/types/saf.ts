@@ -1,6 +1,5 @@
 // SAF basin (St. Anthony Falls): chute blocks, floor blocks, end sill — a short basin for small
 // structures over a wide Froude range.
-import { limitText } from '../defaults';
 import { fitBlockRow, staggeredRow } from '../blocks';
 import type { BasinDefaults } from '../defaults';
 import type { DissipatorModule } from '../types';
@@ -11,7 +10,9 @@ import {
   froudeInRange,
   jumpTailwater,
   noDischargeLimit,
-  ph,
+  lim,
+  udis,
+  vel,
 } from './shared';
 
 const TAG = '[src: Blaisdell 1948]';
@@ -40,10 +41,6 @@ export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEF
     throw new RangeError(`fr1 (inflow Froude number) must be a finite number (got ${fr1})`);
   const f = Math.min(17, Math.max(1.7, fr1));
   const mid = d.safTailwaterMid;
-  const low = (x: number): number =>
-    d.safTailwaterLowIntercept - (x * x) / d.safTailwaterLowDivisor;
-  const high = (x: number): number =>
-    d.safTailwaterHighIntercept - (x * x) / d.safTailwaterHighDivisor;
   // Where each curve meets the middle value (continuity), kept in order within 1.7–17.
   const b1 = Math.min(
     17,
@@ -52,6 +49,7 @@ export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEF
       Math.sqrt(Math.max(0, (d.safTailwaterLowIntercept - mid) * d.safTailwaterLowDivisor)),
     ),
   );
+  if (f <= b1) return d.safTailwaterLowIntercept - (f * f) / d.safTailwaterLowDivisor;
   const b2 = Math.min(
     17,
     Math.max(
@@ -59,9 +57,8 @@ export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEF
       Math.sqrt(Math.max(0, (d.safTailwaterHighIntercept - mid) * d.safTailwaterHighDivisor)),
     ),
   );
-  if (f <= b1) return low(f);
   if (f <= b2) return mid;
-  return high(f);
+  return d.safTailwaterHighIntercept - (f * f) / d.safTailwaterHighDivisor;
 }
 
 /** SAF basin length L = 4.5·y2/Fr1^0.76 [mem: Blaisdell 1948]. */
@@ -123,43 +120,41 @@ export const saf: DissipatorModule = {
     ],
   },
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
     const v = row.v1;
     const velocity =
       v <= d.cavitationVelocity
         ? crit(
             'velocity',
             'pass',
-            `V1 ${P.vel(v)} ≤ ${limitText(P, d, 'cavitationVelocity')}`,
+            'velocity-within',
+            { v1: vel(v), limit: lim(d, 'cavitationVelocity') },
             row.Q,
           )
         : v <= d.safVelocityFail
           ? crit(
               'velocity',
               'warn',
-              `V1 ${P.vel(v)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the chute blocks, model study`,
+              'chute-blocks-cavitation-risk',
+              { v1: vel(v), limit: lim(d, 'cavitationVelocity') },
               row.Q,
             )
           : crit(
               'velocity',
               'fail',
-              `V1 ${P.vel(v)} > ${limitText(P, d, 'safVelocityFail')}: chute blocks not advised ${TAG}`,
+              'chute-blocks-not-advised',
+              { v1: vel(v), limit: lim(d, 'safVelocityFail') },
               row.Q,
+              TAG,
             );
     return [
       froudeInRange(row, 1.7, 17, TAG),
       velocity,
-      crit(
-        'unitDischarge',
-        'pass',
-        `q ${P.q(row.q)}: no published limit (the type is meant for small structures)`,
-        row.Q,
-      ),
-      noDischargeLimit(row, ctx),
+      crit('unitDischarge', 'pass', 'unit-discharge-small-structures', { q: udis(row.q) }, row.Q),
+      noDischargeLimit(row),
       jumpTailwater(row, safTailwaterFactor(row.fr1, d), d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'warn', 'pass', 'the blocks catch large debris')];
+    return [debrisCriterion(ctx, 'warn', 'pass', 'debris-saf-blocks')];
   },
 };

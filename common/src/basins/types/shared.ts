@@ -1,25 +1,41 @@
-// Criteria shared by several types; reasons in plain words, numbers in the user's units
-// (ctx.units, default SI) through the phraser.
+// Criteria shared by several types, as data: a reason code and the SI quantities it quotes.
+// The sentences are made at the edge (common/src/messages/reasons.ts).
 import { G } from '../../units/constants';
-import { n3, n3Pair, phraser, type Phraser } from '../../units/phrase';
-import type { BasinDefaults } from '../defaults';
+import { limitQuantity, type BasinDefaults, type PublishedKey } from '../defaults';
 import { jumpPosition } from '../../range/position';
-import type { CriterionResult, DebrisLevel, DischargeRow, ScreeningContext } from '../types';
+import { qty, quote, type Quantity, type Quotes } from '../../warnings';
+import type {
+  CriterionResult,
+  DebrisLevel,
+  DischargeRow,
+  ReasonCode,
+  ScreeningContext,
+} from '../types';
 
-export { n3 };
+/** Quantities of a row, by kind (SI). */
+export const len = (si: number): Quantity => qty('length', si);
+export const vel = (si: number): Quantity => qty('velocity', si);
+export const dis = (si: number): Quantity => qty('discharge', si);
+export const udis = (si: number): Quantity => qty('unitDischarge', si);
+/** A published limit in force (its key kept when at its default). */
+export const lim = (d: BasinDefaults, key: PublishedKey): Quantity => limitQuantity(d, key);
 
-/** The phraser of the screening context's unit system. */
-export function ph(ctx: { units?: 'SI' | 'US' } | undefined): Phraser {
-  return phraser(ctx?.units ?? 'SI');
-}
-
+/**
+ * One criterion's outcome as data.
+ * @example crit('velocity', 'pass', 'velocity-within', { v1: vel(12) }, 40, '[src: EM-25]')
+ */
 export function crit(
   criterion: CriterionResult['criterion'],
   status: CriterionResult['status'],
-  reason: string,
+  code: ReasonCode,
+  quotes: Quotes = {},
   atQ?: number,
+  source?: string,
 ): CriterionResult {
-  return atQ === undefined ? { criterion, status, reason } : { criterion, status, reason, atQ };
+  const c: CriterionResult = { criterion, status, code, ...quote(quotes) };
+  if (source !== undefined) c.source = source;
+  if (atQ !== undefined) c.atQ = atQ;
+  return c;
 }
 
 /** Froude number inside an inclusive published range: pass; outside: fail. */
@@ -30,28 +46,16 @@ export function froudeInRange(
   tag: string,
 ): CriterionResult {
   const f = row.fr1;
-  const range = hi === Infinity ? `Fr1 ≥ ${lo}` : `${lo}–${hi}`;
-  if (f < lo)
-    return crit(
-      'froude',
-      'fail',
-      `Fr1 ${n3Pair(f, lo)[0]} is below the tested range ${range} ${tag}`,
-      row.Q,
-    );
-  if (f > hi)
-    return crit(
-      'froude',
-      'fail',
-      `Fr1 ${n3Pair(f, hi)[0]} is above the tested range ${range} ${tag}`,
-      row.Q,
-    );
+  const range = { fr1: f, lo, ...(hi === Infinity ? {} : { hi }) };
+  if (f < lo) return crit('froude', 'fail', 'froude-below-range', range, row.Q, tag);
+  if (f > hi) return crit('froude', 'fail', 'froude-above-range', range, row.Q, tag);
   return crit(
     'froude',
     'pass',
-    hi === Infinity
-      ? `Fr1 ${n3(f)} is at least ${lo} ${tag}`
-      : `Fr1 ${n3(f)} is within ${range} ${tag}`,
+    hi === Infinity ? 'froude-at-least' : 'froude-within',
+    range,
     row.Q,
+    tag,
   );
 }
 
@@ -59,29 +63,23 @@ export function froudeInRange(
 export function jumpTailwater(
   row: DischargeRow,
   factor: number,
-  d: BasinDefaults,
+  _d: BasinDefaults,
   rows: readonly DischargeRow[],
   ctx?: ScreeningContext,
 ): CriterionResult {
-  const P = ph(ctx);
   const need = factor * row.y2;
   const tw = row.tailwaterDepth;
   if (tw === undefined)
-    return crit(
-      'tailwater',
-      'warn',
-      `tailwater not known: this basin needs ${P.len(need)} (C ${n3(factor)} × y2)`,
-      row.Q,
-    );
+    return crit('tailwater', 'warn', 'tailwater-unknown', { need: len(need), factor }, row.Q);
   if (tw < need - 1e-6) {
     return crit(
       'tailwater',
       'fail',
-      `tailwater ${P.len(tw)} is short of the ${P.len(need)} needed (C ${n3(factor)} × y2 ${P.len(row.y2)}): the jump would sweep out`,
+      'tailwater-short',
+      { tw: len(tw), need: len(need), factor, y2: len(row.y2) },
       row.Q,
     );
   }
-  const ratio = tw / need;
   if (jumpPosition(tw, need, ctx?.submergenceTolerance) === 'drowned') {
     const atDesign =
       row.isDesign === true ||
@@ -89,39 +87,37 @@ export function jumpTailwater(
     return crit(
       'tailwater',
       atDesign ? 'warn' : 'pass',
-      atDesign
-        ? `tailwater ${P.len(tw)} is ${n3(ratio)}× the ${P.len(need)} needed at the largest discharge: excess submergence, the jump is drowned and dissipates less`
-        : `tailwater ${P.len(tw)} is ${n3(ratio)}× the ${P.len(need)} needed: a drowned jump at this partial flow (acceptable, less dissipation)`,
+      atDesign ? 'tailwater-drowned-design' : 'tailwater-drowned-partial',
+      { tw: len(tw), ratio: tw / need, need: len(need) },
       row.Q,
     );
   }
   return crit(
     'tailwater',
     'pass',
-    `tailwater ${P.len(tw)} holds the jump (needs ${P.len(need)} = C ${n3(factor)} × y2)`,
+    'tailwater-holds',
+    { tw: len(tw), need: len(need), factor },
     row.Q,
   );
 }
 
+/** Debris: stated heavy or light, with what it does to this type (`what`, a reason code). */
 export function debrisCriterion(
   ctx: ScreeningContext,
   heavy: 'pass' | 'warn' | 'fail',
   light: 'pass' | 'warn',
-  what: string,
+  what: ReasonCode,
 ): CriterionResult {
   const level: DebrisLevel | undefined = ctx.debris;
   if (level === undefined || level === 'none')
-    return crit('debris', 'pass', level === undefined ? 'no debris stated' : 'no debris expected');
-  return crit('debris', level === 'heavy' ? heavy : light, `${level} debris: ${what}`);
+    return crit('debris', 'pass', level === undefined ? 'debris-unstated' : 'debris-none');
+  return crit('debris', level === 'heavy' ? heavy : light, what, {
+    heavy: level === 'heavy' ? 1 : 0,
+  });
 }
 
-export function noDischargeLimit(row: DischargeRow, ctx?: ScreeningContext): CriterionResult {
-  return crit(
-    'discharge',
-    'pass',
-    `no published limit on total discharge (Q ${ph(ctx).Q(row.Q)})`,
-    row.Q,
-  );
+export function noDischargeLimit(row: DischargeRow): CriterionResult {
+  return crit('discharge', 'pass', 'discharge-no-limit', { Q: dis(row.Q) }, row.Q);
 }
 
 /** Total head above the floor: given, or at least the specific energy at the toe. */

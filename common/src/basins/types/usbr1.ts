@@ -1,7 +1,7 @@
 // USBR Type I: a free hydraulic jump on a plain horizontal apron, no appurtenances.
 import { jumpLengthUSBR } from '../../hydraulics';
 import type { DissipatorModule } from '../types';
-import { crit, debrisCriterion, jumpTailwater, n3, noDischargeLimit, ph } from './shared';
+import { crit, debrisCriterion, jumpTailwater, noDischargeLimit, udis, vel } from './shared';
 
 const TAG = '[src: USBR EM-25 via Chow 1959]';
 
@@ -36,52 +36,27 @@ export const usbr1: DissipatorModule = {
     ],
   },
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
     const f = row.fr1;
-    let froude;
-    if (f <= 1)
-      froude = crit(
-        'froude',
-        'fail',
-        `Fr1 ${n3(f)} ≤ 1: the inflow is not supercritical, no jump forms ${TAG}`,
-        row.Q,
-      );
-    else if (f < 2.5)
-      froude = crit(
-        'froude',
-        'pass',
-        `Fr1 ${n3(f)}: ${f < 1.7 ? 'undular' : 'weak'} jump, little energy to lose; a plain apron serves ${TAG}`,
-        row.Q,
-      );
-    else if (f < 4.5)
-      froude = crit(
-        'froude',
-        'warn',
-        `Fr1 ${n3(f)} in 2.5–4.5: oscillating jump, waves travel downstream (a Type IV basin or wave suppressors) ${TAG}`,
-        row.Q,
-      );
-    else if (f <= 9) froude = crit('froude', 'pass', `Fr1 ${n3(f)}: steady jump ${TAG}`, row.Q);
-    else
-      froude = crit(
-        'froude',
-        'warn',
-        `Fr1 ${n3(f)} > 9: strong jump; the plain apron is long (≈ 6·y2); a basin with blocks is shorter ${TAG}`,
-        row.Q,
-      );
+    const code =
+      f <= 1
+        ? 'plain-apron-not-supercritical'
+        : f < 2.5
+          ? 'plain-apron-weak-jump'
+          : f < 4.5
+            ? 'plain-apron-oscillating'
+            : f <= 9
+              ? 'plain-apron-steady'
+              : 'plain-apron-strong';
+    const status = f <= 1 ? 'fail' : f >= 2.5 && f < 4.5 ? 'warn' : f > 9 ? 'warn' : 'pass';
     return [
-      froude,
-      crit('velocity', 'pass', `no blocks to cavitate (V1 ${P.vel(row.v1)})`, row.Q),
-      crit(
-        'unitDischarge',
-        'pass',
-        `no published limit on unit discharge (q ${P.q(row.q)})`,
-        row.Q,
-      ),
-      noDischargeLimit(row, ctx),
+      crit('froude', status, code, { fr1: f }, row.Q, TAG),
+      crit('velocity', 'pass', 'no-blocks-velocity', { v1: vel(row.v1) }, row.Q),
+      crit('unitDischarge', 'pass', 'unit-discharge-no-limit', { q: udis(row.q) }, row.Q),
+      noDischargeLimit(row),
       jumpTailwater(row, d.tailwaterFactorType1, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'pass', 'pass', 'a plain apron has nothing to catch it')];
+    return [debrisCriterion(ctx, 'pass', 'pass', 'debris-plain-apron')];
   },
 };

@@ -1,5 +1,4 @@
 // USBR Type II: chute blocks and a dentated end sill, no baffle piers (high velocities).
-import { limitText } from '../defaults';
 import { fitBlockRow } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
@@ -9,7 +8,9 @@ import {
   froudeInRange,
   jumpTailwater,
   noDischargeLimit,
-  ph,
+  lim,
+  udis,
+  vel,
 } from './shared';
 
 const TAG = '[src: USBR EM-25]';
@@ -75,35 +76,18 @@ export const usbr2: DissipatorModule = {
     ],
   },
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
+    const q = { q: udis(row.q), limit: lim(d, 'type2MaxUnitDischarge') };
     return [
       froudeInRange(row, 4.5, Infinity, TAG),
-      crit(
-        'velocity',
-        'pass',
-        `no baffle piers: suits high inflow velocity (V1 ${P.vel(row.v1)})`,
-        row.Q,
-      ),
+      crit('velocity', 'pass', 'no-piers-velocity', { v1: vel(row.v1) }, row.Q),
       row.q <= d.type2MaxUnitDischarge
-        ? crit(
-            'unitDischarge',
-            'pass',
-            `q ${P.q(row.q)} is within the tested ${limitText(P, d, 'type2MaxUnitDischarge')} [mem: EM-25]`,
-            row.Q,
-          )
-        : crit(
-            'unitDischarge',
-            'warn',
-            `q ${P.q(row.q)} exceeds the tested ${limitText(P, d, 'type2MaxUnitDischarge')} [mem: EM-25]: model study`,
-            row.Q,
-          ),
-      noDischargeLimit(row, ctx),
+        ? crit('unitDischarge', 'pass', 'unit-discharge-within-tested', q, row.Q, '[mem: EM-25]')
+        : crit('unitDischarge', 'warn', 'unit-discharge-above-tested', q, row.Q, '[mem: EM-25]'),
+      noDischargeLimit(row),
       jumpTailwater(row, d.tailwaterFactorType2, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [
-      debrisCriterion(ctx, 'warn', 'pass', 'chute blocks and sill teeth can snag large debris'),
-    ];
+    return [debrisCriterion(ctx, 'warn', 'pass', 'debris-blocks-teeth')];
   },
 };

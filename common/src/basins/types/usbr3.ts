@@ -1,6 +1,5 @@
 // USBR Type III: chute blocks, baffle piers and a solid end sill — a short basin for moderate
 // velocities.
-import { limitPair, limitText } from '../defaults';
 import { fitBlockRow, staggerBehind } from '../blocks';
 import { interpolate } from '../guards';
 import type { DissipatorModule } from '../types';
@@ -10,7 +9,9 @@ import {
   froudeInRange,
   jumpTailwater,
   noDischargeLimit,
-  ph,
+  lim,
+  udis,
+  vel,
 } from './shared';
 
 const TAG = '[src: USBR EM-25]';
@@ -83,50 +84,46 @@ export const usbr3: DissipatorModule = {
     ],
   },
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
     const v = row.v1;
     const velocity =
       v <= d.type3VelocityWarn
         ? crit(
             'velocity',
             'pass',
-            `V1 ${P.vel(v)} ≤ ${limitText(P, d, 'type3VelocityWarn')} ${TAG}`,
+            'velocity-within',
+            { v1: vel(v), limit: lim(d, 'type3VelocityWarn') },
             row.Q,
+            TAG,
           )
         : v <= d.type3VelocityFail
           ? crit(
               'velocity',
               'warn',
-              `V1 ${limitPair(P, v, d, 'type3VelocityWarn')[0]} is above ${limitText(P, d, 'type3VelocityWarn')}: cavitation risk on the baffle piers, model study [src: EM-25]`,
+              'piers-cavitation-risk',
+              { v1: vel(v), limit: lim(d, 'type3VelocityWarn') },
               row.Q,
+              '[src: EM-25]',
             )
           : crit(
               'velocity',
               'fail',
-              `V1 ${limitPair(P, v, d, 'type3VelocityFail')[0]} is above ${limitText(P, d, 'type3VelocityFail')}: baffle piers would cavitate; use Type II [mem: EM-25]`,
+              'piers-would-cavitate',
+              { v1: vel(v), limit: lim(d, 'type3VelocityFail') },
               row.Q,
+              '[mem: EM-25]',
             );
+    const q = { q: udis(row.q), limit: lim(d, 'type3MaxUnitDischarge') };
     return [
       froudeInRange(row, 4.5, 17, TAG),
       velocity,
       row.q <= d.type3MaxUnitDischarge
-        ? crit(
-            'unitDischarge',
-            'pass',
-            `q ${P.q(row.q)} ≤ ${limitText(P, d, 'type3MaxUnitDischarge')} [mem: EM-25]`,
-            row.Q,
-          )
-        : crit(
-            'unitDischarge',
-            'fail',
-            `q ${P.q(row.q)} is above the ${limitText(P, d, 'type3MaxUnitDischarge')} of the tests [mem: EM-25]`,
-            row.Q,
-          ),
-      noDischargeLimit(row, ctx),
+        ? crit('unitDischarge', 'pass', 'unit-discharge-within', q, row.Q, '[mem: EM-25]')
+        : crit('unitDischarge', 'fail', 'unit-discharge-above-tests', q, row.Q, '[mem: EM-25]'),
+      noDischargeLimit(row),
       jumpTailwater(row, d.tailwaterFactorType3, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'fail', 'warn', 'baffle piers catch floating debris and ice')];
+    return [debrisCriterion(ctx, 'fail', 'warn', 'debris-piers')];
   },
 };

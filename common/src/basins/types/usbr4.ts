@@ -1,5 +1,4 @@
 // USBR Type IV: deflector blocks for the oscillating jump range.
-import { limitText } from '../defaults';
 import { jumpLengthUSBR } from '../../hydraulics';
 import { fitBlockRow } from '../blocks';
 import type { DissipatorModule } from '../types';
@@ -9,7 +8,9 @@ import {
   froudeInRange,
   jumpTailwater,
   noDischargeLimit,
-  ph,
+  lim,
+  udis,
+  vel,
 } from './shared';
 
 const TAG = '[src: USBR EM-25]';
@@ -59,33 +60,18 @@ export const usbr4: DissipatorModule = {
     ],
   },
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
+    const v = { v1: vel(row.v1), limit: lim(d, 'cavitationVelocity') };
     return [
       froudeInRange(row, 2.5, 4.5, TAG),
       row.v1 <= d.cavitationVelocity
-        ? crit(
-            'velocity',
-            'pass',
-            `V1 ${P.vel(row.v1)} ≤ ${limitText(P, d, 'cavitationVelocity')}`,
-            row.Q,
-          )
-        : crit(
-            'velocity',
-            'warn',
-            `V1 ${P.vel(row.v1)} > ${limitText(P, d, 'cavitationVelocity')}: cavitation risk on the deflector blocks [src: EM-25]`,
-            row.Q,
-          ),
-      crit(
-        'unitDischarge',
-        'pass',
-        `q ${P.q(row.q)}: the type suits small unit discharges; no figure is published`,
-        row.Q,
-      ),
-      noDischargeLimit(row, ctx),
+        ? crit('velocity', 'pass', 'velocity-within', v, row.Q)
+        : crit('velocity', 'warn', 'deflectors-cavitation-risk', v, row.Q, '[src: EM-25]'),
+      crit('unitDischarge', 'pass', 'unit-discharge-small', { q: udis(row.q) }, row.Q),
+      noDischargeLimit(row),
       jumpTailwater(row, d.tailwaterFactorType4, d, rows, ctx),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'warn', 'pass', 'the deflector blocks can snag large debris')];
+    return [debrisCriterion(ctx, 'warn', 'pass', 'debris-deflectors')];
   },
 };

@@ -1,10 +1,10 @@
 // USBR Type VI impact basin: a box with a hanging baffle at a pipe outlet; needs no tailwater.
 import { G } from '../../units/constants';
-import { BASIN_DEFAULTS, limitPair, limitText, type BasinDefaults } from '../defaults';
+import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
-import { phraser, type PhraseUnits } from '../../units/phrase';
-import { crit, debrisCriterion, designRow, ph } from './shared';
+import { warn, type StudyWarning } from '../../warnings';
+import { crit, debrisCriterion, designRow, dis, len, lim, vel } from './shared';
 
 const TAG = '[src: HEC-14 (2006) §9.4]';
 
@@ -28,7 +28,7 @@ export interface ImpactBasinSizing {
   endSill: { height: number; length: number }; // ≈ W/12 [mem]
   /** the tailwater depth above the floor above which the baffle is overtopped, m [mem] */
   maxTailwaterDepth: number;
-  warnings: string[];
+  warnings: StudyWarning[];
   sources: string[];
 }
 
@@ -42,9 +42,7 @@ export interface ImpactBasinSizing {
 export function sizeImpactBasin(
   c: { Q: number; velocity: number; width?: number; tailwaterDepth?: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
-  units: PhraseUnits = 'SI',
 ): ImpactBasinSizing {
-  const P = phraser(units);
   const Q = reqPositive('Q (discharge)', c.Q);
   const V = reqPositive('velocity (entering velocity)', c.velocity);
   const A = Q / V;
@@ -52,18 +50,17 @@ export function sizeImpactBasin(
   const fr = V / Math.sqrt(G * ye);
   const curveWidth = ye * d.type6WidthCoefficient * Math.pow(fr, d.type6WidthExponent);
   const W = c.width !== undefined ? reqPositive('width', c.width) : roundUp(curveWidth, 0.05);
-  const warnings: string[] = [
-    'the Type VI width comes from a fit of the HEC-14 design curve recalled from memory: check W against the published curve',
-  ];
+  const at = { type: 'usbr-6' as const };
+  const warnings: StudyWarning[] = [warn('type6-width-from-memory', {}, at)];
   if (W < curveWidth * 0.999)
-    warnings.push(`Width ${P.len(W)} is narrower than the ${P.len(curveWidth)} of the width curve`);
+    warnings.push(warn('type6-narrower', { width: len(W), curveWidth: len(curveWidth) }, at));
   if (Q > d.type6MaxDischarge)
     warnings.push(
-      `Q ${P.Q(Q)} exceeds the ${limitText(P, d, 'type6MaxDischarge')} limit of the type ${TAG}`,
+      warn('type6-discharge-above', { Q: dis(Q), limit: lim(d, 'type6MaxDischarge') }, at),
     );
   if (V > d.type6MaxVelocity)
     warnings.push(
-      `Entering velocity ${P.vel(V)} exceeds ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
+      warn('type6-velocity-above', { v: vel(V), limit: lim(d, 'type6MaxVelocity') }, at),
     );
   const baffleHeight = 0.375 * W;
   const baffleClearance = W / 6;
@@ -73,7 +70,7 @@ export function sizeImpactBasin(
     reqNonNegative('tailwaterDepth', c.tailwaterDepth) > maxTw
   ) {
     warnings.push(
-      `Tailwater ${P.len(c.tailwaterDepth)} above the floor exceeds ${P.len(maxTw)} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14]`,
+      warn('type6-baffle-overtopped', { tw: len(c.tailwaterDepth), max: len(maxTw) }, at),
     );
   }
   return {
@@ -118,34 +115,15 @@ export const usbr6: DissipatorModule = {
     { criterion: 'inflow', text: 'pipe or culvert outlets (also small open chutes)', tag: TAG },
   ],
   screenRow(row, ctx, d, rows) {
-    const P = ph(ctx);
+    const Q = { Q: dis(row.Q), limit: lim(d, 'type6MaxDischarge') };
+    const v = { v: vel(row.v1), limit: lim(d, 'type6MaxVelocity') };
     const out = [
       row.Q <= d.type6MaxDischarge
-        ? crit(
-            'discharge',
-            'pass',
-            `Q ${P.Q(row.Q)} ≤ ${limitText(P, d, 'type6MaxDischarge')} ${TAG}`,
-            row.Q,
-          )
-        : crit(
-            'discharge',
-            'fail',
-            `Q ${limitPair(P, row.Q, d, 'type6MaxDischarge')[0]} exceeds the ${limitText(P, d, 'type6MaxDischarge')} of the type ${TAG}`,
-            row.Q,
-          ),
+        ? crit('discharge', 'pass', 'discharge-within', Q, row.Q, TAG)
+        : crit('discharge', 'fail', 'discharge-above-type', Q, row.Q, TAG),
       row.v1 <= d.type6MaxVelocity
-        ? crit(
-            'velocity',
-            'pass',
-            `V ${P.vel(row.v1)} ≤ ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
-            row.Q,
-          )
-        : crit(
-            'velocity',
-            'fail',
-            `V ${limitPair(P, row.v1, d, 'type6MaxVelocity')[0]} exceeds ${limitText(P, d, 'type6MaxVelocity')} ${TAG}`,
-            row.Q,
-          ),
+        ? crit('velocity', 'pass', 'entry-velocity-within', v, row.Q, TAG)
+        : crit('velocity', 'fail', 'entry-velocity-above', v, row.Q, TAG),
     ];
     const dr = designRow(rows, ctx?.designQ) ?? row;
     const size = sizeImpactBasin({ Q: dr.Q, velocity: dr.v1 }, d);
@@ -155,15 +133,17 @@ export const usbr6: DissipatorModule = {
         ? crit(
             'tailwater',
             'pass',
-            'needs no tailwater' +
-              (tw === undefined ? '' : ` (tailwater ${P.len(tw)} stays below the baffle)`),
+            'needs-no-tailwater',
+            { tw: tw === undefined ? undefined : len(tw) },
             row.Q,
           )
         : crit(
             'tailwater',
             'warn',
-            `tailwater ${P.len(tw)} overtops the baffle zone (> ${P.len(size.maxTailwaterDepth)}): less dissipation [mem: HEC-14]`,
+            'baffle-overtopped',
+            { tw: len(tw), max: len(size.maxTailwaterDepth) },
             row.Q,
+            '[mem: HEC-14]',
           ),
     );
     return out;
@@ -171,26 +151,11 @@ export const usbr6: DissipatorModule = {
   screenFixed(ctx) {
     const inflow =
       ctx.inflow === 'pipe' || ctx.inflow === 'culvert'
-        ? crit('inflow', 'pass', `a ${ctx.inflow} outlet: the type was developed for it ${TAG}`)
+        ? crit('inflow', 'pass', 'impact-inflow-outlet', {}, undefined, TAG)
         : ctx.inflow === 'chute' || ctx.inflow === 'known'
-          ? crit(
-              'inflow',
-              'warn',
-              'developed for pipe outlets; usable with a small open chute ' + TAG,
-            )
-          : crit(
-              'inflow',
-              'fail',
-              `a ${ctx.inflow} inflow: the type needs a pipe, culvert or small chute entering the box`,
-            );
-    return [
-      inflow,
-      debrisCriterion(
-        ctx,
-        'warn',
-        'pass',
-        'debris can clog the space under the baffle (the flow then passes over it)',
-      ),
-    ];
+          ? crit('inflow', 'warn', 'impact-inflow-chute', {}, undefined, TAG)
+          : crit('inflow', 'fail', 'impact-inflow-other');
+    inflow.inflow = ctx.inflow;
+    return [inflow, debrisCriterion(ctx, 'warn', 'pass', 'debris-under-baffle')];
   },
 };

@@ -1,12 +1,12 @@
 // USBR Type IX baffled apron (baffled chute drop): rows of baffles on a 2:1 slope; no tailwater.
 import { G } from '../../units/constants';
 import { fitBlockRow, staggeredRow, type BlockRow } from '../blocks';
-import { BASIN_DEFAULTS, limitText, type BasinDefaults } from '../defaults';
+import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqPositive } from '../guards';
 import type { DissipatorModule } from '../types';
-import { phraser, type PhraseUnits } from '../../units/phrase';
+import { warn, type StudyWarning } from '../../warnings';
 import { ENGINE_LIMITS } from '../../schemas/limits';
-import { crit, debrisCriterion, n3, ph } from './shared';
+import { crit, debrisCriterion, lim, udis } from './shared';
 
 const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
 
@@ -34,7 +34,7 @@ export interface BaffledApronSizing {
   /** full rows and the staggered rows between them */
   rowA: BlockRow;
   rowB: BlockRow;
-  warnings: string[];
+  warnings: StudyWarning[];
   sources: string[];
 }
 
@@ -48,9 +48,7 @@ export interface BaffledApronSizing {
 export function sizeBaffledApron(
   c: { Q: number; width: number; drop: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
-  units: PhraseUnits = 'SI',
 ): BaffledApronSizing {
-  const P = phraser(units);
   const Q = reqPositive('Q (discharge)', c.Q);
   const W = reqPositive('width', c.width);
   const drop = reqPositive('drop (crest to channel bed)', c.drop);
@@ -68,10 +66,14 @@ export function sizeBaffledApron(
       `drop (crest to channel bed): ${rows} rows of baffle piers ${h.toPrecision(3)} m high would be needed, more than the ${ENGINE_LIMITS.maxBlockRows} one apron may hold; the unit discharge is too small for the drop`,
     );
   const slopeLength = (rows - 1) * spacing + spacing / 2;
-  const warnings: string[] = [];
+  const warnings: StudyWarning[] = [];
   if (q > d.type9MaxUnitDischarge)
     warnings.push(
-      `q ${P.q(q)} exceeds the ${limitText(P, d, 'type9MaxUnitDischarge')} of the type ${TAG}`,
+      warn(
+        'type9-unit-discharge',
+        { q: udis(q), limit: lim(d, 'type9MaxUnitDischarge') },
+        { type: 'usbr-9' },
+      ),
     );
   const rowA = fitBlockRow(W, Math.min(bw, W), bw);
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
@@ -125,42 +127,22 @@ export const usbr9: DissipatorModule = {
     },
   ],
   screenRow(row, ctx, d) {
-    const P = ph(ctx);
     const approach =
       ctx.inflow === 'chute' || ctx.inflow === 'drop'
-        ? crit(
-            'froude',
-            'pass',
-            'the flow would enter the baffled apron over the crest near critical depth (the apron replaces the smooth chute)',
-            row.Q,
-          )
+        ? crit('froude', 'pass', 'apron-entry-over-crest', {}, row.Q)
         : row.fr1 <= d.type9MaxApproachFroude
-          ? crit('froude', 'pass', `entry Fr ${n3(row.fr1)} is near critical`, row.Q)
-          : crit(
-              'froude',
-              'fail',
-              `entry Fr ${n3(row.fr1)} is well above critical: the type needs a near-critical approach ${TAG}`,
-              row.Q,
-            );
+          ? crit('froude', 'pass', 'apron-entry-near-critical', { fr: row.fr1 }, row.Q)
+          : crit('froude', 'fail', 'apron-entry-supercritical', { fr: row.fr1 }, row.Q, TAG);
+    const q = { q: udis(row.q), limit: lim(d, 'type9MaxUnitDischarge') };
     return [
       approach,
       row.q <= d.type9MaxUnitDischarge
-        ? crit(
-            'unitDischarge',
-            'pass',
-            `q ${P.q(row.q)} ≤ ${limitText(P, d, 'type9MaxUnitDischarge')} ${TAG}`,
-            row.Q,
-          )
-        : crit(
-            'unitDischarge',
-            'fail',
-            `q ${P.q(row.q)} exceeds ${limitText(P, d, 'type9MaxUnitDischarge')} ${TAG}`,
-            row.Q,
-          ),
-      crit('tailwater', 'pass', 'needs no tailwater', row.Q),
+        ? crit('unitDischarge', 'pass', 'unit-discharge-within', q, row.Q, TAG)
+        : crit('unitDischarge', 'fail', 'unit-discharge-exceeds', q, row.Q, TAG),
+      crit('tailwater', 'pass', 'needs-no-tailwater', {}, row.Q),
     ];
   },
   screenFixed(ctx) {
-    return [debrisCriterion(ctx, 'warn', 'pass', 'rows of baffles catch floating debris')];
+    return [debrisCriterion(ctx, 'warn', 'pass', 'debris-apron-baffles')];
   },
 };
