@@ -379,11 +379,22 @@ describe('Where the jump forms — the page', () => {
 
 describe('the side navigation', () => {
   it.each([
-    ['engineer', ['Projects', 'Where the jump forms', 'Account']],
-    ['owner', ['Projects', 'Where the jump forms', 'Team', 'Account']],
-    ['viewer', ['Projects', 'Where the jump forms', 'Account']],
+    ['engineer', ['Projects', 'Where the jump forms', 'Price books', 'Account']],
+    [
+      'owner',
+      [
+        'Projects',
+        'Where the jump forms',
+        'Price books',
+        'Team',
+        'Firm brand',
+        'Billing',
+        'Account',
+      ],
+    ],
+    ['viewer', ['Projects', 'Where the jump forms', 'Price books', 'Account']],
   ] as const)(
-    'lists the jump position tool for a %s, between Projects and Team',
+    'lists the jump position tool for a %s, right after Projects',
     async (role, labels) => {
       localStorage.setItem(TOKEN_KEY, `tok-${role}`);
       setActivePinia(createPinia());
