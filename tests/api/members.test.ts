@@ -34,6 +34,7 @@ describe('GET /members', () => {
         'email',
         'id',
         'name',
+        'reviewer',
         'role',
       ]);
     }
