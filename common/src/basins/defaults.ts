@@ -499,7 +499,7 @@ export const BASIN_DEFAULT_PROVENANCE: Record<BasinDefaultKey, Provenance> = {
     unit: 'm',
   },
   minWallThickness: {
-    source: 'hydraulics.md §4 (concept structure)',
+    source: 'common practice',
     confidence: 'practice',
     label: 'Least wall thickness',
     unit: 'm',
