@@ -340,7 +340,8 @@ function costSection(
     { text: label, color: bold ? undefined : SLATE, bold },
     right(`${cur} ${moneyText(value)}`, { bold }),
   ];
-  out.push({
+  const summary: Node[] = [];
+  summary.push({
     table: {
       widths: ['*', 120],
       body: [
@@ -367,9 +368,15 @@ function costSection(
     layout: 'lightHorizontalLines',
     margin: [0, 8, 0, 4],
   });
-  if (cost.unpriced.length)
+  // the totals and the range stay on one page
+  out.push({ stack: summary, unbreakable: true });
+  // the lines left out, grouped by why (most often: no price-book item chosen)
+  const byReason = new Map<string, string[]>();
+  for (const u of cost.unpriced)
+    byReason.set(u.reason, [...(byReason.get(u.reason) ?? []), takeoffLineLabel(u.key)]);
+  for (const [reason, keys] of byReason)
     out.push({
-      text: `Not priced: ${cost.unpriced.map((u) => `${takeoffLineLabel(u.key)} (${u.reason})`).join('; ')}`,
+      text: [{ text: `Not priced — ${reason.replace(/\.$/, '')}: `, bold: true }, keys.join('; ')],
       fontSize: 8,
       color: SLATE,
       margin: [0, 2, 0, 2],
@@ -751,8 +758,10 @@ export function proposalDocument(source: ProposalSource): {
     });
 
   // ——— Quantities and cost
-  content.push(heading('Quantities and cost', accent));
   const cost = source.cost;
+  const priced = cost !== null && cost.totals !== null && cost.priceBook !== null;
+  // a priced section (take-off and estimate) is long: it starts on its own page
+  content.push(heading('Quantities and cost', accent, priced));
   if (cost !== null && cost.totals !== null && cost.priceBook !== null)
     content.push(...costSection(cost, cost.totals, cost.priceBook, units, accent));
   else {
