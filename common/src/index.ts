@@ -532,6 +532,11 @@ export {
   takeoffOverridesToSI,
   takeoffQuantity,
   type TakeoffQuantityKind,
+  TAKEOFF_ELEMENT_LABELS,
+  TAKEOFF_KIND_LABELS,
+  takeoffElementLabel,
+  takeoffKindLabel,
+  takeoffLineLabel,
 } from './takeoff';
 // Concept estimate maths: priced lines, location factor, percentages, escalation, AACE range
 export {

@@ -21,6 +21,7 @@ import {
   type StudyResult,
 } from '@basinwright/common';
 import { fenwickDesign } from '../../seed/designs';
+import { expectRel } from '../support/tolerance';
 import {
   addMember,
   apiForFile,
@@ -60,6 +61,9 @@ async function issuedDemo(
   count = 1,
 ): Promise<{ projectId: string; versionIds: string[] }> {
   const { Project, Design, DesignVersion } = h.models;
+  // the version keeps the time its result was computed, as issuing one does (an estimate priced
+  // from the draft's result is matched to the version on it)
+  const computedAt = new Date();
   const project = await Project.create({
     firmId: firm.firm.id,
     name: 'Fenwick Mill Pond — auxiliary spillway outlet',
@@ -76,7 +80,7 @@ async function issuedDemo(
     updatedById: firm.user.id,
     result,
     engineVersion: ENGINE_VERSION,
-    computedAt: new Date(),
+    computedAt,
   });
   const versionIds: string[] = [];
   for (let number = 1; number <= count; number++) {
@@ -90,7 +94,7 @@ async function issuedDemo(
       options: null,
       result,
       engineVersion: ENGINE_VERSION,
-      computedAt: new Date(),
+      computedAt,
       figures: figuresOf(result),
       note: '',
       issuedById: firm.user.id,
@@ -258,6 +262,107 @@ describe('the proposal of the demo design', () => {
       expect(mail.raw).toMatch(new RegExp(`^From: .*${paid.firm.name.split(' ')[0]}`, 'm'));
       const emails = await h.models.ProposalEmail.findAll({ where: { versionId: versionIds[0]! } });
       expect(emails.map((e) => e.recipient)).toEqual([to]);
+    },
+    RENDER_DEADLINE_MS + 30_000,
+  );
+});
+
+/** 1 yd³ = 0.9144³ m³ exactly (the international yard, 1959): a fact of the trade. */
+const M3_PER_YD3 = 0.9144 ** 3;
+
+/** The amounts in the stated order (ESTIMATE_STEPS), written out by hand for these settings. */
+function handTotal(direct: number): number {
+  const located = direct * 1.1;
+  const siteCosts = located + 0.05 * located + 0.03 * located;
+  const withContingency = siteCosts * 1.2;
+  const withOverhead = withContingency * 1.15;
+  return withOverhead * 1.04 ** 2; // two years at 4 %, compounded
+}
+
+/** Whole currency units with thousands grouped, as a money amount is written in English. */
+const money = (v: number) => Math.round(v).toLocaleString('en-US');
+
+describe('the proposal of a priced version', () => {
+  it(
+    'prints the take-off by element and the issued estimate: total, AACE range, currency, price book',
+    async () => {
+      const { projectId, versionIds } = await issuedDemo(paid);
+      const auth = bearer(paid.token);
+      const book = await h
+        .http()
+        .post('/api/v1/price-books')
+        .set(auth)
+        .send({ name: 'Harrowdale rates 2026', currency: 'USD' });
+      expect(book.status, JSON.stringify(book.body)).toBe(201);
+      const items = await h
+        .http()
+        .put(`/api/v1/price-books/${book.body.id}/items`)
+        .set(auth)
+        .send({
+          items: [
+            { code: 'CON', description: 'Slab concrete', unit: 'm³', unitPrice: 400 },
+            { code: 'EXC', description: 'Excavation', unit: 'CY', unitPrice: 15 },
+          ],
+        });
+      expect(items.status).toBe(200);
+      const takeoff = await h.http().get(`/api/v1/projects/${projectId}/takeoff`).set(auth);
+      const q = (key: string) =>
+        (takeoff.body.lines as { key: string; quantity: number }[]).find((l) => l.key === key)!
+          .quantity;
+      const made = await h
+        .http()
+        .post(`/api/v1/projects/${projectId}/estimates`)
+        .set(auth)
+        .send({ priceBookId: book.body.id });
+      expect(made.status).toBe(201);
+      const patched = await h
+        .http()
+        .patch(`/api/v1/estimates/${made.body.id}`)
+        .set(auth)
+        .send({
+          settings: {
+            locationFactor: 1.1,
+            percentages: {
+              mobilisation: 0.05,
+              careOfWater: 0.03,
+              contingency: 0.2,
+              overheadAndProfit: 0.15,
+            },
+            escalation: { annualRate: 0.04, years: 2 },
+            accuracy: { aaceClass: 4 },
+          },
+          mapping: { 'concrete.floorSlab': 'CON', 'excavation.structure': 'EXC' },
+        });
+      expect(patched.status, JSON.stringify(patched.body).slice(0, 300)).toBe(200);
+      const issued = await h.http().post(`/api/v1/estimates/${made.body.id}/issue`).set(auth);
+      expect(issued.status).toBe(200);
+      const direct = q('concrete.floorSlab') * 400 + (q('excavation.structure') / M3_PER_YD3) * 15;
+      const total = handTotal(direct);
+      expectRel(issued.body.totals.total, total, 1e-12);
+
+      const queued = await generate(paid.token, projectId, versionIds[0]!);
+      const done = await settled(paid.token, projectId, queued.id);
+      expect(done.status, done.error ?? '').toBe('done');
+      const file = await download(paid.token, projectId, done, 'priced');
+      const text = pdftotext(file);
+      expect(text).not.toContain('not priced yet');
+      // The take-off by element, in the project's units (SI here).
+      expect(text).toContain('Quantities by element');
+      // the slab's concrete is over 100 m³, so it is printed in whole m³
+      expect(q('concrete.floorSlab')).toBeGreaterThan(100);
+      expect(text).toMatch(
+        new RegExp(`Concrete — Floor slab\\s+${money(q('concrete.floorSlab'))}\\s+m³`),
+      );
+      expect(text).toContain('Excavation — Whole structure');
+      // The total and the AACE 18R-97 class 4 range at its wide ends (−30 %, +50 %).
+      expect(text).toMatch(new RegExp(`Total\\s+USD ${money(total)}`));
+      expect(text).toContain('AACE Class 4 (-30 % to +50 %)');
+      expect(text).toContain(`USD ${money(total * 0.7)} to ${money(total * 1.5)}`);
+      expect(text).toContain('Escalation (4 % a year for 2 years, compounded)');
+      expect(text).toContain('price book "Harrowdale rates 2026" (USD)');
+      // Every page as an image, kept as test artifacts (the quantities and cost page to look at).
+      execFileSync('pdftoppm', ['-png', '-r', '70', file, path.join(ARTIFACTS, 'priced-page')]);
+      expect(execFileSync('ls', [ARTIFACTS]).toString()).toMatch(/priced-page-0?1\.png/);
     },
     RENDER_DEADLINE_MS + 30_000,
   );

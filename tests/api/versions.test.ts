@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { compareVersions } from '@basinwright/common';
 import { fenwickDesign } from '../../seed/designs';
 import { addMember, apiForFile, bearer, setPlan, signUpFirm } from '../support/api-app';
+import { expectRel } from '../support/tolerance';
 
 // Issued versions, draft concurrency, review and sign-off, the audit trail (issue 11).
 
@@ -156,6 +158,102 @@ describe('issued versions', () => {
     expect(again.body.input).toEqual(v.input);
     expect(again.body.result).toEqual(v.result);
     expect(again.body.note).toBe('');
+  });
+});
+
+/** Estimate settings of the cost tests, and their total written out by hand in the stated order. */
+const COST_SETTINGS = {
+  locationFactor: 1.2,
+  percentages: { mobilisation: 0.1, careOfWater: 0.1, contingency: 0.1, overheadAndProfit: 0.1 },
+  escalation: { annualRate: 0.03, years: 1 },
+  accuracy: { aaceClass: 4 },
+};
+function handTotal(direct: number): number {
+  const located = direct * 1.2;
+  const withSiteCosts = located + 0.1 * located + 0.1 * located;
+  const withContingency = withSiteCosts * 1.1;
+  const withOverhead = withContingency * 1.1;
+  return withOverhead * 1.03; // one year at 3 %
+}
+
+describe('cost in the key figures', () => {
+  it('a version shows the total of the latest issued estimate priced from its own result; others stay not priced', async () => {
+    const { id } = await newProjectWithDraft('Priced versions');
+    const v1 = await api(engineer.token).post(`/projects/${id}/versions`, { revision: 1 });
+    expect(v1.status).toBe(201);
+    const book = await api(owner.token).post('/price-books', {
+      name: 'Cost join',
+      currency: 'USD',
+    });
+    expect(book.status).toBe(201);
+    const items = (price: number) =>
+      api(owner.token).put(`/price-books/${book.body.id}/items`, {
+        items: [{ code: 'CON', description: 'Slab concrete', unit: 'm³', unitPrice: price }],
+      });
+    expect((await items(400)).status).toBe(200);
+    const slab = async () => {
+      const t = await api(engineer.token).get(`/projects/${id}/takeoff`);
+      return (t.body.lines as { key: string; quantity: number }[]).find(
+        (l) => l.key === 'concrete.floorSlab',
+      )!.quantity;
+    };
+    const q1 = await slab();
+
+    const e1 = await api(engineer.token).post(`/projects/${id}/estimates`, {
+      priceBookId: book.body.id,
+    });
+    expect(e1.status).toBe(201);
+    const patched = await h
+      .http()
+      .patch(`/api/v1/estimates/${e1.body.id}`)
+      .set(bearer(engineer.token))
+      .send({ settings: COST_SETTINGS, mapping: { 'concrete.floorSlab': 'CON' } });
+    expect(patched.status, JSON.stringify(patched.body).slice(0, 300)).toBe(200);
+    // a draft estimate is not the version's cost
+    let list = await api(viewer.token).get(`/projects/${id}/versions`);
+    expect(list.body.items[0].figures).toMatchObject({ cost: null, costStatus: 'not_priced' });
+    expect((await api(engineer.token).post(`/estimates/${e1.body.id}/issue`)).status).toBe(200);
+
+    list = await api(viewer.token).get(`/projects/${id}/versions`);
+    expect(list.body.items[0].figures.costStatus).toBe('priced');
+    expectRel(list.body.items[0].figures.cost, handTotal(q1 * 400), 1e-12);
+    const one = await api(viewer.token).get(`/projects/${id}/versions/${v1.body.id}`);
+    expect(one.body.figures).toEqual(list.body.items[0].figures);
+
+    // A new save recomputes the result: version 2 is issued from it and nobody priced it yet.
+    const saved = await api(engineer.token).put(`/projects/${id}/design`, {
+      input: { ...fenwickDesign, basinWidth: 14 },
+      revision: 1,
+    });
+    expect(saved.status).toBe(200);
+    const v2 = await api(engineer.token).post(`/projects/${id}/versions`, { revision: 2 });
+    expect(v2.status).toBe(201);
+    expect(v2.body.figures).toMatchObject({ cost: null, costStatus: 'not_priced' });
+    list = await api(viewer.token).get(`/projects/${id}/versions`);
+    expect(list.body.items.map((v: { number: number }) => v.number)).toEqual([2, 1]);
+    expect(list.body.items[0].figures.costStatus).toBe('not_priced');
+    expectRel(list.body.items[1].figures.cost, handTotal(q1 * 400), 1e-12);
+
+    // Revision 2, priced at a new rate from version 2's result, is version 2's cost only.
+    expect((await items(500)).status).toBe(200);
+    const q2 = await slab();
+    expect(q2).not.toBe(q1); // a wider basin has a bigger slab
+    const e2 = await api(engineer.token).post(`/projects/${id}/estimates`, {});
+    expect(e2.status).toBe(201);
+    expect((await api(engineer.token).post(`/estimates/${e2.body.id}/issue`)).status).toBe(200);
+    list = await api(viewer.token).get(`/projects/${id}/versions`);
+    const [second, first] = list.body.items;
+    expect(second.figures.costStatus).toBe('priced');
+    expectRel(second.figures.cost, handTotal(q2 * 500), 1e-12);
+    expectRel(first.figures.cost, handTotal(q1 * 400), 1e-12);
+    // the comparison of the two versions names the cost among the figures that changed
+    const full = await Promise.all(
+      [first, second].map((v: { id: string }) =>
+        api(viewer.token).get(`/projects/${id}/versions/${v.id}`),
+      ),
+    );
+    const diff = compareVersions(full[0]!.body, full[1]!.body);
+    expect(diff.figures.map((c) => c.field)).toContain('cost');
   });
 });
 

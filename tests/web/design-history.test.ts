@@ -82,6 +82,21 @@ describe('DesignHistoryPanel', () => {
     wrapper.unmount();
   });
 
+  it('a priced version shows its estimate total in whole currency units', async () => {
+    const v1 = version(1, 'u-engineer', 'not_sent', 20.5);
+    // an invented total for the panel (the API's join is tested in tests/api/versions.test.ts)
+    const priced = { ...v1, figures: { ...v1.figures, cost: 479338.42, costStatus: 'priced' } };
+    const { wrapper } = await mountAs('engineer', {
+      items: [priced],
+      status: 'draft',
+      reviewer: false,
+    });
+    const text = wrapper.find('[data-test="version-table"]').text();
+    expect(text).toContain('479,338');
+    expect(text).not.toContain('Not priced');
+    wrapper.unmount();
+  });
+
   it('with unsaved changes, issuing waits for a save', async () => {
     setActivePinia(createPinia());
     stubApi({

@@ -347,40 +347,7 @@ const figureNames: Record<keyof VersionFigures, string> = {
 };
 export const figureLabel = (f: keyof VersionFigures): string => figureNames[f];
 // Take-off, estimates and price books (issue 9).
-const takeoffKinds: Record<string, string> = {
-  concrete: 'Concrete',
-  reinforcement: 'Reinforcement',
-  formwork: 'Formwork',
-  excavation: 'Excavation',
-  backfill: 'Backfill',
-  riprap: 'Riprap',
-  riprapMass: 'Riprap (mass)',
-  bedding: 'Bedding',
-  geotextile: 'Geotextile',
-  waterstop: 'Waterstop',
-  joint: 'Joints',
-};
-export const takeoffKindLabel = (k: string): string => takeoffKinds[k] ?? k;
-const takeoffElements: Record<string, string> = {
-  floorSlab: 'Floor slab',
-  sideWalls: 'Side walls',
-  chuteBlocks: 'Chute blocks',
-  bafflePiers: 'Baffle piers',
-  floorBlocks: 'Floor blocks',
-  impactBaffle: 'Impact baffle',
-  endSill: 'End sill',
-  cutoffWalls: 'Cutoff walls',
-  wingwalls: 'Wingwalls',
-  transition: 'Transition',
-  structure: 'Whole structure',
-  exitProtection: 'Protection at the exit',
-};
-export const takeoffElementLabel = (e: string): string => takeoffElements[e] ?? e;
-/** A take-off line key (`kind.element`) in words: "Concrete — Floor slab". */
-export const takeoffLineLabel = (key: string): string => {
-  const [kind = '', element = ''] = key.split('.');
-  return `${takeoffKindLabel(kind)} — ${takeoffElementLabel(element)}`;
-};
+export { takeoffElementLabel, takeoffKindLabel, takeoffLineLabel } from '@basinwright/common';
 export const PRICE_BOOKS_TITLE = 'Price books';
 export const estimateStatusLabel = (s: 'draft' | 'issued'): string =>
   s === 'issued' ? 'Issued' : 'Draft';

@@ -31,7 +31,7 @@ export function takeoffQuantity(
 }
 
 /** Every line of a take-off in the project's units. */
-export function formatTakeoff(t: Takeoff, units: UnitSystem): DisplayTakeoffLine[] {
+export function formatTakeoff(t: Pick<Takeoff, 'lines'>, units: UnitSystem): DisplayTakeoffLine[] {
   return t.lines.map((l) => ({ ...l, ...takeoffQuantity(l.quantity, l.kind, units) }));
 }
 
@@ -113,3 +113,42 @@ export function takeoffOverridesToSI(o: TakeoffOverrides, units: UnitSystem): Ta
 export function takeoffOverridesFromSI(o: TakeoffOverrides, units: UnitSystem): TakeoffOverrides {
   return mapOverrides(o, (v, u) => assumptionFromSI(v, u, units));
 }
+
+/** The take-off's kinds of item in words (the web's steps and the proposal print these). */
+export const TAKEOFF_KIND_LABELS: Record<string, string> = {
+  concrete: 'Concrete',
+  reinforcement: 'Reinforcement',
+  formwork: 'Formwork',
+  excavation: 'Excavation',
+  backfill: 'Backfill',
+  riprap: 'Riprap',
+  riprapMass: 'Riprap (mass)',
+  bedding: 'Bedding',
+  geotextile: 'Geotextile',
+  waterstop: 'Waterstop',
+  joint: 'Joints',
+};
+export const takeoffKindLabel = (k: string): string => TAKEOFF_KIND_LABELS[k] ?? k;
+
+/** The take-off's elements in words. */
+export const TAKEOFF_ELEMENT_LABELS: Record<string, string> = {
+  floorSlab: 'Floor slab',
+  sideWalls: 'Side walls',
+  chuteBlocks: 'Chute blocks',
+  bafflePiers: 'Baffle piers',
+  floorBlocks: 'Floor blocks',
+  impactBaffle: 'Impact baffle',
+  endSill: 'End sill',
+  cutoffWalls: 'Cutoff walls',
+  wingwalls: 'Wingwalls',
+  transition: 'Transition',
+  structure: 'Whole structure',
+  exitProtection: 'Protection at the exit',
+};
+export const takeoffElementLabel = (e: string): string => TAKEOFF_ELEMENT_LABELS[e] ?? e;
+
+/** A take-off line key (`kind.element`) in words: "Concrete — Floor slab". */
+export const takeoffLineLabel = (key: string): string => {
+  const [kind = '', element = ''] = key.split('.');
+  return `${takeoffKindLabel(kind)} — ${takeoffElementLabel(element)}`;
+};

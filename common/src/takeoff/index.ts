@@ -27,12 +27,17 @@ export {
 } from './takeoff';
 export {
   TAKEOFF_ASSUMPTION_LABELS,
+  TAKEOFF_ELEMENT_LABELS,
+  TAKEOFF_KIND_LABELS,
   assumptionFromSI,
   assumptionToSI,
   formatTakeoff,
   formatTakeoffTotals,
   takeoffOverridesFromSI,
   takeoffOverridesToSI,
+  takeoffElementLabel,
+  takeoffKindLabel,
+  takeoffLineLabel,
   takeoffQuantity,
   type DisplayTakeoffLine,
 } from './format';

@@ -663,3 +663,44 @@ export function exportTable(v: EstimateView): { header: string[]; rows: (string 
     ]);
   return { header, rows };
 }
+
+/** What an issued design version was computed from (its draft, engine and time). */
+export interface VersionResultKey {
+  designId: string;
+  engineVersion: string;
+  computedAt: Date;
+}
+
+/**
+ * The project's issued revisions, newest first (read once, then matched to each version with
+ * issuedEstimateFor).
+ */
+export async function issuedEstimates(firmId: string, projectId: string): Promise<Estimate[]> {
+  return Estimate.findAll({
+    where: { firmId, projectId, status: 'issued' },
+    order: [['revision', 'DESC']],
+  });
+}
+
+/**
+ * The latest issued revision priced from exactly this version's design result: the same draft,
+ * the same engine and the same computation time (a result is recomputed on every save, so the
+ * time tells one result from another). Null when none was.
+ */
+export function issuedEstimateFor(
+  estimates: Estimate[],
+  version: VersionResultKey,
+): EstimateView | null {
+  const at = version.computedAt.getTime();
+  for (const row of estimates) {
+    const from = row.pricedFrom;
+    if (row.status !== 'issued' || from === null || from === undefined) continue;
+    if (from.designId !== version.designId || from.engineVersion !== version.engineVersion)
+      continue;
+    if (from.computedAt === null || new Date(from.computedAt).getTime() !== at) continue;
+    const snapshot = row.issuedSnapshot as unknown as EstimateView | null;
+    if (snapshot?.totals === null || snapshot?.totals === undefined) continue;
+    return snapshot;
+  }
+  return null;
+}

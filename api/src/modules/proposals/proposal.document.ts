@@ -7,10 +7,12 @@ import {
   chartToSvg,
   drawingToSvg,
   energyChartSpec,
+  formatTakeoff,
   phraseMessage,
   rangeChartSpec,
   studyCautions,
   studyWarningText,
+  takeoffLineLabel,
   reasonText,
   screeningSummaryText,
   toSIValue,
@@ -22,8 +24,10 @@ import {
   type ReviewState,
   type StudyInput,
   type StudyResult,
+  type TakeoffLine,
   type UnitSystem,
 } from '@basinwright/common';
+import type { EstimateView } from '../estimates/estimates.service';
 
 /** The firm's branding on a paid plan (null on Concept: the watermark instead). */
 export interface ProposalBrand {
@@ -56,6 +60,11 @@ export interface ProposalSource {
     jurisdiction: string | null;
     statement: string | null;
   };
+  /**
+   * the latest issued estimate priced from this version's result (its take-off SI, its money in
+   * the price book's currency), or null: the proposal then says it is not priced yet
+   */
+  cost: EstimateView | null;
   /** when the PDF is made (the caller's clock) */
   generatedAt: Date;
 }
@@ -226,6 +235,164 @@ const POSITION_WORDS: Record<string, string> = {
   'swept-out': 'swept out',
   'leaves-basin': 'leaves the basin',
 };
+
+/** A quantity as printed: whole numbers from 100 up, else two decimals; thousands grouped. */
+export function quantityText(value: number): string {
+  const digits = Math.abs(value) >= 100 ? 0 : 2;
+  return value.toLocaleString('en-US', {
+    minimumFractionDigits: digits,
+    maximumFractionDigits: digits,
+  });
+}
+
+/** An amount of money as printed: whole units of the currency, thousands grouped. */
+export function moneyText(value: number): string {
+  return Math.round(value).toLocaleString('en-US', { maximumFractionDigits: 0 });
+}
+
+function pctText(fraction: number): string {
+  return `${Number((fraction * 100).toFixed(2))} %`;
+}
+
+/**
+ * The take-off by element in the project's units and the issued estimate: priced lines, the
+ * percentages in their stated order, escalation, the total and its AACE accuracy range.
+ */
+function costSection(
+  cost: EstimateView,
+  totals: NonNullable<EstimateView['totals']>,
+  book: NonNullable<EstimateView['priceBook']>,
+  units: UnitSystem,
+  accent: string,
+): Node[] {
+  const out: Node[] = [];
+  const cur = book.currency;
+  const right = (text: string, extra: Record<string, unknown> = {}) => ({
+    text,
+    alignment: 'right',
+    ...extra,
+  });
+  const th = (text: string, alignment = 'left') => ({ text, style: 'th', alignment });
+  const issued = cost.issuedAt === null ? '' : `, issued ${cost.issuedAt.slice(0, 10)}`;
+  out.push({
+    text: `From estimate revision ${cost.revision}${issued}${cost.issuedBy ? ` by ${cost.issuedBy}` : ''}, priced from this version's design result.`,
+    margin: [0, 0, 0, 4],
+  });
+
+  out.push({ text: 'Quantities by element', style: 'h2', color: accent });
+  const lines = formatTakeoff({ lines: cost.takeoffLines as TakeoffLine[] }, units);
+  out.push({
+    table: {
+      headerRows: 1,
+      widths: ['*', 80, 40],
+      body: [
+        [th('Item and element'), th('Quantity', 'right'), th('Unit')],
+        ...lines.map((l) => [takeoffLineLabel(l.key), right(quantityText(l.value)), l.unit]),
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    fontSize: 8.5,
+  });
+  out.push({
+    text: "Take-off quantities with the waste and laps of the take-off assumptions, in the project's units.",
+    fontSize: 8,
+    color: MUTED,
+    margin: [0, 4, 0, 6],
+  });
+
+  out.push({ text: `Estimate (${cur})`, style: 'h2', color: accent });
+  out.push({
+    table: {
+      headerRows: 1,
+      widths: ['*', 52, 34, 62, 72],
+      body: [
+        [
+          th('Item'),
+          th('Quantity', 'right'),
+          th('Unit'),
+          th(`Rate (${cur})`, 'right'),
+          th(`Amount (${cur})`, 'right'),
+        ],
+        ...cost.lines.map((l) => [
+          {
+            text: [
+              { text: `${takeoffLineLabel(l.key)}: ` },
+              { text: `${l.code} ${l.description}`, color: SLATE },
+              ...(l.override
+                ? [{ text: ` (quantity set: ${l.override.reason})`, italics: true }]
+                : []),
+            ],
+          },
+          right(quantityText(l.quantityUsed)),
+          l.unit,
+          right(l.unitPrice.toLocaleString('en-US', { maximumFractionDigits: 2 })),
+          right(moneyText(l.amount)),
+        ]),
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    fontSize: 8.5,
+  });
+  const s = cost.settings;
+  const p = s.percentages;
+  const a = totals.accuracy;
+  const sum = (label: string, value: number, bold = false): Node[] => [
+    { text: label, color: bold ? undefined : SLATE, bold },
+    right(`${cur} ${moneyText(value)}`, { bold }),
+  ];
+  const summary: Node[] = [];
+  summary.push({
+    table: {
+      widths: ['*', 120],
+      body: [
+        sum('Direct cost', totals.direct),
+        sum(`Located cost (location factor × ${s.locationFactor})`, totals.located),
+        sum(`Mobilisation (${pctText(p.mobilisation)} of located cost)`, totals.mobilisation),
+        sum(`Care of water (${pctText(p.careOfWater)} of located cost)`, totals.careOfWater),
+        sum(`Contingency (${pctText(p.contingency)})`, totals.contingency),
+        sum(`Overhead and profit (${pctText(p.overheadAndProfit)})`, totals.overheadAndProfit),
+        sum(
+          `Escalation (${pctText(s.escalation.annualRate)} a year for ${s.escalation.years} years, compounded)`,
+          totals.escalation,
+        ),
+        sum('Total', totals.total, true),
+        [
+          {
+            text: `Accuracy range, AACE Class ${a.aaceClass} (${pctText(a.lowPct)} to +${pctText(a.highPct)})`,
+            bold: true,
+          },
+          right(`${cur} ${moneyText(a.low)} to ${moneyText(a.high)}`, { bold: true }),
+        ],
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    margin: [0, 8, 0, 4],
+  });
+  // the totals and the range stay on one page
+  out.push({ stack: summary, unbreakable: true });
+  // the lines left out, grouped by why (most often: no price-book item chosen)
+  const byReason = new Map<string, string[]>();
+  for (const u of cost.unpriced)
+    byReason.set(u.reason, [...(byReason.get(u.reason) ?? []), takeoffLineLabel(u.key)]);
+  for (const [reason, keys] of byReason)
+    out.push({
+      text: [{ text: `Not priced — ${reason.replace(/\.$/, '')}: `, bold: true }, keys.join('; ')],
+      fontSize: 8,
+      color: SLATE,
+      margin: [0, 2, 0, 2],
+    });
+  out.push({
+    text: [
+      `Unit rates come from the firm's price book "${book.name}" (${cur}), not from Basinwright. `,
+      `Order of the amounts: ${cost.steps.join('; ')}. `,
+      `Accuracy classes: ${a.source}.`,
+    ].join(''),
+    fontSize: 8,
+    color: MUTED,
+    margin: [0, 4, 0, 6],
+  });
+  return out;
+}
 
 /**
  * The proposal's pdfmake document definition. `maxPages` is checked by the caller from the
@@ -591,44 +758,56 @@ export function proposalDocument(source: ProposalSource): {
     });
 
   // ——— Quantities and cost
-  content.push(heading('Quantities and cost', accent));
-  if (design) {
-    const c = design.concrete;
-    const V = UNIT_LABELS.volume[units];
-    content.push({
-      table: {
-        headerRows: 1,
-        widths: ['*', 100],
-        body: [
-          [
-            { text: 'Concrete by element (neat line)', style: 'th' },
-            { text: `Volume (${V})`, style: 'th', alignment: 'right' },
-          ],
-          ...(
+  const cost = source.cost;
+  const priced = cost !== null && cost.totals !== null && cost.priceBook !== null;
+  // a priced section (take-off and estimate) is long: it starts on its own page
+  content.push(heading('Quantities and cost', accent, priced));
+  if (cost !== null && cost.totals !== null && cost.priceBook !== null)
+    content.push(...costSection(cost, cost.totals, cost.priceBook, units, accent));
+  else {
+    if (design) {
+      const c = design.concrete;
+      const V = UNIT_LABELS.volume[units];
+      content.push({
+        table: {
+          headerRows: 1,
+          widths: ['*', 100],
+          body: [
             [
-              ['Floor slab', c.slab],
-              ['Walls', c.walls],
-              ['Wingwalls', c.wingwalls],
-              ['Cutoffs', c.cutoffs],
-              ['Blocks', c.blocks],
-              ['End sill', c.sill],
-            ] as [string, number][]
-          ).map(([k, v]) => [k, { text: f.num(v, 'volume'), alignment: 'right' }]),
-          [
-            { text: 'Total', bold: true },
-            { text: f.num(c.total, 'volume'), alignment: 'right', bold: true },
+              { text: 'Concrete by element (neat line)', style: 'th' },
+              { text: `Volume (${V})`, style: 'th', alignment: 'right' },
+            ],
+            ...(
+              [
+                ['Floor slab', c.slab],
+                ['Walls', c.walls],
+                ['Wingwalls', c.wingwalls],
+                ['Cutoffs', c.cutoffs],
+                ['Blocks', c.blocks],
+                ['End sill', c.sill],
+              ] as [string, number][]
+            ).map(([k, v]) => [k, { text: f.num(v, 'volume'), alignment: 'right' }]),
+            [
+              { text: 'Total', bold: true },
+              { text: f.num(c.total, 'volume'), alignment: 'right', bold: true },
+            ],
           ],
-        ],
-      },
-      layout: 'lightHorizontalLines',
+        },
+        layout: 'lightHorizontalLines',
+      });
+      content.push({
+        text: `Basis: ${c.basis}.`,
+        fontSize: 8,
+        color: MUTED,
+        margin: [0, 4, 0, 6],
+      });
+    }
+    content.push({
+      text: 'Quantities and cost: not priced yet. The full take-off (reinforcement, formwork, excavation, backfill, riprap and bedding) and the estimate with its accuracy range are not part of this version.',
+      bold: true,
+      color: SLATE,
     });
-    content.push({ text: `Basis: ${c.basis}.`, fontSize: 8, color: MUTED, margin: [0, 4, 0, 6] });
   }
-  content.push({
-    text: 'Quantities and cost: not priced yet. The full take-off (reinforcement, formwork, excavation, backfill, riprap and bedding) and the estimate with its accuracy range are not part of this version.',
-    bold: true,
-    color: SLATE,
-  });
 
   // ——— Warnings and cautions
   content.push(heading('Warnings and cautions', accent, true));

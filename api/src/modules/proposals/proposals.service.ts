@@ -9,6 +9,7 @@ import { logger } from '../../logger';
 import { sendMail } from '../../mail';
 import { DesignVersion, Firm, Project, Proposal, ProposalEmail, User } from '../../models';
 import { isUuid } from '../../security';
+import { issuedEstimateFor, issuedEstimates } from '../estimates/estimates.service';
 import { getProject } from '../projects/projects.service';
 import type { ProposalBrand, ProposalSource } from './proposal.document';
 import { renderInWorker } from './proposal.pool';
@@ -141,6 +142,7 @@ export async function proposalSource(proposal: Proposal, now: Date): Promise<Pro
   ]);
   if (firm === null || project === null || version === null)
     throw new Error('the proposal’s firm, project or version is gone');
+  const cost = issuedEstimateFor(await issuedEstimates(firm.id, project.id), version);
   return {
     firm: {
       name: firm.name,
@@ -172,6 +174,7 @@ export async function proposalSource(proposal: Proposal, now: Date): Promise<Pro
       jurisdiction: version.reviewerJurisdiction,
       statement: version.reviewerStatement,
     },
+    cost,
     generatedAt: now,
   };
 }

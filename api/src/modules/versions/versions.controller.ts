@@ -3,6 +3,13 @@ import type { ReviewApproveInput, ReviewReturnInput, VersionIssueInput } from '@
 import { authOf } from '../../middlewares/auth';
 import { presentVersion, presentVersionList } from './versions.presenter';
 import * as versions from './versions.service';
+import type { DesignVersion } from '../../models';
+
+/** A version as the API shows it, its cost filled in from the issued estimates. */
+async function present(version: DesignVersion, latest: number) {
+  const costs = await versions.costsOf(version.firmId, version.projectId, [version]);
+  return presentVersion(version, latest, costs.get(version.id) ?? null);
+}
 
 type VersionParams = { id: string; versionId: string };
 
@@ -13,7 +20,8 @@ export async function list(req: Request<{ id: string }>, res: Response): Promise
     status,
     reviewer,
   } = await versions.listVersions(firm.id, req.params.id, user.id);
-  res.json(presentVersionList(items, status, reviewer));
+  const costs = await versions.costsOf(firm.id, req.params.id, items);
+  res.json(presentVersionList(items, status, reviewer, costs));
 }
 
 export async function issue(req: Request<{ id: string }>, res: Response): Promise<void> {
@@ -22,13 +30,13 @@ export async function issue(req: Request<{ id: string }>, res: Response): Promis
     req.params.id,
     req.body as VersionIssueInput,
   );
-  res.status(201).json(presentVersion(version, latest));
+  res.status(201).json(await present(version, latest));
 }
 
 export async function read(req: Request<VersionParams>, res: Response): Promise<void> {
   const { id, versionId } = req.params;
   const { version, latest } = await versions.getVersion(authOf(req).firm.id, id, versionId);
-  res.json(presentVersion(version, latest));
+  res.json(await present(version, latest));
 }
 
 export async function refuseChange(req: Request<VersionParams>): Promise<void> {
@@ -38,7 +46,7 @@ export async function refuseChange(req: Request<VersionParams>): Promise<void> {
 export async function send(req: Request<VersionParams>, res: Response): Promise<void> {
   const { id, versionId } = req.params;
   const { version, latest } = await versions.sendForReview(authOf(req).user, id, versionId);
-  res.json(presentVersion(version, latest));
+  res.json(await present(version, latest));
 }
 
 export async function approve(req: Request<VersionParams>, res: Response): Promise<void> {
@@ -51,7 +59,7 @@ export async function approve(req: Request<VersionParams>, res: Response): Promi
     'approve',
     body,
   );
-  res.json(presentVersion(version, latest));
+  res.json(await present(version, latest));
 }
 
 export async function giveBack(req: Request<VersionParams>, res: Response): Promise<void> {
@@ -64,5 +72,5 @@ export async function giveBack(req: Request<VersionParams>, res: Response): Prom
     'return',
     body,
   );
-  res.json(presentVersion(version, latest));
+  res.json(await present(version, latest));
 }

@@ -45,7 +45,21 @@ export interface VersionView extends VersionSummary {
   computedAt: string;
 }
 
-export function presentVersionSummary(v: DesignVersion, latestNumber: number): VersionSummary {
+/**
+ * The stored figures with the cost filled in: `cost` is the total of the latest issued estimate
+ * priced from this version's result (null: none was, and the figures say 'not_priced').
+ */
+export function figuresWithCost(v: DesignVersion, cost: number | null): VersionFigures {
+  return cost === null
+    ? { ...v.figures, cost: null, costStatus: 'not_priced' }
+    : { ...v.figures, cost, costStatus: 'priced' };
+}
+
+export function presentVersionSummary(
+  v: DesignVersion,
+  latestNumber: number,
+  cost: number | null = null,
+): VersionSummary {
   const superseded = v.number < latestNumber;
   return {
     id: v.id,
@@ -53,7 +67,7 @@ export function presentVersionSummary(v: DesignVersion, latestNumber: number): V
     number: v.number,
     designRevision: v.designRevision,
     engineVersion: v.engineVersion,
-    figures: v.figures,
+    figures: figuresWithCost(v, cost),
     note: v.note,
     issuedBy: { id: v.issuedById, name: v.issuedByName },
     issuedAt: v.issuedAt.toISOString(),
@@ -76,9 +90,13 @@ export function presentVersionSummary(v: DesignVersion, latestNumber: number): V
   };
 }
 
-export function presentVersion(v: DesignVersion, latestNumber: number): VersionView {
+export function presentVersion(
+  v: DesignVersion,
+  latestNumber: number,
+  cost: number | null = null,
+): VersionView {
   return {
-    ...presentVersionSummary(v, latestNumber),
+    ...presentVersionSummary(v, latestNumber, cost),
     input: v.input,
     options: v.options,
     result: v.result,
@@ -97,7 +115,12 @@ export function presentVersionList(
   versions: DesignVersion[],
   status: DesignStatus,
   reviewer: boolean,
+  costs: Map<string, number> = new Map(),
 ): VersionList {
   const latest = versions[0]?.number ?? 0;
-  return { items: versions.map((v) => presentVersionSummary(v, latest)), status, reviewer };
+  return {
+    items: versions.map((v) => presentVersionSummary(v, latest, costs.get(v.id) ?? null)),
+    status,
+    reviewer,
+  };
 }

@@ -13,6 +13,7 @@ import { conflict, forbidden, notFound, StaleCopyError } from '../../errors';
 import { Design, DesignVersion, ReviewerCredential, sequelize, User } from '../../models';
 import { isUuid } from '../../security';
 import { recordAudit } from '../audit/audit.service';
+import { issuedEstimateFor, issuedEstimates } from '../estimates/estimates.service';
 import { presentDesign } from '../designs/designs.presenter';
 import { getProject } from '../projects/projects.service';
 
@@ -46,6 +47,25 @@ export async function listVersions(
   });
   const reviewer = (await ReviewerCredential.count({ where: { firmId, userId } })) > 0;
   return { versions, status: designStatusOf(versions[0]?.reviewState ?? null), reviewer };
+}
+
+/**
+ * The cost of each version that an issued estimate was priced from: version id → the latest
+ * such revision's total (versions nobody priced are left out).
+ */
+export async function costsOf(
+  firmId: string,
+  projectId: string,
+  versions: DesignVersion[],
+): Promise<Map<string, number>> {
+  const costs = new Map<string, number>();
+  if (versions.length === 0) return costs;
+  const estimates = await issuedEstimates(firmId, projectId);
+  for (const v of versions) {
+    const total = issuedEstimateFor(estimates, v)?.totals?.total;
+    if (total !== undefined) costs.set(v.id, total);
+  }
+  return costs;
 }
 
 /** One issued version of one of the firm's projects, and the project's latest number. */
