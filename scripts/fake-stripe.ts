@@ -2,7 +2,7 @@
 // API calls through the official `stripe` SDK (api/src/modules/billing/billing.stripe.ts):
 // customers, seeded products and per-seat prices, Checkout Sessions (subscription mode, one
 // line with a quantity) with a hosted page of our own that completes, declines or cancels,
-// subscriptions (retrieve, quantity change with proration, cancel at period end, resume),
+// subscriptions (retrieve, quantity or price change with proration, cancel at period end, resume),
 // invoices (list, preview of the next one), a billing-portal page, and webhook delivery signed
 // exactly as the real service signs (`t=…,v1=HMAC-SHA256(secret, "${t}.${body}")`) with retries
 // and back-off. Requests are form-encoded (`a[b][0]=c`) as the real API's are; answers JSON.
@@ -366,26 +366,52 @@ export async function startFakeStripe(options: FakeStripeOptions): Promise<FakeS
           'invalid_request_error',
           'items[0][id]',
         );
-      const next = int(wanted.quantity, 'items[0][quantity]');
-      if (next !== quantity) {
+      const next =
+        wanted.quantity === undefined ? quantity : int(wanted.quantity, 'items[0][quantity]');
+      // A new price on the same item (a change of plan); the quantity stays unless also given.
+      const priceId = str(wanted, 'price');
+      const nextPrice = priceId === undefined ? price : need<Obj>(state.prices, priceId, 'price');
+      const samePrice = nextPrice.id === price.id;
+      if (next !== quantity || !samePrice) {
         const behavior = str(body, 'proration_behavior') ?? 'create_prorations';
         if (behavior !== 'none') {
           // Proration of the rest of the period, to the second (the real service's default rule).
           const left = Math.max(0, (item.current_period_end as number) - now());
-          const amount = Math.round(
-            ((next - quantity) * (price.unit_amount as number) * left) / PERIOD,
-          );
-          const line: Obj = {
-            object: 'line_item',
-            description: `${next > quantity ? 'Added' : 'Removed'} ${Math.abs(next - quantity)} × ${String(price.nickname)} for the rest of the period`,
-            amount,
-            quantity: next - quantity,
-            proration: true,
-          };
-          if (behavior === 'always_invoice') makeInvoice(sub, [line], true, 'subscription_update');
-          else (state.pending[sub.id as string] ??= []).push(line);
+          const rest = (seats: number, p: Obj) =>
+            Math.round((seats * (p.unit_amount as number) * left) / PERIOD);
+          const lines: Obj[] = samePrice
+            ? [
+                {
+                  object: 'line_item',
+                  description: `${next > quantity ? 'Added' : 'Removed'} ${Math.abs(next - quantity)} × ${String(price.nickname)} for the rest of the period`,
+                  amount: rest(next - quantity, price),
+                  quantity: next - quantity,
+                  proration: true,
+                },
+              ]
+            : [
+                // A change of price: the unused time of the old lines is credited and the rest
+                // of the period charged at the new price.
+                {
+                  object: 'line_item',
+                  description: `Unused time on ${quantity} × ${String(price.nickname)}`,
+                  amount: -rest(quantity, price),
+                  quantity,
+                  proration: true,
+                },
+                {
+                  object: 'line_item',
+                  description: `Remaining time on ${next} × ${String(nextPrice.nickname)}`,
+                  amount: rest(next, nextPrice),
+                  quantity: next,
+                  proration: true,
+                },
+              ];
+          if (behavior === 'always_invoice') makeInvoice(sub, lines, true, 'subscription_update');
+          else (state.pending[sub.id as string] ??= []).push(...lines);
         }
         item.quantity = next;
+        item.price = nextPrice;
       }
     }
     const cancel = str(body, 'cancel_at_period_end');

@@ -195,6 +195,8 @@ export {
   SEARCH_LIMITS,
   type SeatChangeInput,
   seatChangeSchema,
+  type PlanChangeInput,
+  planChangeSchema,
   seatLimit,
   sectionSchema,
   type SignupInput,

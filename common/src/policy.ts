@@ -29,6 +29,7 @@ export const POLICY = {
   'billing.read': ['owner', 'admin'],
   'billing.checkout': ['owner'],
   'billing.seats': ['owner'],
+  'billing.plan': ['owner'],
   'billing.cancel': ['owner'],
   'billing.resume': ['owner'],
   'billing.portal': ['owner'],

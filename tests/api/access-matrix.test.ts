@@ -12,6 +12,7 @@ import {
   TEST_PASSWORD,
 } from '../support/api-app';
 import { fakePaymentsForFile } from '../support/fake-payments';
+import { FAKE_PRICES } from '../../scripts/fake-stripe';
 
 let firmId = '';
 let ownerId = '';
@@ -775,6 +776,23 @@ const routes: RouteCase[] = [
         body: { seats: 999 },
         changed: async () =>
           (await pay.stripe.subscriptions.retrieve(sub ?? '')).items.data[0]?.quantity === 999,
+      };
+    },
+  },
+  {
+    action: 'billing.plan',
+    method: 'patch',
+    path: '/billing/plan',
+    success: 202,
+    prepare: async () => {
+      // Subscribed on Firm (1000 seats): moving to Professional keeps the seats.
+      const sub = await subscribed(true);
+      return {
+        url: '/billing/plan',
+        body: { plan: 'professional' },
+        changed: async () =>
+          (await pay.stripe.subscriptions.retrieve(sub ?? '')).items.data[0]?.price.id ===
+          FAKE_PRICES.professional.id,
       };
     },
   },

@@ -376,6 +376,75 @@ describe('the owner buys, adds a seat, cancels and resumes through the stand-in'
     expect((await firmRow(owner.firm.id)).seats).toBe(3);
   });
 
+  it('switching plan: Firm needs 3 seats; the stand-in changes the price, the webhook the plan', async () => {
+    const sub = (await firmRow(owner.firm.id)).stripeSubscriptionId ?? '';
+    const priceAt = async () =>
+      (await pay.stripe.subscriptions.retrieve(sub)).items.data[0]?.price.id;
+    // Fewer than the Firm plan's three seats (product brief's plan table): 409, nothing asked.
+    const few = await h
+      .http()
+      .patch('/api/v1/billing/plan')
+      .set(bearer(owner.token))
+      .send({ plan: 'firm', seats: 2 });
+    expect(few.status).toBe(409);
+    expect(few.body.message).toMatch(/at least 3 seats/);
+    expect(await priceAt()).toBe(FAKE_PRICES.professional.id);
+    // The plan already held: 409.
+    const same = await h
+      .http()
+      .patch('/api/v1/billing/plan')
+      .set(bearer(owner.token))
+      .send({ plan: 'professional' });
+    expect(same.status).toBe(409);
+
+    // Events held back: the route changes the subscription only, never the firm.
+    const { port } = server.address() as AddressInfo;
+    pay.fake.setWebhookUrl(`http://127.0.0.1:${port}/api/v1/billing/not-here`);
+    const before = pay.fake.deliveries.length;
+    const up = await h
+      .http()
+      .patch('/api/v1/billing/plan')
+      .set(bearer(owner.token))
+      .send({ plan: 'firm' });
+    expect(up.status, JSON.stringify(up.body)).toBe(202);
+    expect(up.body.requested).toEqual({ plan: 'firm', seats: 3 });
+    expect(await priceAt()).toBe(FAKE_PRICES.firm.id);
+    const updated = () =>
+      pay.fake.deliveries
+        .slice(before)
+        .find((d) => d.event.type === 'customer.subscription.updated');
+    await waitUntil('a refused try', async () => (updated()?.attempts ?? 0) >= 1);
+    expect((await firmRow(owner.firm.id)).plan).toBe('professional');
+    pay.fake.setWebhookUrl(`http://127.0.0.1:${port}/api/v1/billing/webhook`);
+    await waitUntil('the Firm plan', async () => (await firmRow(owner.firm.id)).plan === 'firm');
+    expect((await firmRow(owner.firm.id)).seats).toBe(3);
+    // The change is prorated at once: an invoice crediting the unused Professional time and
+    // charging the rest of the period on Firm, so it is more than 0 and at most the difference of
+    // a whole period (a fact of proration: part of a period never costs more than the whole).
+    const customer = (await firmRow(owner.firm.id)).stripeCustomerId ?? '';
+    const invoices = (await pay.stripe.invoices.list({ customer })).data;
+    const change = invoices.find(
+      (i) => i.billing_reason === 'subscription_update' && i.lines.data.length === 2,
+    );
+    expect(change).toBeDefined();
+    const diff = 3 * (FAKE_PRICES.firm.unitAmount - FAKE_PRICES.professional.unitAmount);
+    expect(change?.amount_due).toBeGreaterThan(0);
+    expect(change?.amount_due).toBeLessThanOrEqual(diff);
+
+    // And back to Professional (seats kept).
+    const down = await h
+      .http()
+      .patch('/api/v1/billing/plan')
+      .set(bearer(owner.token))
+      .send({ plan: 'professional' });
+    expect(down.status).toBe(202);
+    await waitUntil(
+      'the Professional plan',
+      async () => (await firmRow(owner.firm.id)).plan === 'professional',
+    );
+    expect((await firmRow(owner.firm.id)).seats).toBe(3);
+  });
+
   it('cancel at the period end, then resume', async () => {
     const cancel = await h.http().post('/api/v1/billing/cancel').set(bearer(owner.token)).send({});
     expect(cancel.status).toBe(202);

@@ -2,7 +2,7 @@ import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
 import { neutralise, unneutralise } from '../../api/src/modules/price-books/price-books.files';
 import { parsePrice } from '../../api/src/modules/price-books/price-books.mapping';
-import { bearer, signUpFirm, apiForFile } from '../support/api-app';
+import { bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 // The import's edge cases, each a clear 4xx or per-row error with nothing written.
 
@@ -11,6 +11,9 @@ let bookId = '';
 
 const h = apiForFile(async () => {
   const firm = await signUpFirm(h, 'pb-import');
+  // Importing needs a paid plan and these tests make many books: the Firm plan allows both
+  // (price-books-plan.test.ts tests the refusals).
+  await setPlan(h, firm.firm.id, 'firm', 10);
   token = firm.token;
 });
 

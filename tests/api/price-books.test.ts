@@ -1,6 +1,6 @@
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
-import { addMember, bearer, signUpFirm, apiForFile } from '../support/api-app';
+import { addMember, bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
 
 const h = apiForFile();
 
@@ -65,6 +65,8 @@ describe('price books: create, edit, copy, archive', () => {
 
   it('copies a book with its items; archives, refuses changes while archived, restores', async () => {
     const firm = await signUpFirm(h, 'pb-copy');
+    // A copy is a second book: the Firm plan allows several (price-books-plan.test.ts tests the caps).
+    await setPlan(h, firm.firm.id, 'firm', 10);
     const book = await bookWithItems(firm.token);
     const copy = await h.http().post(`/api/v1/price-books/${book.id}/copy`).set(bearer(firm.token));
     expect(copy.status).toBe(201);

@@ -127,6 +127,38 @@ describe('BillingView', () => {
     wrapper.unmount();
   });
 
+  it('moves a subscribed Professional firm to Firm with at least 3 seats, shown once confirmed', async () => {
+    let plan: 'professional' | 'firm' = 'professional';
+    let paid = 2;
+    const current = () =>
+      summary({
+        plan,
+        planName: plan === 'firm' ? 'Firm' : 'Professional',
+        seats: { paid, used: 2 },
+        subscription: { cancelAtPeriodEnd: false, currentPeriodEnd: '2027-01-01T00:00:00.000Z' },
+      });
+    const { wrapper, api } = await mountAs('owner', {
+      'GET /billing': () => ({ status: 200, body: current() }),
+      'PATCH /billing/plan': (init) => {
+        const body = JSON.parse(String(init.body)) as { plan: 'firm'; seats: number };
+        plan = body.plan;
+        paid = body.seats;
+        return { status: 202, body: { requested: body } };
+      },
+    });
+    const offer = wrapper.find('[data-test="billing-switch"]');
+    // The Firm plan's minimum is 3 seats (product brief's plan table); 3 × 59.00 a month.
+    expect(offer.text()).toContain('3 seats');
+    expect(offer.text()).toContain('177.00');
+    await wrapper.find('[data-test="billing-switch-plan"]').trigger('click');
+    await vi.waitFor(() => expect(wrapper.find('[data-test="billing-plan"]').text()).toBe('Firm'));
+    const patch = api.calls.find((c) => c.method === 'PATCH' && c.path === '/billing/plan');
+    expect(JSON.parse(String(patch?.init.body))).toEqual({ plan: 'firm', seats: 3 });
+    // Now on Firm, the page offers the way back.
+    expect(wrapper.find('[data-test="billing-switch-plan"]').text()).toContain('Professional');
+    wrapper.unmount();
+  });
+
   it('tells the owner of a past-due firm when the grace ends, and that nothing is deleted', async () => {
     const { wrapper } = await mountAs('owner', {
       'GET /billing': {

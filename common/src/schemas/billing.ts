@@ -25,3 +25,12 @@ export type CheckoutInput = InferType<typeof checkoutSchema>;
 
 export const seatChangeSchema = object({ seats: seatsField });
 export type SeatChangeInput = InferType<typeof seatChangeSchema>;
+
+/** A change of paid plan while subscribed; seats kept (raised to the plan's minimum) when absent. */
+export const planChangeSchema = object({
+  plan: string<PaidPlan>()
+    .required('Choose a plan.')
+    .oneOf(PAID_PLANS, 'Choose Professional or Firm.'),
+  seats: seatsField.optional().default(undefined),
+});
+export type PlanChangeInput = InferType<typeof planChangeSchema>;

@@ -85,6 +85,8 @@ export {
   type PaidPlan,
   type SeatChangeInput,
   seatChangeSchema,
+  type PlanChangeInput,
+  planChangeSchema,
 } from './billing';
 export { takeoffOverrideBounds, takeoffOverridesSchema } from './takeoff';
 export { type CheapestRequest, cheapestRequestSchema } from './search';

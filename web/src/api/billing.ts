@@ -35,6 +35,11 @@ export const billingApi = {
     request<{ url: string }>('/billing/checkout', { method: 'POST', body }),
   changeSeats: (seats: number) =>
     request<{ requested: number }>('/billing/seats', { method: 'PATCH', body: { seats } }),
+  changePlan: (body: { plan: PaidPlan; seats?: number }) =>
+    request<{ requested: { plan: PaidPlan; seats: number } }>('/billing/plan', {
+      method: 'PATCH',
+      body,
+    }),
   cancel: () => request<{ cancelAtPeriodEnd: boolean }>('/billing/cancel', { method: 'POST' }),
   resume: () => request<{ cancelAtPeriodEnd: boolean }>('/billing/resume', { method: 'POST' }),
   portal: () => request<{ url: string }>('/billing/portal', { method: 'POST' }),

@@ -44,6 +44,12 @@ export function useBilling() {
     return waitFor((s) => s.seats.paid === seats);
   }
 
+  /** Professional ↔ Firm while subscribed; confirmed when the summary shows the new plan. */
+  async function changePlan(plan: PaidPlan, seats: number): Promise<boolean> {
+    await billingApi.changePlan({ plan, seats });
+    return waitFor((s) => s.plan === plan && s.seats.paid === seats);
+  }
+
   async function setCancelled(cancel: boolean): Promise<boolean> {
     await (cancel ? billingApi.cancel() : billingApi.resume());
     return waitFor((s) => s.subscription?.cancelAtPeriodEnd === cancel);
@@ -54,5 +60,5 @@ export function useBilling() {
     window.location.assign(url);
   }
 
-  return { ...resource, waitFor, checkout, changeSeats, setCancelled, openPortal };
+  return { ...resource, waitFor, checkout, changeSeats, changePlan, setCancelled, openPortal };
 }

@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import type { CheckoutInput, SeatChangeInput } from '@basinwright/common';
+import type { CheckoutInput, PlanChangeInput, SeatChangeInput } from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
 import * as billing from './billing.service';
 import { processEvent, verifiedEvent } from './billing.webhook';
@@ -17,6 +17,10 @@ export async function seats(req: Request, res: Response): Promise<void> {
   res
     .status(202)
     .json(await billing.changeSeats(authOf(req).user, (req.body as SeatChangeInput).seats));
+}
+
+export async function plan(req: Request, res: Response): Promise<void> {
+  res.status(202).json(await billing.changePlan(authOf(req).user, req.body as PlanChangeInput));
 }
 
 export async function cancel(req: Request, res: Response): Promise<void> {

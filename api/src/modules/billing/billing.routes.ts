@@ -1,5 +1,5 @@
 import express, { Router } from 'express';
-import { checkoutSchema, seatChangeSchema } from '@basinwright/common';
+import { checkoutSchema, planChangeSchema, seatChangeSchema } from '@basinwright/common';
 import { guard } from '../../middlewares/auth';
 import { validate } from '../../middlewares/validate';
 import * as controller from './billing.controller';
@@ -32,6 +32,7 @@ export function billingRouter(): Router {
     controller.checkout,
   );
   router.patch('/seats', guard('billing.seats'), validate(seatChangeSchema), controller.seats);
+  router.patch('/plan', guard('billing.plan'), validate(planChangeSchema), controller.plan);
   router.post('/cancel', guard('billing.cancel'), controller.cancel);
   router.post('/resume', guard('billing.resume'), controller.resume);
   router.post('/portal', guard('billing.portal'), controller.portal);

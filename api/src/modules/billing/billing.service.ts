@@ -1,4 +1,10 @@
-import { minimumSeats, planName, type CheckoutInput, type Plan } from '@basinwright/common';
+import {
+  minimumSeats,
+  planName,
+  type CheckoutInput,
+  type Plan,
+  type PlanChangeInput,
+} from '@basinwright/common';
 import type Stripe from 'stripe';
 import { getConfig } from '../../config/env';
 import { conflict } from '../../errors';
@@ -206,6 +212,36 @@ export async function changeSeats(owner: User, seats: number): Promise<{ request
     }),
   );
   return { requested: seats };
+}
+
+/**
+ * Moves a subscribed firm to the other paid plan (Professional ↔ Firm): the payment service
+ * changes the subscription's price (and seats, when the new plan needs more), prorated and
+ * invoiced at once; the firm's plan changes when its webhook says so, never here. Seats are
+ * kept unless given, raised to the new plan's minimum (Firm: 3), never below the seats in use.
+ */
+export async function changePlan(
+  owner: User,
+  input: PlanChangeInput,
+): Promise<{ requested: { plan: Plan; seats: number } }> {
+  const firm = await Firm.findByPk(owner.firmId);
+  if (firm === null) throw new Error('firm vanished');
+  const sub = await subscriptionOf(firm.id);
+  const item = sub.items.data[0];
+  if (item === undefined) throw conflict('The subscription has no seat line to change.');
+  if (sub.status === 'canceled') throw conflict('The subscription has ended: upgrade again.');
+  const { prices } = getConfig().stripe;
+  if (item.price.id === prices[input.plan])
+    throw conflict(`The firm is already on the ${planName(input.plan)} plan.`);
+  const seats = input.seats ?? Math.max(item.quantity ?? 1, minimumSeats(input.plan));
+  refuseFewerSeats(input.plan, seats, await seatsTaken(firm.id));
+  await paymentCall(() =>
+    stripe().subscriptions.update(sub.id, {
+      items: [{ id: item.id, price: prices[input.plan], quantity: seats }],
+      proration_behavior: 'always_invoice',
+    }),
+  );
+  return { requested: { plan: input.plan, seats } };
 }
 
 /** Cancels at the end of the paid period (true) or takes that back (false). */

@@ -6,6 +6,7 @@ import type {
   PriceItemsInput,
 } from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
+import { requirePriceBookImport } from '../plans/plans.service';
 import { readSheet, writeCsv, writeXlsx } from './price-books.files';
 import { presentItem, presentPriceBook, presentPriceBookWithItems } from './price-books.presenter';
 import * as books from './price-books.service';
@@ -48,6 +49,7 @@ export async function copy(req: Request<{ id: string }>, res: Response): Promise
 export async function preview(req: Request, res: Response): Promise<void> {
   // spreadsheetUpload() has checked the file is there.
   const file = req.file as Express.Multer.File;
+  requirePriceBookImport(authOf(req).firm);
   const mapping = mappingField(req.body, false);
   const table = await readSheet(file.buffer, file.originalname);
   res.json(books.previewImport(table, mapping));
@@ -59,6 +61,8 @@ export async function importItems(req: Request<{ id: string }>, res: Response): 
   const mode = modeField(req.body);
   // The book is looked up first so another firm's id is a 404 whatever the file holds.
   await books.getPriceBook(authOf(req).firm.id, req.params.id);
+  // Checked again under the firm's lock when the rows are written.
+  requirePriceBookImport(authOf(req).firm);
   const table = await readSheet(file.buffer, file.originalname);
   const result = await books.importPriceBookItems(
     authOf(req).firm.id,

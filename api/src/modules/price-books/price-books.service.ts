@@ -9,6 +9,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { conflict, notFound, validationError } from '../../errors';
 import { PriceBook, PriceBookItem, sequelize, type User } from '../../models';
 import { isUuid } from '../../security';
+import { lockFirm } from '../members/members.service';
+import { requireAnotherPriceBook, requirePriceBookImport } from '../plans/plans.service';
 import type { SheetTable } from './price-books.files';
 import {
   mapRows,
@@ -18,8 +20,9 @@ import {
   type RowError,
 } from './price-books.mapping';
 
-// Every way a price book comes to be or grows (create, copy, import) is in this file, so a plan
-// gate is one line at the top of createPriceBook, copyPriceBook and importPriceBookItems.
+// Every way a price book comes to be or grows (create, copy, import) is in this file, and each
+// passes the plan gate: a new book (create, copy) under the firm's row lock in the insert's
+// transaction, so two requests cannot both take the last place; an import needs the feature.
 
 const NOT_FOUND = 'No such price book.';
 const L = PRICE_BOOK_LIMITS;
@@ -81,12 +84,29 @@ async function lockOpenBook(
   return book;
 }
 
+/**
+ * Refuses (403 plan_limit) one more book when the plan's book cap is reached. Takes the firm's
+ * row lock in `transaction`; the caller inserts the book in the same transaction. Archived books
+ * count: archiving is not deleting, and a restore must not go over the cap.
+ */
+async function requireRoomForBook(firmId: string, transaction: Transaction): Promise<void> {
+  const firm = await lockFirm(firmId, transaction);
+  requireAnotherPriceBook(firm, await PriceBook.count({ where: { firmId }, transaction }));
+}
+
 export async function createPriceBook(
   actor: User,
   input: PriceBookCreateInput,
 ): Promise<PriceBook> {
-  const book = await PriceBook.create({ ...input, firmId: actor.firmId, createdById: actor.id });
-  return getPriceBook(actor.firmId, book.id);
+  const id = await sequelize.transaction(async (transaction) => {
+    await requireRoomForBook(actor.firmId, transaction);
+    const book = await PriceBook.create(
+      { ...input, firmId: actor.firmId, createdById: actor.id },
+      { transaction },
+    );
+    return book.id;
+  });
+  return getPriceBook(actor.firmId, id);
 }
 
 /** Renames, changes the currency or notes, archives or restores (never deletes). */
@@ -157,6 +177,7 @@ export async function replaceItems(
 export async function copyPriceBook(actor: User, id: string): Promise<PriceBook> {
   const copyId = await sequelize.transaction(async (transaction) => {
     const source = await getPriceBook(actor.firmId, id, transaction);
+    await requireRoomForBook(actor.firmId, transaction);
     const copy = await PriceBook.create(
       {
         firmId: actor.firmId,
@@ -240,6 +261,8 @@ export async function importPriceBookItems(
   let added = 0;
   let updated = 0;
   await sequelize.transaction(async (transaction) => {
+    // The plan as it is now (a downgrade may have come after the request was authenticated).
+    requirePriceBookImport(await lockFirm(firmId, transaction));
     const book = await lockOpenBook(firmId, id, transaction);
     const { items, errors } = mapRows(table, mapping, book.currency);
     if (errors.length > 0) {
