@@ -17,7 +17,30 @@ export type InputErrorCode =
   | 'gate-pool-too-shallow'
   | 'above-energy-line'
   | 'not-supercritical'
-  | 'no-floor';
+  | 'no-floor'
+  | 'unknown-option'
+  | 'missing'
+  | 'too-small'
+  | 'not-above'
+  | 'conduit-full'
+  | 'conduit-too-small'
+  | 'conduit-capacity'
+  | 'energy-too-low'
+  | 'head-too-small'
+  | 'gate-not-controlling'
+  | 'needs-rectangular'
+  | 'table-too-short'
+  | 'table-not-increasing'
+  | 'not-steep'
+  | 'not-mild'
+  | 'not-subcritical'
+  | 'steep-no-jump'
+  | 'no-normal-depth'
+  | 'uniform-flow'
+  | 'not-backwater'
+  | 'too-many-blocks'
+  | 'too-many-rows'
+  | 'slab-cannot-hold';
 
 /** An input the engine refuses: `field` is its path in the study input (e.g. `inflow.opening`). */
 export class InputError extends RangeError {

@@ -4,7 +4,7 @@
 // the Bélanger sequent of the supercritical depth equals the subcritical depth. The engine
 // steps in depth (direct step method) — a different discretisation of the same physics.
 import { describe, expect, it } from 'vitest';
-import { G, jumpToeDistance, locateJump, type Section } from '@basinwright/common';
+import { G, jumpNoteText, jumpToeDistance, locateJump, type Section } from '@basinwright/common';
 import { expectRel } from '../support/tolerance';
 import { M, bisect, conj, critical, normal, rk4Until, type Chan } from '../support/gvf-reference';
 
@@ -87,7 +87,13 @@ describe('jump position in a channel (independent RK4 check, 1 cm steps)', () =>
     });
     expect(r.position).toBe('drowned');
     expect(r.distance).toBe(0);
-    expect(r.notes.join(' ')).toMatch(/submerged/);
+    // the notes are data: the drowned jump and the submerged gate, phrased in messages/jump.ts
+    expect(r.notes.map((n) => n.code)).toEqual([
+      'from-vena-contracta',
+      'drowned',
+      'gate-submerged',
+    ]);
+    expect(r.notes.map((n) => jumpNoteText(n, 'US')).join(' ')).toMatch(/submerged/);
     // check: the vena contracta 0.366 m already has less momentum than the tailwater
     const c = chan(0.0005);
     expect(M(c, 0.366)).toBeLessThan(M(c, normal(c)));

@@ -7,6 +7,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   ConduitFullError,
+  InputError,
+  refusalText,
   G,
   MANNING_K_US,
   area,
@@ -492,7 +494,7 @@ describe('RangeError paths', () => {
       /sideSlope/,
     ],
     ['depth above the diameter', () => area({ shape: 'circular', diameter: 1 }, 1.2), /run full/],
-    ['zero discharge', () => criticalDepth(rect(2), 0), /Q \(discharge\)/],
+    ['zero discharge', () => criticalDepth(rect(2), 0), /^Q must be greater than zero/],
     ['subcritical y1 to a jump', () => hydraulicJump(rect(1), 1, 2), /not supercritical/],
     ['subcritical y1 to sequentDepth', () => sequentDepth(rect(1), 1, 2), /not supercritical/],
     ['energy below the minimum', () => supercriticalDepth(rect(1), 5, 1), /below the minimum/],
@@ -568,4 +570,25 @@ describe('RangeError paths', () => {
     expect(f).toThrow(RangeError);
     expect(f).toThrow(message);
   });
+  // Issue 7: every refusal a user can reach is coded (field + code), phrased by refusalText in
+  // both unit systems; only the unit converter's own strings (ours, never typed) stay uncoded.
+  it.each(cases.filter(([name]) => name !== 'unit conversion nonsense'))(
+    '%s: coded, with a sentence in SI and US',
+    (_name, f) => {
+      let caught: unknown;
+      try {
+        f();
+      } catch (e) {
+        caught = e;
+      }
+      expect(caught).toBeInstanceOf(InputError);
+      const e = caught as InputError;
+      expect(e.field.length).toBeGreaterThan(0);
+      for (const units of ['SI', 'US'] as const) {
+        const text = refusalText(e, units);
+        expect(text).not.toMatch(/undefined|NaN|\d\.\d{5,}/);
+        expect(text).toMatch(/^[A-Z]/);
+      }
+    },
+  );
 });

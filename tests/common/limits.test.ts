@@ -71,7 +71,15 @@ describe('the study bounds in the engine (direct callers, SI)', () => {
     const said = notes
       .filter((n) => n.code === 'type-not-designed')
       .map((n) => studyWarningText(n));
-    expect(said.some((n) => /basin ?width: .*one (row|apron) may hold/i.test(n))).toBe(true);
+    // the cause is coded (too-many-blocks) and phrased naming the basin width and the limit
+    expect(
+      notes.some((n) => n.cause?.code === 'too-many-blocks' && n.cause.field === 'basinWidth'),
+    ).toBe(true);
+    expect(
+      said.some((n) =>
+        /the basin width would need [\d,]+ blocks, more than the [\d,]+ allowed/i.test(n),
+      ),
+    ).toBe(true);
   });
 
   it('runStudy refuses more discharges than the limit, naming the field', () => {

@@ -1,7 +1,14 @@
 // Every engine refusal code has a sentence in both unit systems (common/src/messages), and no
 // sentence shows an internal name or a raw float (issue 7, item 4).
 import { describe, expect, it } from 'vitest';
-import { INPUT_ERROR_CODES, InputError, refusalText, runStudy } from '@basinwright/common';
+import {
+  INPUT_ERROR_CODES,
+  InputError,
+  JUMP_NOTE_CODES,
+  jumpNoteText,
+  refusalText,
+  runStudy,
+} from '@basinwright/common';
 import { fenwickDesign } from '../../seed/designs';
 
 // awkward SI quantities of every name the engine quotes (invented)
@@ -18,6 +25,22 @@ const VALUES = {
   min: 0.5,
   max: 2,
   value: 7,
+  depth: 1.23456789,
+  diameter: 2.4384000001,
+  E: 3.33333333,
+  eMin: 3.5123456,
+  H0: 4.56789123,
+  q: 2.87654321,
+  capacity: 12.3456789,
+  yc: 0.98765432,
+  yn: 0.4567891,
+  yToe: 0.6789123,
+  slope: 0.0123456,
+  row: 3,
+  count: 2345,
+  rows: 60,
+  safetyFactor: 1.5,
+  unitWeight: 23.5,
 };
 const FIELDS = ['floorElevation', 'inflow.crestElevation', 'tailwater', 'inflow.opening', 'units'];
 
@@ -31,7 +54,7 @@ describe('refusal sentences', () => {
           expect(text.length, `${code} ${units}`).toBeGreaterThan(15);
           expect(text, `${code} ${units}`).not.toMatch(/undefined|NaN|Infinity/);
           expect(text, `${code} ${units}: raw float`).not.toMatch(/\d\.\d{4,}/);
-          expect(text, `${code} ${units}: internal name`).not.toMatch(/\b[a-z]+[A-Z]\w*/);
+          expect(text, `${code} ${units}: internal name`).not.toMatch(/\b(?!kN\/)[a-z]+[A-Z]\w*/);
           expect(text, `${code} ${units}: a code`).not.toContain(code.includes('-') ? code : '\0');
           if (units === 'US') expect(text, `${code}: metres in US`).not.toMatch(/\d m\b|m³\/s/);
         }
@@ -49,5 +72,23 @@ describe('refusal sentences', () => {
       // one rounding rule (formatQuantity): lengths to the hundredth, discharges to three figures
       expect(refusalText(e, 'SI')).toContain('The gate opening 3.00 m is too large for 5 m³/s');
     }
+  });
+});
+
+describe('jump-position notes', () => {
+  it('every note code has a sentence in SI and US customary; a quoted depth reads in the units', () => {
+    for (const code of JUMP_NOTE_CODES)
+      for (const units of ['SI', 'US'] as const) {
+        const text = jumpNoteText({ code, values: { y1: 0.18300000001 } }, units);
+        expect(text, `${code} ${units}`).toMatch(/^[A-Z].{15,}\.$/);
+        expect(text, `${code} ${units}`).not.toMatch(/undefined|NaN|\d\.\d{4,}/);
+      }
+    // 0.183 m / 0.3048 m/ft = 0.600 ft [NIST SP 811]
+    expect(jumpNoteText({ code: 'from-vena-contracta', values: { y1: 0.183 } }, 'US')).toContain(
+      'Cc·a = 0.60 ft',
+    );
+    expect(jumpNoteText({ code: 'from-vena-contracta', values: { y1: 0.183 } }, 'SI')).toContain(
+      'Cc·a = 0.18 m',
+    );
   });
 });

@@ -1,4 +1,5 @@
 // Rows of blocks across a basin: a whole number of blocks with half a space at each wall.
+import { InputError } from '../errors';
 import { reqPositive } from './guards';
 import { ENGINE_LIMITS } from '../schemas/limits';
 
@@ -39,8 +40,11 @@ export function fitBlockRow(basinWidth: number, blockWidth: number, spacing: num
   const s = reqPositive('spacing', spacing);
   const fits = Math.floor(W / (w + s) + 1e-9);
   if (fits > ENGINE_LIMITS.maxBlocksPerRow)
-    throw new RangeError(
+    throw new InputError(
+      'basinWidth',
+      'too-many-blocks',
       `basinWidth: a row of ${fits} blocks ${w.toPrecision(3)} m wide across ${W} m exceeds the ${ENGINE_LIMITS.maxBlocksPerRow} one row may hold; the basin is far wider than its flow needs`,
+      { count: fits, max: ENGINE_LIMITS.maxBlocksPerRow },
     );
   if (w + s > W * (1 + 1e-9)) {
     const bw = Math.min(w, W / 2);

@@ -1,4 +1,5 @@
 // The catalogue of dissipator types: adding a type means adding its module and one line here.
+import { InputError } from '../errors';
 import type { DissipatorModule, DissipatorTypeId, JumpBasinType } from './types';
 import { usbr1 } from './types/usbr1';
 import { usbr2 } from './types/usbr2';
@@ -34,7 +35,13 @@ export const JUMP_BASIN_TYPES: readonly JumpBasinType[] = [
 /** The module of a type; RangeError naming the argument for an unknown type. */
 export function getDissipator(id: DissipatorTypeId): DissipatorModule {
   const m = DISSIPATOR_CATALOGUE.find((x) => x.id === id);
-  if (!m) throw new RangeError(`type "${String(id)}" is not in the dissipator catalogue`);
+  if (!m)
+    throw new InputError(
+      'type',
+      'unknown-option',
+      `type "${String(id)}" is not in the dissipator catalogue`,
+      {},
+    );
   return m;
 }
 

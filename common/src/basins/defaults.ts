@@ -15,6 +15,7 @@ export interface Provenance {
   unit: string;
 }
 
+import { InputError } from '../errors';
 import { FOOT } from '../units/constants';
 import type { Quantity } from '../warnings';
 
@@ -576,11 +577,19 @@ function resolveOnce(overrides: Partial<BasinDefaults>): BasinDefaults {
   const out: BasinDefaults = { ...BASIN_DEFAULTS };
   for (const [key, value] of Object.entries(overrides)) {
     if (!(key in BASIN_DEFAULTS))
-      throw new RangeError(`defaults.${key} is not a known dissipator default`);
+      throw new InputError(
+        `defaults.${key}`,
+        'unknown-option',
+        `defaults.${key} is not a known dissipator default`,
+        {},
+      );
     if (value === undefined) continue;
     if (typeof value !== 'number' || !Number.isFinite(value) || value < 0) {
-      throw new RangeError(
+      throw new InputError(
+        `defaults.${key}`,
+        'negative',
         `defaults.${key} must be a non-negative finite number (got ${String(value)})`,
+        {},
       );
     }
     out[key as BasinDefaultKey] = value;

@@ -1,5 +1,6 @@
 // The full design of a basin over the whole discharge range: floor, length, width and flare,
 // blocks, sill, walls, wingwalls, cutoffs, slab, riprap, quantities of concrete, warnings.
+import { InputError } from '../errors';
 import { getDissipator } from './catalogue';
 import { listAssumptions, resolveDefaults, type Assumption, type BasinDefaults } from './defaults';
 import { slabFlotation, type FlotationResult } from './flotation';
@@ -160,7 +161,7 @@ export interface JumpDesignInput {
 
 function pickDesignRow<T extends DischargeRow>(rows: readonly T[], Q: number): T {
   const row = designRow(rows, Q);
-  if (!row) throw new RangeError('rows must hold at least one discharge');
+  if (!row) throw new InputError('rows', 'missing', 'rows must hold at least one discharge', {});
   return row;
 }
 
@@ -179,19 +180,13 @@ export function designJumpBasin(
   const zf = reqFinite('floorElevation', input.floorElevation);
   const zb = reqFinite('channelBedElevation', input.channelBedElevation);
   if (!Array.isArray(input.rows) || input.rows.length === 0)
-    throw new RangeError('rows must hold at least one discharge');
+    throw new InputError('rows', 'missing', 'rows must hold at least one discharge', {});
   const m = getDissipator(input.type);
   const rules = jumpRules(input.type);
   const dr = pickDesignRow(input.rows, input.designQ);
   // Every discharge needs only the type's hydraulics (the appurtenances are sized once, below).
   const rows: JumpBasinDesignRow[] = input.rows.map((r) => {
-    const s = jumpBasinHydraulics(
-      rules,
-      W,
-      reqPositive('Q (discharge)', r.Q),
-      reqPositive('y1', r.y1),
-      d,
-    );
+    const s = jumpBasinHydraulics(rules, W, reqPositive('Q', r.Q), reqPositive('y1', r.y1), d);
     const tw = r.tailwaterElevation - zf;
     const req = s.requiredTailwaterDepth;
     return {

@@ -1,5 +1,6 @@
 // Floor slab thickness by flotation: slab weight (plus walls when monolithic, plus water on the
 // slab) against uplift, with a safety factor. Per metre of basin length; SI (m, kN).
+import { InputError } from '../errors';
 import { BASIN_DEFAULTS } from './defaults';
 import { reqFinite, reqNonNegative, reqPositive, roundUp } from './guards';
 import { qty, warn, type StudyWarning } from '../warnings';
@@ -83,8 +84,11 @@ export function slabFlotation(c: FlotationCase): FlotationResult {
   const notes: StudyWarning[] = [];
   const denom = B * (gc - FS * gw * k);
   if (denom <= 0) {
-    throw new RangeError(
+    throw new InputError(
+      'safetyFactor',
+      'slab-cannot-hold',
       `safetyFactor ${FS}: concrete (${gc} kN/m³) cannot outweigh ${FS} × the uplift whatever its thickness; reduce uplift (drains) or anchor the slab`,
+      { safetyFactor: FS, unitWeight: gc },
     );
   }
   const need = Math.max(0, (FS * gw * k * B * H - walls - water) / denom);

@@ -15,8 +15,8 @@ export function freeboard(
   y2: number,
   k: number = BASIN_DEFAULTS.freeboardCoefficient,
 ): number {
-  reqNonNegative('v1 (inflow velocity)', v1);
-  reqNonNegative('y2 (sequent depth)', y2);
+  reqNonNegative('v1', v1);
+  reqNonNegative('y2', y2);
   reqNonNegative('freeboard coefficient', k);
   const feet = k * (v1 / FT + y2 / FT);
   return feet * FT;

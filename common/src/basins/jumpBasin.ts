@@ -1,4 +1,5 @@
 // Sizing of the jump basins (USBR I–IV, SAF) for one discharge: hydraulics.md §4.
+import { InputError } from '../errors';
 import { belangerRatio } from '../hydraulics';
 import { G } from '../units/constants';
 import { getDissipator, isJumpBasinType } from './catalogue';
@@ -58,8 +59,11 @@ export function jumpBasinHydraulics(
   const v1 = q / y1;
   const fr1 = v1 / Math.sqrt(G * y1);
   if (fr1 <= 1)
-    throw new RangeError(
+    throw new InputError(
+      'y1',
+      'not-supercritical',
       `y1 ${y1} m is not supercritical at Q ${Q} m³/s over ${width} m (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
+      { Q, fr1 },
     );
   const y2 = y1 * belangerRatio(fr1);
   const factor = rules.tailwaterFactor(fr1, d);
@@ -76,7 +80,8 @@ export function jumpBasinHydraulics(
 
 export function jumpRules(type: JumpBasinType): JumpRules {
   const rules = getDissipator(type).jump;
-  if (!rules) throw new RangeError(`type "${type}" is not a jump basin`);
+  if (!rules)
+    throw new InputError('type', 'unknown-option', `type "${type}" is not a jump basin`, {});
   return rules;
 }
 
@@ -94,13 +99,16 @@ export function sizeJumpBasin(
   options: SizeJumpBasinOptions = {},
 ): JumpBasinSizing {
   if (!isJumpBasinType(type))
-    throw new RangeError(
+    throw new InputError(
+      'type',
+      'unknown-option',
       `type "${String(type)}" is not a jump basin (usbr-1, usbr-2, usbr-3, usbr-4, saf)`,
+      {},
     );
   if (c === null || typeof c !== 'object')
-    throw new RangeError('sizing input must be an object { width, Q, y1 }');
+    throw new InputError('body', 'invalid', 'sizing input must be an object { width, Q, y1 }', {});
   const width = reqPositive('width', c.width);
-  const Q = reqPositive('Q (discharge)', c.Q);
+  const Q = reqPositive('Q', c.Q);
   const y1 = reqPositive('y1', c.y1);
   const d = resolveDefaults(options.defaults);
   const rules = jumpRules(type);

@@ -1,4 +1,5 @@
 // Scour protection: riprap below an end sill, and riprap aprons at culvert outlets. SI.
+import { InputError } from '../errors';
 import { G } from '../units/constants';
 import { BASIN_DEFAULTS } from './defaults';
 import { reqPositive, roundUp } from './guards';
@@ -20,7 +21,12 @@ export function isbashStoneSize(
   );
   const Gs = opts.specificGravity ?? BASIN_DEFAULTS.stoneSpecificGravity;
   if (!Number.isFinite(Gs) || Gs <= 1)
-    throw new RangeError(`specificGravity must be greater than 1 (got ${Gs})`);
+    throw new InputError(
+      'specificGravity',
+      'not-above',
+      `specificGravity must be greater than 1 (got ${Gs})`,
+      { min: 1 },
+    );
   const g = reqPositive('g', opts.g ?? G);
   return (V * V) / (2 * g * C * C * (Gs - 1));
 }
@@ -58,7 +64,7 @@ export function culvertApronStoneSize(c: {
   tailwater?: number;
   g?: number;
 }): CulvertApronStone {
-  const Q = reqPositive('Q (discharge)', c.Q);
+  const Q = reqPositive('Q', c.Q);
   const D = reqPositive('rise (culvert diameter or rise)', c.rise);
   const g = reqPositive('g', c.g ?? G);
   const at = { type: 'riprap-apron' as const };
@@ -69,7 +75,12 @@ export function culvertApronStoneSize(c: {
     warnings.push(warn('apron-tailwater-assumed', {}, at));
   } else {
     if (!Number.isFinite(c.tailwater) || c.tailwater < 0)
-      throw new RangeError(`tailwater must be a non-negative finite number (got ${c.tailwater})`);
+      throw new InputError(
+        'tailwater',
+        'negative',
+        `tailwater must be a non-negative finite number (got ${c.tailwater})`,
+        {},
+      );
     tw = Math.min(D, Math.max(0.4 * D, c.tailwater));
     if (tw !== c.tailwater) {
       warnings.push(

@@ -1,6 +1,7 @@
 // Screening: every catalogue type at every discharge, pass / warn / fail per criterion with a
 // coded reason, an overall verdict and a ranking. The sentences (reasons and each type's summary)
 // are made at the edge: reasonText and screeningSummaryText in common/src/messages/reasons.ts.
+import { InputError } from '../errors';
 import { DISSIPATOR_CATALOGUE, isJumpBasinType } from './catalogue';
 import { resolveDefaults, type BasinDefaults } from './defaults';
 import { sizeJumpBasin } from './jumpBasin';
@@ -160,13 +161,19 @@ const VERDICT_ORDER: Record<Verdict, number> = {
  */
 export function screenDissipators(input: ScreeningInput): TypeScreening[] {
   if (input === null || typeof input !== 'object')
-    throw new RangeError('screening input must be an object');
-  if (!Array.isArray(input.rows)) throw new RangeError('rows must be an array of discharges');
+    throw new InputError('body', 'invalid', 'screening input must be an object', {});
+  if (!Array.isArray(input.rows))
+    throw new InputError('rows', 'invalid', 'rows must be an array of discharges', {});
   const ctx = input.context;
   if (!ctx || typeof ctx !== 'object')
-    throw new RangeError('context must be given (inflow kind and width)');
+    throw new InputError('context', 'missing', 'context must be given (inflow kind and width)', {});
   if (!(typeof ctx.width === 'number' && Number.isFinite(ctx.width) && ctx.width > 0)) {
-    throw new RangeError(`context.width must be greater than zero (got ${String(ctx.width)})`);
+    throw new InputError(
+      'context.width',
+      'not-positive',
+      `context.width must be greater than zero (got ${String(ctx.width)})`,
+      {},
+    );
   }
   const d = resolveDefaults(input.defaults);
   const modules = input.types
@@ -227,6 +234,11 @@ function checkRow(r: DischargeRow): void {
   for (const k of ['Q', 'q', 'y1', 'v1', 'fr1', 'y2'] as const) {
     const v = r[k];
     if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0)
-      throw new RangeError(`row.${k} must be a positive finite number (got ${String(v)})`);
+      throw new InputError(
+        `row.${k}`,
+        'invalid',
+        `row.${k} must be a positive finite number (got ${String(v)})`,
+        {},
+      );
   }
 }

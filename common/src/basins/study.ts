@@ -1,5 +1,6 @@
 // The dissipator part of a study: per candidate type, the floor solved with that type's
 // tailwater factor, the rows over the range, the screening, the designs and their drawings.
+import { InputError } from '../errors';
 import {
   prepareRange,
   rowsAt,
@@ -137,14 +138,22 @@ export function designDissipators(
     ...(opts.alternatives ?? []),
   ]) {
     if (!DISSIPATOR_CATALOGUE.some((m) => m.id === t))
-      throw new RangeError(`dissipators.chosenType: "${String(t)}" is not a type of the catalogue`);
+      throw new InputError(
+        'dissipators.chosenType',
+        'unknown-option',
+        `dissipators.chosenType: "${String(t)}" is not a type of the catalogue`,
+        {},
+      );
   }
   const ctx = screeningContext(input, opts);
   const notes: StudyWarning[] = [];
   const extra = opts.extraFloorDepth ?? 0;
   if (!(Number.isFinite(extra) && extra >= 0))
-    throw new RangeError(
+    throw new InputError(
+      'dissipators.extraFloorDepth',
+      'negative',
       `dissipators.extraFloorDepth (extra floor depth) must be a non-negative number (got ${extra})`,
+      {},
     );
   const fixedFloor = input.floorElevation;
   const bed = input.channelBedElevation;

@@ -62,7 +62,7 @@ export function validateChute(c: ChuteGeometry, field = 'inflow.chute'): void {
  */
 export function chuteProfile(c: ChuteGeometry, width: number, Q: number): ChuteProfile {
   validateChute(c);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   const section: Section = { shape: 'rectangular', width };
   const sinTheta = c.slope / Math.sqrt(1 + c.slope * c.slope);
   const q = Q / width;

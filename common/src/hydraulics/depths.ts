@@ -1,6 +1,7 @@
 // Depths and energy/momentum functions for steady flow in a prismatic section. SI units
 // (m, m³/s); g = 9.80665 m/s². Sources: Chow 1959, Open-Channel Hydraulics, ch. 3–6.
 import { G, MANNING_K_SI } from '../units/constants';
+import { InputError } from '../errors';
 import { requirePositive } from './guards';
 import { geometry, maxDepth, validateSection, type Section } from './sections';
 import { brent, goldenMax } from './solve';
@@ -10,14 +11,17 @@ const Y_MIN = 1e-9;
 
 function checkSQ(section: Section, Q: number): void {
   validateSection(section);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
 }
 
-function checkY(section: Section, y: number, name = 'y (depth)'): void {
+function checkY(section: Section, y: number, name = 'y'): void {
   requirePositive(name, y);
   if (section.shape === 'circular' && y > section.diameter * (1 + 1e-12)) {
-    throw new RangeError(
+    throw new InputError(
+      name,
+      'conduit-full',
       `${name} ${y} m exceeds the conduit diameter ${section.diameter} m: the conduit would run full`,
+      { depth: y, diameter: section.diameter },
     );
   }
 }
@@ -55,8 +59,11 @@ export function _criticalDepth(s: Section, Q: number): number {
   if (s.shape === 'circular') {
     hi = s.diameter * (1 - 1e-9);
     if (criticalResidual(s, Q, hi) > 0) {
-      throw new RangeError(
+      throw new InputError(
+        'Q',
+        'conduit-too-small',
         `Q (discharge) ${Q} m³/s is too large for a ${s.diameter} m conduit: critical depth would reach the crown (the conduit would run full)`,
+        { Q, diameter: s.diameter },
       );
     }
   } else {
@@ -73,7 +80,12 @@ export function _criticalDepth(s: Section, Q: number): number {
   let lo = hi / 2;
   for (let i = 0; i < 400 && criticalResidual(s, Q, lo) < 0; i++) lo /= 2;
   if (lo < Y_MIN && criticalResidual(s, Q, lo) < 0) {
-    throw new RangeError('Q (discharge): critical depth below the smallest depth considered');
+    throw new InputError(
+      'Q',
+      'too-small',
+      'Q (discharge): critical depth below the smallest depth considered',
+      { Q },
+    );
   }
   return brent((y) => criticalResidual(s, Q, y), lo, hi, 'critical depth');
 }
@@ -153,8 +165,11 @@ export function _normalDepth(s: Section, Q: number, slope: number, n: number, k:
     hi = goldenMax(qOf, 0.5 * s.diameter, s.diameter);
     const qMax = qOf(hi);
     if (Q > qMax) {
-      throw new RangeError(
+      throw new InputError(
+        'Q',
+        'conduit-capacity',
         `Q (discharge) ${Q} m³/s exceeds the open-channel capacity of the conduit (${qMax.toPrecision(5)} m³/s at normal depth)`,
+        { Q, capacity: qMax },
       );
     }
   } else {
@@ -200,8 +215,11 @@ export function _frictionSlope(s: Section, Q: number, y: number, n: number): num
 export function _supercriticalRoot(s: Section, Q: number, E: number, yc: number): number {
   const eMin = _energy(s, Q, yc);
   if (E < eMin * (1 - 1e-12)) {
-    throw new RangeError(
+    throw new InputError(
+      'E',
+      'energy-too-low',
       `E (specific energy) ${E} m is below the minimum ${eMin.toPrecision(6)} m at critical depth: the flow cannot pass`,
+      { E, eMin },
     );
   }
   if (E <= eMin) return yc;
@@ -213,8 +231,11 @@ export function _supercriticalRoot(s: Section, Q: number, E: number, yc: number)
 export function _subcriticalRoot(s: Section, Q: number, E: number, yc: number): number {
   const eMin = _energy(s, Q, yc);
   if (E < eMin * (1 - 1e-12)) {
-    throw new RangeError(
+    throw new InputError(
+      'E',
+      'energy-too-low',
       `E (specific energy) ${E} m is below the minimum ${eMin.toPrecision(6)} m at critical depth: the flow cannot pass`,
+      { E, eMin },
     );
   }
   if (E <= eMin) return yc;
@@ -223,8 +244,11 @@ export function _subcriticalRoot(s: Section, Q: number, E: number, yc: number): 
   if (Number.isFinite(top)) {
     hi = top;
     if (_energy(s, Q, hi) < E) {
-      throw new RangeError(
+      throw new InputError(
+        'E',
+        'conduit-full',
         `E (specific energy) ${E} m: the subcritical depth would overfill the conduit`,
+        { E },
       );
     }
   } else {
@@ -239,14 +263,14 @@ export function _subcriticalRoot(s: Section, Q: number, E: number, yc: number): 
  */
 export function supercriticalDepth(section: Section, Q: number, E: number): number {
   checkSQ(section, Q);
-  requirePositive('E (specific energy)', E);
+  requirePositive('E', E);
   return _supercriticalRoot(section, Q, E, _criticalDepth(section, Q));
 }
 
 /** Subcritical (deep) root of the energy equation (m). [Chow 1959, §3-1] */
 export function subcriticalDepth(section: Section, Q: number, E: number): number {
   checkSQ(section, Q);
-  requirePositive('E (specific energy)', E);
+  requirePositive('E', E);
   return _subcriticalRoot(section, Q, E, _criticalDepth(section, Q));
 }
 
@@ -257,7 +281,7 @@ export function alternateDepths(
   E: number,
 ): { supercritical: number; subcritical: number } {
   checkSQ(section, Q);
-  requirePositive('E (specific energy)', E);
+  requirePositive('E', E);
   const yc = _criticalDepth(section, Q);
   return {
     supercritical: _supercriticalRoot(section, Q, E, yc),

@@ -1,5 +1,6 @@
 // Chart data: specific-energy curve E(y) and momentum curve M(y) at one discharge, with the
 // jump's depths marked. Plain numbers (SI) for any charting library.
+import { InputError } from '../errors';
 import { requirePositive } from './guards';
 import { _criticalDepth, _energy, _momentum } from './depths';
 import { maxDepth, validateSection, type Section } from './sections';
@@ -46,11 +47,15 @@ export function jumpDiagrams(
   count = 121,
 ): JumpDiagrams {
   validateSection(section);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   requirePositive('y1', y1);
   requirePositive('y2', y2);
   if (!(count >= 3 && count <= 2000 && Number.isInteger(count)))
-    throw new RangeError('count must be an integer 3–2000');
+    throw new InputError('count', 'out-of-range', 'count must be an integer 3–2000', {
+      value: count,
+      min: 3,
+      max: 2000,
+    });
   const yc = _criticalDepth(section, Q);
   const lo = 0.6 * Math.min(y1, y2);
   const hi = Math.min(1.4 * Math.max(y1, y2, tailwaterDepth ?? 0), maxDepth(section));

@@ -84,6 +84,8 @@ export {
   jumpToeDistance,
   locateJump,
   type JumpLocation,
+  type JumpNote,
+  type JumpNoteCode,
   type JumpSituation,
   type ProfilePoint,
 } from './profiles';

@@ -1,5 +1,6 @@
 // Inflow at the toe of the basin, per unit width of a rectangular floor. SI units.
 // Sources per function; hydraulics.md §2.
+import { InputError } from '../errors';
 import { G } from '../units/constants';
 import { requireInRange, requireNonNegative, requirePositive } from './guards';
 import { ENGINE_LIMITS } from '../schemas/limits';
@@ -62,8 +63,11 @@ export function validateLossModel(loss: LossModel): void {
       requireNonNegative('loss.K (loss coefficient)', loss.K);
       return;
     default:
-      throw new RangeError(
+      throw new InputError(
+        'loss.kind',
+        'unknown-option',
         `loss.kind must be 'none', 'fraction', 'velocityCoefficient' or 'lossCoefficient'`,
+        {},
       );
   }
 }
@@ -80,8 +84,8 @@ export function toeFromHead(
   H0: number,
   loss: LossModel = { kind: 'none' },
 ): ToeConditions {
-  requirePositive('q (unit discharge)', q);
-  requirePositive('H0 (head above the floor)', H0);
+  requirePositive('q', q);
+  requirePositive('H0', H0);
   validateLossModel(loss);
   return toe(q, _toeDepth(q, H0, loss), H0);
 }
@@ -102,8 +106,11 @@ export function _toeDepth(q: number, H0: number, loss: LossModel): number {
         : loss.kind === 'lossCoefficient'
           ? ` with K = ${loss.K}`
           : '';
-    throw new RangeError(
+    throw new InputError(
+      'H0',
+      'head-too-small',
       `H0 (head above the floor) ${H0} m is too small to pass q = ${q} m²/s${what}`,
+      { H0, q },
     );
   }
   return y;
@@ -138,7 +145,7 @@ export function _toeDepthOrNegative(q: number, H0: number, loss: LossModel): num
  * @example weirHead(85, 2.15, 12) // ≈ 2.26
  */
 export function weirHead(Q: number, C: number, L: number): number {
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   requirePositive('weir.C (weir coefficient)', C);
   requirePositive('weir.L (crest length)', L);
   return Math.pow(Q / (C * L), 2 / 3);
@@ -159,11 +166,14 @@ export interface GateFlow {
 
 function checkGate(a: number, Cc: number, y0: number): void {
   requirePositive('gate.opening', a);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
+  requireInRange('gate.Cc', Cc, CC.min, CC.max);
   requirePositive('gate.upstreamDepth', y0);
   if (a >= y0) {
-    throw new RangeError(
+    throw new InputError(
+      'gate.opening',
+      'gate-not-controlling',
       `gate.opening ${a} m is not below the upstream depth ${y0} m: the gate does not control the flow`,
+      { opening: a, upstreamDepth: y0 },
     );
   }
 }
@@ -189,15 +199,18 @@ export function gateFlow(g: { opening: number; Cc: number; upstreamDepth: number
 
 /** Upstream depth y0 (m) that passes q (m²/s) under opening a: closed-form root of the gate equation. */
 export function gateUpstreamDepth(q: number, opening: number, Cc: number): number {
-  requirePositive('q (unit discharge)', q);
+  requirePositive('q', q);
   requirePositive('gate.opening', opening);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
+  requireInRange('gate.Cc', Cc, CC.min, CC.max);
   // q²(y0 + Cc·a) = 2g·Cc²·a²·y0²  →  quadratic in y0, positive root.
   const A = 2 * G * Cc * Cc * opening * opening;
   const y0 = (q * q + Math.sqrt(q ** 4 + 4 * A * q * q * Cc * opening)) / (2 * A);
   if (y0 <= opening) {
-    throw new RangeError(
+    throw new InputError(
+      'gate.opening',
+      'gate-opening-too-large',
       `gate.opening ${opening} m is too large for q = ${q} m²/s: the water would not touch the gate (upstream depth ${y0.toPrecision(4)} m)`,
+      { opening, q },
     );
   }
   return y0;
@@ -205,14 +218,17 @@ export function gateUpstreamDepth(q: number, opening: number, Cc: number): numbe
 
 /** Opening a (m) that passes q (m²/s) with upstream depth y0 (m). */
 export function gateOpening(q: number, upstreamDepth: number, Cc: number): number {
-  requirePositive('q (unit discharge)', q);
+  requirePositive('q', q);
   requirePositive('gate.upstreamDepth', upstreamDepth);
-  requireInRange('gate.Cc (contraction coefficient)', Cc, CC.min, CC.max);
+  requireInRange('gate.Cc', Cc, CC.min, CC.max);
   const qOf = (a: number): number => gateResult(a, Cc, upstreamDepth).q;
   const aMax = upstreamDepth * (1 - 1e-9);
   if (q > qOf(aMax)) {
-    throw new RangeError(
+    throw new InputError(
+      'gate.upstreamDepth',
+      'gate-pool-too-shallow',
       `gate.upstreamDepth ${upstreamDepth} m is too small to pass q = ${q} m²/s under the gate (at most ${qOf(aMax).toPrecision(5)} m²/s)`,
+      { upstreamDepth, q },
     );
   }
   return brent((a) => qOf(a) / q - 1, 1e-12 * upstreamDepth, aMax, 'gate opening');
@@ -247,17 +263,12 @@ export function outletFlow(
   manningN: number,
 ): OutletFlow {
   validateSection(barrel);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   requirePositive('pipe.slope', slope);
   requirePositive('pipe.manningN', manningN);
   const yc = _criticalDepth(barrel, Q);
-  let yn: number;
-  try {
-    yn = _normalDepth(barrel, Q, slope, manningN, 1);
-  } catch (e) {
-    if (e instanceof RangeError) throw new RangeError(`pipe: ${e.message}`, { cause: e });
-    throw e;
-  }
+  // A barrel too small for Q is refused by _normalDepth (coded: its capacity quoted).
+  const yn = _normalDepth(barrel, Q, slope, manningN, 1);
   const depth = yn < yc ? yn : yc;
   const a = geometry(barrel, depth).area;
   return {
@@ -283,7 +294,12 @@ export function toeFromOutlet(
   requirePositive('outlet.velocity', outlet.velocity);
   const H0 = drop + outlet.depth + (outlet.velocity * outlet.velocity) / (2 * G);
   if (!(H0 > 0))
-    throw new RangeError(`floor elevation: the basin floor lies above the outlet's energy line`);
+    throw new InputError(
+      'floorElevation',
+      'above-energy-line',
+      `floor elevation: the basin floor lies above the outlet's energy line`,
+      { H0 },
+    );
   return toeFromHead(q, H0, loss);
 }
 

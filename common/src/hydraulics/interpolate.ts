@@ -2,6 +2,7 @@
 // "Monotone piecewise cubic interpolation"): a rating curve stays monotone between its
 // points, unlike a natural spline. Outside the table: straight-line continuation of the end
 // segment, flagged so the caller can say so.
+import { InputError } from '../errors';
 import { requireFinite } from './guards';
 
 export interface Interpolated {
@@ -24,13 +25,21 @@ export function createMonotoneInterpolant(
 ): Interpolant {
   const n = xs.length;
   if (n < 2 || ys.length !== n)
-    throw new RangeError(`${what}: needs at least two rows with both values`);
+    throw new InputError(
+      what,
+      'table-too-short',
+      `${what}: needs at least two rows with both values`,
+      {},
+    );
   for (let i = 0; i < n; i++) {
     requireFinite(`${what} row ${i + 1}`, xs[i]);
     requireFinite(`${what} row ${i + 1}`, ys[i]);
     if (i > 0 && !(xs[i]! > xs[i - 1]!)) {
-      throw new RangeError(
+      throw new InputError(
+        what,
+        'table-not-increasing',
         `${what}: discharges must increase strictly from row to row (row ${i + 1})`,
+        { row: i + 1 },
       );
     }
   }

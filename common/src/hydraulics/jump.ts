@@ -1,5 +1,6 @@
 // The hydraulic jump in a prismatic channel: sequent depth by the momentum function (any
 // section), losses, length and class. SI units; g = 9.80665 m/s², ρ = 1000 kg/m³.
+import { InputError } from '../errors';
 import { G, RHO_WATER } from '../units/constants';
 import { requireNonNegative, requirePositive } from './guards';
 import { _criticalDepth, _energy, _froude, _momentum, _velocity } from './depths';
@@ -38,16 +39,19 @@ export interface JumpResult {
 }
 
 /** Thrown when the sequent depth of a jump in a closed conduit would exceed its diameter. */
-export class ConduitFullError extends RangeError {
+export class ConduitFullError extends InputError {
   constructor(
     readonly diameter: number,
     readonly momentumNeeded: number,
     readonly momentumFull: number,
   ) {
     super(
+      'y1',
+      'conduit-full',
       `the conduit (diameter ${diameter} m) would run full: the sequent depth exceeds the diameter ` +
         `(momentum needed ${momentumNeeded.toPrecision(5)} m³, open-channel maximum ${momentumFull.toPrecision(5)} m³); ` +
         'pressurised flow is outside this open-channel method',
+      { diameter },
     );
     this.name = 'ConduitFullError';
   }
@@ -59,7 +63,7 @@ export class ConduitFullError extends RangeError {
  * @example classifyJump(6) // 'steady'
  */
 export function classifyJump(fr1: number): JumpClass {
-  requireNonNegative('fr1 (inflow Froude number)', fr1);
+  requireNonNegative('fr1', fr1);
   if (fr1 <= 1) return 'none';
   if (fr1 < 1.7) return 'undular';
   if (fr1 < 2.5) return 'weak';
@@ -70,7 +74,7 @@ export function classifyJump(fr1: number): JumpClass {
 
 /** Bélanger's equation, rectangle only: y2/y1 = ½(√(1+8Fr1²) − 1). [Chow 1959, eq. 3-20] */
 export function belangerRatio(fr1: number): number {
-  requirePositive('fr1 (inflow Froude number)', fr1);
+  requirePositive('fr1', fr1);
   return 0.5 * (Math.sqrt(1 + 8 * fr1 * fr1) - 1);
 }
 
@@ -103,10 +107,13 @@ export interface SlopingApronJump {
  * @example slopingApronJump(6, 0.3, 0.25).y2 // θ = 14.04°, Γ = 2.39, y2 ≈ 5.93 m
  */
 export function slopingApronJump(fr1: number, y1: number, slope: number): SlopingApronJump {
-  requirePositive('fr1 (inflow Froude number)', fr1);
+  requirePositive('fr1', fr1);
   if (!(fr1 > 1))
-    throw new RangeError(
+    throw new InputError(
+      'fr1',
+      'not-supercritical',
       `fr1 (inflow Froude number) ${fr1} is not supercritical (≤ 1): no jump forms`,
+      { fr1 },
     );
   requirePositive('y1', y1);
   requireNonNegative('slope (floor slope, rise over run)', slope);
@@ -147,8 +154,8 @@ export const USBR_LENGTH_CURVE: ReadonlyArray<readonly [number, number]> = [
  * @example jumpLengthUSBR(6, 8) // 6.1 · 8 = 48.8
  */
 export function jumpLengthUSBR(fr1: number, y2: number): number {
-  requirePositive('fr1 (inflow Froude number)', fr1);
-  requirePositive('y2 (sequent depth)', y2);
+  requirePositive('fr1', fr1);
+  requirePositive('y2', y2);
   const c = USBR_LENGTH_CURVE;
   const first = c[0]!;
   const last = c[c.length - 1]!;
@@ -164,14 +171,14 @@ export function jumpLengthUSBR(fr1: number, y2: number): number {
 
 /** Hager's jump length Lj/y1 = 220·tanh((Fr1 − 1)/22) (from memory), metres. */
 export function jumpLengthHager(fr1: number, y1: number): number {
-  requirePositive('fr1 (inflow Froude number)', fr1);
+  requirePositive('fr1', fr1);
   requirePositive('y1', y1);
   return Math.max(0, 220 * Math.tanh((fr1 - 1) / 22) * y1);
 }
 
 /** Hager's roller length Lr/y1 = 160·tanh(Fr1/20) − 12 (from memory), never below 0, metres. */
 export function rollerLength(fr1: number, y1: number): number {
-  requirePositive('fr1 (inflow Froude number)', fr1);
+  requirePositive('fr1', fr1);
   requirePositive('y1', y1);
   return Math.max(0, (160 * Math.tanh(fr1 / 20) - 12) * y1);
 }
@@ -198,10 +205,15 @@ export function _conjugate(s: Section, Q: number, y: number, yc: number): number
 
 function checkJumpInput(section: Section, Q: number, y1: number): void {
   validateSection(section);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   requirePositive('y1', y1);
   if (section.shape === 'circular' && y1 >= section.diameter) {
-    throw new RangeError(`y1 ${y1} m is not below the conduit diameter ${section.diameter} m`);
+    throw new InputError(
+      'y1',
+      'conduit-full',
+      `y1 ${y1} m is not below the conduit diameter ${section.diameter} m`,
+      { depth: y1, diameter: section.diameter },
+    );
   }
 }
 
@@ -215,8 +227,11 @@ export function sequentDepth(section: Section, Q: number, y1: number): number {
   checkJumpInput(section, Q, y1);
   const fr1 = _froude(section, Q, y1);
   if (fr1 <= 1) {
-    throw new RangeError(
+    throw new InputError(
+      'y1',
+      'not-supercritical',
       `y1 ${y1} m is not supercritical (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
+      { y1, fr1 },
     );
   }
   return _conjugate(section, Q, y1, _criticalDepth(section, Q));
@@ -251,8 +266,11 @@ export function hydraulicJump(
   checkJumpInput(section, Q, y1);
   const fr1 = _froude(section, Q, y1);
   if (fr1 <= 1) {
-    throw new RangeError(
+    throw new InputError(
+      'y1',
+      'not-supercritical',
       `y1 ${y1} m is not supercritical (Fr1 = ${fr1.toPrecision(4)} ≤ 1): no jump forms`,
+      { y1, fr1 },
     );
   }
   const y2 = _conjugate(section, Q, y1, _criticalDepth(section, Q));

@@ -1,6 +1,7 @@
 // Gradually varied flow by the direct step method (Chow 1959, §10-2) with Manning friction,
 // and where a jump forms between a supercritical and a subcritical profile: the section where
 // both have the same momentum function. SI units; x in metres, positive downstream.
+import { InputError } from '../errors';
 import { requireFinite, requireNonNegative, requirePositive } from './guards';
 import {
   _criticalDepth,
@@ -41,7 +42,7 @@ export function directStepProfile(
   steps = STEPS,
 ): ProfilePoint[] {
   validateSection(section);
-  requirePositive('Q (discharge)', Q);
+  requirePositive('Q', Q);
   requirePositive('manningN', manningN);
   requireFinite('slope', slope);
   requirePositive('yFrom', yFrom);
@@ -57,7 +58,12 @@ export function directStepProfile(
     const en = _energy(section, Q, yn);
     const sfn = _frictionSlope(section, Q, yn, manningN);
     const denom = slope - 0.5 * (sf + sfn);
-    if (denom === 0) throw new RangeError('profile: the step reached normal depth (uniform flow)');
+    if (denom === 0)
+      throw new InputError(
+        'slope',
+        'uniform-flow',
+        'profile: the step reached normal depth (uniform flow)',
+      );
     x += (en - e) / denom;
     y = yn;
     e = en;
@@ -115,6 +121,20 @@ interface ToeSolution {
   profile: ProfilePoint[];
 }
 
+/** The fields a refusal of toeSolution names: the situation's own (the jump-position form's). */
+interface ToeFields {
+  slope: string;
+  manningN: string;
+  yStart: string;
+  yDownstream: string;
+}
+const TOE_FIELDS: ToeFields = {
+  slope: 'slope',
+  manningN: 'manningN',
+  yStart: 'yStart',
+  yDownstream: 'yDownstream',
+};
+
 function toeSolution(
   section: Section,
   Q: number,
@@ -122,45 +142,70 @@ function toeSolution(
   slope: number,
   yStart: number,
   yDownstream: number,
+  fields: ToeFields = TOE_FIELDS,
 ): ToeSolution {
   validateSection(section);
-  requirePositive('Q (discharge)', Q);
-  requirePositive('manningN', manningN);
-  requireFinite('slope', slope);
-  requirePositive('yStart', yStart);
-  requirePositive('yDownstream', yDownstream);
+  requirePositive('Q', Q);
+  requirePositive(fields.manningN, manningN);
+  requireFinite(fields.slope, slope);
+  requirePositive(fields.yStart, yStart);
+  requirePositive(fields.yDownstream, yDownstream);
   if (yDownstream > maxDepth(section)) {
-    throw new RangeError(`yDownstream ${yDownstream} m exceeds the conduit diameter`);
+    throw new InputError(
+      fields.yDownstream,
+      'conduit-full',
+      `${fields.yDownstream} ${yDownstream} m exceeds the conduit diameter`,
+      { depth: yDownstream, diameter: maxDepth(section) },
+    );
   }
   const yc = _criticalDepth(section, Q);
   if (!(yStart < yc)) {
-    throw new RangeError(
-      `yStart ${yStart} m is not supercritical (critical depth ${yc.toPrecision(5)} m)`,
+    throw new InputError(
+      fields.yStart,
+      'not-supercritical',
+      `${fields.yStart} ${yStart} m is not supercritical (critical depth ${yc.toPrecision(5)} m)`,
+      { fr1: _froude(section, Q, yStart) },
     );
   }
   if (!(yDownstream > yc)) {
-    throw new RangeError(
-      `yDownstream ${yDownstream} m is not subcritical (critical depth ${yc.toPrecision(5)} m): no jump can form against it`,
+    // A depth typed is not subcritical; a reach's normal depth says the reach is not mild.
+    throw new InputError(
+      fields.yDownstream,
+      /slope$/.test(fields.yDownstream) ? 'not-mild' : 'not-subcritical',
+      `${fields.yDownstream} ${yDownstream} m is not subcritical (critical depth ${yc.toPrecision(5)} m): no jump can form against it`,
+      { depth: yDownstream, yc },
     );
   }
   const yToe = _conjugate(section, Q, yDownstream, yc);
   if (yStart >= yToe) return { distance: 0, yToe, profile: [{ x: 0, y: yStart }] };
   const yn = normalDepthOrNull(section, Q, slope, manningN);
   if (yn !== null && yn < yc && yn <= yToe) {
-    if (yStart >= yn) {
-      throw new RangeError(
-        `slope: the reach is steep (normal depth ${yn.toPrecision(4)} m < critical ${yc.toPrecision(4)} m) and the supercritical flow ` +
-          `starting at ${yStart} m never deepens to ${yToe.toPrecision(4)} m: no jump forms on this reach`,
-      );
-    }
-    throw new RangeError(
-      `slope: the reach is steep; the supercritical profile tends to normal depth ${yn.toPrecision(4)} m and never reaches ` +
-        `${yToe.toPrecision(4)} m, the sequent of yDownstream: no jump forms on this reach`,
+    // Above or below normal depth, the supercritical flow of a steep reach tends to it and
+    // never deepens to the toe depth the downstream depth needs.
+    throw new InputError(
+      fields.slope,
+      'steep-no-jump',
+      `${fields.slope}: the reach is steep (normal depth ${yn.toPrecision(4)} m < critical ${yc.toPrecision(4)} m) and the supercritical flow ` +
+        `starting at ${yStart} m never deepens to ${yToe.toPrecision(4)} m: no jump forms on this reach`,
+      { yn, yc, yToe },
     );
   }
-  const profile = directStepProfile(section, Q, manningN, slope, yStart, yToe);
+  const profile = withSlopeField(fields.slope, () =>
+    directStepProfile(section, Q, manningN, slope, yStart, yToe),
+  );
   const distance = profile[profile.length - 1]!.x;
   return { distance, yToe, profile };
+}
+
+/** Runs a profile, a refusal of its step filed under the reach's own slope field. */
+function withSlopeField<T>(field: string, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof InputError && e.field === 'slope' && field !== 'slope')
+      throw new InputError(field, e.code, e.message, { ...e.values }, { cause: e });
+    throw e;
+  }
 }
 
 /**
@@ -247,7 +292,27 @@ export interface JumpLocation {
   supercriticalProfile: ProfilePoint[];
   /** subcritical profile over the same reach */
   subcriticalProfile: ProfilePoint[];
-  notes: string[];
+  /** notes as data (phrased by jumpNoteText in common/src/messages) */
+  notes: JumpNote[];
+}
+
+/** Stable codes of the jump-position notes. */
+export type JumpNoteCode =
+  /** the tailwater holds the jump against the structure */
+  | 'drowned'
+  /** the gate may run submerged: its free-flow discharge does not apply */
+  | 'gate-submerged'
+  /** the approach flow out-pushes the pool: the jump stands at the structure */
+  | 'at-structure'
+  /** the distance runs from the vena contracta (depth y1 = Cc·a) */
+  | 'from-vena-contracta'
+  /** the distance runs from the foot of the weir (depth y1) */
+  | 'from-weir-foot';
+
+/** A note of locateJump: its code and the SI lengths it quotes (y1, m). */
+export interface JumpNote {
+  code: JumpNoteCode;
+  values: Partial<Record<'y1', number>>;
 }
 
 function mildNormal(
@@ -256,13 +321,15 @@ function mildNormal(
   slope: number,
   n: number,
   tw: number | undefined,
-  what: string,
 ): number {
-  if (tw !== undefined) return requirePositive(`${what}.tailwaterDepth`, tw);
+  if (tw !== undefined) return requirePositive('tailwaterDepth', tw);
   const yn = normalDepthOrNull(section, Q, slope, n);
   if (yn === null) {
-    throw new RangeError(
-      `${what}.tailwaterDepth is needed: the reach has no normal depth (slope ${slope})`,
+    throw new InputError(
+      'tailwaterDepth',
+      'no-normal-depth',
+      `tailwaterDepth is needed: the reach has no normal depth (slope ${slope})`,
+      { slope },
     );
   }
   return yn;
@@ -284,13 +351,13 @@ function downstreamJump(
   yStart: number,
   yDown: number,
   kind: JumpSituation['kind'],
-  notes: string[],
+  notes: JumpNote[],
+  fields: ToeFields,
 ): JumpLocation {
   const yc = _criticalDepth(s, Q);
-  const sol = toeSolution(s, Q, n, slope, yStart, yDown);
+  const sol = toeSolution(s, Q, n, slope, yStart, yDown, fields);
   const drowned = sol.distance === 0;
-  if (drowned)
-    notes.push('the jump is drowned: the tailwater holds it against the structure (submerged)');
+  if (drowned) notes.push({ code: 'drowned', values: {} });
   const end = Math.max(sol.distance * 1.5, 1);
   return {
     kind,
@@ -314,14 +381,13 @@ function upstreamJump(
   ynSteep: number,
   yControl: number,
   kind: JumpSituation['kind'],
-  notes: string[],
+  notes: JumpNote[],
+  slopeField: string,
 ): JumpLocation {
   const yc = _criticalDepth(s, Q);
   const y2 = _conjugate(s, Q, ynSteep, yc);
   if (yControl <= y2) {
-    notes.push(
-      'the approach flow has more momentum than the pool at the control: the jump stands at the structure',
-    );
+    notes.push({ code: 'at-structure', values: {} });
     return {
       kind,
       position: 'at-structure',
@@ -335,11 +401,13 @@ function upstreamJump(
     };
   }
   // Stepping from the control upstream: x comes out negative.
-  const sub = directStepProfile(s, Q, n, slope, yControl, y2);
+  const sub = withSlopeField(slopeField, () => directStepProfile(s, Q, n, slope, yControl, y2));
   const xJump = sub[sub.length - 1]!.x;
   if (!(xJump < 0))
-    throw new RangeError(
-      'slope: the backwater profile does not run upstream (check the reach is steep)',
+    throw new InputError(
+      slopeField,
+      'not-backwater',
+      `${slopeField}: the backwater profile does not run upstream (check the reach is steep)`,
     );
   return {
     kind,
@@ -363,9 +431,9 @@ function upstreamJump(
 export function locateJump(situation: JumpSituation): JumpLocation {
   const s = situation.section;
   validateSection(s);
-  const Q = requirePositive('Q (discharge)', situation.Q);
+  const Q = requirePositive('Q', situation.Q);
   const yc = _criticalDepth(s, Q);
-  const notes: string[] = [];
+  const notes: JumpNote[] = [];
   switch (situation.kind) {
     case 'slopeBreak': {
       const up = situation.upstream;
@@ -376,19 +444,40 @@ export function locateJump(situation: JumpSituation): JumpLocation {
       requireFinite('downstream.slope', dn.slope);
       const yn1 = normalDepthOrNull(s, Q, up.slope, up.manningN);
       if (yn1 === null || !(yn1 < yc)) {
-        throw new RangeError(
+        throw new InputError(
+          'upstream.slope',
+          'not-steep',
           'upstream.slope: the upstream reach is not steep (its normal depth is not supercritical)',
+          yn1 === null ? { yc } : { depth: yn1, yc },
         );
       }
-      const y3 = mildNormal(s, Q, dn.slope, dn.manningN, situation.tailwaterDepth, 'downstream');
+      const y3 = mildNormal(s, Q, dn.slope, dn.manningN, situation.tailwaterDepth);
       if (!(y3 > yc))
-        throw new RangeError(
+        throw new InputError(
+          situation.tailwaterDepth !== undefined ? 'tailwaterDepth' : 'downstream.slope',
+          situation.tailwaterDepth !== undefined ? 'not-subcritical' : 'not-mild',
           'downstream.slope: the downstream reach is not mild (its depth is not subcritical)',
+          { depth: y3, yc },
         );
       if (_momentum(s, Q, yn1) > _momentum(s, Q, y3)) {
-        return downstreamJump(s, Q, dn.manningN, dn.slope, yn1, y3, 'slopeBreak', notes);
+        return downstreamJump(s, Q, dn.manningN, dn.slope, yn1, y3, 'slopeBreak', notes, {
+          slope: 'downstream.slope',
+          manningN: 'downstream.manningN',
+          yStart: 'upstream.slope',
+          yDownstream: downstreamField(situation.tailwaterDepth, 'downstream.slope'),
+        });
       }
-      return upstreamJump(s, Q, up.manningN, up.slope, yn1, y3, 'slopeBreak', notes);
+      return upstreamJump(
+        s,
+        Q,
+        up.manningN,
+        up.slope,
+        yn1,
+        y3,
+        'slopeBreak',
+        notes,
+        'upstream.slope',
+      );
     }
     case 'gateMildSlope': {
       requirePositive('opening', situation.opening);
@@ -396,16 +485,14 @@ export function locateJump(situation: JumpSituation): JumpLocation {
       requirePositive('manningN', situation.manningN);
       const y1 = situation.Cc * situation.opening;
       if (!(y1 < yc))
-        throw new RangeError('opening: the vena contracta depth Cc·a is not supercritical');
-      const yDown = mildNormal(
-        s,
-        Q,
-        situation.slope,
-        situation.manningN,
-        situation.tailwaterDepth,
-        'gateMildSlope',
-      );
-      notes.push('distance measured from the vena contracta, where the depth is Cc·a');
+        throw new InputError(
+          'opening',
+          'not-supercritical',
+          'opening: the vena contracta depth Cc·a is not supercritical',
+          { fr1: _froude(s, Q, y1) },
+        );
+      const yDown = mildNormal(s, Q, situation.slope, situation.manningN, situation.tailwaterDepth);
+      notes.push({ code: 'from-vena-contracta', values: { y1 } });
       const r = downstreamJump(
         s,
         Q,
@@ -415,9 +502,14 @@ export function locateJump(situation: JumpSituation): JumpLocation {
         yDown,
         'gateMildSlope',
         notes,
+        {
+          slope: 'slope',
+          manningN: 'manningN',
+          yStart: 'opening',
+          yDownstream: downstreamField(situation.tailwaterDepth, 'slope'),
+        },
       );
-      if (r.position === 'drowned')
-        notes.push('the gate may run submerged: free-flow gate discharge does not apply');
+      if (r.position === 'drowned') notes.push({ code: 'gate-submerged', values: {} });
       return r;
     }
     case 'gateSteepSlope': {
@@ -425,23 +517,40 @@ export function locateJump(situation: JumpSituation): JumpLocation {
       requirePositive('manningN', situation.manningN);
       const yn = normalDepthOrNull(s, Q, situation.slope, situation.manningN);
       if (yn === null || !(yn < yc))
-        throw new RangeError('slope: the reach is not steep (normal depth not supercritical)');
+        throw new InputError(
+          'slope',
+          'not-steep',
+          'slope: the reach is not steep (normal depth not supercritical)',
+          yn === null ? { yc } : { depth: yn, yc },
+        );
       let y0: number;
       if (situation.upstreamDepth !== undefined)
         y0 = requirePositive('upstreamDepth', situation.upstreamDepth);
       else {
         if (s.shape !== 'rectangular') {
-          throw new RangeError(
+          throw new InputError(
+            'upstreamDepth',
+            'needs-rectangular',
             'upstreamDepth is needed: the gate equation here is for rectangular channels',
           );
         }
         if (situation.opening === undefined || situation.Cc === undefined) {
-          throw new RangeError('upstreamDepth, or opening and Cc, must be given');
+          throw new InputError(
+            'upstreamDepth',
+            'missing',
+            'upstreamDepth, or opening and Cc, must be given',
+          );
         }
-        y0 = gateUpstreamDepth(Q / s.width, situation.opening, situation.Cc);
+        const { opening, Cc } = situation;
+        y0 = withGateFields(() => gateUpstreamDepth(Q / s.width, opening, Cc));
       }
       if (!(y0 > yc))
-        throw new RangeError('upstreamDepth: the depth above the gate is not subcritical');
+        throw new InputError(
+          situation.upstreamDepth !== undefined ? 'upstreamDepth' : 'opening',
+          'not-subcritical',
+          'upstreamDepth: the depth above the gate is not subcritical',
+          { depth: y0, yc },
+        );
       return upstreamJump(
         s,
         Q,
@@ -451,31 +560,32 @@ export function locateJump(situation: JumpSituation): JumpLocation {
         y0,
         'gateSteepSlope',
         notes,
+        'slope',
       );
     }
     case 'weirToMildSlope': {
       requireNonNegative('crestHeight', situation.crestHeight);
       requirePositive('manningN', situation.manningN);
       const loss = situation.lossFraction ?? 0;
-      if (!(loss >= 0 && loss < 0.95)) throw new RangeError('lossFraction must lie in [0, 0.95)');
+      if (!(loss >= 0 && loss < 0.95))
+        throw new InputError('lossFraction', 'out-of-range', 'lossFraction must lie in [0, 0.95)', {
+          value: loss,
+          min: 0,
+          max: 0.95,
+        });
       const eToe = (situation.crestHeight + _energy(s, Q, yc)) * (1 - loss);
       const y1 = _supercriticalRoot(s, Q, eToe, yc);
-      if (!(_froude(s, Q, y1) > 1)) {
-        throw new RangeError(
+      const fr1 = _froude(s, Q, y1);
+      if (!(fr1 > 1)) {
+        throw new InputError(
+          'crestHeight',
+          'not-supercritical',
           'crestHeight: the flow at the foot of the weir is not supercritical: no jump',
+          { fr1 },
         );
       }
-      const yDown = mildNormal(
-        s,
-        Q,
-        situation.slope,
-        situation.manningN,
-        situation.tailwaterDepth,
-        'weirToMildSlope',
-      );
-      notes.push(
-        'distance measured from the foot of the weir, where the supercritical depth is taken',
-      );
+      const yDown = mildNormal(s, Q, situation.slope, situation.manningN, situation.tailwaterDepth);
+      notes.push({ code: 'from-weir-foot', values: { y1 } });
       return downstreamJump(
         s,
         Q,
@@ -485,11 +595,34 @@ export function locateJump(situation: JumpSituation): JumpLocation {
         yDown,
         'weirToMildSlope',
         notes,
+        {
+          slope: 'slope',
+          manningN: 'manningN',
+          yStart: 'crestHeight',
+          yDownstream: downstreamField(situation.tailwaterDepth, 'slope'),
+        },
       );
     }
     default:
-      throw new RangeError(
+      throw new InputError(
+        'kind',
+        'unknown-option',
         `situation.kind must be 'slopeBreak', 'gateMildSlope', 'gateSteepSlope' or 'weirToMildSlope'`,
       );
+  }
+}
+
+/** The field behind the depth below a jump: the tailwater depth typed, or the reach's slope. */
+const downstreamField = (tailwaterDepth: number | undefined, slope: string): string =>
+  tailwaterDepth !== undefined ? 'tailwaterDepth' : slope;
+
+/** The gate relation's refusals (named gate.opening, gate.Cc) filed as the situation's fields. */
+function withGateFields<T>(f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof InputError && e.field.startsWith('gate.'))
+      throw new InputError(e.field.slice(5), e.code, e.message, { ...e.values }, { cause: e });
+    throw e;
   }
 }

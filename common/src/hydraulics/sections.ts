@@ -1,5 +1,6 @@
 // Cross-section geometry of prismatic channels. SI (m, m²). Formulas: Chow 1959,
 // Open-Channel Hydraulics, table 2-1; circular centroid moment from plane geometry.
+import { InputError } from '../errors';
 import { requireFinite, requireNonNegative, requirePositive } from './guards';
 
 export type Section =
@@ -24,7 +25,7 @@ export interface SectionProperties {
 /** Throws a RangeError naming the bad field; returns the section for chaining. */
 export function validateSection(section: Section): Section {
   if (section === null || typeof section !== 'object') {
-    throw new RangeError('section must be an object with a shape');
+    throw new InputError('section', 'missing', 'section must be an object with a shape', {});
   }
   switch (section.shape) {
     case 'rectangular':
@@ -34,15 +35,23 @@ export function validateSection(section: Section): Section {
       requireNonNegative('section.bottomWidth', section.bottomWidth);
       requireNonNegative('section.sideSlope', section.sideSlope);
       if (section.bottomWidth === 0 && section.sideSlope === 0) {
-        throw new RangeError('section: a trapezoid needs bottomWidth > 0 or sideSlope > 0');
+        throw new InputError(
+          'section',
+          'invalid',
+          'section: a trapezoid needs bottomWidth > 0 or sideSlope > 0',
+          {},
+        );
       }
       return section;
     case 'circular':
       requirePositive('section.diameter', section.diameter);
       return section;
     default:
-      throw new RangeError(
+      throw new InputError(
+        'section.shape',
+        'unknown-option',
         `section.shape must be 'rectangular', 'trapezoidal' or 'circular' (got ${String((section as { shape?: unknown }).shape)})`,
+        {},
       );
   }
 }
@@ -53,10 +62,13 @@ export function maxDepth(section: Section): number {
 }
 
 function checkDepth(section: Section, y: number): void {
-  requirePositive('y (depth)', y);
+  requirePositive('y', y);
   if (section.shape === 'circular' && y > section.diameter * (1 + 1e-12)) {
-    throw new RangeError(
+    throw new InputError(
+      'y',
+      'conduit-full',
       `y (depth) ${y} m exceeds the conduit diameter ${section.diameter} m: the conduit would run full`,
+      { depth: y, diameter: section.diameter },
     );
   }
 }
@@ -114,7 +126,7 @@ export function geometry(section: Section, y: number): SectionProperties {
  */
 export function sectionProperties(section: Section, y: number): SectionProperties {
   validateSection(section);
-  requireFinite('y (depth)', y);
+  requireFinite('y', y);
   checkDepth(section, y);
   return geometry(section, y);
 }

@@ -1,5 +1,6 @@
 // Tailwater rating TW(Q): a typed table of water-surface elevations, or normal depth by
 // Manning in the downstream channel. Elevations on the project datum, m; SI inside.
+import { InputError } from '../errors';
 import { requireFinite, requirePositive } from './guards';
 import { _normalDepth } from './depths';
 import { validateSection, type Section } from './sections';
@@ -33,7 +34,12 @@ export function makeTailwaterRating(
   if (spec.kind === 'table') {
     const rows = spec.rows;
     if (!Array.isArray(rows))
-      throw new RangeError('tailwater.rows must be a list of { Q, elevation }');
+      throw new InputError(
+        'tailwater.rows',
+        'invalid',
+        'tailwater.rows must be a list of { Q, elevation }',
+        {},
+      );
     rows.forEach((r, i) => {
       requirePositive(`tailwater.rows[${i}].Q`, r.Q);
       requireFinite(`tailwater.rows[${i}].elevation`, r.elevation);
@@ -44,7 +50,7 @@ export function makeTailwaterRating(
       'tailwater rating table',
     );
     return (Q: number) => {
-      requirePositive('Q (discharge)', Q);
+      requirePositive('Q', Q);
       const r = f(Q);
       return { elevation: r.value, depth: r.value - channelBedElevation, outside: r.outside };
     };
@@ -54,10 +60,15 @@ export function makeTailwaterRating(
     requirePositive('tailwater.slope', spec.slope);
     requirePositive('tailwater.manningN', spec.manningN);
     return (Q: number) => {
-      requirePositive('Q (discharge)', Q);
+      requirePositive('Q', Q);
       const depth = _normalDepth(spec.section, Q, spec.slope, spec.manningN, 1);
       return { elevation: channelBedElevation + depth, depth, outside: null };
     };
   }
-  throw new RangeError(`tailwater.kind must be 'table' or 'manning'`);
+  throw new InputError(
+    'tailwater.kind',
+    'unknown-option',
+    `tailwater.kind must be 'table' or 'manning'`,
+    {},
+  );
 }

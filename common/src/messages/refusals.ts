@@ -9,17 +9,16 @@ import { formatQuantity } from './quote';
 interface Phraser {
   len(si: number): string;
   Q(si: number): string;
+  q(si: number): string;
+  unitWeight(si: number): string;
 }
-const phrasers: Record<PhraseUnits, Phraser> = {
-  SI: {
-    len: (x) => formatQuantity(x, 'length', 'SI'),
-    Q: (x) => formatQuantity(x, 'discharge', 'SI'),
-  },
-  US: {
-    len: (x) => formatQuantity(x, 'length', 'US'),
-    Q: (x) => formatQuantity(x, 'discharge', 'US'),
-  },
-};
+const phraserIn = (units: 'SI' | 'US'): Phraser => ({
+  len: (x) => formatQuantity(x, 'length', units),
+  Q: (x) => formatQuantity(x, 'discharge', units),
+  q: (x) => formatQuantity(x, 'unitDischarge', units),
+  unitWeight: (x) => formatQuantity(x, 'unitWeight', units),
+});
+const phrasers: Record<PhraseUnits, Phraser> = { SI: phraserIn('SI'), US: phraserIn('US') };
 
 /** Plain words for the input fields the engine names (never the internal key). */
 const FIELD_WORDS: Record<string, string> = {
@@ -49,6 +48,36 @@ const FIELD_WORDS: Record<string, string> = {
   'inflow.toe': 'the toe conditions',
   'inflow.headwater.C': 'the weir coefficient',
   'inflow.headwater.L': 'the crest length',
+  'inflow.lossModel': 'the loss allowance',
+  'inflow.outlet': 'the outlet flow',
+  'inflow.chute': 'the chute',
+  'dissipators.chosenType': 'the chosen basin type',
+  'dissipators.alternatives': 'the basin types to compare',
+  'dissipators.extraFloorDepth': 'the extra floor depth',
+  'dissipators.flotation': 'the flotation case',
+  // The jump-position tool's situation (hydraulics/profiles.ts), in the form's words.
+  Q: 'the discharge',
+  y1: 'the depth at the toe',
+  fr1: "the inflow's Froude number",
+  section: 'the channel section',
+  'section.shape': 'the section shape',
+  'section.width': 'the channel width',
+  'section.bottomWidth': 'the bottom width',
+  'section.sideSlope': 'the side slope',
+  'section.diameter': 'the diameter',
+  slope: 'the bed slope',
+  manningN: "Manning's n",
+  'upstream.slope': 'the upstream slope',
+  'upstream.manningN': "the upstream reach's Manning n",
+  'downstream.slope': 'the downstream slope',
+  'downstream.manningN': "the downstream reach's Manning n",
+  tailwaterDepth: 'the tailwater depth',
+  opening: 'the gate opening',
+  Cc: 'the contraction coefficient',
+  upstreamDepth: 'the depth upstream of the gate',
+  crestHeight: 'the crest height',
+  lossFraction: 'the share of energy lost on the face',
+  kind: 'the situation',
 };
 
 /** Plain words for a field path: known ones by name, others from their last part. */
@@ -73,6 +102,13 @@ const fig3 = (x: number): string => String(Number(x.toPrecision(3)));
 
 type Values = Readonly<Record<string, number>>;
 
+/** A count in a sentence, with thousands separated. */
+const whole = (x: number | undefined): string =>
+  x === undefined ? '?' : Math.round(x).toLocaleString('en-US');
+/** The flow a gate refusal quotes: the discharge, or the unit discharge under the gate. */
+const flow = (v: Values, P: Phraser): string =>
+  v.Q !== undefined ? P.Q(v.Q) : `${P.q(v.q!)} under the gate`;
+
 const SENTENCES: Record<InputErrorCode, (f: string, v: Values, P: Phraser) => string> = {
   'not-finite': (f) => `${cap(f)} must be a number.`,
   'not-positive': (f) => `${cap(f)} must be greater than zero.`,
@@ -91,17 +127,66 @@ const SENTENCES: Record<InputErrorCode, (f: string, v: Values, P: Phraser) => st
   'supercritical-tailwater': (_f, v, P) =>
     `The downstream channel runs supercritical at ${P.Q(v.Q!)} (Froude number ${fig3(v.fr!)} at normal depth): a steep channel cannot hold a jump. Give a tailwater rating table or a downstream control.`,
   'gate-opening-too-large': (_f, v, P) =>
-    `The gate opening ${P.len(v.opening!)} is too large for ${P.Q(v.Q!)}: the water would not reach the gate. Give a smaller opening or a pool depth instead.`,
+    `The gate opening ${P.len(v.opening!)} is too large for ${flow(v, P)}: the water would not reach the gate. Give a smaller opening or a pool depth instead.`,
   'gate-pool-too-shallow': (_f, v, P) =>
-    `The pool above the gate (${P.len(v.upstreamDepth!)} deep) cannot pass ${P.Q(v.Q!)}.`,
+    `The pool above the gate (${P.len(v.upstreamDepth!)} deep) cannot pass ${flow(v, P)}.`,
   'above-energy-line': (_f, v, P) =>
     v.Q !== undefined
       ? `The floor at ${P.len(v.floorElevation!)} lies above the energy line of the inflow at ${P.Q(v.Q)}.`
-      : `The floor at ${P.len(v.floorElevation!)} lies above the energy line of the inflow.`,
+      : v.floorElevation !== undefined
+        ? `The floor at ${P.len(v.floorElevation)} lies above the energy line of the inflow.`
+        : 'The basin floor lies above the energy line of the inflow.',
   'not-supercritical': (f, v, P) =>
     v.Q !== undefined
       ? `At ${P.Q(v.Q)} the inflow is not supercritical (Froude number ${fig3(v.fr1!)}): no jump forms.`
-      : `${cap(f)} give Froude number ${fig3(v.fr1!)}: the flow is not supercritical and no jump forms.`,
+      : `With ${f} as given the Froude number is ${fig3(v.fr1!)}: the flow is not supercritical and no jump forms.`,
+  'unknown-option': (f) => `${cap(f)} is not one of the choices offered.`,
+  missing: (f) => `${cap(f)} must be given.`,
+  'too-small': (f) => `${cap(f)} is too small to compute.`,
+  'not-above': (f, v) => `${cap(f)} must be greater than ${fig3(v.min ?? 0)}.`,
+  'conduit-full': (f, v, P) =>
+    v.depth !== undefined && v.diameter !== undefined
+      ? `${cap(f)} (${P.len(v.depth)}) exceeds the conduit's diameter (${P.len(v.diameter)}): the conduit would run full.`
+      : v.diameter !== undefined
+        ? `The depth after the jump would exceed the conduit's diameter (${P.len(v.diameter)}): the conduit would run full, and flow under pressure is outside this open-channel method.`
+        : 'The slow flow would fill the conduit: it would run full.',
+  'conduit-too-small': (_f, v, P) =>
+    `A discharge of ${P.Q(v.Q!)} is too much for a conduit ${P.len(v.diameter!)} across: its critical depth would reach the crown and the conduit would run full.`,
+  'conduit-capacity': (_f, v, P) =>
+    `A discharge of ${P.Q(v.Q!)} exceeds what the conduit carries flowing partly full (${P.Q(v.capacity!)} at normal depth).`,
+  'energy-too-low': (_f, v, P) =>
+    `The specific energy (${P.len(v.E!)}) is below the least the flow needs, at critical depth (${P.len(v.eMin!)}): the flow cannot pass.`,
+  'head-too-small': (_f, v, P) =>
+    `The head above the floor (${P.len(v.H0!)}) is too small to pass ${P.q(v.q!)} with the losses allowed.`,
+  'gate-not-controlling': (_f, v, P) =>
+    `The gate opening (${P.len(v.opening!)}) is not below the depth upstream of the gate (${P.len(v.upstreamDepth!)}): the gate does not control the flow.`,
+  'needs-rectangular': (f) =>
+    `${cap(f)} is needed: the gate relation used here holds for rectangular channels only.`,
+  'table-too-short': (f) => `${cap(f)} needs at least two rows with both values.`,
+  'table-not-increasing': (f, v) =>
+    `The discharges of ${f} must increase from row to row (row ${v.row ?? '?'}).`,
+  'not-steep': (f, v, P) =>
+    v.yc !== undefined
+      ? `${cap(f)} is not steep at this discharge: its normal depth${v.depth !== undefined ? ` (${P.len(v.depth)})` : ''} is not below critical depth (${P.len(v.yc)}).`
+      : `${cap(f)} is not steep at this discharge: its normal depth is not below critical depth.`,
+  'not-mild': (f, v, P) =>
+    `${cap(f)} is not mild at this discharge: the depth downstream (${P.len(v.depth!)}) is not above critical depth (${P.len(v.yc!)}).`,
+  'not-subcritical': (f, v, P) =>
+    `${cap(f)} (${P.len(v.depth!)}) is not above critical depth (${P.len(v.yc!)}): no jump can form against it.`,
+  'steep-no-jump': (_f, v, P) =>
+    `The reach is steep (normal depth ${P.len(v.yn!)}, below critical depth ${P.len(v.yc!)}): the fast flow tends to normal depth and never deepens to ${P.len(v.yToe!)}, the depth a jump needs here, so no jump forms on this reach.`,
+  'no-normal-depth': (f) =>
+    `${cap(f)} is needed: the reach is level or adverse, so it has no normal depth.`,
+  'uniform-flow': () =>
+    'The profile reached normal depth (uniform flow) before the jump: no jump forms on this reach.',
+  'not-backwater': () =>
+    'The backwater profile does not run upstream from the control: check that the reach is steep.',
+  'too-many-blocks': (f, v) =>
+    `${cap(f)} would need ${whole(v.count)} blocks, more than the ${whole(v.max)} allowed: the basin is far wider than its flow needs.`,
+  'too-many-rows': (_f, v) =>
+    `The drop would need ${whole(v.rows)} rows of baffle piers, more than the ${whole(v.max)} one apron may hold: the unit discharge is too small for the drop.`,
+  'slab-cannot-hold': (_f, v, P) =>
+    `Concrete of ${P.unitWeight(v.unitWeight!)} cannot outweigh ${fig3(v.safetyFactor!)} times the uplift whatever the slab's thickness: reduce the uplift (drains) or anchor the slab.`,
   'no-floor': (_f, v, P) =>
     v.fr1 !== undefined && v.fr1 < 1.7
       ? `No floor elevation holds a jump at ${P.Q(v.Q!)}: the inflow stays too slow however low the floor.`

@@ -1,5 +1,6 @@
 // SAF basin (St. Anthony Falls): chute blocks, floor blocks, end sill — a short basin for small
 // structures over a wide Froude range.
+import { InputError } from '../../errors';
 import { fitBlockRow, staggeredRow } from '../blocks';
 import type { BasinDefaults } from '../defaults';
 import type { DissipatorModule } from '../types';
@@ -38,7 +39,12 @@ type SafFactorDefaults = Pick<
  */
 export function safTailwaterFactor(fr1: number, d: SafFactorDefaults = BASIN_DEFAULTS): number {
   if (!Number.isFinite(fr1))
-    throw new RangeError(`fr1 (inflow Froude number) must be a finite number (got ${fr1})`);
+    throw new InputError(
+      'fr1',
+      'not-finite',
+      `fr1 (inflow Froude number) must be a finite number (got ${fr1})`,
+      {},
+    );
   const f = Math.min(17, Math.max(1.7, fr1));
   const mid = d.safTailwaterMid;
   // Where each curve meets the middle value (continuity), kept in order within 1.7–17.

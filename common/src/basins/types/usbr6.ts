@@ -43,7 +43,7 @@ export function sizeImpactBasin(
   c: { Q: number; velocity: number; width?: number; tailwaterDepth?: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
 ): ImpactBasinSizing {
-  const Q = reqPositive('Q (discharge)', c.Q);
+  const Q = reqPositive('Q', c.Q);
   const V = reqPositive('velocity (entering velocity)', c.velocity);
   const A = Q / V;
   const ye = Math.sqrt(A / 2);

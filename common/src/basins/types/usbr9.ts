@@ -1,4 +1,5 @@
 // USBR Type IX baffled apron (baffled chute drop): rows of baffles on a 2:1 slope; no tailwater.
+import { InputError } from '../../errors';
 import { G } from '../../units/constants';
 import { fitBlockRow, staggeredRow, type BlockRow } from '../blocks';
 import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
@@ -49,7 +50,7 @@ export function sizeBaffledApron(
   c: { Q: number; width: number; drop: number },
   d: BasinDefaults = { ...BASIN_DEFAULTS },
 ): BaffledApronSizing {
-  const Q = reqPositive('Q (discharge)', c.Q);
+  const Q = reqPositive('Q', c.Q);
   const W = reqPositive('width', c.width);
   const drop = reqPositive('drop (crest to channel bed)', c.drop);
   const q = Q / W;
@@ -62,8 +63,11 @@ export function sizeBaffledApron(
   // One row buried below the bed keeps the bed from scouring under the last row [mem: DSD].
   const rows = Math.max(d.type9MinRows, Math.ceil(above / spacing) + 2);
   if (rows > ENGINE_LIMITS.maxBlockRows)
-    throw new RangeError(
+    throw new InputError(
+      'drop',
+      'too-many-rows',
       `drop (crest to channel bed): ${rows} rows of baffle piers ${h.toPrecision(3)} m high would be needed, more than the ${ENGINE_LIMITS.maxBlockRows} one apron may hold; the unit discharge is too small for the drop`,
+      { rows, max: ENGINE_LIMITS.maxBlockRows },
     );
   const slopeLength = (rows - 1) * spacing + spacing / 2;
   const warnings: StudyWarning[] = [];
@@ -79,8 +83,11 @@ export function sizeBaffledApron(
   const rowB = staggeredRow(W, rowA, Math.min(bw, W));
   const blocks = Math.ceil(rows / 2) * rowA.count + Math.floor(rows / 2) * rowB.count;
   if (blocks > ENGINE_LIMITS.maxApronBlocks)
-    throw new RangeError(
+    throw new InputError(
+      'basinWidth',
+      'too-many-blocks',
       `basinWidth: ${rows} rows of ${rowA.count} baffle piers (${blocks} in all) would be needed, more than the ${ENGINE_LIMITS.maxApronBlocks} one apron may hold; the basin is far wider than its flow needs`,
+      { count: blocks, max: ENGINE_LIMITS.maxApronBlocks },
     );
   return {
     type: 'usbr-9',
