@@ -63,8 +63,30 @@ export class InputError extends RangeError {
   }
 }
 
-/** True for an engine input refusal (an InputError, or any RangeError from older code). */
+/** True for an engine input refusal (an InputError). */
 export const isInputError = (e: unknown): e is InputError => e instanceof InputError;
+
+/** A refusal as plain data (its field, code and SI quantities): it crosses a thread boundary. */
+export interface EngineRefusal {
+  field: string;
+  code: InputErrorCode;
+  values: Record<string, number>;
+}
+
+/**
+ * Why an engine call gave no answer, as plain data for a Web Worker's message: a coded refusal
+ * (phrased where the units are known, by engineFailureText), or an internal failure (an
+ * uncoded guard or a bug) whose text is for logs only and never shown.
+ */
+export type EngineFailure =
+  { kind: 'refusal'; refusal: EngineRefusal } | { kind: 'internal'; detail: string };
+
+/** The failure of a caught error, as data. */
+export function engineFailure(e: unknown): EngineFailure {
+  if (e instanceof InputError)
+    return { kind: 'refusal', refusal: { field: e.field, code: e.code, values: { ...e.values } } };
+  return { kind: 'internal', detail: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
+}
 
 /**
  * Runs f with `field` as the context of any refusal it throws: a refusal naming a field inside

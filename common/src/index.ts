@@ -225,6 +225,8 @@ export { type Action, ACTIONS, can, POLICY } from './policy';
 // Units (mathjs, private instance with cfs): SI ⇄ US customary at the edges
 export {
   convert,
+  convertByKinds,
+  type DeepKindsOf,
   DIMENSIONLESS_DECIMALS,
   DISPLAY_DECIMALS,
   displayDecimals,
@@ -235,6 +237,8 @@ export {
   fromSI,
   fromSIValue,
   inputFromSI,
+  JUMP_LOCATION_KINDS,
+  JUMP_SITUATION_KINDS,
   type KindsOf,
   type NumericKeys,
   phraseMessage,
@@ -282,7 +286,15 @@ export {
   worstMargin,
 } from './range';
 // The engine's input refusals (InputError: field + code) and their sentences (the one phraser)
-export { InputError, type InputErrorCode, isInputError, withField } from './errors';
+export {
+  type EngineFailure,
+  engineFailure,
+  type EngineRefusal,
+  InputError,
+  type InputErrorCode,
+  isInputError,
+  withField,
+} from './errors';
 export {
   codedRefusalText,
   fieldWords,
@@ -290,9 +302,11 @@ export {
   INPUT_ERROR_CODES,
   JUMP_NOTE_CODES,
   jumpNoteText,
+  limitEntryText,
   REASON_CODES,
   reasonText,
-  refusalDetailText,
+  engineFailureText,
+  INTERNAL_FAILURE_TEXT,
   refusalText,
   ROW_NOTE_TEXT,
   rowNoteText,

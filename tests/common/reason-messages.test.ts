@@ -4,6 +4,9 @@
 // item 1).
 import { describe, expect, it } from 'vitest';
 import {
+  DISSIPATOR_CATALOGUE,
+  getDissipator,
+  limitEntryText,
   REASON_CODES,
   reasonText,
   runStudy,
@@ -142,5 +145,37 @@ describe('the screening of a study is data, phrased at the edge', () => {
       kinds: { Q: 'discharge' },
     };
     expect(reasonText(c, 'US')).toBe('no published limit on total discharge (Q 100 cfs)');
+  });
+});
+
+describe("the catalogue's limit texts", () => {
+  it('read in the project units, published US figures exact, no placeholder or metre left in US', () => {
+    for (const m of DISSIPATOR_CATALOGUE)
+      for (const entry of m.limits)
+        for (const units of ['SI', 'US'] as const) {
+          const text = limitEntryText(entry, units);
+          expect(text, `${m.id} ${units}`).not.toMatch(/[{}?]|undefined|NaN|\d\.\d{4,}/);
+          if (units === 'US')
+            expect(text, `${m.id}: metres in US`).not.toMatch(/\d ?(m|m\/s|m²\/s|m³\/s)\b/);
+        }
+    const said = (id: Parameters<typeof getDissipator>[0], units: 'SI' | 'US') =>
+      getDissipator(id).limits.map((e) => limitEntryText(e, units));
+    // USBR Type VI: 400 cfs and 50 ft/s as published [USBR EM-25]; SI is their exact conversion,
+    // 400 × 0.3048³ = 11.3 m³/s and 50 × 0.3048 = 15.2 m/s (three figures, formatQuantity)
+    expect(said('usbr-6', 'US')).toEqual(
+      expect.arrayContaining(['Q up to 400 cfs', 'entering velocity up to 50 ft/s']),
+    );
+    expect(said('usbr-6', 'SI')).toEqual(
+      expect.arrayContaining(['Q up to 11.3 m³/s', 'entering velocity up to 15.2 m/s']),
+    );
+    // Type III baffle piers: care above 50 ft/s, not above 60 ft/s [USBR EM-25]
+    expect(said('usbr-3', 'US')).toContain(
+      'V1 ≤ 50 ft/s; 50 ft/s to 60 ft/s with care; above 60 ft/s baffle piers cavitate',
+    );
+    // Type IX: up to 60 cfs/ft of width [USBR, Design of Small Dams]
+    expect(said('usbr-9', 'US')).toContain('q ≤ 60 ft²/s');
+    // a limit given in SI (the apron's largest culvert rise, 1.5 m [HEC-14]) converts:
+    // 1.5 / 0.3048 = 4.92 ft
+    expect(said('riprap-apron', 'US')).toContain('culvert rise up to 4.92 ft');
   });
 });

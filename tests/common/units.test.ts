@@ -4,8 +4,12 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   G,
+  JUMP_SITUATION_KINDS,
   UNITS,
   convert,
+  convertByKinds,
+  type DeepKindsOf,
+  type JumpSituation,
   fromSIValue,
   inputFromSI,
   phraseMessage,
@@ -113,5 +117,51 @@ describe('engine messages in the project units (phraseMessage)', () => {
     expect(phraseMessage('floorElevation 121.92 m lies above', 'SI')).toBe(
       'floorElevation 121.92 m lies above',
     );
+  });
+});
+
+describe('the jump-position tool on the one unit map (JUMP_SITUATION_KINDS)', () => {
+  it('converts every dimensioned number of a US situation to SI and leaves the pure numbers', () => {
+    const us: JumpSituation = {
+      kind: 'gateMildSlope',
+      section: { shape: 'trapezoidal', bottomWidth: 10, sideSlope: 1.5 },
+      Q: 100,
+      opening: 2,
+      Cc: 0.61,
+      slope: 0.0008,
+      manningN: 0.014,
+      tailwaterDepth: 5,
+    };
+    const si = convertByKinds(us, JUMP_SITUATION_KINDS, 'US', 'toSI');
+    // 1 ft = 0.3048 m and 1 cfs = 0.3048³ m³/s exactly [NIST SP 811]
+    expect(si).toEqual({
+      ...us,
+      section: { shape: 'trapezoidal', bottomWidth: expect.any(Number), sideSlope: 1.5 },
+      Q: expect.any(Number),
+      opening: expect.any(Number),
+      tailwaterDepth: expect.any(Number),
+    });
+    if (si.kind !== 'gateMildSlope' || si.section.shape !== 'trapezoidal') throw new Error('kind');
+    expectRel(si.section.bottomWidth, 10 * 0.3048, 1e-12);
+    expectRel(si.Q, 100 * 0.3048 ** 3, 1e-12);
+    expectRel(si.opening, 2 * 0.3048, 1e-12);
+    expectRel(si.tailwaterDepth!, 5 * 0.3048, 1e-12);
+    // and back; SI stays as it is
+    const back = convertByKinds(si, JUMP_SITUATION_KINDS, 'US', 'fromSI');
+    if (back.kind !== 'gateMildSlope' || back.section.shape !== 'trapezoidal')
+      throw new Error('kind');
+    expectRel(back.Q, 100, 1e-12);
+    expectRel(back.section.bottomWidth, 10, 1e-12);
+    expect(back.slope).toBe(0.0008);
+    expect(convertByKinds(us, JUMP_SITUATION_KINDS, 'SI', 'toSI')).toBe(us);
+  });
+
+  it('a numeric field of a situation without a kind fails the type-check', () => {
+    const rest = Object.fromEntries(
+      Object.entries(JUMP_SITUATION_KINDS).filter(([k]) => k !== 'lossFraction'),
+    ) as Omit<typeof JUMP_SITUATION_KINDS, 'lossFraction'>;
+    // @ts-expect-error lossFraction is a number of JumpSituation: the map must give it a kind
+    const missing: DeepKindsOf<JumpSituation> = rest;
+    expect(Object.keys(missing)).not.toContain('lossFraction');
   });
 });

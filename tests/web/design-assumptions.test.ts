@@ -30,7 +30,7 @@ const FT = 0.3048; // m per ft, exact (NIST SP 811)
 function run(input: StudyInput): StudyResult {
   const out = evaluateStudy(input);
   expect(out.inputProblems, out.inputProblems.join('; ')).toEqual([]);
-  expect(out.engineError).toBeNull();
+  expect(out.failure).toBeNull();
   return out.result!;
 }
 function jump(r: StudyResult): JumpBasinDesign {

@@ -3,11 +3,11 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { defineComponent, h, nextTick, ref, type Ref } from 'vue';
 import { mount } from '@vue/test-utils';
-import type { StudyInput } from '@basinwright/common';
+import { InputError, INTERNAL_FAILURE_TEXT, type StudyInput } from '@basinwright/common';
 import {
   STUDY_DEBOUNCE_MS,
   evaluateStudy,
-  readableEngineError,
+  failureText,
   useStudy,
 } from '../../web/src/composables/useStudy';
 import { fenwickDesign } from '../../seed/designs';
@@ -32,11 +32,22 @@ function mountStudy(input: unknown) {
 }
 
 describe('evaluateStudy', () => {
-  it('turns the engine RangeError for a subcritical toe into a readable message', () => {
+  it('carries the refusal of a subcritical toe as data (code, field, SI values) and phrases it on the page', () => {
     const out = evaluateStudy(subcritical);
     expect(out.result).toBeNull();
-    expect(out.engineError).toMatch(
-      /^The study cannot be computed with these inputs\. The toe conditions give Froude number 0\.22\d: the flow is not supercritical and no jump forms\.$/,
+    // what crosses the worker's boundary: plain data, unchanged by structured cloning
+    const failure = structuredClone(out.failure);
+    expect(failure).toEqual({
+      kind: 'refusal',
+      refusal: {
+        field: 'inflow.toe',
+        code: 'not-supercritical',
+        values: { fr1: expect.any(Number) },
+      },
+    });
+    // Fr1 = 1/√(9.80665·2) = 0.2258 [Chow 1959, Fr = V/√(g·y)]
+    expect(failureText(failure, 'SI')).toBe(
+      'The study cannot be computed with these inputs. With the toe conditions as given the Froude number is 0.226: the flow is not supercritical and no jump forms.',
     );
     expect(out.inputProblems).toEqual([]);
   });
@@ -44,32 +55,31 @@ describe('evaluateStudy', () => {
   it('reports schema problems (in the shared schema words) without running the engine', () => {
     const out = evaluateStudy({ ...demo, basinWidth: -3 });
     expect(out.result).toBeNull();
-    expect(out.engineError).toBeNull();
+    expect(out.failure).toBeNull();
     expect(out.inputProblems).toContain('The basin width must be greater than zero.');
   });
 
-  it('names the field in words for a top-level argument', () => {
-    expect(
-      readableEngineError(new RangeError('basinWidth must be greater than zero (got 0)')),
-    ).toContain('Basin width must be greater than zero');
-    expect(readableEngineError(new TypeError('x is undefined'))).toBe(
-      'The calculation failed unexpectedly: x is undefined',
+  it('phrases a coded refusal from its code in the project units, and never shows an internal text', () => {
+    const refusal = (e: InputError) => ({
+      kind: 'refusal' as const,
+      refusal: { field: e.field, code: e.code, values: { ...e.values } },
+    });
+    const zero = new InputError('basinWidth', 'not-positive', 'basinWidth must be > 0', {});
+    expect(failureText(refusal(zero))).toBe(
+      'The study cannot be computed with these inputs. The basin width must be greater than zero.',
     );
-    // On a US project the engine's metres are put in feet (1 ft = 0.3048 m exactly, NIST SP 811);
-    // a bare SI number is said to be SI.
-    const us = readableEngineError(
-      new RangeError('floorElevation 121.92 m lies above the outlet’s energy line'),
-      'US',
+    // 121.92 m / 0.3048 m/ft = 400.00 ft [NIST SP 811]; lengths to the hundredth (formatQuantity)
+    const floor = new InputError('floorElevation', 'above-energy-line', 'x', {
+      floorElevation: 121.92,
+    });
+    expect(failureText(refusal(floor), 'US')).toContain('The floor at 400.00 ft lies above');
+    // an uncoded guard or a bug: a plain sentence, never the engine's own text
+    const internal = failureText({ kind: 'internal', detail: 'RangeError: brent: no root' }, 'US');
+    expect(internal).toBe(
+      `The study cannot be computed with these inputs. ${INTERNAL_FAILURE_TEXT}`,
     );
-    // lengths to the hundredth: the one display-rounding rule (formatQuantity)
-    expect(us).toContain('Floor elevation 400.00 ft lies above');
-    expect(us).not.toContain('SI');
-    expect(
-      readableEngineError(
-        new RangeError('basinWidth must be greater than zero (got -1.524)'),
-        'US',
-      ),
-    ).toContain('(The value quoted is in SI units.)');
+    expect(internal).not.toContain('brent');
+    expect(failureText(null)).toBeNull();
   });
 });
 

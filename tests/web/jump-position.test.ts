@@ -310,8 +310,11 @@ describe('Where the jump forms — the page', () => {
     const error = wrapper.find('[data-test="jump-error"]');
     expect(error.exists()).toBe(true);
     expect(error.text()).toContain('The jump position cannot be worked out with these inputs.');
-    expect(error.text()).toContain('is not subcritical');
-    expect(error.text()).toContain('check the bed slope');
+    // coded 'not-mild' with the normal and critical depths it quotes (to the hundredth)
+    expect(error.text()).toContain(
+      'The bed slope is not mild at this discharge: the depth downstream (0.42 m) is not above critical depth (0.74 m).',
+    );
+    expect(error.text()).toContain('Check the bed slope, or give the tailwater depth.');
     expect(error.text()).not.toMatch(/yDownstream|\d\.\d{6,}/); // the form's words, readable numbers
     // the last good answer stays, marked as such
     expect(wrapper.find('[data-test="jump-stale"]').exists()).toBe(true);
@@ -323,7 +326,7 @@ describe('Where the jump forms — the page', () => {
     const { wrapper } = await mountPage();
     await type(wrapper, { ...rect3Slopes, 'upstream.slope': 0.001 });
     const error = wrapper.find('[data-test="jump-error"]');
-    expect(error.text()).toContain('Upstream slope: the upstream reach is not steep');
+    expect(error.text()).toContain('The upstream slope is not steep at this discharge');
     wrapper.unmount();
   });
 

@@ -53,9 +53,10 @@ function fakes() {
   return { made, spawn };
 }
 
-const outcome = (engineError: string): StudyOutcome => ({
+// an outcome told apart by its (internal, never shown) failure detail
+const outcome = (detail: string): StudyOutcome => ({
   result: null,
-  engineError,
+  failure: { kind: 'internal', detail },
   inputProblems: [],
 });
 const req = (raw: unknown): StudyRequest => ({ raw, chosenType: null });

@@ -152,7 +152,7 @@ describe('the uncertainty worker client', () => {
 
     const second = client.run(fenwickDesign, spec, (d) => seen.push(d));
     const w2 = made[1]!;
-    const outcome = { result: null, error: 'refused' };
+    const outcome = { result: null, incomplete: 'not complete', failure: null };
     w2.send({ id: w2.posted[0]!.id, outcome });
     expect(await second).toEqual(outcome);
   });

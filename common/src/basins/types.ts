@@ -1,6 +1,6 @@
 // Shared shapes of the dissipator catalogue, screening and sizing. SI units throughout.
 import type { BasinDefaults } from './defaults';
-import type { Quoted, StudyWarning } from '../warnings';
+import type { Quantity, Quoted, StudyWarning } from '../warnings';
 
 /** The jump basins sizeJumpBasin handles. */
 export type JumpBasinType = 'usbr-1' | 'usbr-2' | 'usbr-3' | 'usbr-4' | 'saf';
@@ -168,10 +168,13 @@ export interface ScreeningContext {
   culvert?: { shape: 'circular' | 'box'; rise: number; span?: number };
 }
 
-/** A published limit, for display in the catalogue. */
+/** A published limit, for display in the catalogue (phrased by limitEntryText in messages/). */
 export interface LimitEntry {
   criterion: CriterionId;
+  /** the limit in words; `{name}` stands for the quantity `quotes[name]`, said in the units read */
   text: string;
+  /** the quantities the text quotes (SI with their kinds; a published figure kept as published) */
+  quotes?: Readonly<Record<string, Quantity>>;
   /** e.g. "[src: USBR EM-25]" or "[mem: …]" */
   tag: string;
 }

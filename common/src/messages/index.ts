@@ -6,9 +6,10 @@ export {
   INPUT_ERROR_CODES,
   codedRefusalText,
   fieldWords,
-  refusalDetailText,
+  engineFailureText,
+  INTERNAL_FAILURE_TEXT,
   refusalText,
 } from './refusals';
 export { ROW_NOTE_TEXT, formatQuantity, rowNoteText, studyWarningText, typeName } from './warnings';
 export { JUMP_NOTE_CODES, jumpNoteText } from './jump';
-export { REASON_CODES, reasonText, screeningSummaryText } from './reasons';
+export { limitEntryText, REASON_CODES, reasonText, screeningSummaryText } from './reasons';

@@ -1,7 +1,8 @@
 // Sentences for the screening's coded reasons (basins/types.ts ReasonCode) and each type's summary,
 // in SI or US customary. The quantities arrive SI with their kinds; quote.ts says them.
 import type { TypeScreening } from '../basins/screening';
-import type { CriterionResult, InflowKind, ReasonCode } from '../basins/types';
+import type { CriterionResult, InflowKind, LimitEntry, ReasonCode } from '../basins/types';
+import { quote } from '../warnings';
 import type { UnitSystem } from '../range/types';
 import { formatQuantity, sayer, type Say } from './quote';
 
@@ -190,4 +191,15 @@ export function screeningSummaryText(
       if (r.family === 'jet') return `Not indicated: ${reasons(r.criteria)}.`;
       return `Unsuitable: ${reasons(fails)}.`;
   }
+}
+
+/**
+ * A published limit of the catalogue (LimitEntry) in words, its quantities in the project's
+ * units: a figure published in US customary reads exactly as published in a US project (50 ft/s,
+ * never 49.2 ft/s), and its exact conversion in SI.
+ * @example limitEntryText(getDissipator('usbr-6').limits[1], 'US') // 'entering velocity up to 50 ft/s'
+ */
+export function limitEntryText(entry: LimitEntry, units: UnitSystem = 'SI'): string {
+  const say = sayer(quote(entry.quotes ?? {}), units);
+  return entry.text.replace(/\{(\w+)\}/g, (_, name: string) => say(name));
 }

@@ -1,8 +1,8 @@
 // Sentences for the engine's refusal codes, in either unit system: the one phraser of refusals (the web's
 // messages and the API's 422s both come from here). Quantities arrive SI with their codes; nothing
 // here parses a sentence.
-import { InputError, type InputErrorCode } from '../errors';
-import { phraseMessage, type PhraseUnits } from '../units/phrase';
+import { InputError, type EngineFailure, type InputErrorCode } from '../errors';
+import type { PhraseUnits } from '../units/phrase';
 import { formatQuantity } from './quote';
 
 /** Quantities in a refusal, by the one rounding rule (formatQuantity). */
@@ -170,7 +170,7 @@ const SENTENCES: Record<InputErrorCode, (f: string, v: Values, P: Phraser) => st
       ? `${cap(f)} is not steep at this discharge: its normal depth${v.depth !== undefined ? ` (${P.len(v.depth)})` : ''} is not below critical depth (${P.len(v.yc)}).`
       : `${cap(f)} is not steep at this discharge: its normal depth is not below critical depth.`,
   'not-mild': (f, v, P) =>
-    `${cap(f)} is not mild at this discharge: the depth downstream (${P.len(v.depth!)}) is not above critical depth (${P.len(v.yc!)}).`,
+    `${cap(f)} is not mild at this discharge: the depth downstream (${P.len(v.depth!)}) is not above critical depth (${P.len(v.yc!)}). Check the bed slope, or give the tailwater depth.`,
   'not-subcritical': (f, v, P) =>
     `${cap(f)} (${P.len(v.depth!)}) is not above critical depth (${P.len(v.yc!)}): no jump can form against it.`,
   'steep-no-jump': (_f, v, P) =>
@@ -196,15 +196,19 @@ const SENTENCES: Record<InputErrorCode, (f: string, v: Values, P: Phraser) => st
 /** Every code of InputError (for tests and the API's documentation). */
 export const INPUT_ERROR_CODES = Object.keys(SENTENCES) as InputErrorCode[];
 
+/** What the user reads when the engine fails for a reason of its own (never its raw text). */
+export const INTERNAL_FAILURE_TEXT =
+  'The engine could not finish this calculation with these inputs. Check the values; if they are sound, the case needs a closer look by an engineer.';
+
 /**
  * The sentence for an engine refusal in a unit system. A coded InputError is phrased from its
- * code, field and SI quantities; any other RangeError keeps its sentence, its quantities put in
- * the unit system.
+ * code, field and SI quantities; anything else (an internal guard, a bug) gets a plain sentence
+ * and never its own text.
  * @example refusalText(new InputError('inflow.opening', 'gate-opening-too-large', '', { opening: 3, Q: 5 }), 'SI')
  */
-export function refusalText(error: RangeError, units: PhraseUnits = 'SI'): string {
+export function refusalText(error: unknown, units: PhraseUnits = 'SI'): string {
   if (error instanceof InputError) return codedRefusalText(error, units);
-  return refusalDetailText(error.message, units);
+  return INTERNAL_FAILURE_TEXT;
 }
 
 /** The sentence of a refusal given as data: its field, code and SI quantities. */
@@ -216,7 +220,9 @@ export function codedRefusalText(
   return SENTENCES[refusal.code](fieldWords(refusal.field), refusal.values, P);
 }
 
-/** The sentence of an uncoded refusal (SI), its quantities put in the unit system. */
-export function refusalDetailText(sentence: string, units: PhraseUnits = 'SI'): string {
-  return phraseMessage(sentence, units);
+/** The sentence of an engine failure carried as data (across a Web Worker's boundary). */
+export function engineFailureText(failure: EngineFailure, units: PhraseUnits = 'SI'): string {
+  return failure.kind === 'refusal'
+    ? codedRefusalText(failure.refusal, units)
+    : INTERNAL_FAILURE_TEXT;
 }

@@ -6,7 +6,7 @@ import type { DissipatorTypeId } from '../basins/types';
 import type { RowNoteCode, UnitSystem } from '../range/types';
 import type { StudyWarning, StudyWarningCode } from '../warnings';
 import { cap, discharges, sayer, type Say } from './quote';
-import { codedRefusalText, refusalDetailText } from './refusals';
+import { codedRefusalText, INTERNAL_FAILURE_TEXT } from './refusals';
 
 export { formatQuantity } from './quote';
 
@@ -128,7 +128,8 @@ export function typeName(id: DissipatorTypeId | undefined): string {
 /** The refusal behind a warning, as a following sentence ('' when none). */
 function causeText(w: StudyWarning, units: UnitSystem): string {
   if (!w.cause) return '';
-  if (w.cause.detail !== undefined) return ` ${refusalDetailText(w.cause.detail, units)}`;
+  // An uncoded cause (an internal guard) is never shown raw.
+  if (w.cause.detail !== undefined) return ` ${INTERNAL_FAILURE_TEXT}`;
   return ` ${codedRefusalText(w.cause, units)}`;
 }
 

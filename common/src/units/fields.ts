@@ -1,5 +1,6 @@
 // The one map of which quantity each field holds (issue 7 item 3): toSI/fromSI (units/index.ts)
 // and the web's converters read it. Fields not listed are dimensionless (Fr, n, slopes, ratios).
+import type { JumpLocation, JumpSituation } from '../hydraulics/profiles';
 import type { StudyInput } from '../range/types';
 import type { QuantityKind } from './index';
 
@@ -10,6 +11,57 @@ export type NumericKeys<T> = {
 
 /** A kind for every numeric key of T: null says the number is dimensionless. */
 export type KindsOf<T> = { readonly [K in NumericKeys<T>]: QuantityKind | null };
+
+/**
+ * The keys of every number anywhere in T (nested objects, array items, each member of a union),
+ * for a flat kind map of a small tree such as the jump-position tool's situation.
+ */
+export type DeepNumericKeys<T> = T extends readonly (infer E)[]
+  ? DeepNumericKeys<E>
+  : T extends object
+    ? {
+        [K in keyof T]-?: NonNullable<T[K]> extends number
+          ? K
+          : NonNullable<T[K]> extends object
+            ? DeepNumericKeys<NonNullable<T[K]>>
+            : never;
+      }[keyof T]
+    : never;
+
+/** A kind for every number anywhere in T, by key: null says the number is dimensionless. */
+export type DeepKindsOf<T> = { readonly [K in DeepNumericKeys<T> & string]: QuantityKind | null };
+
+/**
+ * The quantity of every number of a jump-position situation (hydraulics/profiles.ts), at any
+ * depth (section, upstream and downstream reaches). Typed with `satisfies`: a numeric field added
+ * to JumpSituation without an entry here fails the type-check.
+ */
+export const JUMP_SITUATION_KINDS = {
+  Q: 'discharge',
+  width: 'length',
+  bottomWidth: 'length',
+  sideSlope: null,
+  diameter: 'length',
+  slope: null,
+  manningN: null,
+  tailwaterDepth: 'length',
+  opening: 'length',
+  Cc: null,
+  upstreamDepth: 'length',
+  crestHeight: 'length',
+  lossFraction: null,
+} as const satisfies DeepKindsOf<JumpSituation>;
+
+/** The quantity of every number of a jump-position answer (profiles' x and y, the notes' y1). */
+export const JUMP_LOCATION_KINDS = {
+  distance: 'length',
+  yToe: 'length',
+  ySequent: 'length',
+  criticalDepth: 'length',
+  x: 'length',
+  y: 'length',
+  y1: 'length',
+} as const satisfies DeepKindsOf<JumpLocation>;
 
 /**
  * The quantity of every number at the top of a StudyInput. Typed with `satisfies`: a numeric

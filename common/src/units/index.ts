@@ -9,8 +9,12 @@ import { fieldKind } from './fields';
 
 export { FOOT, G, MANNING_K_SI, MANNING_K_US, RHO_WATER } from './constants';
 export {
+  type DeepKindsOf,
+  type DeepNumericKeys,
   FIELD_KINDS,
   fieldKind,
+  JUMP_LOCATION_KINDS,
+  JUMP_SITUATION_KINDS,
   type KindsOf,
   type NumericKeys,
   STUDY_INPUT_KINDS,
@@ -114,6 +118,33 @@ export function toSIValue(value: number, kind: QuantityKind, system: UnitSystem)
 /** A quantity from SI into `system`. @example fromSIValue(0.3048, 'length', 'US') // 1 */
 export function fromSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {
   return system === 'SI' ? value : value / FACTOR[kind];
+}
+
+/**
+ * A small tree (the jump-position tool's situation or answer) between `system` and SI, every
+ * number converted by the kind its key has in `kinds` (a typed map of units/fields.ts); a key
+ * the map calls dimensionless, or does not list, is left as it is.
+ * @example convertByKinds({ Q: 100 }, JUMP_SITUATION_KINDS, 'US', 'toSI') // { Q: 2.8316846592 }
+ */
+export function convertByKinds<T>(
+  tree: T,
+  kinds: Readonly<Record<string, QuantityKind | null>>,
+  system: UnitSystem,
+  dir: 'toSI' | 'fromSI',
+): T {
+  if (system === 'SI') return tree;
+  const f = dir === 'toSI' ? toSIValue : fromSIValue;
+  const node = (v: unknown, key: string | undefined): unknown => {
+    if (typeof v === 'number') {
+      const kind = key !== undefined && Object.hasOwn(kinds, key) ? kinds[key] : null;
+      return kind && Number.isFinite(v) ? f(v, kind, system) : v;
+    }
+    if (Array.isArray(v)) return v.map((item) => node(item, key));
+    if (v !== null && typeof v === 'object')
+      return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, node(x, k)]));
+    return v;
+  };
+  return node(tree, undefined) as T;
 }
 
 // The unit of a dissipator default (its provenance, SI) → the quantity it holds.

@@ -1,8 +1,12 @@
 // The cheapest-design search in the browser: schema (in the input's units) → the engine's
 // search, never throwing; and the worker that runs it off the page's main thread.
 import { ValidationError } from 'yup';
-import { cheapestFromRequest, cheapestRequestSchema, type UnitSystem } from '@basinwright/common';
-import { readableEngineError } from '@/composables/useStudy';
+import {
+  cheapestFromRequest,
+  cheapestRequestSchema,
+  engineFailure,
+  type UnitSystem,
+} from '@basinwright/common';
 import {
   createSearchClient,
   type SearchClient,
@@ -11,7 +15,11 @@ import {
   type SearchRequest,
 } from '@/composables/studyWorker';
 
-function unitsOf(body: unknown): UnitSystem {
+/** The lead of a search's refusal on the page (failureText). */
+export const SEARCH_FAILURE_LEAD = 'The search cannot run with these inputs.';
+
+/** The unit system of a search request's study input, SI unless it says US. */
+export function searchUnitsOf(body: unknown): UnitSystem {
   const input = (body as { input?: { units?: unknown } } | null)?.input;
   return input?.units === 'US' ? 'US' : 'SI';
 }
@@ -26,25 +34,13 @@ export function evaluateSearch(request: SearchRequest): SearchOutcome {
     });
   } catch (e) {
     if (e instanceof ValidationError)
-      return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
-    return {
-      result: null,
-      engineError: readableEngineError(e, unitsOf(request.body)),
-      inputProblems: [],
-    };
+      return { result: null, failure: null, inputProblems: [...new Set(e.errors)] };
+    return { result: null, failure: engineFailure(e), inputProblems: [] };
   }
   try {
-    return { result: cheapestFromRequest(body), engineError: null, inputProblems: [] };
+    return { result: cheapestFromRequest(body), failure: null, inputProblems: [] };
   } catch (e) {
-    return {
-      result: null,
-      engineError: readableEngineError(
-        e,
-        body.input.units,
-        'The search cannot run with these inputs.',
-      ),
-      inputProblems: [],
-    };
+    return { result: null, failure: engineFailure(e), inputProblems: [] };
   }
 }
 

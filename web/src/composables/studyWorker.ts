@@ -6,6 +6,7 @@
 import type {
   CheapestSearchResult,
   DissipatorTypeId,
+  EngineFailure,
   UncertaintyRequest,
 } from '@basinwright/common';
 import type { StudyOutcome } from '@/composables/useStudy';
@@ -151,8 +152,8 @@ export interface SearchRequest {
 /** What a search gives back: the result, or the reason it could not run. */
 export interface SearchOutcome {
   result: CheapestSearchResult | null;
-  /** readable message when the engine refused the input */
-  engineError: string | null;
+  /** why the engine gave no result, as data (phrased on the page by failureText) */
+  failure: EngineFailure | null;
   /** schema messages when the request is not complete */
   inputProblems: string[];
 }

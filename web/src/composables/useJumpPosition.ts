@@ -3,17 +3,19 @@
 import { inject, provide, watch, type InjectionKey, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
-  fieldKind,
-  fromSIValue,
+  convertByKinds,
+  engineFailure,
+  JUMP_LOCATION_KINDS,
+  JUMP_SITUATION_KINDS,
   jumpSituationSchema,
   locateJump,
-  toSIValue,
+  type EngineFailure,
   type JumpLocation,
   type JumpSituation,
   type Section,
   type UnitSystem,
 } from '@basinwright/common';
-import { STUDY_DEBOUNCE_MS, readableEngineError } from '@/composables/useStudy';
+import { STUDY_DEBOUNCE_MS, failureText } from '@/composables/useStudy';
 import { useLiveResult } from '@/composables/useLive';
 import { provideNumberForm } from '@/forms';
 
@@ -23,35 +25,15 @@ export type SectionShape = Section['shape'];
 /** The page waits as long as the design workspace before it recomputes. */
 export const JUMP_DEBOUNCE_MS = STUDY_DEBOUNCE_MS;
 
-// Which fields of a situation carry a dimension: the engine's one unit map (fieldKind); every
-// other number (slopes, Manning's n, Cc, side slope, loss fraction) is the same in both systems.
-function convertNode(
-  node: unknown,
-  units: UnitSystem,
-  dir: 'toSI' | 'fromSI',
-  key?: string,
-): unknown {
-  if (typeof node === 'number') {
-    const kind = key ? fieldKind(key) : null;
-    if (!kind || units === 'SI' || !Number.isFinite(node)) return node;
-    return dir === 'toSI' ? toSIValue(node, kind, units) : fromSIValue(node, kind, units);
-  }
-  if (node !== null && typeof node === 'object' && !Array.isArray(node)) {
-    return Object.fromEntries(
-      Object.entries(node).map(([k, v]) => [k, convertNode(v, units, dir, k)]),
-    );
-  }
-  return node;
-}
-
 /** A situation typed in `units` as the engine takes it (SI). */
 export function situationToSI<T>(situation: T, units: UnitSystem): T {
-  return convertNode(situation, units, 'toSI') as T;
+  return convertByKinds(situation, JUMP_SITUATION_KINDS, units, 'toSI');
 }
 
 /** An SI situation in `units`, rounded as an engineer would type it (for the form). */
 export function situationFromSI<T>(situation: T, units: UnitSystem): T {
-  const out = convertNode(situation, units, 'fromSI');
+  // The one unit map (common/src/units/fields.ts): every number of a situation has a kind there.
+  const out = convertByKinds(situation, JUMP_SITUATION_KINDS, units, 'fromSI');
   return tidy(out) as T;
 }
 
@@ -118,79 +100,17 @@ export function startingSituation(kind: JumpKind, units: UnitSystem): JumpSituat
   return { kind, ...base, ...startingFields(kind, units) } as JumpSituation;
 }
 
-// Engine argument names → the words on the form, per situation (the same name can mean a
-// different field: "slope" of a slope break's downstream reach is the downstream slope).
-const ENGINE_WORDS: Array<[RegExp, string]> = [
-  [/^upstream\.slope\b/, 'Upstream slope'],
-  [/^upstream\.manningN\b/, "Upstream Manning's n"],
-  [/^downstream\.slope\b/, 'Downstream slope'],
-  [/^downstream\.manningN\b/, "Downstream Manning's n"],
-  [/^(?:downstream|gateMildSlope|weirToMildSlope)\.tailwaterDepth\b/, 'Tailwater depth'],
-  [/^section\.width\b/, 'Channel width'],
-  [/^section\.bottomWidth\b/, 'Bottom width'],
-  [/^section\.sideSlope\b/, 'Side slope'],
-  [/^section\.diameter\b/, 'Diameter'],
-  [/^section\b/, 'Channel section'],
-  [/^Q \(discharge\)/, 'Discharge Q'],
-  [/^upstreamDepth\b/, 'Depth upstream of the gate'],
-  [/^(?:gate\.)?opening\b/, 'Gate opening'],
-  [/^(?:gate\.)?Cc(?: \(contraction coefficient\))?/, 'Contraction coefficient Cc'],
-  [/^crestHeight\b/, 'Crest height'],
-  [/^lossFraction\b/, 'Energy lost on the face'],
-  [/^manningN\b/, "Manning's n"],
-  [/^yDownstream\b/, 'The depth below the jump (tailwater or normal depth)'],
-  [/^yStart\b/, 'The depth where the fast flow starts'],
-  [/^y \(depth\)/, 'A depth'],
-  [/^E \(specific energy\)/, 'The specific energy'],
-];
-
-/** Engine numbers in SI come with every digit; four significant figures are enough to read. */
-function shortNumbers(text: string): string {
-  return text.replace(/(?<![\w.])(-?\d+\.\d{5,})(?=\s?m\b|\s?m³\/s|\s?m²\/s)/g, (n) =>
-    String(Number(Number(n).toPrecision(4))),
-  );
-}
-
-const JUMP_ERROR_LEAD = 'The jump position cannot be worked out with these inputs.';
-
-/**
- * A refusal of the engine as a sentence for the page: the argument it names in the form's
- * words, the quantities in the user's units (through readableEngineError), and our own lead.
- */
-export function readableJumpError(
-  error: unknown,
-  units: UnitSystem,
-  situation?: JumpSituation,
-): string {
-  const kind = situation?.kind;
-  if (!(error instanceof RangeError)) return readableEngineError(error, units);
-  let text = shortNumbers(error.message.trim());
-  // "slope:" names the reach the profile runs on: the downstream one below a slope break.
-  const words: Array<[RegExp, string]> =
-    kind === 'slopeBreak'
-      ? [[/^slope\b/, 'Downstream slope'], ...ENGINE_WORDS]
-      : [[/^slope\b/, 'Bed slope'], ...ENGINE_WORDS];
-  const hit = words.find(([re]) => re.test(text));
-  if (hit) text = text.replace(hit[0], hit[1]);
-  let sentence = readableEngineError(new RangeError(text), units, JUMP_ERROR_LEAD);
-  // A "mild" reach that is steep for this discharge shows up as a subcritical depth that is not.
-  if (/^yDownstream\b.*not subcritical/.test(error.message)) {
-    const given =
-      situation !== undefined &&
-      'tailwaterDepth' in situation &&
-      situation.tailwaterDepth !== undefined;
-    sentence += given
-      ? ' A jump needs a tailwater depth above critical depth.'
-      : ' On a mild reach normal depth lies above critical depth: check the bed slope, or give the tailwater depth.';
-  }
-  return sentence;
-}
+/** The lead of a refusal on the jump-position page. */
+export const JUMP_FAILURE_LEAD = 'The jump position cannot be worked out with these inputs.';
 
 export interface JumpOutcome {
   /** the engine's answer, SI */
   location: JumpLocation | null;
   /** the situation the engine ran on, SI */
   situation: JumpSituation | null;
+  /** why the engine gave no answer, as data (phrased by failureText in the user's units) */
+  failure: EngineFailure | null;
+  /** the failure's sentence in the user's units, with the page's lead */
   engineError: string | null;
   /** schema messages while the form is incomplete or out of range */
   inputProblems: string[];
@@ -214,37 +134,31 @@ export function evaluateJumpPosition(raw: unknown, units: UnitSystem): JumpOutco
       return {
         location: null,
         situation: null,
+        failure: null,
         engineError: null,
         inputProblems: [...new Set(e.errors)],
       };
-    return {
-      location: null,
-      situation: null,
-      engineError: readableJumpError(e, units),
-      inputProblems: [],
-    };
+    return refused(engineFailure(e), units);
   }
   try {
     const si = situationToSI(typed, units);
     const location = locateJump(si);
-    if (!finiteLocation(location)) {
-      return {
-        location: null,
-        situation: si,
-        engineError:
-          'The jump position cannot be worked out with these inputs: the calculation gave no finite answer.',
-        inputProblems: [],
-      };
-    }
-    return { location, situation: si, engineError: null, inputProblems: [] };
+    if (!finiteLocation(location))
+      return refused({ kind: 'internal', detail: 'locateJump gave no finite answer' }, units);
+    return { location, situation: si, failure: null, engineError: null, inputProblems: [] };
   } catch (e) {
-    return {
-      location: null,
-      situation: null,
-      engineError: readableJumpError(e, units, typed),
-      inputProblems: [],
-    };
+    return refused(engineFailure(e), units);
   }
+}
+
+function refused(failure: EngineFailure, units: UnitSystem): JumpOutcome {
+  return {
+    location: null,
+    situation: null,
+    failure,
+    engineError: failureText(failure, units, JUMP_FAILURE_LEAD),
+    inputProblems: [],
+  };
 }
 
 /**
@@ -314,33 +228,35 @@ function thin(
 
 /** The profiles, the critical depth and the toe of a JumpLocation (SI) for plotting in `units`. */
 export function jumpChartLines(location: JumpLocation, units: UnitSystem): JumpChartLines {
-  const L = (v: number): number => fromSIValue(v, 'length', units);
-  const pair = (p: { x: number; y: number }): [number, number] => [L(p.x), L(p.y)];
-  const sup = thin(location.supercriticalProfile).map(pair);
-  const sub = thin(location.subcriticalProfile).map(pair);
+  // Every number of the answer in the user's units by the one unit map (JUMP_LOCATION_KINDS).
+  const shown = convertByKinds(location, JUMP_LOCATION_KINDS, units, 'fromSI');
+  const pair = (p: { x: number; y: number }): [number, number] => [p.x, p.y];
+  const sup = thin(shown.supercriticalProfile).map(pair);
+  const sub = thin(shown.subcriticalProfile).map(pair);
   // Upstream jumps stand at negative x (the engine's profiles run from upstream to the control).
-  const toeSI =
-    location.position === 'downstream'
-      ? location.distance
-      : location.position === 'upstream'
-        ? -location.distance
+  const toeX =
+    shown.position === 'downstream'
+      ? shown.distance
+      : shown.position === 'upstream'
+        ? -shown.distance
         : 0;
+  const yc = shown.criticalDepth;
   const xs = [...sup, ...sub].map((p) => p[0]);
   const ys = [...sup, ...sub].map((p) => p[1]);
-  const xMin = Math.min(...xs, L(toeSI));
-  const xMax = Math.max(...xs, L(toeSI));
-  const top = Math.max(...ys, L(location.criticalDepth)) * 1.1;
+  const xMin = Math.min(...xs, toeX);
+  const xMax = Math.max(...xs, toeX);
+  const top = Math.max(...ys, yc) * 1.1;
   return {
     supercritical: sup,
     subcritical: sub,
     critical: [
-      [xMin, L(location.criticalDepth)],
-      [xMax, L(location.criticalDepth)],
+      [xMin, yc],
+      [xMax, yc],
     ],
     toe: [
-      [L(toeSI), 0],
-      [L(toeSI), top],
+      [toeX, 0],
+      [toeX, top],
     ],
-    toeX: L(toeSI),
+    toeX,
   };
 }

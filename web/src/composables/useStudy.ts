@@ -2,10 +2,10 @@
 import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { ValidationError } from 'yup';
 import {
-  InputError,
-  phraseMessage,
-  refusalText,
+  engineFailure,
+  engineFailureText,
   runStudy,
+  type EngineFailure,
   studyInputSchema,
   type DissipatorTypeId,
   type StudyInput,
@@ -19,64 +19,26 @@ import { createStudyClient, type StudyPort } from '@/composables/studyWorker';
 /** How long typing must pause before the study runs again, ms. */
 export const STUDY_DEBOUNCE_MS = 250;
 
-// Engine argument paths → the words the form uses, for messages shown to the user.
-const FIELD_WORDS: Array<[RegExp, string]> = [
-  [/^channelBedElevation\b/, 'Channel bed elevation'],
-  [/^basinWidth\b/, 'Basin width'],
-  [/^designDischarge\b/, 'Design discharge'],
-  [/^discharges\b/, 'Discharges to check'],
-  [/^tailwater\b/, 'Tailwater rating'],
-  [/^inflow\.headwater\b/, 'Headwater rating'],
-  [/^inflow\.lossModel\b/, 'Loss allowance'],
-  [/^inflow\.outlet\b/, 'Outlet flow'],
-  [/^inflow\.toe\b/, 'Toe conditions'],
-  [/^inflow\.chute\b/, 'Chute'],
-  [/^uncertainty\b/, 'Uncertain inputs'],
-  [/^inflow\b/, 'Inflow'],
-  [/^floorElevation\b/, 'Floor elevation'],
-  [/^tailwaterFactor\b/, 'Tailwater factor'],
-  [/^dissipators\.defaults\b/, 'Assumption'],
-  [/^defaults\b/, 'Assumption'],
-  [/^dissipators\.flotation\b/, 'Flotation case'],
-  [/^safetyFactor\b/, 'Flotation safety factor'],
-  [/^dissipators\.culvert\b/, 'Culvert size'],
-];
+/** The lead of a study's refusal on the page. */
+export const STUDY_FAILURE_LEAD = 'The study cannot be computed with these inputs.';
 
 /**
- * A RangeError from the engine as a sentence for the page: the argument it names becomes the
- * field's label, and the quantities it quotes (the engine computes in SI) are put in the
- * project's units. A bare number the engine names without a unit stays in SI, and then says so.
+ * An engine failure (data, as it crosses the worker's boundary) as a sentence for the page, in
+ * the project's units: a coded refusal is phrased by common/messages from its code, field and
+ * SI quantities; nothing here reads the engine's own text.
  */
-export function readableEngineError(
-  error: unknown,
+export function failureText(
+  failure: EngineFailure | null,
   units: UnitSystem = 'SI',
-  lead = 'The study cannot be computed with these inputs.',
-): string {
-  // A coded refusal is phrased by common/messages from its code and quantities.
-  if (error instanceof InputError) return `${lead} ${refusalText(error, units)}`;
-  if (error instanceof RangeError) {
-    let text = phraseMessage(error.message.trim(), units);
-    const m = /^([A-Za-z][\w.[\]]*)(:?)\s*/.exec(text);
-    const path = m?.[1] ?? '';
-    const hit = FIELD_WORDS.find(([re]) => re.test(path));
-    if (m && hit) {
-      const [re, words] = hit;
-      const detail = path.replace(re, '').replace(/^\./, '');
-      const rest = text.slice(m[0].length);
-      text = `${words}${detail ? ` (${detail})` : ''}${m[2] ? ':' : ''} ${rest}`;
-    }
-    text = text.charAt(0).toUpperCase() + text.slice(1);
-    const bareSI = units === 'US' && /\(got -?\d/.test(text);
-    return `${lead} ${text}${/[.!?]$/.test(text) ? '' : '.'}${bareSI ? ' (The value quoted is in SI units.)' : ''}`;
-  }
-  if (error instanceof Error) return `The calculation failed unexpectedly: ${error.message}`;
-  return 'The calculation failed unexpectedly.';
+  lead = STUDY_FAILURE_LEAD,
+): string | null {
+  return failure ? `${lead} ${engineFailureText(failure, units)}` : null;
 }
 
 export interface StudyOutcome {
   result: StudyResult | null;
-  /** readable message when the engine refused the input (RangeError) or failed */
-  engineError: string | null;
+  /** why the engine gave no result, as data (phrased on the page by failureText) */
+  failure: EngineFailure | null;
   /** schema messages when the form is not complete yet */
   inputProblems: string[];
 }
@@ -91,8 +53,8 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
     input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
   } catch (e) {
     if (e instanceof ValidationError)
-      return { result: null, engineError: null, inputProblems: [...new Set(e.errors)] };
-    return { result: null, engineError: readableEngineError(e, unitsOf(raw)), inputProblems: [] };
+      return { result: null, failure: null, inputProblems: [...new Set(e.errors)] };
+    return { result: null, failure: engineFailure(e), inputProblems: [] };
   }
   try {
     const si = inputForEngine(input);
@@ -101,14 +63,14 @@ export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null
     const result = runStudy(
       chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si,
     );
-    return { result, engineError: null, inputProblems: [] };
+    return { result, failure: null, inputProblems: [] };
   } catch (e) {
-    return { result: null, engineError: readableEngineError(e, input.units), inputProblems: [] };
+    return { result: null, failure: engineFailure(e), inputProblems: [] };
   }
 }
 
 /** The unit system a raw form value declares, SI unless it says US. */
-function unitsOf(raw: unknown): UnitSystem {
+export function unitsOf(raw: unknown): UnitSystem {
   return raw !== null && typeof raw === 'object' && (raw as { units?: unknown }).units === 'US'
     ? 'US'
     : 'SI';
@@ -123,9 +85,9 @@ export function spawnStudyWorker(): (() => StudyPort) | null {
     }) as StudyPort;
 }
 
-const live = (out: StudyOutcome): LiveOutcome<StudyResult> => ({
+const live = (out: StudyOutcome, units: UnitSystem): LiveOutcome<StudyResult> => ({
   value: out.result,
-  engineError: out.engineError,
+  engineError: failureText(out.failure, units),
   inputProblems: out.inputProblems,
 });
 
@@ -148,8 +110,10 @@ export function useStudy(
   });
   const state = useLiveResult<StudyResult>(
     () => {
-      const out = client.run({ raw: source.value, chosenType: chosenType.value ?? null });
-      return out instanceof Promise ? out.then((o) => o && live(o)) : live(out);
+      const raw = source.value;
+      const units = unitsOf(raw);
+      const out = client.run({ raw, chosenType: chosenType.value ?? null });
+      return out instanceof Promise ? out.then((o) => o && live(o, units)) : live(out, units);
     },
     debounceMs,
     () => client.cancel(),

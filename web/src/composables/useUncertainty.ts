@@ -6,6 +6,8 @@ import { onBeforeUnmount, ref, shallowRef } from 'vue';
 import { ValidationError } from 'yup';
 import {
   defaultUncertainInputs,
+  engineFailure,
+  type EngineFailure,
   runUncertainty,
   studyInputSchema,
   uncertaintyFromSI,
@@ -17,7 +19,7 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import { inputForEngine } from '@/composables/useDesign';
-import { readableEngineError } from '@/composables/useStudy';
+import { failureText, unitsOf } from '@/composables/useStudy';
 import {
   createUncertaintyClient,
   type UncertaintyClient,
@@ -26,20 +28,33 @@ import {
 
 export interface UncertaintyOutcome {
   result: UncertaintyResult | null;
-  /** why there is no result: the form is incomplete, or the engine refused */
-  error: string | null;
+  /** the form is incomplete (a sentence of ours) */
+  incomplete: string | null;
+  /** the engine refused or failed, as data (phrased on the page by failureText) */
+  failure: EngineFailure | null;
 }
 
-/** The form's values as the engine's SI input, or the reason they cannot be one yet. */
-function engineInput(raw: unknown): { input: StudyInput; units: UnitSystem } | string {
+/** The lead of an uncertainty run's refusal on the page. */
+export const UNCERTAINTY_FAILURE_LEAD = 'The uncertainty run cannot be made with these inputs.';
+
+const INCOMPLETE = 'Complete the design first: the study needs every input.';
+
+/** The form's values as the engine's SI input, or why they cannot be one yet. */
+function engineInput(
+  raw: unknown,
+): { input: StudyInput; units: UnitSystem } | Omit<UncertaintyOutcome, 'result'> {
   try {
     const input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
     return { input: inputForEngine(input), units: input.units };
   } catch (e) {
-    if (e instanceof ValidationError)
-      return 'Complete the design first: the study needs every input.';
-    return readableEngineError(e);
+    if (e instanceof ValidationError) return { incomplete: INCOMPLETE, failure: null };
+    return { incomplete: null, failure: engineFailure(e) };
   }
+}
+
+/** An outcome's message for the panel, in the units of the design as typed. */
+export function uncertaintyMessage(out: UncertaintyOutcome, raw: unknown): string | null {
+  return out.incomplete ?? failureText(out.failure, unitsOf(raw), UNCERTAINTY_FAILURE_LEAD);
 }
 
 /**
@@ -52,29 +67,22 @@ export function evaluateUncertainty(
   onProgress?: (done: number, total: number) => void,
 ): UncertaintyOutcome {
   const at = engineInput(raw);
-  if (typeof at === 'string') return { result: null, error: at };
+  if (!('input' in at)) return { result: null, ...at };
   try {
     const result = runUncertainty(at.input, uncertaintyToSI(spec, at.units), {
       onProgress,
       progressEvery: Math.max(1, Math.round(spec.samples / 50)),
     });
-    return { result, error: null };
+    return { result, incomplete: null, failure: null };
   } catch (e) {
-    return {
-      result: null,
-      error: readableEngineError(
-        e,
-        at.units,
-        'The uncertainty run cannot be made with these inputs.',
-      ),
-    };
+    return { result: null, incomplete: null, failure: engineFailure(e) };
   }
 }
 
 /** The default spreads for the design as typed, depths in its units; null until it is complete. */
 export function defaultSpreads(raw: unknown): UncertainInput[] | null {
   const at = engineInput(raw);
-  if (typeof at === 'string') return null;
+  if (!('input' in at)) return null;
   try {
     const inputs = defaultUncertainInputs(at.input);
     return uncertaintyFromSI({ inputs, samples: 1, seed: '', confidence: 0.9 }, at.units).inputs;
@@ -112,7 +120,7 @@ export function useUncertainty(spawn: (() => UncertaintyPort) | null = spawnUnce
     if (out === null) return; // cancelled or superseded: the newer call decides
     busy.value = false;
     result.value = out.result;
-    error.value = out.error;
+    error.value = uncertaintyMessage(out, raw);
   }
   function cancel(): void {
     client.cancel();

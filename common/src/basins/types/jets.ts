@@ -2,9 +2,9 @@
 // sizing here: the screening says when one is the likely answer and that a specialist study
 // (and usually a physical model) is needed.
 import type { CriterionResult, DischargeRow, DissipatorModule } from '../types';
-import type { BasinDefaults } from '../defaults';
+import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import type { ScreeningContext } from '../types';
-import { crit, designRow, dis, headOf, len, lim, vel } from './shared';
+import { crit, designRow, dis, headOf, len, lim, published, vel } from './shared';
 
 function energyCriteria(
   rows: readonly DischargeRow[],
@@ -38,10 +38,16 @@ export const flipBucket: DissipatorModule = {
   limits: [
     {
       criterion: 'velocity',
-      text: 'indicated when inflow velocity is too high for block basins (> ≈ 18 m/s)',
+      text: 'indicated when inflow velocity is too high for block basins (> ≈ {v})',
+      quotes: { v: published('specialistVelocity') },
       tag: '[mem: EM-25]',
     },
-    { criterion: 'head', text: 'or when the head is large (> ≈ 50 m)', tag: '(common practice)' },
+    {
+      criterion: 'head',
+      text: 'or when the head is large (> ≈ {head})',
+      quotes: { head: len(BASIN_DEFAULTS.specialistHead) },
+      tag: '(common practice)',
+    },
   ],
   screenRow: () => [],
   indicated: (c) =>
@@ -60,7 +66,12 @@ export const slottedBucket: DissipatorModule = {
   description:
     'A submerged roller bucket for high heads where the tailwater is too deep for a jump basin. Not sized here.',
   limits: [
-    { criterion: 'velocity', text: 'high-velocity inflow (> ≈ 15 m/s)', tag: '[src: EM-25]' },
+    {
+      criterion: 'velocity',
+      text: 'high-velocity inflow (> ≈ {v})',
+      quotes: { v: published('cavitationVelocity') },
+      tag: '[src: EM-25]',
+    },
     {
       criterion: 'tailwater',
       text: 'tailwater deeper than the sequent depth at bed level (≥ ≈ 1.1·y2)',

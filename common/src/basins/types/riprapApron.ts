@@ -1,5 +1,6 @@
 // Riprap apron at a small culvert outlet (HEC-14 ch. 10).
 import { culvertApronStoneSize, APRON_CLASSES } from '../riprap';
+import { BASIN_DEFAULTS } from '../defaults';
 import type { DissipatorModule } from '../types';
 import { crit, debrisCriterion, len } from './shared';
 
@@ -14,7 +15,12 @@ export const riprapApron: DissipatorModule = {
   description:
     'A flat apron of riprap at a small culvert outlet: cheap where velocity and Froude number are modest.',
   limits: [
-    { criterion: 'culvertSize', text: 'culvert rise up to 1.5 m', tag: TAG },
+    {
+      criterion: 'culvertSize',
+      text: 'culvert rise up to {rise}',
+      quotes: { rise: len(BASIN_DEFAULTS.apronMaxRise) },
+      tag: TAG,
+    },
     {
       criterion: 'tailwater',
       text: 'stone relation valid for tailwater 0.4–1.0 × rise',
@@ -23,7 +29,8 @@ export const riprapApron: DissipatorModule = {
     { criterion: 'froude', text: 'outlet Froude number up to about 2.5', tag: '[mem: HEC-14]' },
     {
       criterion: 'stoneSize',
-      text: `D50 up to the largest class (${MAX_D50} m, about 1.8 ft)`,
+      text: 'D50 up to the largest class ({d50})',
+      quotes: { d50: len(MAX_D50) },
       tag: '[mem: HEC-14 Table 10.1]',
     },
   ],

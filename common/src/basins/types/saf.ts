@@ -12,6 +12,7 @@ import {
   jumpTailwater,
   noDischargeLimit,
   lim,
+  published,
   udis,
   vel,
 } from './shared';
@@ -85,7 +86,12 @@ export const saf: DissipatorModule = {
     'Chute blocks, staggered floor blocks and a low end sill: a short basin for small spillways, canals and outlets, tailwater below the sequent depth.',
   limits: [
     { criterion: 'froude', text: 'Fr1 1.7–17', tag: TAG },
-    { criterion: 'velocity', text: 'V1 above 18 m/s not advised with chute blocks', tag: TAG },
+    {
+      criterion: 'velocity',
+      text: 'V1 above {v} not advised with chute blocks',
+      quotes: { v: published('safVelocityFail') },
+      tag: TAG,
+    },
     {
       criterion: 'tailwater',
       text: 'TW = C·y2, C = 1.10 − Fr²/120 (1.7–5.5), 0.85 (5.5–11), 1.00 − Fr²/800 (11–17)',

@@ -1,7 +1,7 @@
 // Criteria shared by several types, as data: a reason code and the SI quantities it quotes.
 // The sentences are made at the edge (common/src/messages/reasons.ts).
 import { G } from '../../units/constants';
-import { limitQuantity, type BasinDefaults, type PublishedKey } from '../defaults';
+import { BASIN_DEFAULTS, limitQuantity, type BasinDefaults, type PublishedKey } from '../defaults';
 import { jumpPosition } from '../../range/position';
 import { qty, quote, type Quantity, type Quotes } from '../../warnings';
 import type {
@@ -17,6 +17,8 @@ export const len = (si: number): Quantity => qty('length', si);
 export const vel = (si: number): Quantity => qty('velocity', si);
 export const dis = (si: number): Quantity => qty('discharge', si);
 export const udis = (si: number): Quantity => qty('unitDischarge', si);
+/** A published limit at its default, for the catalogue's limit texts (said as published). */
+export const published = (key: PublishedKey): Quantity => limitQuantity(BASIN_DEFAULTS, key);
 /** A published limit in force (its key kept when at its default). */
 export const lim = (d: BasinDefaults, key: PublishedKey): Quantity => limitQuantity(d, key);
 

@@ -9,6 +9,7 @@ import {
   jumpTailwater,
   noDischargeLimit,
   lim,
+  published,
   udis,
   vel,
 } from './shared';
@@ -24,7 +25,12 @@ export const usbr2: DissipatorModule = {
     'Chute blocks and a dentated end sill, no baffle piers: for inflow velocities too high for piers (high dams, large chutes).',
   limits: [
     { criterion: 'froude', text: 'Fr1 ≥ 4.5', tag: TAG },
-    { criterion: 'unitDischarge', text: 'tested to q ≈ 46 m²/s', tag: '[mem: EM-25]' },
+    {
+      criterion: 'unitDischarge',
+      text: 'tested to q ≈ {q}',
+      quotes: { q: published('type2MaxUnitDischarge') },
+      tag: '[mem: EM-25]',
+    },
     {
       criterion: 'tailwater',
       text: 'tailwater ≥ 1.05 × sequent depth (safety margin)',

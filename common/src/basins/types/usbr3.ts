@@ -10,6 +10,7 @@ import {
   jumpTailwater,
   noDischargeLimit,
   lim,
+  published,
   udis,
   vel,
 } from './shared';
@@ -37,10 +38,16 @@ export const usbr3: DissipatorModule = {
     { criterion: 'froude', text: 'Fr1 4.5–17', tag: TAG },
     {
       criterion: 'velocity',
-      text: 'V1 ≤ 15 m/s; 15–18 m/s with care; above 18 m/s baffle piers cavitate',
+      text: 'V1 ≤ {warn}; {warn} to {fail} with care; above {fail} baffle piers cavitate',
+      quotes: { warn: published('type3VelocityWarn'), fail: published('type3VelocityFail') },
       tag: '[src/mem: EM-25]',
     },
-    { criterion: 'unitDischarge', text: 'q ≤ ≈ 18.6 m²/s', tag: '[mem: EM-25]' },
+    {
+      criterion: 'unitDischarge',
+      text: 'q ≤ ≈ {q}',
+      quotes: { q: published('type3MaxUnitDischarge') },
+      tag: '[mem: EM-25]',
+    },
     { criterion: 'debris', text: 'no heavy debris (piers catch it)', tag: TAG },
   ],
   jump: {

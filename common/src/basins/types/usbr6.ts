@@ -4,7 +4,7 @@ import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
 import { warn, type StudyWarning } from '../../warnings';
-import { crit, debrisCriterion, designRow, dis, len, lim, vel } from './shared';
+import { crit, debrisCriterion, designRow, dis, len, lim, published, vel } from './shared';
 
 const TAG = '[src: HEC-14 (2006) §9.4]';
 
@@ -105,8 +105,18 @@ export const usbr6: DissipatorModule = {
   description:
     'A compact box with a hanging baffle at a pipe or small chute outlet; works without tailwater.',
   limits: [
-    { criterion: 'discharge', text: 'Q up to 11 m³/s', tag: TAG },
-    { criterion: 'velocity', text: 'entering velocity up to 15 m/s', tag: TAG },
+    {
+      criterion: 'discharge',
+      text: 'Q up to {Q}',
+      quotes: { Q: published('type6MaxDischarge') },
+      tag: TAG,
+    },
+    {
+      criterion: 'velocity',
+      text: 'entering velocity up to {v}',
+      quotes: { v: published('type6MaxVelocity') },
+      tag: TAG,
+    },
     {
       criterion: 'tailwater',
       text: 'needs no tailwater; tailwater above the baffle reduces dissipation',

@@ -7,7 +7,7 @@ import { reqPositive } from '../guards';
 import type { DissipatorModule } from '../types';
 import { warn, type StudyWarning } from '../../warnings';
 import { ENGINE_LIMITS } from '../../schemas/limits';
-import { crit, debrisCriterion, lim, udis } from './shared';
+import { crit, debrisCriterion, lim, published, udis } from './shared';
 
 const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
 
@@ -121,7 +121,12 @@ export const usbr9: DissipatorModule = {
   description:
     'Rows of baffle piers on a 2:1 apron that carries the flow down a drop; entry near critical, no tailwater needed.',
   limits: [
-    { criterion: 'unitDischarge', text: 'q ≤ 5.6 m²/s', tag: TAG },
+    {
+      criterion: 'unitDischarge',
+      text: 'q ≤ {q}',
+      quotes: { q: published('type9MaxUnitDischarge') },
+      tag: TAG,
+    },
     {
       criterion: 'froude',
       text: 'flow enters near critical depth (upstream of the drop)',
