@@ -81,6 +81,12 @@ describe('POST /api/v1/calc/jump-position', () => {
     expect(res.status).toBe(200);
     expect(res.body.position).toBe('drowned');
     expect(res.body.distance).toBe(0);
+    // the notes are data (code and the SI depth quoted), phrased by the client in its units
+    expect(res.body.notes.map((n: { code: string }) => n.code)).toEqual([
+      'from-vena-contracta',
+      'drowned',
+      'gate-submerged',
+    ]);
   });
 
   it('needs a sign-in; bad or impossible input is a 422 with a message, never a 500', async () => {
@@ -111,6 +117,9 @@ describe('POST /api/v1/calc/jump-position', () => {
     });
     expect(impossible.status).toBe(422);
     expect(impossible.body.code).toBe('validation_error');
-    expect(impossible.body.message.length).toBeGreaterThan(10);
+    // coded (not-steep), filed under the field it names, phrased from its code
+    expect(impossible.body.details['upstream.slope']).toMatch(
+      /^The upstream slope is not steep at this discharge/,
+    );
   });
 });

@@ -6,7 +6,7 @@ import { designDissipators, type DesignEntry } from '../basins/study';
 import type { DissipatorTypeId } from '../basins/types';
 import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
 import { prepareInflowToes } from '../hydraulics/toeByInflow';
-import { InputError } from '../errors';
+import { engineFailure, InputError, type EngineFailure } from '../errors';
 import { prepareRange, type DischargeRange, type StudyInput } from '../range';
 import { ENGINE_LIMITS, SEARCH_LIMITS } from '../schemas/limits';
 import type { TakeoffOverrides } from '../takeoff/assumptions';
@@ -45,7 +45,8 @@ export interface CheapestSearchResult {
   /** the cheapest passing design, with its take-off; null when none passes */
   best: (SearchPoint & { takeoff: Takeoff }) | null;
   /** widths where nothing could be designed, and why */
-  failures: Array<{ width: number; reason: string }>;
+  /** widths no type could be designed at, with why as data (phrase with engineFailureText) */
+  failures: Array<{ width: number; failure: EngineFailure }>;
   /** take-off keys that had no rate (not priced) */
   unpricedKeys: string[];
 }
@@ -196,7 +197,7 @@ export function cheapestDesign(input: CheapestSearchInput): CheapestSearchResult
       res = atLo?.width === W ? atLo.res : designDissipators(rangeAtWidth(base, W), opts);
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      failures.push({ width: W, reason: e.message });
+      failures.push({ width: W, failure: engineFailure(e) });
       continue;
     }
     const entries = [res.design, ...res.alternatives].filter((e): e is DesignEntry => e !== null);
