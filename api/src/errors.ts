@@ -100,11 +100,12 @@ export const serviceUnavailable = (message: string) =>
   new ApiError(503, 'service_unavailable', message);
 
 /**
- * The engine throws RangeError naming the argument for impossible input (subcritical y1, a
- * conduit that would run full, a floor that cannot be found): that is the user's problem to
- * fix, so it becomes a 422 with the engine's message, filed under the field it names (below
- * `prefix` when the engine's input sits inside the request body), never a 500. Anything else
- * is passed through unchanged. The engine's quantities (SI) are put in `units`, the project's.
+ * The engine throws a coded InputError (field, code, SI quantities) for impossible input
+ * (subcritical y1, a conduit that would run full, a floor that cannot be found): that is the
+ * user's problem to fix, so it becomes a 422 phrased from its code by refusalText in `units`
+ * (the project's), filed under the field it names (below `prefix` when the engine's input sits
+ * inside the request body), never a 500. An uncoded RangeError (an internal guard) is a 422 with
+ * a plain sentence, never its own text. Anything else is passed through unchanged.
  */
 export function fromEngineError(error: unknown, prefix = '', units: PhraseUnits = 'SI'): unknown {
   if (!(error instanceof RangeError)) return error;

@@ -1,6 +1,7 @@
 // The study worker: runs the engine on the form's values off the page's main thread and posts
 // the outcome back with the id of the request it answers (composables/studyWorker.ts).
-// evaluateStudy never throws: a refused input comes back as a message in the outcome. The same
+// evaluateStudy never throws: a refused input comes back as data in the outcome (`failure`:
+// code, field, SI values), phrased by the page in the project's units. The same
 // script runs the cheapest-design search (a call carrying `search`; evaluateSearch) and the
 // Uncertainty panel's run (in a worker of its own): progress messages while it runs, then the
 // outcome (composables/useUncertainty.ts).
