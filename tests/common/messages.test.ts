@@ -2,8 +2,13 @@
 // sentence shows an internal name or a raw float (issue 7, item 4).
 import { describe, expect, it } from 'vitest';
 import {
+  codedRefusalText,
+  engineFailure,
+  engineFailureText,
   INPUT_ERROR_CODES,
   InputError,
+  INTERNAL_FAILURE_TEXT,
+  type InputErrorCode,
   JUMP_NOTE_CODES,
   jumpNoteText,
   refusalText,
@@ -89,6 +94,23 @@ describe('jump-position notes', () => {
     );
     expect(jumpNoteText({ code: 'from-vena-contracta', values: { y1: 0.183 } }, 'SI')).toContain(
       'Cc·a = 0.18 m',
+    );
+  });
+});
+
+describe('failures that are not coded refusals', () => {
+  it('an internal guard or an unknown code reads as a plain sentence, never its own text', () => {
+    expect(refusalText(new RangeError('brent: no solution in the range searched'))).toBe(
+      INTERNAL_FAILURE_TEXT,
+    );
+    expect(refusalText(new TypeError('x is undefined'), 'US')).not.toContain('undefined');
+    const unknown = { field: 'Q', code: 'from-a-later-version' as InputErrorCode, values: {} };
+    expect(codedRefusalText(unknown, 'US')).toBe(INTERNAL_FAILURE_TEXT);
+    // a refusal carried as data (engineFailure) reads as the error it came from
+    const e = new InputError('inflow.opening', 'gate-opening-too-large', 'x', { opening: 3, Q: 5 });
+    expect(engineFailureText(engineFailure(e), 'US')).toBe(refusalText(e, 'US'));
+    expect(engineFailureText(engineFailure(new RangeError('internal')))).toBe(
+      INTERNAL_FAILURE_TEXT,
     );
   });
 });

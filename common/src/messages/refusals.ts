@@ -217,6 +217,8 @@ export function codedRefusalText(
   units: PhraseUnits = 'SI',
 ): string {
   const P = phrasers[units === 'US' ? 'US' : 'SI'];
+  // A code this version does not know (data from elsewhere) is never guessed at.
+  if (!Object.hasOwn(SENTENCES, refusal.code)) return INTERNAL_FAILURE_TEXT;
   return SENTENCES[refusal.code](fieldWords(refusal.field), refusal.values, P);
 }
 

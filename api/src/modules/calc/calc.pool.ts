@@ -5,7 +5,12 @@
 // that made the calculation large. A full queue answers 503; a worker out of memory, 422.
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import { InputError, studySizes, type InputErrorCode } from '@basinwright/common';
+import {
+  INPUT_ERROR_CODES,
+  InputError,
+  studySizes,
+  type InputErrorCode,
+} from '@basinwright/common';
 import { getConfig, type ComputeConfig } from '../../config/env';
 import { ApiError, serviceUnavailable, validationError } from '../../errors';
 import type { ComputeReply, ComputeResults, ComputeTask, EngineErrorData } from './calc.worker';
@@ -30,14 +35,22 @@ const workerExecArgv = workerFile.endsWith('.ts')
  */
 export function reviveEngineError(data: EngineErrorData): Error {
   const { field, code, values } = data.props;
-  // The engine's coded refusal comes back as the same class, so the API files it by its field.
-  if (data.name === 'InputError' && typeof field === 'string' && typeof code === 'string') {
-    return new InputError(
+  // The engine's coded refusal (an InputError or a subclass such as ConduitFullError) comes back
+  // as an InputError, so the API phrases it from its code and files it by its field.
+  if (
+    data.isRangeError &&
+    typeof field === 'string' &&
+    typeof code === 'string' &&
+    (INPUT_ERROR_CODES as readonly string[]).includes(code)
+  ) {
+    const refusal = new InputError(
       field,
       code as InputErrorCode,
       data.message,
       (values ?? {}) as Record<string, number>,
     );
+    refusal.name = data.name;
+    return refusal;
   }
   const error = data.isRangeError ? new RangeError(data.message) : new Error(data.message);
   Object.defineProperty(error, 'name', {
