@@ -76,7 +76,7 @@ describe('where the jump forms: the demo engineer uses the jump position tool', 
     await slope.blur();
     await expect
       .poll(() => page.locator('[data-test="jump-error"]').textContent())
-      .toContain('Upstream slope: the upstream reach is not steep');
+      .toContain('The upstream slope is not steep at this discharge');
     await browser!.shot('jump-position-4-refused');
     await slope.fill('0.05');
     await slope.blur();
