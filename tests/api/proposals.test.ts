@@ -262,6 +262,45 @@ describe('the proposal of the demo design', () => {
       expect(mail.raw).toMatch(new RegExp(`^From: .*${paid.firm.name.split(' ')[0]}`, 'm'));
       const emails = await h.models.ProposalEmail.findAll({ where: { versionId: versionIds[0]! } });
       expect(emails.map((e) => e.recipient)).toEqual([to]);
+
+      // The project's audit trail (its panel reads this route) keeps the drawing and the
+      // sending: who, when, to whom, which version.
+      const trail = await h
+        .http()
+        .get(`/api/v1/projects/${projectId}/audit`)
+        .set(bearer(paid.token));
+      expect(trail.status).toBe(200);
+      const steps = trail.body.items as {
+        action: string;
+        versionId: string | null;
+        actor: { id: string | null; name: string };
+        summary: string;
+        detail: Record<string, unknown> | null;
+        at: string;
+      }[];
+      const drawn = steps.filter((e) => e.action === 'proposal.rendered');
+      const mailed = steps.filter((e) => e.action === 'proposal.sent');
+      expect(drawn).toHaveLength(1);
+      expect(mailed).toHaveLength(1);
+      expect(drawn[0]).toMatchObject({
+        versionId: versionIds[0],
+        actor: { id: paid.user.id, name: paid.user.name },
+        detail: { number: 1, proposalId: done.id, pages: done.pages },
+      });
+      expect(drawn[0]!.summary).toContain('version 1');
+      expect(mailed[0]).toMatchObject({
+        versionId: versionIds[0],
+        actor: { id: paid.user.id, name: paid.user.name },
+        detail: { number: 1, proposalId: done.id, to },
+      });
+      expect(mailed[0]!.summary).toBe(
+        `${paid.user.name} e-mailed the proposal of version 1 to ${to}`,
+      );
+      // oldest first: drawn, then sent, and the send recorded at the time it was recorded on the e-mail
+      expect(steps.indexOf(drawn[0]!)).toBeLessThan(steps.indexOf(mailed[0]!));
+      expect(Math.abs(Date.parse(mailed[0]!.at) - emails[0]!.sentAt.getTime())).toBeLessThan(
+        60_000,
+      );
     },
     RENDER_DEADLINE_MS + 30_000,
   );
