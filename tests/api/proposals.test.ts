@@ -190,6 +190,11 @@ describe('the proposal of the demo design', () => {
       expect(text).toContain('physical or numerical model studies');
       expect(text).toContain('NOT REVIEWED');
       expect(text).toContain('Quantities and cost: not priced yet');
+      // How sure the floor is (its figures are checked in proposal-document.test.ts), with the
+      // tornado chart drawn as vector text and lines; its page kept as an image.
+      expect(text).toContain('How sure the floor is');
+      expect(text).toContain('Which input moves the floor most');
+      expect(text).toContain('2,000 samples were drawn');
       // The symbols the proposal prints come out as text, not empty boxes.
       for (const symbol of ['Δ', '≤', '³', '√']) expect(text).toContain(symbol);
       // Every font in the file is Lato, embedded.
@@ -213,6 +218,21 @@ describe('the proposal of the demo design', () => {
       ]);
       const png = execFileSync('ls', [ARTIFACTS]).toString();
       expect(png).toMatch(/concept-page-0?1\.png/);
+      const pages = text.split('\f');
+      const at = pages.findIndex((p) => p.includes('How sure the floor is')) + 1;
+      expect(at).toBeGreaterThan(1);
+      execFileSync('pdftoppm', [
+        '-png',
+        '-r',
+        '70',
+        '-f',
+        String(at),
+        '-l',
+        String(at),
+        file,
+        path.join(ARTIFACTS, 'concept-uncertainty'),
+      ]);
+      expect(execFileSync('ls', [ARTIFACTS]).toString()).toMatch(/concept-uncertainty-\d+\.png/);
     },
     RENDER_DEADLINE_MS + 30_000,
   );
