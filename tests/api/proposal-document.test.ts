@@ -97,7 +97,7 @@ describe('the uncertainty of the floor in the proposal', () => {
     it(`prints what runUncertainty gives for the same seed, in ${units}`, () => {
       const source = withUncertainty(demoSource(units));
       const u = source.uncertainty;
-      if (u === undefined || 'refused' in u) throw new Error('the demo design is analysed');
+      if (u == null || 'refused' in u) throw new Error('the demo design is analysed');
       const { design, input, request } = expectedRun();
       // The request is the one asked for: default spreads, 2,000 samples, the fixed seed, 90 %.
       expect(u.request).toEqual(request);
@@ -152,6 +152,15 @@ describe('the uncertainty of the floor in the proposal', () => {
       expect(n?.changeAtHigh).toBeGreaterThan(0);
     });
   }
+
+  it('a version whose results table alone passes the page cap is not analysed (the cap refuses it)', () => {
+    // 17 discharges, one table line each, against a cap of no page at all
+    const source = withUncertainty(demoSource('SI'), 0);
+    expect(source.uncertainty).toBeNull();
+    const text = textsOf(proposalDocument(source).definition.content).join(' ');
+    expect(text).not.toContain('How sure the floor is');
+    expect(text).toContain('Results over the discharge range');
+  });
 
   it('a stored run is printed as it is, not run again', () => {
     const first = withUncertainty(demoSource('SI'));

@@ -74,9 +74,10 @@ export interface ProposalSource {
   generatedAt: Date;
   /**
    * how sure the floor is (issue 12). Left out by the service: the render process runs it
-   * (proposalUncertainty) before drawing, so the document always has it.
+   * (proposalUncertainty) before drawing; null when it was not run (a version too long for the
+   * page cap, refused anyway).
    */
-  uncertainty?: ProposalUncertainty;
+  uncertainty?: ProposalUncertainty | null;
 }
 
 /** The text of the free plan's watermark (product.md). */

@@ -73,9 +73,17 @@ export class PageCapError extends Error {
   }
 }
 
+/**
+ * More results-table lines than fit on a page (one a discharge): a version with more than
+ * this × the page cap cannot fit, so its uncertainty is not run before the cap refuses it.
+ */
+const TABLE_LINES_PER_PAGE = 80;
+
 /** The source with the uncertainty of the floor run now when it does not carry one. */
-export function withUncertainty(source: ProposalSource): ProposalSource {
+export function withUncertainty(source: ProposalSource, maxPages = Infinity): ProposalSource {
   if (source.uncertainty !== undefined) return source;
+  if (source.version.result.rows.length > maxPages * TABLE_LINES_PER_PAGE)
+    return { ...source, uncertainty: null };
   return {
     ...source,
     uncertainty: proposalUncertainty(
@@ -92,7 +100,7 @@ export async function renderProposal(
   maxPages: number,
 ): Promise<{ pdf: Buffer; pages: number }> {
   setUp();
-  const { definition, pageCount } = proposalDocument(withUncertainty(source));
+  const { definition, pageCount } = proposalDocument(withUncertainty(source, maxPages));
   const pdf = await pdfmake.createPdf(definition).getBuffer();
   if (pageCount.value > maxPages) throw new PageCapError(pageCount.value, maxPages);
   return { pdf, pages: pageCount.value };
