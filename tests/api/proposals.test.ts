@@ -194,7 +194,7 @@ describe('the proposal of the demo design', () => {
       // tornado chart drawn as vector text and lines; its page kept as an image.
       expect(text).toContain('How sure the floor is');
       expect(text).toContain('Which input moves the floor most');
-      expect(text).toContain('2,000 samples were drawn');
+      expect(text).toMatch(/2,000\s+samples\s+were\s+drawn/);
       // The symbols the proposal prints come out as text, not empty boxes.
       for (const symbol of ['Δ', '≤', '³', '√']) expect(text).toContain(symbol);
       // Every font in the file is Lato, embedded.
