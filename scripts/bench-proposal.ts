@@ -1,5 +1,6 @@
-// The proposal PDF: the time to draw the demo proposal (in its worker thread), and /health
-// latency while five proposals are drawn by the background job, against idle (target ≤ 2×).
+// The proposal PDF: the time to draw the demo proposal (in its render process, the uncertainty
+// run included), and /health latency while five proposals are drawn by the background job,
+// against idle (target ≤ 2×).
 // Load comes from a separate process (bench-load.mjs); figures are recorded for bench.mjs.
 import { ENGINE_VERSION, figuresOf, runStudy, toSI } from '@basinwright/common';
 import { createApp } from '../api/src/app';
@@ -63,7 +64,7 @@ const version = await DesignVersion.create({
   issuedByName: owner.name,
 });
 
-// Render time of the demo proposal in the worker thread (the first render warms it up).
+// Render time of the demo proposal in the render process (the first render warms it up).
 const sample = await Proposal.create({
   firmId: firm.id,
   projectId: project.id,
@@ -83,7 +84,7 @@ for (let i = 0; i <= ROUNDS; i += 1) {
 console.log(`demo proposal (${pages} pages) drawn in ${median(renderMs).toFixed(0)} ms`);
 record({
   name: 'proposal.render.demo',
-  label: 'draw the demo proposal (worker thread)',
+  label: 'draw the demo proposal (render process)',
   value: median(renderMs),
   unit: 'ms',
   note: `${pages} pages, median of ${ROUNDS} after a warm-up`,

@@ -19,6 +19,10 @@ export const AUDIT_ACTIONS = [
   'version.returned',
   'reviewer.marked',
   'reviewer.unmarked',
+  /** a proposal PDF of a version was drawn (the member who asked for it, the version, its pages) */
+  'proposal.rendered',
+  /** a proposal PDF was e-mailed to the client (who sent it, to whom, which version) */
+  'proposal.sent',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 

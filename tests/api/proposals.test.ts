@@ -190,6 +190,11 @@ describe('the proposal of the demo design', () => {
       expect(text).toContain('physical or numerical model studies');
       expect(text).toContain('NOT REVIEWED');
       expect(text).toContain('Quantities and cost: not priced yet');
+      // How sure the floor is (its figures are checked in proposal-document.test.ts), with the
+      // tornado chart drawn as vector text and lines; its page kept as an image.
+      expect(text).toContain('How sure the floor is');
+      expect(text).toContain('Which input moves the floor most');
+      expect(text).toMatch(/2,000\s+samples\s+were\s+drawn/);
       // The symbols the proposal prints come out as text, not empty boxes.
       for (const symbol of ['Δ', '≤', '³', '√']) expect(text).toContain(symbol);
       // Every font in the file is Lato, embedded.
@@ -213,6 +218,21 @@ describe('the proposal of the demo design', () => {
       ]);
       const png = execFileSync('ls', [ARTIFACTS]).toString();
       expect(png).toMatch(/concept-page-0?1\.png/);
+      const pages = text.split('\f');
+      const at = pages.findIndex((p) => p.includes('How sure the floor is')) + 1;
+      expect(at).toBeGreaterThan(1);
+      execFileSync('pdftoppm', [
+        '-png',
+        '-r',
+        '70',
+        '-f',
+        String(at),
+        '-l',
+        String(at),
+        file,
+        path.join(ARTIFACTS, 'concept-uncertainty'),
+      ]);
+      expect(execFileSync('ls', [ARTIFACTS]).toString()).toMatch(/concept-uncertainty-\d+\.png/);
     },
     RENDER_DEADLINE_MS + 30_000,
   );
@@ -262,6 +282,45 @@ describe('the proposal of the demo design', () => {
       expect(mail.raw).toMatch(new RegExp(`^From: .*${paid.firm.name.split(' ')[0]}`, 'm'));
       const emails = await h.models.ProposalEmail.findAll({ where: { versionId: versionIds[0]! } });
       expect(emails.map((e) => e.recipient)).toEqual([to]);
+
+      // The project's audit trail (its panel reads this route) keeps the drawing and the
+      // sending: who, when, to whom, which version.
+      const trail = await h
+        .http()
+        .get(`/api/v1/projects/${projectId}/audit`)
+        .set(bearer(paid.token));
+      expect(trail.status).toBe(200);
+      const steps = trail.body.items as {
+        action: string;
+        versionId: string | null;
+        actor: { id: string | null; name: string };
+        summary: string;
+        detail: Record<string, unknown> | null;
+        at: string;
+      }[];
+      const drawn = steps.filter((e) => e.action === 'proposal.rendered');
+      const mailed = steps.filter((e) => e.action === 'proposal.sent');
+      expect(drawn).toHaveLength(1);
+      expect(mailed).toHaveLength(1);
+      expect(drawn[0]).toMatchObject({
+        versionId: versionIds[0],
+        actor: { id: paid.user.id, name: paid.user.name },
+        detail: { number: 1, proposalId: done.id, pages: done.pages },
+      });
+      expect(drawn[0]!.summary).toContain('version 1');
+      expect(mailed[0]).toMatchObject({
+        versionId: versionIds[0],
+        actor: { id: paid.user.id, name: paid.user.name },
+        detail: { number: 1, proposalId: done.id, to },
+      });
+      expect(mailed[0]!.summary).toBe(
+        `${paid.user.name} e-mailed the proposal of version 1 to ${to}`,
+      );
+      // oldest first: drawn, then sent, and the send recorded at the time it was recorded on the e-mail
+      expect(steps.indexOf(drawn[0]!)).toBeLessThan(steps.indexOf(mailed[0]!));
+      expect(Math.abs(Date.parse(mailed[0]!.at) - emails[0]!.sentAt.getTime())).toBeLessThan(
+        60_000,
+      );
     },
     RENDER_DEADLINE_MS + 30_000,
   );

@@ -1,5 +1,5 @@
 // The words the UI shows for enum values, in one place.
-import { INVITABLE_ROLES, PROJECT_STATUSES } from '@basinwright/common';
+import { INVITABLE_ROLES, PROJECT_STATUSES, UNCERTAIN_INPUT_NAMES } from '@basinwright/common';
 import type {
   Confidence,
   CriterionId,
@@ -286,15 +286,8 @@ export const UNCERTAIN_INPUT_LABEL: Record<UncertainKey, string> = {
   weirC: 'Weir coefficient C (× design value)',
   designDischarge: 'Design discharge (× design value)',
 };
-/** The short name of each input on the tornado chart. */
-export const UNCERTAIN_INPUT_SHORT: Record<UncertainKey, string> = {
-  downstreamN: 'Downstream n',
-  ratingShift: 'Rating shift',
-  bedLowering: 'Bed lowering',
-  chuteLoss: 'Chute loss',
-  weirC: 'Weir C',
-  designDischarge: 'Design discharge',
-};
+/** The short name of each input on the tornado chart (the proposal's chart uses the same). */
+export const UNCERTAIN_INPUT_SHORT: Record<UncertainKey, string> = UNCERTAIN_INPUT_NAMES;
 export const DISTRIBUTION_LABEL: Record<Distribution['kind'], string> = {
   uniform: 'Uniform',
   triangular: 'Triangular',

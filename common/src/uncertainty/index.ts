@@ -31,3 +31,9 @@ export {
   type UncertaintyResult,
 } from './run';
 export { uncertaintyFromSI, uncertaintyToSI } from './edge';
+export {
+  TORNADO_LEGEND,
+  UNCERTAIN_INPUT_NAMES,
+  tornadoSvg,
+  type TornadoSvgOptions,
+} from './tornado';

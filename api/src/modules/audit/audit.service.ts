@@ -7,7 +7,8 @@ export interface AuditEntry {
   firmId: string;
   projectId?: string | null;
   versionId?: string | null;
-  actor: Pick<User, 'id' | 'name'>;
+  /** who did it; a background step (a proposal drawn) names the member who asked for it */
+  actor: Pick<User, 'name'> & { id: string | null };
   action: AuditAction;
   /** a plain sentence of what happened */
   summary: string;

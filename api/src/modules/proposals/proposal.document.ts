@@ -13,6 +13,7 @@ import {
   studyCautions,
   studyWarningText,
   takeoffLineLabel,
+  tornadoSvg,
   reasonText,
   screeningSummaryText,
   toSIValue,
@@ -25,9 +26,13 @@ import {
   type StudyInput,
   type StudyResult,
   type TakeoffLine,
+  type UncertainInput,
   type UnitSystem,
+  UNCERTAIN_INPUT_NAMES,
+  UNCERTAIN_KIND,
 } from '@basinwright/common';
 import type { EstimateView } from '../estimates/estimates.service';
+import type { ProposalUncertainty } from './proposal.uncertainty';
 
 /** The firm's branding on a paid plan (null on Concept: the watermark instead). */
 export interface ProposalBrand {
@@ -67,6 +72,12 @@ export interface ProposalSource {
   cost: EstimateView | null;
   /** when the PDF is made (the caller's clock) */
   generatedAt: Date;
+  /**
+   * how sure the floor is (issue 12). Left out by the service: the render process runs it
+   * (proposalUncertainty) before drawing; null when it was not run (a version too long for the
+   * page cap, refused anyway).
+   */
+  uncertainty?: ProposalUncertainty | null;
 }
 
 /** The text of the free plan's watermark (product.md). */
@@ -394,6 +405,104 @@ function costSection(
   return out;
 }
 
+/** A spread in words, a depth in the project's units, a factor as "× value". */
+function spreadText(u: UncertainInput, units: UnitSystem): string {
+  const f = unitFormat(units);
+  const v = (x: number): string =>
+    UNCERTAIN_KIND[u.key] === 'depth' ? f.withUnit(x, 'length') : `× ${x}`;
+  const d = u.distribution;
+  switch (d.kind) {
+    case 'uniform':
+      return `uniform, ${v(d.low)} to ${v(d.high)}`;
+    case 'triangular':
+      return `triangular, ${v(d.low)} to ${v(d.high)}, most likely ${v(d.mode)}`;
+    case 'normal':
+      return `normal, mean ${v(d.mean)}, standard deviation ${UNCERTAIN_KIND[u.key] === 'depth' ? f.withUnit(d.sd, 'length') : d.sd}, kept within ${v(d.low)} to ${v(d.high)}`;
+  }
+}
+
+/** A probability as printed: a percentage to one decimal. */
+export function percentText(p: number): string {
+  return `${(p * 100).toFixed(1)} %`;
+}
+
+/**
+ * How sure the floor is: the risk of sweep-out at the chosen floor with its sampling error, the
+ * sample count and seed, the floor for the confidence asked, the tornado chart and the spreads.
+ */
+function uncertaintySection(
+  u: ProposalUncertainty,
+  units: UnitSystem,
+  accent: string,
+  refs: Set<string>,
+): Node[] {
+  const f = unitFormat(units);
+  const out: Node[] = [heading('How sure the floor is', accent, true)];
+  if ('refused' in u) {
+    out.push({ text: `The uncertainty of the floor could not be analysed: ${u.refused}` });
+    return out;
+  }
+  const { request, result } = u;
+  const mc = result.monteCarlo;
+  const level = `${Math.round(request.confidence * 100)} %`;
+  const sentences = [
+    `The tailwater, the inflow and the design discharge are each known only within a spread. With the spreads below, ${mc.samples.toLocaleString('en-US')} samples were drawn (seed “${mc.seed}”: the same seed gives the same figures) and the floor solved again for each.`,
+    `Probability that the tailwater falls short of C·y2 (C = ${u.floor.tailwaterFactor}) at some analysed discharge on ${u.floor.basin ? `the floor of the ${u.floor.basin}` : 'the study floor'} (${f.withUnit(result.chosenFloor, 'length')}), so that the jump is swept out: ${percentText(mc.probability)}, with a sampling error (standard error) of ${percentText(mc.standardError)}.`,
+  ];
+  if (mc.mostOftenQ)
+    sentences.push(
+      `It happens most often at ${f.withUnit(mc.mostOftenQ.Q, 'discharge')}${mc.mostOftenQ.isDesign ? ' (the design discharge)' : ''}.`,
+    );
+  if (mc.noFloorCount > 0)
+    sentences.push(`In ${mc.noFloorCount} samples no floor holds the jump at all.`);
+  sentences.push(
+    mc.floorAtConfidence
+      ? `The floor that holds the jump in ${level} of the samples: ${f.withUnit(mc.floorAtConfidence.elevation, 'length')} (required as designed: ${f.withUnit(result.asDesigned.requiredElevation, 'length')}).`
+      : `Too many samples have no floor that holds the jump to name the floor for ${level} of them.`,
+  );
+  out.push({ text: sentences.join(' '), margin: [0, 0, 0, 8] });
+  if (result.sensitivity.length)
+    out.push({
+      svg: tornadoSvg(result.sensitivity, units, { fontFamily: 'Lato' }),
+      width: 515,
+    });
+  out.push({
+    text: 'Each bar is the change in the required floor with one input at its 5 % or 95 % point and the others as designed.',
+    fontSize: 8,
+    color: MUTED,
+    margin: [0, 2, 0, 6],
+  });
+  out.push({ text: 'The spreads used', style: 'h2', color: accent });
+  out.push({
+    table: {
+      headerRows: 1,
+      widths: [80, 150, '*'],
+      body: [
+        ['Input', 'Spread', 'Basis'].map((t) => ({ text: t, style: 'th' })),
+        ...request.inputs.map((x) => [
+          UNCERTAIN_INPUT_NAMES[x.key],
+          spreadText(x, units),
+          { text: x.basis, fontSize: 7.5 },
+        ]),
+      ],
+    },
+    layout: 'lightHorizontalLines',
+    fontSize: 8.5,
+  });
+  for (const x of request.inputs)
+    for (const [re] of PUBLICATIONS) {
+      const hit = re.exec(x.basis);
+      if (hit) refs.add(hit[0]);
+    }
+  out.push({
+    text: 'A sampled estimate: another seed gives slightly different figures, mostly within two standard errors. The spreads are the defaults of Basinwright, each naming its basis; where the engineer knows better, the analysis should be run again with theirs.',
+    fontSize: 8,
+    color: MUTED,
+    margin: [0, 4, 0, 0],
+  });
+  return out;
+}
+
 /**
  * The proposal's pdfmake document definition. `maxPages` is checked by the caller from the
  * footer's page count (`pageCount.value`).
@@ -606,6 +715,10 @@ export function proposalDocument(source: ProposalSource): {
     svg: chartToSvg(energyChartSpec(diagrams, units), { fontFamily: 'Lato' }),
     width: 515,
   });
+
+  // ——— How sure the floor is
+  if (source.uncertainty)
+    content.push(...uncertaintySection(source.uncertainty, units, accent, refs));
 
   // ——— Basin choice
   content.push(heading('Basin choice', accent, true));

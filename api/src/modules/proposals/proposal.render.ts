@@ -8,6 +8,7 @@ import os from 'node:os';
 import { threadId } from 'node:worker_threads';
 import { woffToSfnt } from './woff';
 import { proposalDocument, type ProposalSource } from './proposal.document';
+import { proposalUncertainty } from './proposal.uncertainty';
 
 const require = createRequire(import.meta.url);
 
@@ -72,13 +73,34 @@ export class PageCapError extends Error {
   }
 }
 
-/** Renders the proposal; throws PageCapError past `maxPages`. */
+/**
+ * More results-table lines than fit on a page (one a discharge): a version with more than
+ * this × the page cap cannot fit, so its uncertainty is not run before the cap refuses it.
+ */
+const TABLE_LINES_PER_PAGE = 80;
+
+/** The source with the uncertainty of the floor run now when it does not carry one. */
+export function withUncertainty(source: ProposalSource, maxPages = Infinity): ProposalSource {
+  if (source.uncertainty !== undefined) return source;
+  if (source.version.result.rows.length > maxPages * TABLE_LINES_PER_PAGE)
+    return { ...source, uncertainty: null };
+  return {
+    ...source,
+    uncertainty: proposalUncertainty(
+      source.version.input,
+      source.version.result,
+      source.project.units,
+    ),
+  };
+}
+
+/** Renders the proposal (the uncertainty run first, when needed); throws PageCapError past `maxPages`. */
 export async function renderProposal(
   source: ProposalSource,
   maxPages: number,
 ): Promise<{ pdf: Buffer; pages: number }> {
   setUp();
-  const { definition, pageCount } = proposalDocument(source);
+  const { definition, pageCount } = proposalDocument(withUncertainty(source, maxPages));
   const pdf = await pdfmake.createPdf(definition).getBuffer();
   if (pageCount.value > maxPages) throw new PageCapError(pageCount.value, maxPages);
   return { pdf, pages: pageCount.value };

@@ -7,8 +7,17 @@ import { conflict, notFound } from '../../errors';
 import { queueProposal } from '../../jobs';
 import { logger } from '../../logger';
 import { sendMail } from '../../mail';
-import { DesignVersion, Firm, Project, Proposal, ProposalEmail, User } from '../../models';
+import {
+  DesignVersion,
+  Firm,
+  Project,
+  Proposal,
+  ProposalEmail,
+  sequelize,
+  User,
+} from '../../models';
 import { isUuid } from '../../security';
+import { recordAudit } from '../audit/audit.service';
 import { issuedEstimateFor, issuedEstimates } from '../estimates/estimates.service';
 import { getProject } from '../projects/projects.service';
 import type { ProposalBrand, ProposalSource } from './proposal.document';
@@ -197,13 +206,39 @@ export async function runProposalJob(proposalId: string): Promise<void> {
     const reply = await renderInWorker({ source, maxPages: getConfig().proposalMaxPages });
     if (reply.ok) {
       const pdf = Buffer.from(reply.pdf);
-      await proposal.update({
-        status: 'done',
-        pdf,
-        pages: reply.pages,
-        byteSize: pdf.length,
-        renderedAt: new Date(),
-        error: null,
+      const requester =
+        proposal.requestedById === null
+          ? null
+          : await User.findByPk(proposal.requestedById, { attributes: ['id', 'name'] });
+      await sequelize.transaction(async (transaction) => {
+        await proposal.update(
+          {
+            status: 'done',
+            pdf,
+            pages: reply.pages,
+            byteSize: pdf.length,
+            renderedAt: new Date(),
+            error: null,
+          },
+          { transaction },
+        );
+        await recordAudit(
+          {
+            firmId: proposal.firmId,
+            projectId: proposal.projectId,
+            versionId: proposal.versionId,
+            actor: { id: requester?.id ?? null, name: requester?.name ?? 'A former member' },
+            action: 'proposal.rendered',
+            summary: `Proposal of version ${source.version.number} drawn (${reply.pages} pages), as ${requester?.name ?? 'a former member'} asked`,
+            detail: {
+              number: source.version.number,
+              proposalId: proposal.id,
+              pages: reply.pages,
+              byteSize: pdf.length,
+            },
+          },
+          transaction,
+        );
       });
     } else await proposal.update({ status: 'failed', error: reply.message });
   } catch (error) {
@@ -251,14 +286,31 @@ export async function sendProposal(
     fromName: firm.name,
     attachments: [{ filename, content: pdf, contentType: 'application/pdf' }],
   });
-  await ProposalEmail.create({
-    firmId,
-    proposalId: proposal.id,
-    versionId: proposal.versionId,
-    recipient: body.to,
-    subject,
-    sentById: sender.id,
-    sentByName: sender.name,
+  await sequelize.transaction(async (transaction) => {
+    await ProposalEmail.create(
+      {
+        firmId,
+        proposalId: proposal.id,
+        versionId: proposal.versionId,
+        recipient: body.to,
+        subject,
+        sentById: sender.id,
+        sentByName: sender.name,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        firmId,
+        projectId,
+        versionId: proposal.versionId,
+        actor: sender,
+        action: 'proposal.sent',
+        summary: `${sender.name} e-mailed the proposal of version ${version.number} to ${body.to}`,
+        detail: { number: version.number, proposalId: proposal.id, to: body.to, subject },
+      },
+      transaction,
+    );
   });
   return getProposal(firmId, projectId, proposalId);
 }
