@@ -69,7 +69,8 @@ describe('velocity edges', () => {
       .find((x) => x.type === 'usbr-3')!
       .criteria.find((c) => c.criterion === 'velocity')!;
     expect(reason.code).toBe('piers-cavitation-risk');
-    expect(reasonText(reason, 'US')).toMatch(/ is above 50 ft\/s:/);
+    // 15.25 m/s = 50.03 ft/s: said against the limit as published, not with extra figures
+    expect(reasonText(reason, 'US')).toMatch(/^V1 at the 50 ft\/s limit:/);
   });
   it('V1 60 ft/s (18.288 m/s): Type III warn at it, fail above [from memory: EM-25]; SAF fail above it [src: Blaisdell]', () => {
     expect(status(screen([row(8, 18.288)]), 'usbr-3', 'velocity')).toBe('warn');
@@ -109,7 +110,13 @@ describe('Type VI, Type IX, riprap apron', () => {
     const c = us
       .find((x) => x.type === 'usbr-6')!
       .criteria.find((x) => x.criterion === 'discharge')!;
-    expect(reasonText(c, 'US')).toMatch(/exceeds the 400 cfs of the type/);
+    // 11.33 m³/s = 400.1 cfs: at the published limit to three figures
+    expect(reasonText(c, 'US')).toMatch(/^Q at the 400 cfs limit of the type/);
+    const well = screenDissipators({ rows: [pipeRow(14, 6)], context: pipe })
+      .find((x) => x.type === 'usbr-6')!
+      .criteria.find((x) => x.criterion === 'discharge')!;
+    // 14 m³/s = 494 cfs [NIST SP 811: 1 ft = 0.3048 m]
+    expect(reasonText(well, 'US')).toMatch(/^Q 494 cfs exceeds the 400 cfs of the type/);
   });
   it('Type VI velocity up to 50 ft/s (15.24 m/s) [src: HEC-14 §9.4]', () => {
     expect(status(screen([pipeRow(5, 15.24)], pipe), 'usbr-6', 'velocity')).toBe('pass');

@@ -10,6 +10,7 @@ import { createAppRouter } from '../../web/src/router';
 import { STUDY_DEBOUNCE_MS } from '../../web/src/composables/useStudy';
 import { TOKEN_KEY } from '../../web/src/stores/auth';
 import { demoFirm, demoUser, stubApi, type Reply } from './fetch-stub';
+import { helpFor } from './form-help';
 import { fenwickDesign } from '../../seed/designs';
 
 const project = {
@@ -40,6 +41,7 @@ afterEach(() => vi.unstubAllGlobals());
 async function mountAs(
   role: 'engineer' | 'viewer' | 'estimator',
   put?: (init: RequestInit) => Reply,
+  step = 'site',
 ) {
   localStorage.setItem(TOKEN_KEY, `tok-${role}`);
   setActivePinia(createPinia());
@@ -54,13 +56,13 @@ async function mountAs(
     ...(put ? { 'PUT /projects/p1/design': put } : {}),
   });
   const router = createAppRouter(createMemoryHistory());
-  await router.push('/projects/p1/design');
+  await router.push(`/projects/p1/design?step=${step}`);
   const wrapper = mount(DesignWorkspaceView, {
     props: { id: 'p1' },
     global: { plugins: [router] },
     attachTo: document.body,
   });
-  await vi.waitFor(() => expect(wrapper.find('#design-basinWidth').exists()).toBe(true));
+  await vi.waitFor(() => expect(wrapper.find('[data-test="summary-floor"]').exists()).toBe(true));
   await flushPromises();
   return { wrapper, api };
 }
@@ -203,4 +205,52 @@ describe('DesignWorkspaceView', () => {
     await vi.waitFor(() => expect(fieldMessage() ?? '').toBe(''), { timeout: 3000 });
     wrapper.unmount();
   });
+
+  // Issue 13: a value out of range used to be pulled back to the input's bound without a word
+  // (a loss fraction of 1.5 became 0.95, a width of −20 became 0). It now stays as typed, the
+  // shared schema's message stands under it, and the live study waits for a valid value.
+  it.each([
+    [
+      'site',
+      '#design-basinWidth',
+      'Basin width (m)',
+      '-20',
+      'The basin width must be greater than zero.',
+    ],
+    [
+      'inflow',
+      '#design-inflow-lossModel-value',
+      'Loss as a fraction of the head',
+      '1.5',
+      'The loss fraction must be below 0.95.',
+    ],
+    [
+      'inflow',
+      '#design-inflow-lossModel-value',
+      'Loss as a fraction of the head',
+      '-0.1',
+      'The loss fraction must not be negative.',
+    ],
+  ])(
+    'on the %s step, %s = %s stays as typed, is explained and pauses the study',
+    async (step, id, label, typed, said) => {
+      const { wrapper } = await mountAs('engineer', undefined, step);
+      const floor = wrapper.find('[data-test="summary-floor"]').text();
+      const box = wrapper.find<HTMLInputElement>(id);
+      await box.setValue(typed);
+      await box.trigger('blur');
+      await vi.waitFor(() => expect(helpFor(wrapper, label)).toBe(said));
+      expect(Number(box.element.value)).toBe(Number(typed)); // shown to the field's step, unchanged
+      await vi.waitFor(() =>
+        expect(wrapper.find('[data-test="input-problems"]').text()).toMatch(
+          /Results are paused: waiting for a valid value in every input \(1 to fix\)/,
+        ),
+      );
+      // No study ran on the invalid value: the figures shown are the last valid input's, said so.
+      expect(wrapper.find('[data-test="stale-note"]').text()).toMatch(/last valid input/);
+      expect(wrapper.find('[data-test="summary-floor"]').text()).toBe(floor);
+      expect(wrapper.find('[data-test="engine-error"]').exists()).toBe(false);
+      wrapper.unmount();
+    },
+  );
 });

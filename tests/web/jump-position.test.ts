@@ -343,6 +343,11 @@ describe('Where the jump forms — the page', () => {
       'The discharge Q must be greater than zero.',
     );
     expect(wrapper.find('[data-test="jump-error"]').exists()).toBe(false);
+    // the value stays as typed (never pulled back to a bound), and the result says it waits
+    expect(Number(wrapper.find<HTMLInputElement>(idOf('Q')).element.value)).toBe(-6);
+    expect(wrapper.find('[data-test="jump-input-problems"]').text()).toMatch(
+      /Results are paused: waiting for a valid value/,
+    );
     // typing a good value again brings the result back
     await type(wrapper, { Q: 12 });
     expect(wrapper.find('[data-test="jump-input-problems"]').exists()).toBe(false);

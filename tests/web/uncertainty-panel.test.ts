@@ -83,6 +83,39 @@ describe('DesignUncertaintyPanel', () => {
     w.unmount();
   });
 
+  it('a value out of range stays as typed, is explained under its field, and the run waits', async () => {
+    const w = mountPanel();
+    const box = (test: string) => {
+      const host = w.find(`[data-test="${test}"]`);
+      return host.element.tagName === 'INPUT' ? host : host.find('input');
+    };
+    const under = (test: string) =>
+      box(test).element.closest('.ant-form-item')?.querySelector('.ant-form-item-explain-error')
+        ?.textContent ?? null;
+    await setSamples(w, 0);
+    const confidence = box('uncertainty-confidence');
+    await confidence.setValue('120');
+    await confidence.trigger('blur');
+    const key = defaultUncertainInputs(fenwickDesign)[0]!.key;
+    const low = box(`spread-${key}-low`);
+    const high = box(`spread-${key}-high`);
+    await high.setValue(String(Number((low.element as HTMLInputElement).value) - 1));
+    await high.trigger('blur');
+    await flushPromises();
+    // the shared schema's bounds (UNCERTAINTY_LIMITS): at least one sample, confidence ≤ 0.99
+    expect(under('uncertainty-samples')).toBe('Draw at least one sample.');
+    expect(under('uncertainty-confidence')).toBe('The confidence must not exceed 0.99 (99 %).');
+    expect(under(`spread-${key}-high`)).toBe('The high value must not be below the low value.');
+    expect((box('uncertainty-samples').element as HTMLInputElement).value).toBe('0');
+    expect((confidence.element as HTMLInputElement).value).toBe('120');
+    expect(w.find('[data-test="uncertainty-waiting"]').text()).toContain('3 to fix');
+    expect(w.find('[data-test="uncertainty-run"]').attributes('disabled')).toBeDefined();
+    await w.find('[data-test="uncertainty-run"]').trigger('click');
+    await flushPromises();
+    expect(w.find('[data-test="uncertainty-probability"]').exists()).toBe(false);
+    w.unmount();
+  });
+
   it('an incomplete design: no defaults, a sentence saying why', () => {
     const w = mount(DesignUncertaintyPanel, {
       props: { raw: { units: 'SI' }, units: 'SI', readOnly: false, spawn: null },

@@ -1,6 +1,7 @@
 // Glue between vee-validate and ant-design-vue form items, shared by every form.
 import { inject, provide, type InjectionKey, type Ref } from 'vue';
-import type { PublicPathState } from 'vee-validate';
+import type { PublicPathState, TypedSchema, TypedSchemaError } from 'vee-validate';
+import { ValidationError, type Schema } from 'yup';
 import type { UnitSystem } from '@basinwright/common';
 import { ApiError } from '@/api/client';
 
@@ -80,4 +81,38 @@ export function applyServerErrors(
   }
   if (error instanceof ApiError) return error.message;
   return 'Something went wrong. Please try again.';
+}
+
+/**
+ * A shared yup schema for a form whose fields are not the shape the schema checks (percentages
+ * typed where the schema reads fractions, fields flattened): `toShared` turns the form's values
+ * into what the schema reads, and each message lands on the field `fieldOf` names for the
+ * schema's path. The schema's own messages are shown; the form's values stay as typed.
+ */
+export function sharedSchemaVia<TForm extends object, TShared>(
+  schema: Schema<TShared>,
+  toShared: (values: TForm) => unknown,
+  fieldOf: (schemaPath: string) => string,
+): TypedSchema<TForm, TShared> {
+  return {
+    __type: 'VVTypedSchema',
+    async parse(values) {
+      try {
+        const value = await schema.validate(toShared(values), { abortEarly: false });
+        return { value, errors: [] };
+      } catch (e) {
+        if (!(e instanceof ValidationError)) throw e;
+        const byField = new Map<string, string[]>();
+        for (const one of e.inner.length > 0 ? e.inner : [e]) {
+          const field = fieldOf(one.path ?? '');
+          byField.set(field, [...(byField.get(field) ?? []), ...one.errors]);
+        }
+        const errors: TypedSchemaError[] = [...byField].map(([path, errs]) => ({
+          path,
+          errors: errs,
+        }));
+        return { errors };
+      }
+    },
+  };
 }

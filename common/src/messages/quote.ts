@@ -30,6 +30,12 @@ export interface Say {
   (name: string): string;
   /** the value `name` with enough figures to differ from the value `limit` when they differ */
   pair(name: string, limit: string): string;
+  /**
+   * A value past a published limit, said against the limit as published: "16.1 m/s is above
+   * 15 m/s" (`verb` "is above"), or "at the 15 m/s limit" when the value rounds to the limit —
+   * never more figures than the limit has to make the two differ.
+   */
+  beyond(name: string, limit: string, verb: string): string;
   /** whether the message quotes `name` */
   has(name: string): boolean;
 }
@@ -64,6 +70,10 @@ export function sayer(q: Quoted, units: UnitSystem): Say {
       if (a !== text(limit, k, false)) return a;
     }
     return text(name);
+  };
+  say.beyond = (name, limit, verb) => {
+    const [value, bound] = [text(name), text(limit)];
+    return value === bound ? `at the ${bound} limit` : `${value} ${verb} ${bound}`;
   };
   say.has = (name) => q.values[name] !== undefined;
   return say;

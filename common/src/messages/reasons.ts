@@ -69,30 +69,29 @@ const SENTENCES: Record<ReasonCode, Sentence> = {
   'no-piers-velocity': (_c, say) => `no baffle piers: suits high inflow velocity (V1 ${say('v1')})`,
   'unit-discharge-within-tested': (_c, say) => `q ${say('q')} is within the tested ${say('limit')}`,
   'unit-discharge-above-tested': (_c, say) =>
-    `q ${say.pair('q', 'limit')} exceeds the tested ${say('limit')}: model study`,
+    `q ${say.beyond('q', 'limit', 'exceeds the tested')}: model study`,
   'velocity-within': (_c, say) => `V1 ${say('v1')} ≤ ${say('limit')}`,
   'piers-cavitation-risk': (_c, say) =>
-    `V1 ${say.pair('v1', 'limit')} is above ${say('limit')}: cavitation risk on the baffle piers, model study`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: cavitation risk on the baffle piers, model study`,
   'piers-would-cavitate': (_c, say) =>
-    `V1 ${say.pair('v1', 'limit')} is above ${say('limit')}: baffle piers would cavitate; use Type II`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: baffle piers would cavitate; use Type II`,
   'unit-discharge-within': (_c, say) => `q ${say('q')} ≤ ${say('limit')}`,
   'unit-discharge-above-tests': (_c, say) =>
-    `q ${say.pair('q', 'limit')} is above the ${say('limit')} of the tests`,
+    `q ${say.beyond('q', 'limit', 'is above the')} of the tests`,
   'deflectors-cavitation-risk': (_c, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation risk on the deflector blocks`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: cavitation risk on the deflector blocks`,
   'unit-discharge-small': (_c, say) =>
     `q ${say('q')}: the type suits small unit discharges; no figure is published`,
   'chute-blocks-cavitation-risk': (_c, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation risk on the chute blocks, model study`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: cavitation risk on the chute blocks, model study`,
   'chute-blocks-not-advised': (_c, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: chute blocks not advised`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: chute blocks not advised`,
   'unit-discharge-small-structures': (_c, say) =>
     `q ${say('q')}: no published limit (the type is meant for small structures)`,
   'discharge-within': (_c, say) => `Q ${say('Q')} ≤ ${say('limit')}`,
-  'discharge-above-type': (_c, say) =>
-    `Q ${say.pair('Q', 'limit')} exceeds the ${say('limit')} of the type`,
+  'discharge-above-type': (_c, say) => `Q ${say.beyond('Q', 'limit', 'exceeds the')} of the type`,
   'entry-velocity-within': (_c, say) => `V ${say('v')} ≤ ${say('limit')}`,
-  'entry-velocity-above': (_c, say) => `V ${say.pair('v', 'limit')} exceeds ${say('limit')}`,
+  'entry-velocity-above': (_c, say) => `V ${say.beyond('v', 'limit', 'exceeds')}`,
   'needs-no-tailwater': (_c, say) =>
     'needs no tailwater' +
     (say.has('tw') ? ` (tailwater ${say('tw')} stays below the baffle)` : ''),
@@ -107,7 +106,7 @@ const SENTENCES: Record<ReasonCode, Sentence> = {
   'apron-entry-near-critical': (_c, say) => `entry Fr ${say('fr')} is near critical`,
   'apron-entry-supercritical': (_c, say) =>
     `entry Fr ${say('fr')} is well above critical: the type needs a near-critical approach`,
-  'unit-discharge-exceeds': (_c, say) => `q ${say.pair('q', 'limit')} exceeds ${say('limit')}`,
+  'unit-discharge-exceeds': (_c, say) => `q ${say.beyond('q', 'limit', 'exceeds')}`,
   'outlet-froude-low': (_c, say) => `outlet Fr ${say('fr')} ≤ ${say('limit')}`,
   'outlet-froude-high': (_c, say) =>
     `outlet Fr ${say('fr')} > ${say('limit')}: a basin suits better`,
@@ -126,7 +125,7 @@ const SENTENCES: Record<ReasonCode, Sentence> = {
     `an apron protects a culvert outlet; this inflow is a ${inflow(c.inflow)}`,
   'no-culvert': () => 'no culvert given',
   'culvert-rise-within': (_c, say) => `rise ${say('rise')} ≤ ${say('limit')}`,
-  'culvert-rise-above': (_c, say) => `rise ${say.pair('rise', 'limit')} exceeds ${say('limit')}`,
+  'culvert-rise-above': (_c, say) => `rise ${say.beyond('rise', 'limit', 'exceeds')}`,
   'no-discharges': () => 'no discharges to screen',
   'jet-velocity-high': (_c, say) =>
     `V1 ${say('v1')} at the design discharge is beyond ${say('limit')}, where basins with blocks become doubtful`,

@@ -57,15 +57,14 @@ const SENTENCES: Record<StudyWarningCode, Sentence> = {
   'type-oscillating': (_w, say) =>
     `Fr1 ${say('fr1')}: oscillating jump — waves may travel downstream; consider wave suppressors.`,
   'piers-not-advised': (_w, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: baffle piers would cavitate and are not advised; use Type II.`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: baffle piers would cavitate and are not advised; use Type II.`,
   'saf-blocks-not-advised': (_w, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation on the chute blocks; not advised for an SAF basin.`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: cavitation on the chute blocks; not advised for an SAF basin.`,
   'blocks-cavitation': (_w, say) =>
-    `V1 ${say.pair('v1', 'limit')} > ${say('limit')}: cavitation risk on the blocks; model study advised.`,
+    `V1 ${say.beyond('v1', 'limit', 'is above')}: cavitation risk on the blocks; model study advised.`,
   'type2-unit-discharge': (_w, say) =>
-    `q ${say.pair('q', 'limit')} above the ${say('limit')} tested for Type II.`,
-  'type3-unit-discharge': (_w, say) =>
-    `q ${say.pair('q', 'limit')} above the ${say('limit')} of Type III.`,
+    `q ${say.beyond('q', 'limit', 'is above the')} tested for Type II.`,
+  'type3-unit-discharge': (_w, say) => `q ${say.beyond('q', 'limit', 'is above the')} of Type III.`,
   'plain-apron-long': (_w, say) =>
     `Fr1 ${say('fr1')} > 9: a plain apron is long (${say('length')}); a basin with blocks is shorter.`,
   'narrow-chute-blocks': () =>
@@ -79,15 +78,15 @@ const SENTENCES: Record<StudyWarningCode, Sentence> = {
   'type6-narrower': (_w, say) =>
     `Width ${say('width')} is narrower than the ${say('curveWidth')} of the width curve.`,
   'type6-discharge-above': (_w, say) =>
-    `Q ${say.pair('Q', 'limit')} exceeds the ${say('limit')} limit of the type [src: HEC-14 (2006) §9.4].`,
+    `Q ${say.beyond('Q', 'limit', 'exceeds the')} of the type [src: HEC-14 (2006) §9.4].`,
   'type6-velocity-above': (_w, say) =>
-    `Entering velocity ${say.pair('v', 'limit')} exceeds ${say('limit')} [src: HEC-14 (2006) §9.4].`,
+    `Entering velocity ${say.beyond('v', 'limit', 'exceeds')} [src: HEC-14 (2006) §9.4].`,
   'type6-baffle-overtopped': (_w, say) =>
     `Tailwater ${say('tw')} above the floor exceeds ${say('max')} (h3 + h2/2): flow overtops the baffle, dissipation falls [mem: HEC-14].`,
   'type9-unit-discharge': (_w, say) =>
-    `q ${say.pair('q', 'limit')} exceeds the ${say('limit')} of the type [src: USBR, Design of Small Dams / EM-25 Basin IX].`,
+    `q ${say.beyond('q', 'limit', 'exceeds the')} of the type [src: USBR, Design of Small Dams / EM-25 Basin IX].`,
   'basin-cavitation': (_w, say) =>
-    `Cavitation risk: inflow velocity reaches ${say.pair('v1', 'limit')} at ${say('Q')} (> ${say('limit')}); model study advised.`,
+    `Cavitation risk: at ${say('Q')} the inflow velocity ${say.beyond('v1', 'limit', 'is above')}; model study advised.`,
   'basin-oscillating': (w, say) =>
     `Oscillating jump (Fr1 2.5–4.5) at ${discharges(w.values.count)} from ${say('Q')}: waves downstream; wave suppressors may be needed.`,
   'basin-froude-outside': (w, say) =>

@@ -22,27 +22,31 @@ export const estimateSettingsSchema = object({
     .max(E.locationFactor.max, `The location factor is at most ${E.locationFactor.max}.`)
     .required('Enter a location factor.'),
   percentages: object({
-    mobilisation: fraction('Mobilisation', E.percentage.min, E.percentage.max).required(),
-    careOfWater: fraction('Care of water', E.percentage.min, E.percentage.max).required(),
-    contingency: fraction('Contingency', E.percentage.min, E.percentage.max).required(),
-    overheadAndProfit: fraction(
-      'Overhead and profit',
-      E.percentage.min,
-      E.percentage.max,
-    ).required(),
+    mobilisation: fraction('Mobilisation', E.percentage.min, E.percentage.max).required(
+      'Enter the mobilisation percentage.',
+    ),
+    careOfWater: fraction('Care of water', E.percentage.min, E.percentage.max).required(
+      'Enter the care of water percentage.',
+    ),
+    contingency: fraction('Contingency', E.percentage.min, E.percentage.max).required(
+      'Enter the contingency percentage.',
+    ),
+    overheadAndProfit: fraction('Overhead and profit', E.percentage.min, E.percentage.max).required(
+      'Enter the overhead and profit percentage.',
+    ),
   }).required(),
   escalation: object({
     annualRate: fraction(
       'The escalation rate',
       E.escalationRate.min,
       E.escalationRate.max,
-    ).required(),
+    ).required('Enter the escalation rate.'),
     years: number()
       .strict()
       .typeError('The years to the construction mid-point are a number.')
       .min(E.escalationYears.min, 'The years cannot be negative.')
       .max(E.escalationYears.max, `At most ${E.escalationYears.max} years.`)
-      .required(),
+      .required('Enter the years to the construction mid-point.'),
   }).required(),
   accuracy: object({
     aaceClass: number<AaceClass>()

@@ -18,6 +18,9 @@ const num = (label: string) =>
       (v) => v === undefined || Number.isFinite(v),
     );
 
+/** 0.99 → "99 %" */
+const pct = (fraction: number): string => `${Math.round(fraction * 100)} %`;
+
 const distributionSchema = object({
   kind: string()
     .oneOf([...DISTRIBUTION_KINDS], 'The distribution must be uniform, triangular or normal.')
@@ -67,14 +70,15 @@ export const uncertaintySpecSchema = object({
     .max(UNCERTAINTY_LIMITS.maxSamples, `At most ${UNCERTAINTY_LIMITS.maxSamples} samples.`)
     .required('Enter the number of samples.'),
   seed: string().max(100, 'The seed must be at most 100 characters.').required('Enter a seed.'),
+  // said both as the fraction sent and as the percentage a form shows
   confidence: num('confidence')
     .min(
       UNCERTAINTY_LIMITS.confidence.min,
-      `The confidence must be at least ${UNCERTAINTY_LIMITS.confidence.min}.`,
+      `The confidence must be at least ${UNCERTAINTY_LIMITS.confidence.min} (${pct(UNCERTAINTY_LIMITS.confidence.min)}).`,
     )
     .max(
       UNCERTAINTY_LIMITS.confidence.max,
-      `The confidence must not exceed ${UNCERTAINTY_LIMITS.confidence.max}.`,
+      `The confidence must not exceed ${UNCERTAINTY_LIMITS.confidence.max} (${pct(UNCERTAINTY_LIMITS.confidence.max)}).`,
     )
     .required('Enter the confidence.'),
 }) as unknown as Schema<UncertaintyRequest>;
