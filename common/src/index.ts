@@ -614,6 +614,8 @@ export {
   type ChartSvgOptions,
   chartToSvg,
   energyChartSpec,
+  markLabelPlace,
+  type MarkLabelPlace,
   niceTicks,
   type RangeChartRow,
   rangeChartSpec,
