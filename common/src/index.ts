@@ -620,3 +620,18 @@ export {
   type RangeChartRow,
   rangeChartSpec,
 } from './charts';
+// Results out to a spreadsheet: rows with a header naming the project, design and units
+export {
+  EXPORT_CAUTION,
+  columnHeading,
+  exportFileName,
+  exportHeader,
+  neutralise,
+  sheetRows,
+  unitSystemName,
+  unneutralise,
+  type ExportColumn,
+  type ExportContext,
+  type ExportTable,
+  type SheetCell,
+} from './exports';

@@ -111,18 +111,26 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
       page.waitForEvent('download'),
       page.locator('[data-test="download-csv"]').click(),
     ]);
-    expect(download.suggestedFilename()).toBe('jump-check-design-floor.csv');
+    expect(download.suggestedFilename()).toMatch(
+      /^fenwick-mill-pond.*-jump-check-on-the-design-floor\.csv$/,
+    );
     const path = await download.path();
     const { readFile } = await import('node:fs/promises');
     const lines = (await readFile(path, 'utf8'))
       .replace(/^\uFEFF/, '')
       .trim()
       .split(/\r\n/);
-    // a comment naming the floor, the header, then the 17 discharges of the seeded input
-    expect(lines[0]).toContain(`Floor elevation ${designFloor.toFixed(2)}`);
-    expect(lines[1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
-    expect(lines).toHaveLength(2 + 17);
-    expect(Number(lines[2]!.split(',')[0])).toBe(5);
+    // the header (project, design, units, table, the floor, the caution), a blank line, the
+    // column headings, then the 17 discharges of the seeded input
+    expect(lines[0]).toContain('Fenwick Mill Pond');
+    expect(lines[2]).toBe('Units,SI (metric)');
+    expect(lines.find((l) => l.startsWith('Note,'))).toContain(
+      `Floor elevation ${designFloor.toFixed(2)}`,
+    );
+    const blank = lines.indexOf('');
+    expect(lines[blank + 1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
+    expect(lines).toHaveLength(blank + 2 + 17);
+    expect(Number(lines[blank + 2]!.split(',')[0])).toBe(5);
   });
 
   it('basin choice names the recommended basin with reasons per criterion', async () => {
