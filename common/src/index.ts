@@ -460,6 +460,8 @@ export {
   type DrawingView,
   type FillStyle,
   formatSI,
+  layoutDrawing,
+  type DrawingLayout,
   type LabelItem,
   type LabelPart,
   type LineStyle,
