@@ -1,6 +1,6 @@
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { PRICE_BOOK_LIMITS, neutralise, unneutralise } from '@basinwright/common';
+import { PRICE_BOOK_LIMITS, neutralise, unneutralise, type SheetCell } from '@basinwright/common';
 import { ApiError, badRequest, validationError } from '../../errors';
 
 /** A spreadsheet read into text: the header row and the data rows with their line numbers. */
@@ -192,6 +192,30 @@ export async function writeXlsx(
   sheet.addRow(header.map(neutralise)).font = { bold: true };
   for (const row of rows)
     sheet.addRow(row.map((cell) => (typeof cell === 'number' ? cell : neutralise(cell))));
+  const out = await workbook.xlsx.writeBuffer();
+  return Buffer.from(out as ArrayBuffer);
+}
+
+/** Rows of cells (a header above the table) to CSV text with a byte-order mark; empty cells blank. */
+export function writeSheetCsv(cells: SheetCell[][]): string {
+  return `\uFEFF${Papa.unparse(
+    cells.map((row) => row.map((cell) => cell ?? '')),
+    { newline: '\r\n' },
+  )}\r\n`;
+}
+
+/** Rows of cells to an XLSX workbook of one sheet; `headingRow` (0-based) set in bold. */
+export async function writeSheetXlsx(
+  sheetName: string,
+  cells: SheetCell[][],
+  headingRow: number,
+): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  const sheet = workbook.addWorksheet(
+    sheetName.replace(/[[\]*?:/\\]/g, ' ').slice(0, 31) || 'Sheet',
+  );
+  for (const row of cells) sheet.addRow(row.map((cell) => cell ?? undefined));
+  sheet.getRow(headingRow + 1).font = { bold: true };
   const out = await workbook.xlsx.writeBuffer();
   return Buffer.from(out as ArrayBuffer);
 }
