@@ -6,4 +6,4 @@
  * Raise it with every change that alters a result (a relation, a default, a rounding, a field
  * added, renamed or removed); a change that leaves every result as it was keeps it.
  */
-export const ENGINE_VERSION = '2.3.0';
+export const ENGINE_VERSION = '2.3.1';
