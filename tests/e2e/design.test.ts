@@ -160,6 +160,36 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     await shot('6-sizing');
   });
 
+  it('the drawing and the sizing come out of the browser as DXF and XLSX (writers loaded on demand)', async () => {
+    const { readFile } = await import('node:fs/promises');
+    const [dxfFile] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-test="drawing-dxf"]').click(),
+    ]);
+    expect(dxfFile.suggestedFilename()).toMatch(/-drawing\.dxf$/);
+    const DxfParser = (await import('dxf-parser')).default;
+    const dxf = new DxfParser().parseSync(await readFile((await dxfFile.path())!, 'utf8'))!;
+    // metres: $INSUNITS 6 [AutoCAD DXF reference, header variables]
+    expect(dxf.header.$INSUNITS).toBe(6);
+    expect(Object.keys(dxf.tables.layer.layers)).toEqual(
+      expect.arrayContaining(['OUTLINE', 'BLOCKS', 'WATER', 'DIMENSIONS', 'TEXT']),
+    );
+    const [xlsxFile] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-test="table-download"] [data-test="download-xlsx"]').first().click(),
+    ]);
+    expect(xlsxFile.suggestedFilename()).toMatch(/-sizing-of-the-.*\.xlsx$/);
+    const ExcelJS = (await import('exceljs')).default;
+    const book = new ExcelJS.Workbook();
+    const bytes = await readFile((await xlsxFile.path())!);
+    await book.xlsx.load(
+      bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer,
+    );
+    const sheet = book.worksheets[0]!;
+    expect(sheet.getRow(1).getCell(2).value).toContain('Fenwick Mill Pond');
+    expect(sheet.getRow(3).getCell(2).value).toBe('SI (metric)');
+  });
+
   it('changes the basin width, saves, reloads and finds it kept', async () => {
     await goToStep('Site');
     const width = page.getByLabel('Basin width (m)');
