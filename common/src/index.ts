@@ -478,6 +478,8 @@ export {
   type DrawingView,
   type FillStyle,
   formatSI,
+  layoutDrawing,
+  type DrawingLayout,
   type LabelItem,
   type LabelPart,
   type LineStyle,
@@ -636,7 +638,24 @@ export {
   type ChartSvgOptions,
   chartToSvg,
   energyChartSpec,
+  markLabelPlace,
+  type MarkLabelPlace,
   niceTicks,
   type RangeChartRow,
   rangeChartSpec,
 } from './charts';
+// Results out to a spreadsheet: rows with a header naming the project, design and units
+export {
+  EXPORT_CAUTION,
+  columnHeading,
+  exportFileName,
+  exportHeader,
+  neutralise,
+  sheetRows,
+  unitSystemName,
+  unneutralise,
+  type ExportColumn,
+  type ExportContext,
+  type ExportTable,
+  type SheetCell,
+} from './exports';

@@ -65,6 +65,8 @@ export const POLICY = {
   'priceBooks.import': ['owner', 'admin', 'estimator'],
   'takeoff.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'takeoff.write': ['owner', 'admin', 'engineer', 'estimator'],
+  // the types side by side of the saved design, to a spreadsheet (Firm plan, checked in the service)
+  'alternatives.export': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'estimates.list': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'estimates.read': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],
   'estimates.export': ['owner', 'admin', 'engineer', 'estimator', 'viewer'],

@@ -664,6 +664,15 @@ const routes: RouteCase[] = [
     prepare: async () => ({ url: `/projects/${await projectWithDesign()}/takeoff` }),
   },
   {
+    action: 'alternatives.export',
+    method: 'get',
+    path: '/projects/{id}/alternatives/export',
+    success: 200,
+    prepare: async () => ({
+      url: `/projects/${await projectWithDesign()}/alternatives/export?format=csv`,
+    }),
+  },
+  {
     action: 'takeoff.write',
     method: 'put',
     path: '/projects/{id}/takeoff/overrides',

@@ -4,6 +4,7 @@ import {
   chartToSvg,
   energyChartSpec,
   jumpDiagrams,
+  markLabelPlace,
   niceTicks,
   rangeChartSpec,
 } from '@basinwright/common';
@@ -95,5 +96,60 @@ describe('chartToSvg', () => {
   it('refuses a chart with no points', () => {
     const spec = rangeChartSpec([], 'SI');
     expect(() => chartToSvg(spec)).toThrow(RangeError);
+  });
+});
+
+// The label of a horizontal reference line (the V1 limit of the toe chart) never sits where
+// its series runs: geometry of the points checked by hand beside each case.
+describe('markLabelPlace', () => {
+  it('a series rising to just under the line at the right: the label goes above at the end', () => {
+    // V1 from 8 to 14.5 under a line at 15; the band above (15–16) is clear everywhere
+    expect(
+      markLabelPlace(
+        [
+          [0, 8],
+          [50, 12],
+          [100, 14.5],
+        ],
+        15,
+        0.5,
+        1,
+      ),
+    ).toEqual({ end: 'end', side: 'above' });
+  });
+  it('a series crossing the line near the right end: the label moves to the start, clear of it', () => {
+    // from 8 to 17 across 15 at x ≈ 78: the right half holds values in both bands; the left
+    // half (0–50) stays under 12.5, so above the line there is clear
+    expect(
+      markLabelPlace(
+        [
+          [0, 8],
+          [50, 12.5],
+          [100, 17],
+        ],
+        15,
+        0.5,
+        1,
+      ),
+    ).toEqual({ end: 'start', side: 'above' });
+  });
+  it('a series running just above the line at the right: the label goes below', () => {
+    // 15.5 at the right end lies in the band above (15–16); below (14–15) is clear there
+    expect(
+      markLabelPlace(
+        [
+          [0, 10],
+          [40, 14],
+          [60, 15.5],
+          [100, 15.5],
+        ],
+        15,
+        0.3,
+        1,
+      ),
+    ).toEqual({
+      end: 'end',
+      side: 'below',
+    });
   });
 });

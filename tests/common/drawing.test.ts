@@ -17,13 +17,15 @@ import {
 } from '../../common/src/drawing';
 import {
   boxesOverlap,
+  dimensionSegments,
   layoutDrawing,
+  segmentHitsBox,
   scaleBarLength,
   textBox,
   type Box,
   type DrawingFormatter,
 } from '../../common/src/drawing/svg';
-import type { DrawingQuantity } from '../../common/src/drawing/geometry';
+import type { DrawingQuantity, Pt } from '../../common/src/drawing/geometry';
 import { runStudy } from '../../common/src/study';
 import type { StudyInput } from '../../common/src/range';
 import { toSI } from '../../common/src/units';
@@ -384,4 +386,93 @@ describe('drawing layout at the rendered size', () => {
       if (d.baffleBlocks) expect(valueOf(plan, 'baffle-blocks', 0)).toBe(d.baffleBlocks.count);
     },
   );
+});
+
+// Issue 13 item 4: no label on a label and none on a dimension's lines, for every type the two
+// demo studies design (the chosen one and the alternatives) and for a wide basin (the SI demo
+// at 60 m, where the plan is far wider than the basin is long). The boxes are each text's box
+// recomputed from its own text, size and anchor (label) or as laid out (dimension values and
+// arrows); the lines are every dimension's witness lines, dimension line and tail, and every
+// leader. Each box is checked against every other box and every line but its own.
+describe('labels clear of each other and of the dimension lines', () => {
+  const FT = 0.3048; // international foot, exact by definition [src: NIST SP 811]
+  const feet: DrawingFormatter = (v, q) =>
+    q === 'count'
+      ? String(Math.round(v))
+      : q === 'discharge'
+        ? `${(v / FT ** 3).toFixed(1)} cfs`
+        : `${(v / FT).toFixed(2)} ft`;
+  const studies = [
+    { name: 'Fenwick (SI)', input: fenwickDesign, format: formatSI },
+    { name: 'Caldwell (US)', input: toSI(caldwellDesign), format: feet },
+    { name: 'Fenwick at 60 m wide', input: { ...fenwickDesign, basinWidth: 60 }, format: formatSI },
+  ];
+  const cases = studies.flatMap((s) => {
+    const r = runStudy(s.input);
+    const entries = [r.design, ...r.alternatives].filter((e) => e !== null);
+    return entries.map((e) => ({
+      name: `${s.name} ${e.type}`,
+      drawing: e.drawing,
+      format: s.format,
+    }));
+  });
+  it('covers several types in each study, the wide basin included', () => {
+    expect(cases.length).toBeGreaterThanOrEqual(6);
+    expect(cases.filter((c) => c.name.startsWith('Fenwick at 60 m')).length).toBeGreaterThan(0);
+  });
+  describe.each(cases)('$name', ({ drawing, format }) => {
+    it.each([760, 960, 1100])('at %i px', (width) => {
+      const lay = layoutDrawing(drawing, { format, width });
+      for (const { layout } of lay.views) {
+        const boxes: Array<[string, Box]> = [
+          ...layout.labels.map((l): [string, Box] => [
+            `label ${l.role}`,
+            textBox(l.text, l.size, l.x, l.y, l.anchor),
+          ]),
+          ...layout.dimensions.map((d): [string, Box] => [`dimension ${d.role}`, d.box]),
+          ...layout.arrowBoxes.map((b, i): [string, Box] => [`arrow ${i}`, b]),
+        ];
+        const lines: Array<[string, Pt, Pt]> = [
+          ...layout.dimensions.flatMap((d) =>
+            dimensionSegments(d).map(([p, q]): [string, Pt, Pt] => [`dimension ${d.role}`, p, q]),
+          ),
+          ...layout.labels.flatMap((l): Array<[string, Pt, Pt]> =>
+            l.leader ? [[`label ${l.role}`, l.leader.from, l.leader.to]] : [],
+          ),
+        ];
+        expect(layout.dimensions.length).toBeGreaterThan(0);
+        for (const [i, [na, a]] of boxes.entries()) {
+          for (const [nb, b] of boxes.slice(i + 1))
+            expect(boxesOverlap(a, b), `${layout.view.id}: ${na} on ${nb}`).toBe(false);
+          for (const [nl, p, q] of lines)
+            if (nl !== na)
+              expect(segmentHitsBox(p, q, a), `${layout.view.id}: ${na} on a line of ${nl}`).toBe(
+                false,
+              );
+        }
+      }
+    });
+  });
+});
+
+// Riprap below a basin is set into the channel bed (its top at the ground, thickness below),
+// never laid on top of it [common practice: riprap is keyed in flush with the bed].
+describe('riprap set into the bed', () => {
+  const r = runStudy(fenwickDesign);
+  const u = runStudy(toSI(caldwellDesign));
+  const entries = [r.design!, ...r.alternatives, u.design!, ...u.alternatives].filter(
+    (e) => e.design.family === 'jump-basin' || e.design.family === 'impact-basin',
+  );
+  it.each(entries.map((e) => [e.type, e] as const))('%s', (_t, e) => {
+    const d = e.design as JumpBasinDesign;
+    const rip = polys(e.drawing, 'section', 'riprap')[0]!;
+    const top = Math.max(...rip.points.map((p) => p.y));
+    const bottom = Math.min(...rip.points.map((p) => p.y));
+    expectRel(top, d.channelBedElevation, 1e-9);
+    // at its downstream end the layer runs from the bed down by its thickness
+    const xEnd = Math.max(...rip.points.map((p) => p.x));
+    const atEnd = rip.points.filter((p) => Math.abs(p.x - xEnd) < 1e-9).map((p) => p.y);
+    expectRel(Math.max(...atEnd) - Math.min(...atEnd), d.riprap.thickness, 1e-9);
+    expect(bottom).toBeLessThan(d.channelBedElevation);
+  });
 });

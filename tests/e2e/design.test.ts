@@ -111,18 +111,26 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
       page.waitForEvent('download'),
       page.locator('[data-test="download-csv"]').click(),
     ]);
-    expect(download.suggestedFilename()).toBe('jump-check-design-floor.csv');
+    expect(download.suggestedFilename()).toMatch(
+      /^fenwick-mill-pond.*-jump-check-on-the-design-floor\.csv$/,
+    );
     const path = await download.path();
     const { readFile } = await import('node:fs/promises');
     const lines = (await readFile(path, 'utf8'))
       .replace(/^\uFEFF/, '')
       .trim()
       .split(/\r\n/);
-    // a comment naming the floor, the header, then the 17 discharges of the seeded input
-    expect(lines[0]).toContain(`Floor elevation ${designFloor.toFixed(2)}`);
-    expect(lines[1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
-    expect(lines).toHaveLength(2 + 17);
-    expect(Number(lines[2]!.split(',')[0])).toBe(5);
+    // the header (project, design, units, table, the floor, the caution), a blank line, the
+    // column headings, then the 17 discharges of the seeded input
+    expect(lines[0]).toContain('Fenwick Mill Pond');
+    expect(lines[2]).toBe('Units,SI (metric)');
+    expect(lines.find((l) => l.startsWith('Note,'))).toContain(
+      `Floor elevation ${designFloor.toFixed(2)}`,
+    );
+    const blank = lines.indexOf('');
+    expect(lines[blank + 1]!.split(',').slice(0, 2)).toEqual(['Q (m³/s)', 'y1 (m)']);
+    expect(lines).toHaveLength(blank + 2 + 17);
+    expect(Number(lines[blank + 2]!.split(',')[0])).toBe(5);
   });
 
   it('basin choice names the recommended basin with reasons per criterion', async () => {
@@ -150,6 +158,36 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     expect(await alternatives.count()).toBeGreaterThan(1);
     expect(await alternatives.first().textContent()).toContain('Sized above');
     await shot('6-sizing');
+  });
+
+  it('the drawing and the sizing come out of the browser as DXF and XLSX (writers loaded on demand)', async () => {
+    const { readFile } = await import('node:fs/promises');
+    const [dxfFile] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-test="drawing-dxf"]').click(),
+    ]);
+    expect(dxfFile.suggestedFilename()).toMatch(/-drawing\.dxf$/);
+    const DxfParser = (await import('dxf-parser')).default;
+    const dxf = new DxfParser().parseSync(await readFile((await dxfFile.path())!, 'utf8'))!;
+    // metres: $INSUNITS 6 [AutoCAD DXF reference, header variables]
+    expect(dxf.header.$INSUNITS).toBe(6);
+    expect(Object.keys(dxf.tables.layer.layers)).toEqual(
+      expect.arrayContaining(['OUTLINE', 'BLOCKS', 'WATER', 'DIMENSIONS', 'TEXT']),
+    );
+    const [xlsxFile] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-test="table-download"] [data-test="download-xlsx"]').first().click(),
+    ]);
+    expect(xlsxFile.suggestedFilename()).toMatch(/-sizing-of-the-.*\.xlsx$/);
+    const ExcelJS = (await import('exceljs')).default;
+    const book = new ExcelJS.Workbook();
+    const bytes = await readFile((await xlsxFile.path())!);
+    await book.xlsx.load(
+      bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer,
+    );
+    const sheet = book.worksheets[0]!;
+    expect(sheet.getRow(1).getCell(2).value).toContain('Fenwick Mill Pond');
+    expect(sheet.getRow(3).getCell(2).value).toBe('SI (metric)');
   });
 
   it('changes the basin width, saves, reloads and finds it kept', async () => {

@@ -2,9 +2,14 @@
 // (its tailwater factor C) by default, or at the free-jump floor (C = 1.00) for reference. A type
 // that holds no jump against the tailwater has no check of its own: the reference only, with a note.
 import { describe, expect, it, vi } from 'vitest';
-import Papa from 'papaparse';
 import { mount, type VueWrapper } from '@vue/test-utils';
-import { runStudy, type StudyResult, type UnitSystem } from '@basinwright/common';
+import {
+  runStudy,
+  sheetRows,
+  type ExportTable,
+  type StudyResult,
+  type UnitSystem,
+} from '@basinwright/common';
 import DesignJumpCheckStep from '../../web/src/components/DesignJumpCheckStep.vue';
 import DesignRangeChart from '../../web/src/components/DesignRangeChart.vue';
 import DesignDiagramChart from '../../web/src/components/DesignDiagramChart.vue';
@@ -229,10 +234,14 @@ describe('E–y and M–y diagrams follow the floor shown', () => {
 describe('the table as CSV', () => {
   const d = result.design!.design;
   if (d.family !== 'jump-basin') throw new Error('jump basin expected');
-  const read = (w: VueWrapper) => {
-    const text = (w.vm as unknown as { rowsCsv: () => string }).rowsCsv();
-    const [comment, ...rest] = text.split('\r\n');
-    return { comment: comment!, rows: Papa.parse<string[]>(rest.join('\r\n')).data };
+  // the table as the download writes it (common's sheetRows): header lines, a blank line, the
+  // column headings, the rows
+  const read = (w: VueWrapper, units: 'SI' | 'US' = 'SI') => {
+    const table = (w.vm as unknown as { checkTable: () => ExportTable<unknown> }).checkTable();
+    const all = sheetRows(table, { project: 'Fenwick', design: 'Draft', units });
+    const blank = all.findIndex((r) => r.length === 0);
+    const note = all.find((r) => r[0] === 'Note');
+    return { comment: String(note?.[1]), header: all.slice(0, blank), rows: all.slice(blank + 1) };
   };
 
   it('design floor: a header with units, then every row as plain numbers in SI', () => {
@@ -266,7 +275,8 @@ describe('the table as CSV', () => {
 
   it('US units: the same rows in cfs and ft (1 ft = 0.3048 m exactly, NIST SP 811); the button offers a file', async () => {
     const w = mountStep(result, 'US');
-    const { rows } = read(w);
+    const { rows, header } = read(w, 'US');
+    expect(header).toContainEqual(['Units', 'US customary']);
     expect(rows[0]![0]).toBe('Q (cfs)');
     expectRel(Number(rows[1]![0]), d.rows[0]!.Q / 0.3048 ** 3, 1e-3 / (d.rows[0]!.Q / 0.3048 ** 3));
     expectRel(
@@ -280,7 +290,7 @@ describe('the table as CSV', () => {
       Object.assign(URL, { createObjectURL: created, revokeObjectURL: vi.fn() }),
     );
     await w.find('[data-test="download-csv"]').trigger('click');
-    expect(created).toHaveBeenCalledTimes(1);
+    await vi.waitFor(() => expect(created).toHaveBeenCalledTimes(1));
     vi.unstubAllGlobals();
     w.unmount();
   });

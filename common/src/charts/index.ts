@@ -2,10 +2,12 @@
 export {
   CHART_COLOURS,
   energyChartSpec,
+  markLabelPlace,
   rangeChartSpec,
   type ChartMark,
   type ChartSeries,
   type ChartSpec,
+  type MarkLabelPlace,
   type RangeChartRow,
 } from './spec';
 export { chartToSvg, niceTicks, type ChartSvgOptions } from './svg';

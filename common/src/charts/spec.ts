@@ -157,3 +157,61 @@ export function energyChartSpec(d: JumpDiagrams, units: UnitSystem): ChartSpec {
     marks,
   };
 }
+
+/** Where a horizontal reference line's label sits: at which end, and on which side of the line. */
+export interface MarkLabelPlace {
+  end: 'start' | 'end';
+  side: 'above' | 'below';
+}
+
+/**
+ * Where to put the label of a horizontal reference line at y = `at` so that `points` (a series
+ * drawn as straight segments, x ascending) do not run through it. The label spans `span` of
+ * the x range from its end and `height` above or below the line (both in the axes' units).
+ * Tried in order: end above, end below, start above, start below; the first the series stays
+ * clear of is taken (end above when none is).
+ */
+export function markLabelPlace(
+  points: readonly (readonly [number, number])[],
+  at: number,
+  span: number,
+  height: number,
+): MarkLabelPlace {
+  const pts = points.filter(([x, y]) => Number.isFinite(x) && Number.isFinite(y));
+  if (pts.length === 0) return { end: 'end', side: 'above' };
+  const xs = pts.map((p) => p[0]);
+  const lo = Math.min(...xs),
+    hi = Math.max(...xs);
+  /** y of the series at x (linear between points), or null outside it */
+  const yAt = (x: number): number | null => {
+    for (let i = 1; i < pts.length; i++) {
+      const [x0, y0] = pts[i - 1]!,
+        [x1, y1] = pts[i]!;
+      if (x >= Math.min(x0, x1) && x <= Math.max(x0, x1))
+        return x1 === x0 ? Math.max(y0, y1) : y0 + ((x - x0) / (x1 - x0)) * (y1 - y0);
+    }
+    return pts.length === 1 && x === pts[0]![0] ? pts[0]![1] : null;
+  };
+  const clear = (from: number, to: number, y0: number, y1: number): boolean => {
+    // the series' vertices inside the span and its values at the span's ends
+    const inside = [from, to, ...xs.filter((x) => x > from && x < to)];
+    const ys = inside.map(yAt).filter((y): y is number => y !== null);
+    // a segment crossing the band between two samples passes a sample on each side or inside
+    const below = ys.some((y) => y < y0),
+      above = ys.some((y) => y > y1),
+      within = ys.some((y) => y >= y0 && y <= y1);
+    return !within && !(below && above);
+  };
+  const w = (hi - lo) * span;
+  const tries: [MarkLabelPlace, number, number][] = [
+    [{ end: 'end', side: 'above' }, hi - w, hi],
+    [{ end: 'end', side: 'below' }, hi - w, hi],
+    [{ end: 'start', side: 'above' }, lo, lo + w],
+    [{ end: 'start', side: 'below' }, lo, lo + w],
+  ];
+  for (const [place, from, to] of tries) {
+    const [y0, y1] = place.side === 'above' ? [at, at + height] : [at - height, at];
+    if (clear(from, to, y0, y1)) return place;
+  }
+  return { end: 'end', side: 'above' };
+}

@@ -268,20 +268,19 @@ function jumpBasinDrawing(d: JumpBasinDesign, opts: DrawingOptions): Drawing {
   const xr = L + d.riprap.length;
   const xEnd = Math.max(L + ramp, xr) + Math.max(2, 0.1 * L);
   const zs = sill.topElevation;
+  const zb = d.channelBedElevation;
+  // The exit rises from the sill top to the channel bed; past it the ground is the bed, and the
+  // riprap is set into it: its top at the ground line, its thickness below.
   const ground = (x: number): number =>
-    x <= L
-      ? zs
-      : x <= L + ramp && ramp > 0
-        ? zs + ((x - L) / ramp) * d.exit.rise
-        : Math.max(zs, d.channelBedElevation);
+    x <= L ? zs : x <= L + ramp && ramp > 0 ? zs + ((x - L) / ramp) * d.exit.rise : zb;
   const gpts = [
     P(L, zs),
-    ...(ramp > 0 ? [P(L + ramp, ground(L + ramp))] : []),
-    P(xEnd, ground(xEnd)),
+    ...(ramp > 0 ? [P(L + ramp, ground(L + ramp))] : zb !== zs ? [P(L, zb)] : []),
+    P(xEnd, zb),
   ];
   sec.push(poly('ground', gpts, 'ground', 'none', false));
   const rTop = [
-    P(L, ground(L)),
+    P(L, ramp > 0 ? zs : zb),
     ...(ramp > 0 && L + ramp < xr ? [P(L + ramp, ground(L + ramp))] : []),
     P(xr, ground(xr)),
   ];
@@ -577,14 +576,10 @@ function impactBasinDrawing(d: ImpactBasinDesign, opts: DrawingOptions): Drawing
   sec.push(poly('end-sill', rect(L - s.endSill.length, zf, L, zf + s.endSill.height)));
   sec.push(poly('wall-top', [P(0, zt), P(L, zt)], 'hidden', 'none', false));
   const xr = L + d.riprap.length;
-  sec.push(
-    poly(
-      'riprap',
-      rect(L, zf + s.endSill.height - d.riprap.thickness, xr, zf + s.endSill.height),
-      'riprap',
-      'riprap',
-    ),
-  );
+  // riprap set into the channel bed past the end sill: its top at bed level, thickness below
+  const zb = d.channelBedElevation;
+  sec.push(poly('riprap', rect(L, zb - d.riprap.thickness, xr, zb), 'riprap', 'riprap'));
+  sec.push(poly('ground', [P(L, zb), P(xr + 1, zb)], 'ground', 'none', false));
   sec.push(
     poly(
       'water-design',

@@ -21,6 +21,8 @@ export {
   drawingToSvg,
   drawingView,
   formatSI,
+  layoutDrawing,
+  type DrawingLayout,
   type DrawingFormatter,
   type ScaleUnit,
   type SvgOptions,

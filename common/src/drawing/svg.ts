@@ -133,7 +133,8 @@ export function boxesOverlap(a: Box, b: Box, gap = 0): boolean {
   return a.x0 < b.x1 + gap && b.x0 < a.x1 + gap && a.y0 < b.y1 + gap && b.y0 < a.y1 + gap;
 }
 
-function segmentHitsBox(p: Pt, q: Pt, b: Box): boolean {
+/** True when any part of the segment p→q lies inside the box. */
+export function segmentHitsBox(p: Pt, q: Pt, b: Box): boolean {
   // Liang–Barsky clipping: does any part of p→q lie inside b?
   let t0 = 0,
     t1 = 1;
@@ -186,6 +187,19 @@ export interface PlacedDimension {
   textAt: Pt;
   angle: number;
   box: Box;
+  /** the dimension line carried on to a value set beyond its end */
+  tail?: { from: Pt; to: Pt };
+}
+
+/** Every line a placed dimension draws: its two witness lines, the dimension line, its tail. */
+export function dimensionSegments(d: PlacedDimension): [Pt, Pt][] {
+  const out: [Pt, Pt][] = [
+    [d.a, d.a2],
+    [d.b, d.b2],
+    [d.a2, d.b2],
+  ];
+  if (d.tail) out.push([d.tail.from, d.tail.to]);
+  return out;
 }
 
 export interface ViewLayout {
@@ -277,13 +291,45 @@ export function layoutView(
     grow(extent, bx);
   }
 
-  const dimensions: PlacedDimension[] = [];
-  for (const it of view.items) {
-    if (it.kind !== 'dimension') continue;
-    const d = placeDimension(it, PX, scale, format, taken, [...lines, ...dimLines]);
-    dimensions.push(d);
+  // Dimensions: each placed clear of the others; one whose value a later dimension's lines
+  // run through is placed again with every other one in view, until none conflicts.
+  const dimItems = view.items.filter((it): it is DimensionItem => it.kind === 'dimension');
+  const placed: (PlacedDimension | null)[] = dimItems.map(() => null);
+  const conflicts = (i: number): boolean => {
+    const d = placed[i];
+    if (!d) return true;
+    const mine = dimensionSegments(d);
+    return placed.some(
+      (o, j) =>
+        j !== i &&
+        o !== null &&
+        (boxesOverlap(o.box, d.box, 1) ||
+          dimensionSegments(o).some(([p, q]) => segmentHitsBox(p, q, d.box)) ||
+          mine.some(([p, q]) => segmentHitsBox(p, q, o.box))),
+    );
+  };
+  for (let pass = 0; pass < 4; pass++) {
+    let moved = false;
+    for (const [i, it] of dimItems.entries()) {
+      if (pass > 0 && !conflicts(i)) continue;
+      const others = placed.filter((o, j): o is PlacedDimension => j !== i && o !== null);
+      placed[i] = placeDimension(
+        it,
+        PX,
+        scale,
+        format,
+        [...taken, ...others.map((o) => o.box)],
+        lines,
+        others.flatMap(dimensionSegments),
+      );
+      moved = true;
+    }
+    if (!moved) break;
+  }
+  const dimensions = placed.filter((d): d is PlacedDimension => d !== null);
+  for (const d of dimensions) {
     taken.push(d.box);
-    dimLines.push([d.a2, d.b2], [d.a, d.a2], [d.b, d.b2]);
+    dimLines.push(...dimensionSegments(d));
     grow(extent, d.box);
     for (const p of [d.a2, d.b2]) grow(extent, { x0: p.x, y0: p.y, x1: p.x, y1: p.y });
   }
@@ -299,11 +345,33 @@ export function layoutView(
     });
     labels.push(pl);
     taken.push(pl.box);
+    if (pl.leader) dimLines.push([pl.leader.from, pl.leader.to]);
     grow(extent, pl.box);
   }
   return { view, labels, dimensions, arrowBoxes, extent };
 }
 
+/** The part of the dimension line carried on to a value set beyond its end (none when inside). */
+function tailTo(a2: Pt, b2: Pt, box: Box): { from: Pt; to: Pt } | undefined {
+  const lenPx = Math.hypot(b2.x - a2.x, b2.y - a2.y);
+  const c = { x: (box.x0 + box.x1) / 2, y: (box.y0 + box.y1) / 2 };
+  const mid = { x: (a2.x + b2.x) / 2, y: (a2.y + b2.y) / 2 };
+  if (Math.hypot(c.x - mid.x, c.y - mid.y) <= lenPx / 2 + 2) return undefined;
+  const near = Math.hypot(c.x - a2.x, c.y - a2.y) < Math.hypot(c.x - b2.x, c.y - b2.y) ? a2 : b2;
+  const ux = (b2.x - a2.x) / (lenPx || 1),
+    uy = (b2.y - a2.y) / (lenPx || 1);
+  const t = (c.x - near.x) * ux + (c.y - near.y) * uy;
+  // stop short of the text's own box so the line reaches it without running through it
+  const stop =
+    t - Math.sign(t) * ((box.x1 - box.x0) * Math.abs(ux) + (box.y1 - box.y0) * Math.abs(uy)) * 0.5;
+  return { from: near, to: { x: near.x + ux * stop, y: near.y + uy * stop } };
+}
+
+/**
+ * Places a dimension: its line offset from the feature (outwards in steps until clear) and its
+ * value on the line or beyond an end. A spot is taken only when the value's box touches no
+ * other text and no other dimension's line, and the dimension's own lines cross no text.
+ */
 function placeDimension(
   it: DimensionItem,
   PX: (p: Pt) => Pt,
@@ -311,6 +379,7 @@ function placeDimension(
   format: DrawingFormatter,
   taken: Box[],
   lines: Seg[],
+  dimLines: Seg[],
 ): PlacedDimension {
   const size = DRAWING_FONT.dimension;
   const a = PX(it.from),
@@ -325,11 +394,11 @@ function placeDimension(
   const w = estimateTextWidth(label, size);
   let best: PlacedDimension | null = null;
   let bestCost = Infinity;
-  // The metre offset is kept when it is clear enough; never closer than the text needs.
-  // An offset of 0 is a dimension drawn where it stands (e.g. a width across the open basin).
-  const base = it.offset === 0 ? 0 : Math.max(Math.abs(it.offset) * scale, size + 10);
-  for (let step = 0; step < 10; step++) {
-    const off = side * (base + step * (size + 4));
+  const clear = (d: PlacedDimension): boolean =>
+    !taken.some((t) => boxesOverlap(t, d.box, 1)) &&
+    !dimLines.some(([p, q]) => segmentHitsBox(p, q, d.box)) &&
+    !dimensionSegments(d).some(([p, q]) => taken.some((t) => segmentHitsBox(p, q, t)));
+  const build = (off: number, spot: (mid: Pt, ux: number, uy: number, lenPx: number) => Pt) => {
     const a2 = { x: a.x + n.x * off, y: a.y + n.y * off },
       b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
     let ang = (Math.atan2(b2.y - a2.y, b2.x - a2.x) * 180) / Math.PI;
@@ -341,59 +410,10 @@ function placeDimension(
     const mid = { x: (a2.x + b2.x) / 2, y: (a2.y + b2.y) / 2 };
     // text sits on the reading side of the line ("above" it once rotated upright)
     const r = (ang * Math.PI) / 180;
-    const upx = Math.sin(r) * 3,
-      upy = -Math.cos(r) * 3;
-    const spots: Pt[] = [];
-    if (w + 14 < lenPx) spots.push(mid);
-    // too short for its value (or crowded): the value goes beyond either end, as drafters do
-    const along = lenPx / 2 + w / 2 + 10;
-    spots.push(
-      { x: mid.x + ux * along, y: mid.y + uy * along },
-      { x: mid.x - ux * along, y: mid.y - uy * along },
-    );
-    for (const [k, s] of spots.entries()) {
-      const at = { x: s.x + upx, y: s.y + upy };
-      const box = rotatedTextBox(label, size, at, ang);
-      if (taken.some((t) => boxesOverlap(t, box, 1))) continue;
-      const crossings = lines.filter(([p, q]) => segmentHitsBox(p, q, box)).length;
-      const cost = step * 10 + k * 22 + crossings * 12;
-      if (cost < bestCost) {
-        bestCost = cost;
-        best = {
-          role: it.role,
-          value: it.value,
-          text: label,
-          a,
-          b,
-          a2,
-          b2,
-          textAt: at,
-          angle: ang,
-          box,
-        };
-      }
-    }
-    if (best && bestCost < (step + 1) * 10) break;
-  }
-  if (!best) {
-    // every spot tried is taken: push the dimension out past everything already placed
-    const far = taken.reduce(
-      (m, t) =>
-        Math.max(
-          m,
-          Math.abs((t.x0 + t.x1) / 2 - a.x) * Math.abs(n.x) +
-            Math.abs((t.y0 + t.y1) / 2 - a.y) * Math.abs(n.y),
-        ),
-      0,
-    );
-    const off = side * (far + 3 * size);
-    const a2 = { x: a.x + n.x * off, y: a.y + n.y * off },
-      b2 = { x: b.x + n.x * off, y: b.y + n.y * off };
-    let ang = (Math.atan2(b2.y - a2.y, b2.x - a2.x) * 180) / Math.PI;
-    if (ang > 90) ang -= 180;
-    if (ang < -90) ang += 180;
-    const at = { x: (a2.x + b2.x) / 2, y: (a2.y + b2.y) / 2 };
-    best = {
+    const s = spot(mid, ux, uy, lenPx);
+    const at = { x: s.x + Math.sin(r) * 3, y: s.y - Math.cos(r) * 3 };
+    const box = rotatedTextBox(label, size, at, ang);
+    const d: PlacedDimension = {
       role: it.role,
       value: it.value,
       text: label,
@@ -403,10 +423,65 @@ function placeDimension(
       b2,
       textAt: at,
       angle: ang,
-      box: rotatedTextBox(label, size, at, ang),
+      box,
     };
+    const tail = tailTo(a2, b2, box);
+    if (tail) d.tail = tail;
+    return d;
+  };
+  // The metre offset is kept when it is clear enough; never closer than the text needs.
+  // An offset of 0 is a dimension drawn where it stands (e.g. a width across the open basin).
+  const base = it.offset === 0 ? 0 : Math.max(Math.abs(it.offset) * scale, size + 10);
+  // the side asked for first; the other side when every spot on it is crowded
+  for (let k2 = 0; k2 < 28; k2++) {
+    const step = k2 % 14;
+    const flip = k2 >= 14 ? -1 : 1;
+    if (flip < 0 && best) break;
+    const off = flip * side * (base + step * (size + 4));
+    const spots: ((mid: Pt, ux: number, uy: number, lenPx: number) => Pt)[] = [
+      (mid, _ux, _uy, lenPx) => (w + 14 < lenPx ? mid : { x: NaN, y: NaN }),
+      // too short for its value (or crowded): the value goes beyond either end, as drafters do
+      (mid, ux, uy, lenPx) => {
+        const along = lenPx / 2 + w / 2 + 10;
+        return { x: mid.x + ux * along, y: mid.y + uy * along };
+      },
+      (mid, ux, uy, lenPx) => {
+        const along = lenPx / 2 + w / 2 + 10;
+        return { x: mid.x - ux * along, y: mid.y - uy * along };
+      },
+    ];
+    for (const [k, spot] of spots.entries()) {
+      const d = build(off, spot);
+      if (!Number.isFinite(d.textAt.x) || !clear(d)) continue;
+      const crossings = lines.filter(([p, q]) => segmentHitsBox(p, q, d.box)).length;
+      const cost = step * 10 + k * 22 + crossings * 12 + (flip < 0 ? 60 : 0);
+      if (cost < bestCost) {
+        bestCost = cost;
+        best = d;
+      }
+    }
+    if (best && bestCost < (step + 1) * 10 + (flip < 0 ? 60 : 0)) break;
   }
-  return best;
+  if (best) return best;
+  // every spot tried is crowded: push the dimension out past everything already placed
+  const along = (p: Pt): number => ((p.x - a.x) * n.x + (p.y - a.y) * n.y) * side;
+  const corners = (t: Box): Pt[] => [
+    { x: t.x0, y: t.y0 },
+    { x: t.x1, y: t.y0 },
+    { x: t.x0, y: t.y1 },
+    { x: t.x1, y: t.y1 },
+  ];
+  let far = Math.max(
+    0,
+    ...taken.flatMap(corners).map(along),
+    ...dimLines.flatMap(([p, q]) => [along(p), along(q)]),
+  );
+  let out = build(side * (far + 2 * size), (mid) => mid);
+  for (let i = 0; i < 20 && !clear(out); i++) {
+    far += size + 4;
+    out = build(side * (far + 2 * size), (mid) => mid);
+  }
+  return out;
 }
 
 function placeLabel(
@@ -439,8 +514,35 @@ function placeLabel(
     return { x: ax, y: A.y - gap - h };
   };
   const dirY = place === 'below' ? 1 : place === 'above' ? -1 : 0;
-  let best: { box: Box; cost: number; anchor: LabelItem['anchor']; n: Pt } | null = null;
-  for (let ring = 0; ring < 16 && !(best && best.cost < ring * h); ring++) {
+  // The leader a box would need: to the named feature, or back to the point when moved far.
+  const leaderFor = (box: Box, n: Pt): { from: Pt; to: Pt } | undefined => {
+    const moved = Math.hypot(box.x0 - n.x, box.y0 - n.y);
+    const target = it.target ? PX(it.target) : moved > h * 1.2 ? A : null;
+    if (
+      !target ||
+      (target.x >= box.x0 - 2 &&
+        target.x <= box.x1 + 2 &&
+        target.y >= box.y0 - 2 &&
+        target.y <= box.y1 + 2)
+    )
+      return undefined;
+    const from = {
+      x: Math.min(Math.max(target.x, box.x0), box.x1),
+      y: target.y < box.y0 ? box.y0 : target.y > box.y1 ? box.y1 : (box.y0 + box.y1) / 2,
+    };
+    return { from, to: target };
+  };
+  type Pick = {
+    box: Box;
+    cost: number;
+    anchor: LabelItem['anchor'];
+    leader?: { from: Pt; to: Pt };
+  };
+  let best: Pick | null = null;
+  // Rules, in order: no text on text, no text on a dimension's lines or a leader, no leader
+  // through text (all three absolute); then the cheapest of: near its feature, on the side
+  // asked for, off the outlines, within the geometry's width.
+  for (let ring = 0; ring < 40 && !(best && best.cost < ring * h); ring++) {
     const cands: Pt[] = [];
     for (let i = -ring; i <= ring; i++) {
       for (const j of [-ring, ring]) {
@@ -457,11 +559,17 @@ function placeLabel(
           oy = c.y * (h + 2);
         const box = { x0: n.x + ox, y0: n.y + oy, x1: n.x + ox + w, y1: n.y + oy + h };
         if (taken.some((t) => boxesOverlap(t, box, 1.5))) continue;
+        if (dimLines.some(([p, q]) => segmentHitsBox(p, q, box))) continue;
+        const leader = leaderFor(box, n);
+        // a leader through other text is a last resort, taken only when nothing else is free
+        const leaderThrough = leader
+          ? taken.filter((t) => segmentHitsBox(leader.from, leader.to, t)).length
+          : 0;
         const hits = lines.reduce(
           (k, [p, q, heavy]) => (segmentHitsBox(p, q, box) ? k + (heavy ? 1.4 : 1) : k),
           0,
         );
-        const dimHits = dimLines.filter(([p, q]) => segmentHitsBox(p, q, box)).length;
+        const leaderCrossings = leader ? crossings(leader, dimLines) : 0;
         // moving away from the feature on the preferred side is cheaper than crossing it
         const against = dirY !== 0 && Math.sign(oy) === -dirY ? 1.6 : 1;
         // text past the ends of the geometry would shrink the whole drawing to fit the sheet
@@ -470,38 +578,39 @@ function placeLabel(
           ai * 12 +
           Math.abs(ox) * 0.4 +
           Math.abs(oy) * against +
-          (place === 'on' ? 0.5 : 1) * hits * 28 +
-          dimHits * 40 +
+          (place === 'on' ? 0.5 : 2.2) * hits * 28 +
+          leaderCrossings * 90 +
+          leaderThrough * 400 +
           overflow * 3;
-        if (!best || cost < best.cost) best = { box, cost, anchor, n };
+        if (!best || cost < best.cost) best = { box, cost, anchor, ...(leader ? { leader } : {}) };
       }
     }
   }
-  const nx = best?.n.x ?? natural(it.anchor).x,
-    ny = best?.n.y ?? natural(it.anchor).y;
-  const anchor = best?.anchor ?? it.anchor;
-  const box = best?.box ?? { x0: nx, y0: ny, x1: nx + w, y1: ny + h };
+  const n0 = natural(it.anchor);
+  const pick: Pick = best ?? {
+    box: { x0: n0.x, y0: n0.y, x1: n0.x + w, y1: n0.y + h },
+    cost: Infinity,
+    anchor: it.anchor,
+  };
+  const { box, anchor } = pick;
   const x = anchor === 'start' ? box.x0 : anchor === 'middle' ? (box.x0 + box.x1) / 2 : box.x1;
   const y = box.y0 + 0.8 * size;
-  const moved = Math.hypot(box.x0 - nx, box.y0 - ny);
-  const target = it.target ? PX(it.target) : moved > h * 1.2 ? A : null;
   const out: PlacedLabel = { role: it.role, text: s, size, x, y, anchor, box };
-  if (
-    target &&
-    !(
-      target.x >= box.x0 - 2 &&
-      target.x <= box.x1 + 2 &&
-      target.y >= box.y0 - 2 &&
-      target.y <= box.y1 + 2
-    )
-  ) {
-    const from = {
-      x: Math.min(Math.max(target.x, box.x0), box.x1),
-      y: target.y < box.y0 ? box.y0 : target.y > box.y1 ? box.y1 : (box.y0 + box.y1) / 2,
-    };
-    out.leader = { from, to: target };
-  }
+  if (pick.leader) out.leader = pick.leader;
   return out;
+}
+
+/** How many of `segs` the segment crosses (proper crossings; touching ends do not count). */
+function crossings(l: { from: Pt; to: Pt }, segs: readonly Seg[]): number {
+  const cross = (o: Pt, a: Pt, b: Pt): number =>
+    (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x);
+  return segs.filter(([p, q]) => {
+    const d1 = cross(p, q, l.from),
+      d2 = cross(p, q, l.to),
+      d3 = cross(l.from, l.to, p),
+      d4 = cross(l.from, l.to, q);
+    return d1 * d2 < 0 && d3 * d4 < 0;
+  }).length;
 }
 
 /** Length of the scale bar: a 1, 2 or 5 × 10ⁿ value near a fifth of `span` (same unit). */
@@ -721,21 +830,9 @@ function dimension(d: PlacedDimension, font: string): string {
     lenPx > 14
       ? `<polygon points="${head(d.a2, d.b2, 6)}" fill="#334155"/><polygon points="${head(d.b2, d.a2, 6)}" fill="#334155"/>`
       : `<circle cx="${f(d.a2.x)}" cy="${f(d.a2.y)}" r="1.4" fill="#334155"/><circle cx="${f(d.b2.x)}" cy="${f(d.b2.y)}" r="1.4" fill="#334155"/>`;
-  // a value set beyond the end gets the dimension line extended to reach it
-  const c = { x: (d.box.x0 + d.box.x1) / 2, y: (d.box.y0 + d.box.y1) / 2 };
-  const mid = { x: (d.a2.x + d.b2.x) / 2, y: (d.a2.y + d.b2.y) / 2 };
-  const outside = Math.hypot(c.x - mid.x, c.y - mid.y) > lenPx / 2 + 2;
-  const tail = outside
-    ? (() => {
-        const near =
-          Math.hypot(c.x - d.a2.x, c.y - d.a2.y) < Math.hypot(c.x - d.b2.x, c.y - d.b2.y)
-            ? d.a2
-            : d.b2;
-        const ux = (d.b2.x - d.a2.x) / (lenPx || 1),
-          uy = (d.b2.y - d.a2.y) / (lenPx || 1);
-        const t = (c.x - near.x) * ux + (c.y - near.y) * uy;
-        return `<line x1="${f(near.x)}" y1="${f(near.y)}" x2="${f(near.x + ux * t)}" y2="${f(near.y + uy * t)}" stroke="#334155" stroke-width="0.5"/>`;
-      })()
+  // a value set beyond the end gets the dimension line carried on to it
+  const tail = d.tail
+    ? `<line x1="${f(d.tail.from.x)}" y1="${f(d.tail.from.y)}" x2="${f(d.tail.to.x)}" y2="${f(d.tail.to.y)}" stroke="#334155" stroke-width="0.5"/>`
     : '';
   return (
     `<g data-role="dim-${esc(d.role)}" data-value="${d.value}">` +

@@ -2,7 +2,7 @@
 // the project's units, as the user typed it; the server runs the study on toSI(input) and keeps
 // the result beside it, with the engine version that computed it.
 import type { DissipatorTypeId, StudyInput, StudyResult } from '@basinwright/common';
-import { ApiError, request } from './client';
+import { ApiError, download, request } from './client';
 import type { PersonRef } from './types';
 
 /** What the workspace keeps beside the study input. */
@@ -48,4 +48,11 @@ export const designsApi = {
   get: (projectId: string, signal?: AbortSignal) => request<Design>(path(projectId), { signal }),
   save: (projectId: string, body: DesignBody) =>
     request<Design>(path(projectId), { method: 'PUT', body }),
+  /** The sized types of the SAVED design side by side, as a file (Firm plan; else plan_limit). */
+  exportAlternatives: (projectId: string, format: 'csv' | 'xlsx') =>
+    download(
+      `/projects/${encodeURIComponent(projectId)}/alternatives/export`,
+      { format },
+      `alternatives.${format}`,
+    ),
 };

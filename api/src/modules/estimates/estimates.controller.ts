@@ -6,7 +6,13 @@ import type {
   PriceExportQuery,
 } from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
-import { writeCsv, writeXlsx } from '../price-books/price-books.files';
+import {
+  writeCsv,
+  writeSheetCsv,
+  writeSheetXlsx,
+  writeXlsx,
+} from '../price-books/price-books.files';
+import { exportFileName } from '@basinwright/common';
 import * as estimates from './estimates.service';
 
 type IdReq = Request<{ id: string }>;
@@ -63,4 +69,23 @@ export async function exportEstimate(req: IdReq, res: Response): Promise<void> {
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
   res.setHeader('Content-Disposition', `attachment; filename="${stem}.csv"`);
   res.send(writeCsv(header, rows));
+}
+
+/** GET /projects/:id/alternatives/export?format=csv|xlsx (Firm plan). */
+export async function exportAlternatives(req: IdReq, res: Response): Promise<void> {
+  const { format } = res.locals.query as PriceExportQuery;
+  const auth = authOf(req);
+  const out = await estimates.alternativesExport(auth.firm, req.params.id);
+  const name = exportFileName([out.stem], format);
+  res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+  if (format === 'xlsx') {
+    res.setHeader(
+      'Content-Type',
+      'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    );
+    res.send(await writeSheetXlsx(out.title, out.cells, out.headingRow));
+    return;
+  }
+  res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+  res.send(writeSheetCsv(out.cells));
 }

@@ -14,6 +14,12 @@ export function projectEstimatesRouter(): Router {
   const router = Router();
   router.get('/:id/takeoff', guard('takeoff.read'), controller.readTakeoff);
   router.put('/:id/takeoff/overrides', guard('takeoff.write'), controller.saveTakeoffOverrides);
+  router.get(
+    '/:id/alternatives/export',
+    guard('alternatives.export'),
+    validate(priceExportQuerySchema, 'query'),
+    controller.exportAlternatives,
+  );
   router.get('/:id/estimates', guard('estimates.list'), controller.list);
   router.post(
     '/:id/estimates',

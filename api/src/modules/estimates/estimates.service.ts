@@ -1,4 +1,9 @@
 import {
+  compareAlternatives,
+  sheetRows,
+  type ExportTable,
+  type SheetCell,
+  type TypeMeasures,
   DEFAULT_ESTIMATE_SETTINGS,
   ENGINE_VERSION,
   ESTIMATE_STEPS,
@@ -21,6 +26,7 @@ import {
 import { ValidationError } from 'yup';
 import type { Transaction } from 'sequelize';
 import { conflict, fromEngineError, notFound, validationError } from '../../errors';
+import { requireFeature } from '../plans/plans.service';
 import {
   Design,
   DesignTakeoff,
@@ -703,4 +709,80 @@ export function issuedEstimateFor(
     return snapshot;
   }
   return null;
+}
+
+/** What the alternatives export needs of the firm: its id and plan. */
+interface FirmPlan {
+  id: string;
+  plan: Parameters<typeof requireFeature>[0]['plan'];
+}
+
+/**
+ * GET /projects/:id/alternatives/export: the sized types of the SAVED design side by side
+ * (length, width, floor, excavation, concrete, reinforcement), in the project's units, as rows
+ * of cells with the header naming the project, design and units. A Firm-plan feature: another
+ * firm's project answers 404 first, then a plan without it answers 403 plan_limit.
+ */
+export async function alternativesExport(
+  firm: FirmPlan,
+  projectId: string,
+): Promise<{ title: string; cells: SheetCell[][]; headingRow: number; stem: string }> {
+  const project = await getProject(firm.id, projectId);
+  requireFeature(firm, 'alternativesExport');
+  const design = await designOf(firm.id, projectId);
+  const result = design?.result ?? null;
+  if (design === null || result === null)
+    throw conflict('The design has no stored result to compare. Open the design and save it.');
+  if (result.design === null)
+    throw conflict('The saved design has no sized basin, so there is nothing to compare.');
+  const overrides = await overridesOf(firm.id, design.id);
+  let measures: TypeMeasures[];
+  try {
+    measures = compareAlternatives(result, {}, overrides);
+  } catch (error) {
+    throw fromEngineError(error, 'overrides');
+  }
+  const entries = [result.design, ...result.alternatives];
+  const bed = result.input.channelBedElevation;
+  type Row = TypeMeasures & { verdict: string; chosen: boolean };
+  const rows: Row[] = measures.map((m, i) => ({
+    ...m,
+    verdict: entries[i]?.verdict ?? '',
+    chosen: i === 0,
+  }));
+  const table: ExportTable<Row> = {
+    title: 'Alternatives compared',
+    notes: [
+      'Each type on its own floor; quantities by neat lines from the take-off of the saved design (concrete with its waste allowance).',
+    ],
+    columns: [
+      { title: 'Type', kind: null, value: (r) => r.name },
+      { title: 'Chosen', kind: null, value: (r) => (r.chosen ? 'yes' : '') },
+      { title: 'Screening', kind: null, value: (r) => r.verdict },
+      { title: 'Floor elevation', kind: 'length', digits: 3, value: (r) => r.floorElevation },
+      {
+        title: 'Floor below the bed',
+        kind: 'length',
+        digits: 3,
+        value: (r) => (r.floorElevation === null ? null : Math.max(0, bed - r.floorElevation)),
+      },
+      { title: 'Length', kind: 'length', digits: 3, value: (r) => r.length },
+      { title: 'Width', kind: 'length', digits: 3, value: (r) => r.width },
+      { title: 'Excavation', kind: 'earthwork', digits: 1, value: (r) => r.excavation },
+      { title: 'Concrete', kind: 'earthwork', digits: 1, value: (r) => r.concrete },
+      { title: 'Reinforcement', kind: 'mass', digits: 0, value: (r) => r.steel },
+    ],
+    rows,
+  };
+  const cells = sheetRows(table, {
+    project: project.name,
+    design: `${result.design.design.name} (draft revision ${design.revision ?? 0})`,
+    units: project.units,
+  });
+  return {
+    title: table.title,
+    cells,
+    headingRow: cells.length - rows.length - 1,
+    stem: `alternatives-${project.name}`,
+  };
 }

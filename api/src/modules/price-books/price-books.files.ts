@@ -1,6 +1,6 @@
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { PRICE_BOOK_LIMITS } from '@basinwright/common';
+import { PRICE_BOOK_LIMITS, neutralise, unneutralise, type SheetCell } from '@basinwright/common';
 import { ApiError, badRequest, validationError } from '../../errors';
 
 /** A spreadsheet read into text: the header row and the data rows with their line numbers. */
@@ -168,18 +168,8 @@ export async function readXlsx(data: Buffer): Promise<SheetTable> {
   return toTable('xlsx', false, lines);
 }
 
-/**
- * A cell that a spreadsheet would take for a formula (starts with = + - @, a tab or a carriage
- * return) gets a leading apostrophe, so opening an export never runs anything.
- */
-export function neutralise(text: string): string {
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
-
-/** Undoes neutralise() on import, so an exported book comes back unchanged. */
-export function unneutralise(text: string): string {
-  return /^'[=+\-@\t\r]/.test(text) ? text.slice(1) : text;
-}
+// Formula-looking text is neutralised by the one rule in common (exports/table.ts).
+export { neutralise, unneutralise };
 
 /** Rows of cells to CSV text (UTF-8 with a byte-order mark so spreadsheets read accents). */
 export function writeCsv(header: string[], rows: (string | number)[][]): string {
@@ -202,6 +192,30 @@ export async function writeXlsx(
   sheet.addRow(header.map(neutralise)).font = { bold: true };
   for (const row of rows)
     sheet.addRow(row.map((cell) => (typeof cell === 'number' ? cell : neutralise(cell))));
+  const out = await workbook.xlsx.writeBuffer();
+  return Buffer.from(out as ArrayBuffer);
+}
+
+/** Rows of cells (a header above the table) to CSV text with a byte-order mark; empty cells blank. */
+export function writeSheetCsv(cells: SheetCell[][]): string {
+  return `\uFEFF${Papa.unparse(
+    cells.map((row) => row.map((cell) => cell ?? '')),
+    { newline: '\r\n' },
+  )}\r\n`;
+}
+
+/** Rows of cells to an XLSX workbook of one sheet; `headingRow` (0-based) set in bold. */
+export async function writeSheetXlsx(
+  sheetName: string,
+  cells: SheetCell[][],
+  headingRow: number,
+): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  const sheet = workbook.addWorksheet(
+    sheetName.replace(/[[\]*?:/\\]/g, ' ').slice(0, 31) || 'Sheet',
+  );
+  for (const row of cells) sheet.addRow(row.map((cell) => cell ?? undefined));
+  sheet.getRow(headingRow + 1).font = { bold: true };
   const out = await workbook.xlsx.writeBuffer();
   return Buffer.from(out as ArrayBuffer);
 }
