@@ -30,6 +30,7 @@ export default defineConfig({
   worker: { format: 'es' },
   build: {
     outDir: 'dist',
+    manifest: true,
     emptyOutDir: true,
     rolldownOptions: {
       // common/src is pure (no work at import time except building its private mathjs
