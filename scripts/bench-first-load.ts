@@ -177,7 +177,7 @@ try {
   const chartsJs = (
     await scriptsDuring(page, async () => {
       await page.goto(`${designUrl}?step=inflow`);
-      await page.locator('[data-study="idle"]').waitFor();
+      await page.locator('[data-test="toe-chart"] svg').first().waitFor();
     })
   ).filter((x) => !before.has(x.url));
   describeLoad('charts added at the Inflow step', chartsJs);
