@@ -210,6 +210,11 @@ try {
     const p = await probe();
     sizingMs.push(p.shown.sizing!);
     const round = Math.max(0, ...p.longTasks.map((t) => t.duration));
+    const worst = [...p.longTasks].sort((a, b) => b.duration - a.duration).slice(0, 4);
+    console.log(
+      `  round ${i + 1}: results at ${p.shown.sizing!.toFixed(0)} ms; longest tasks ` +
+        worst.map((t) => `${t.duration.toFixed(0)} ms from ${t.start.toFixed(0)}`).join(', '),
+    );
     longest = Math.max(longest, round);
     tasks.push(round);
   }
