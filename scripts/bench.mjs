@@ -3,7 +3,7 @@
 // (the built app on a seeded database, in Chromium) in one go. Each script records its figures
 // (scripts/bench-results.ts); at the end this prints every ratio against its target and writes
 // all figures to .bench/latest.json (and a dated copy) to compare runs. `npm run bench --
-// engine` (or http, proposal, browser, list) runs only the ones named.
+// engine` (or http, proposal, browser, firstload, list) runs only the ones named.
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -31,15 +31,16 @@ function report(resultsFile) {
     .filter((l) => l.trim() !== '')
     .map((l) => JSON.parse(l));
   log('');
-  log('summary (ratios from this run):');
-  for (const m of measurements.filter((x) => x.unit === 'ratio')) {
+  log('summary (ratios, and every figure with a target, from this run):');
+  for (const m of measurements.filter((x) => x.unit === 'ratio' || x.target)) {
     const met = m.target
       ? (m.target.op === '>=' ? m.value >= m.target.value : m.value <= m.target.value)
         ? 'MET'
         : 'NOT MET'
       : '';
     const goal = m.target ? `target ${m.target.op === '>=' ? '≥' : '≤'} ${m.target.value}` : '';
-    log(`  ${m.label.padEnd(52)} ${m.value.toFixed(3).padStart(8)}  ${goal} ${met}`);
+    const value = m.unit === 'ratio' ? m.value.toFixed(3) : `${m.value.toFixed(1)} ${m.unit}`;
+    log(`  ${m.label.padEnd(52)} ${value.padStart(10)}  ${goal} ${met}`);
   }
   let commit = null;
   try {
@@ -104,8 +105,7 @@ try {
     log('proposal benchmark (render time, /health while five proposals render)');
     runTs('scripts/bench-proposal.ts', env);
   }
-  if (wanted('browser')) {
-    log('browser benchmark (Chromium, CPU 4× slower)');
+  if (wanted('browser') || wanted('firstload')) {
     const chromium = ensureChromium();
     runTs('seed/run.ts', env, { quiet: true });
     buildWeb();
@@ -119,11 +119,21 @@ try {
     };
     app = startTs('api (bench)', 'api/src/server.ts', appEnv);
     await waitForHttp(`http://127.0.0.1:${appPort}/api/v1/health`, 60000);
-    runTs('scripts/bench-browser.ts', {
+    const browserEnv = {
       ...appEnv,
       E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
       CHROMIUM_PATH: chromium,
-    });
+    };
+    if (wanted('browser')) {
+      log('browser benchmark (Chromium, CPU 4× slower)');
+      runTs('scripts/bench-browser.ts', browserEnv);
+    }
+    if (wanted('firstload')) {
+      log(
+        'first-load benchmark (Chromium: scripts loaded; CPU 4× slower: long tasks, time to results)',
+      );
+      runTs('scripts/bench-first-load.ts', browserEnv);
+    }
   }
   if (wanted('list')) {
     log('project list benchmark (100,000 projects across 200 firms)');

@@ -1,7 +1,9 @@
 import { fileURLToPath, URL } from 'node:url';
+import { constants as zlibConstants } from 'node:zlib';
 import { defineConfig, defaultClientConditions } from 'vite';
 import vue from '@vitejs/plugin-vue';
 import Components from 'unplugin-vue-components/vite';
+import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { AntDesignVueResolver } from 'unplugin-vue-components/resolvers';
 
 const apiPort = process.env.API_PORT ?? '8080';
@@ -15,6 +17,18 @@ export default defineConfig({
       resolvers: [AntDesignVueResolver({ importStyle: false })],
       dirs: [],
       dts: 'components.d.ts',
+    }),
+    // Every text file of the build also written as .br and .gz at the strongest settings, once
+    // at build time; the API serves the one the browser accepts (api/src/middlewares/not-found.ts).
+    compression({
+      algorithms: [
+        defineAlgorithm('brotliCompress', { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 11 } }),
+        defineAlgorithm('gzip', { level: 9 }),
+      ],
+      include: /\.(html|js|mjs|css|svg|json|txt|map)$/,
+      exclude: /(^|\/)\.vite\//,
+      threshold: 1024,
+      logLevel: 'silent',
     }),
   ],
   resolve: {
@@ -30,6 +44,9 @@ export default defineConfig({
   worker: { format: 'es' },
   build: {
     outDir: 'dist',
+    // dist/.vite/manifest.json: which chunks each view loads (the bundle test and `npm run bench`
+    // read it; the server never serves a dot-folder).
+    manifest: true,
     emptyOutDir: true,
     rolldownOptions: {
       // common/src is pure (no work at import time except building its private mathjs

@@ -1,3 +1,4 @@
+import compression from 'compression';
 import express from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
@@ -70,6 +71,12 @@ export function createApp(options: AppOptions = {}): express.Express {
   );
   app.use(httpLogger(options.logger));
   app.use(wellFormedPath);
+  // Answers made at run time (the API's JSON, index.html) compressed as they go: brotli or gzip
+  // by Accept-Encoding, above 1 kB. The built SPA's files are compressed once at build time and
+  // sent as they are (spaRouter); a response already encoded is left alone. Sessions are bearer
+  // tokens the browser never attaches by itself, so a compressed answer gives a third party no
+  // secret to guess at (the BREACH attack needs one sent with its own requests).
+  app.use(compression());
 
   const limits = createRateLimits(defaultSequelize);
   const api = express.Router();

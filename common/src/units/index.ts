@@ -1,7 +1,11 @@
 // Units at the edges of the engine: user input and results between SI and US customary.
-// A private mathjs instance (create(all)) holds the extra unit cfs, so the global mathjs
-// stays untouched. Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
-import { all, create, type MathJsInstance } from 'mathjs';
+// A private mathjs instance holds the extra unit cfs, so the global mathjs stays untouched.
+// Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
+// The instance is built through mathjs's custom-bundle API from the two factories the units
+// need (unit(), createUnit() and what their Unit class depends on), not create(all): the same
+// Unit class and definitions, so the same numbers, at about a third of the size in the browser
+// (no expression parser, matrices or statistics).
+import { create, createUnitDependencies, unitDependencies, type MathJsInstance } from 'mathjs';
 import type { StudyInput, UnitSystem } from '../range/types';
 import type { StudyResult } from '../result';
 import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
@@ -27,11 +31,20 @@ export {
   significant,
 } from './rounding';
 
-// `all` is typed optional only because of mathjs's lite builds; the full build always has it.
-if (!all) throw new Error('mathjs: the full build (all factories) is required');
-const math: MathJsInstance = create(all, {});
-// mathjs has no cfs; ft³/s is the trade's unit of discharge in US practice.
-math.createUnit('cfs', '1 ft^3/s');
+// Built on first use, not at import: creating the instance costs a long task in the browser
+// (hundreds of ms with the CPU slowed), and a page in SI may never convert a unit.
+let instance: MathJsInstance | null = null;
+function mathjs(): MathJsInstance {
+  if (instance) return instance;
+  // The dependency maps are typed optional only because of mathjs's lite builds; this one has them.
+  if (!unitDependencies || !createUnitDependencies)
+    throw new Error('mathjs: the unit factories are missing from this build');
+  const math = create({ unitDependencies, createUnitDependencies }, {});
+  // mathjs has no cfs; ft³/s is the trade's unit of discharge in US practice.
+  math.createUnit('cfs', '1 ft^3/s');
+  instance = math;
+  return math;
+}
 
 /** Kinds of quantity the app shows; each has an SI and a US customary unit. */
 export type QuantityKind =
@@ -96,7 +109,7 @@ export const UNIT_LABELS: Record<QuantityKind, Record<UnitSystem, string>> = {
 export function convert(value: number, from: string, to: string): number {
   if (!Number.isFinite(value)) throw new RangeError(`value must be a finite number (got ${value})`);
   try {
-    return math.unit(value, from).toNumber(to);
+    return mathjs().unit(value, from).toNumber(to);
   } catch (e) {
     throw new RangeError(
       `cannot convert ${from} to ${to}: ${e instanceof Error ? e.message : String(e)}`,
@@ -105,19 +118,23 @@ export function convert(value: number, from: string, to: string): number {
   }
 }
 
-// SI value = US value × factor, computed once through mathjs.
-const FACTOR: Record<QuantityKind, number> = Object.fromEntries(
-  (Object.keys(UNITS) as QuantityKind[]).map((k) => [k, convert(1, UNITS[k].US, UNITS[k].SI)]),
-) as Record<QuantityKind, number>;
+// SI value = US value × factor, computed once through mathjs (on the first US conversion).
+let factors: Record<QuantityKind, number> | null = null;
+function factor(kind: QuantityKind): number {
+  factors ??= Object.fromEntries(
+    (Object.keys(UNITS) as QuantityKind[]).map((k) => [k, convert(1, UNITS[k].US, UNITS[k].SI)]),
+  ) as Record<QuantityKind, number>;
+  return factors[kind];
+}
 
 /** A quantity from `system` into SI. @example toSIValue(1, 'length', 'US') // 0.3048 */
 export function toSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {
-  return system === 'SI' ? value : value * FACTOR[kind];
+  return system === 'SI' ? value : value * factor(kind);
 }
 
 /** A quantity from SI into `system`. @example fromSIValue(0.3048, 'length', 'US') // 1 */
 export function fromSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {
-  return system === 'SI' ? value : value / FACTOR[kind];
+  return system === 'SI' ? value : value / factor(kind);
 }
 
 /**

@@ -165,11 +165,19 @@ export async function guard(to: RouteLocationNormalized): Promise<true | RouteLo
   return true;
 }
 
+/** The signed-in frame's chunk (AppShell: menu, user menu), kept off the sign-in path. */
+export const loadAppShell = () => import('@/components/AppShell.vue');
+
 export function createAppRouter(history: RouterHistory = createWebHistory()): Router {
   const router = createRouter({
     history,
     routes,
     scrollBehavior: () => ({ top: 0 }),
+  });
+  // Someone signed in going to a page in the frame: fetch the frame now, beside the view's own
+  // chunk, not after it (App.vue waits for it). Signed out, the guard sends them to sign in.
+  router.beforeEach((to) => {
+    if (to.meta.layout !== 'plain' && useAuthStore().isSignedIn) void loadAppShell();
   });
   router.beforeEach(guard);
   router.afterEach((to) => {

@@ -1,0 +1,43 @@
+// The units' mathjs instance is built from the unit factories only (mathjs's custom-bundle API,
+// common/src/units/index.ts) to keep the browser's download small. Reference: the full mathjs
+// build, create(all) with the same cfs definition — the instance the units used before. The
+// trimmed one must give the same bits for every conversion the project makes, so no number the
+// demo or a saved design shows moves.
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { all, create } from 'mathjs';
+import { PRICE_UNITS, UNITS, convert } from '@basinwright/common';
+
+const full = create(all!, {});
+full.createUnit('cfs', '1 ft^3/s');
+const reference = (value: number, from: string, to: string): number =>
+  full.unit(value, from).toNumber(to);
+
+/** Every pair of unit strings the project converts between. */
+const PAIRS: Array<[string, string]> = [
+  ...Object.values(UNITS).map((u): [string, string] => [u.US, u.SI]),
+  // takeoff/format.ts: assumption units
+  ['kg/m^3', 'lb/ft^3'],
+  ['kg/m^3', 'lb/yd^3'],
+  // estimate.ts: each price unit from its SI unit
+  ...Object.values(PRICE_UNITS).map((u): [string, string] => [
+    { earthwork: 'm^3', mass: 'kg', area: 'm^2', length: 'm' }[u.kind],
+    u.expr,
+  ]),
+];
+
+describe('the trimmed mathjs instance', () => {
+  it('converts exactly as the full mathjs build, both ways, for every unit the project uses', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-6, max: 1e6, noNaN: true }), (v) => {
+        for (const [a, b] of PAIRS) {
+          expect(convert(v, a, b)).toBe(reference(v, a, b));
+          expect(convert(v, b, a)).toBe(reference(v, b, a));
+        }
+      }),
+    );
+  });
+  it('still refuses a conversion between different quantities', () => {
+    expect(() => convert(1, 'ft', 'kg')).toThrow(/cannot convert/);
+  });
+});
