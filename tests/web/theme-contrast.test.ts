@@ -58,7 +58,7 @@ describe('theme: text contrast at least 4.5:1', () => {
   const token = derivedTokens(theme);
   const ratio = (text: string, bg: string) => contrastRatio(solid(text, bg), solid(bg));
 
-  it('secondary and greyed text on white, on the page grey and on the table header', () => {
+  it('secondary and greyed text on white, the page grey, the table header and the alert fills', () => {
     for (const key of [
       'colorText',
       'colorTextSecondary',
@@ -67,10 +67,26 @@ describe('theme: text contrast at least 4.5:1', () => {
       'colorTextLabel',
       'colorTextHeading',
     ] as const) {
-      for (const bg of [token.colorBgContainer, token.colorBgLayout, token.colorFillAlter]) {
+      // …and on the fills of the alerts they sit in (the plan prompts' second line is muted)
+      for (const bg of [
+        token.colorBgContainer,
+        token.colorBgLayout,
+        token.colorFillAlter,
+        token.colorInfoBg,
+        token.colorWarningBg,
+        token.colorErrorBg,
+        token.colorSuccessBg,
+      ]) {
         expect(ratio(token[key], bg), `${key} ${token[key]} on ${bg}`).toBeGreaterThanOrEqual(AA);
       }
     }
+  });
+
+  it('values in read-only (disabled) fields and the words of an empty table', () => {
+    expect(ratio(token.colorTextDisabled, token.colorBgContainerDisabled)).toBeGreaterThanOrEqual(
+      AA,
+    );
+    expect(ratio(token.colorTextDisabled, token.colorBgContainer)).toBeGreaterThanOrEqual(AA);
   });
 
   it('links, the primary colour and error messages on white', () => {

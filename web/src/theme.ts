@@ -68,6 +68,10 @@ export const theme: ThemeConfig = {
     colorTextDescription: palette.slate600,
     colorTextHeading: palette.slate900,
     colorTextLabel: palette.slate700,
+    // Read-only designs show their values in disabled fields, and empty tables say so in the
+    // disabled grey: both are text someone reads (antd's grey is 1.7:1). The grey fill still
+    // marks a field as not editable.
+    colorTextDisabled: palette.slate600,
     // antd's default red (#ff4d4f, 3.3:1) carries form messages and the danger links.
     colorError: '#c8221c',
     ...TAG_TEXT,
@@ -82,9 +86,6 @@ export const theme: ThemeConfig = {
     wireframe: false,
   },
   components: {
-    // An empty table's or list's words are drawn in the disabled grey (1.7:1); they are text.
-    Empty: { colorTextDisabled: palette.slate600 },
-    Table: { colorTextDisabled: palette.slate600 },
     Menu: {
       colorItemBgSelected: '#e7f3f2',
       colorItemBgHover: palette.slate100,
