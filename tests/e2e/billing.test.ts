@@ -39,7 +39,10 @@ describe('billing: the demo owner upgrades, adds a seat, and the plan and limits
   });
 
   it('upgrades through the payment page and comes back Professional', async () => {
-    await page.getByRole('menuitem', { name: 'Billing' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Billing', exact: true })
+      .click();
     await page.waitForURL(/\/billing$/);
     await testId('billing-upgrade').waitFor();
     // One more seat than are in use is offered, so there is room to invite someone.
@@ -80,7 +83,10 @@ describe('billing: the demo owner upgrades, adds a seat, and the plan and limits
       .toBe(2);
     await testId('billing-next-invoice').waitFor();
     await browser.shot('billing-after-seat');
-    await page.getByRole('menuitem', { name: 'Team' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Team', exact: true })
+      .click();
     await testId('seats').waitFor();
     expect(await text('seats')).toMatch(
       new RegExp(`^${DEMO_MEMBERS} / ${DEMO_MEMBERS + 2}(?!\\d)`),

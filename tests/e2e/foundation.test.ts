@@ -105,7 +105,10 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
   });
 
   it('finds the project in the list by searching', async () => {
-    await page.getByRole('menuitem', { name: 'Projects' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Projects', exact: true })
+      .click();
     await page.waitForURL(/\/projects(\?.*)?$/);
     await page.locator('[data-test="project-search"]').fill(stamp);
     await page.waitForURL(new RegExp(`search=${stamp}`));
@@ -146,7 +149,12 @@ describe('foundation: sign up, create and find a project, sign in as the demo en
     // The new firm's project belongs to another tenant and must not show here.
     expect(await page.getByText(newProject).count()).toBe(0);
     // An engineer sees no Team entry.
-    expect(await page.getByRole('menuitem', { name: 'Team' }).count()).toBe(0);
+    expect(
+      await page
+        .getByRole('navigation', { name: 'Main' })
+        .getByRole('link', { name: 'Team', exact: true })
+        .count(),
+    ).toBe(0);
     await shot('07-demo-engineer-projects');
 
     await demo.getByRole('link', { name: DEMO_PROJECT }).click();

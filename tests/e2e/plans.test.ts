@@ -38,7 +38,10 @@ describe('plans and the firm brand', () => {
 
   it('the demo owner uploads a logo and sets the proposal footer on the Firm brand page', async () => {
     await signIn(page, e2eBaseUrl(), 'owner@harrow-lune.example', 'basinwright-demo');
-    await page.getByRole('menuitem', { name: 'Firm brand' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Firm brand', exact: true })
+      .click();
     await page.waitForURL(/\/firm\/brand$/);
     const png = await sharp({
       create: { width: 300, height: 120, channels: 3, background: '#0f6e6e' },

@@ -34,7 +34,12 @@ export function e2eBaseUrl(): string {
 
 export async function startBrowser(
   label: string,
-  options: { viewport?: { width: number; height: number }; timeoutMs?: number } = {},
+  options: {
+    viewport?: { width: number; height: number };
+    timeoutMs?: number;
+    /** let a test inject a script (axe-core) past the app's Content-Security-Policy */
+    bypassCSP?: boolean;
+  } = {},
 ): Promise<E2eBrowser> {
   const baseUrl = e2eBaseUrl();
   mkdirSync(SHOTS, { recursive: true });
@@ -43,6 +48,7 @@ export async function startBrowser(
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
     viewport: options.viewport ?? { width: 1366, height: 900 },
+    bypassCSP: options.bypassCSP ?? false,
     // Without the networking flags Chromium tries hosts this machine cannot reach.
     args: [
       '--headless',

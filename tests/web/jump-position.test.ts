@@ -414,9 +414,9 @@ describe('the side navigation', () => {
         slots: { default: '<p>page</p>' },
       });
       await flushPromises();
-      const items = wrapper.findAll('nav .ant-menu-item').map((li) => li.text().trim());
+      const items = wrapper.findAll('nav a').map((a) => a.text().trim());
       expect(items).toEqual(labels);
-      expect(wrapper.find('nav .ant-menu-item-selected').text()).toContain('Where the jump forms');
+      expect(wrapper.find('nav a[aria-current="page"]').text()).toContain('Where the jump forms');
       wrapper.unmount();
     },
   );

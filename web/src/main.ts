@@ -7,6 +7,7 @@ import 'ant-design-vue/dist/reset.css';
 import './styles/base.css';
 import App from './App.vue';
 import { createAppRouter, installUnauthorizedHandler } from './router';
+import { installA11yMending } from './a11y';
 
 const app = createApp(App);
 const pinia = createPinia();
@@ -15,3 +16,4 @@ const router = createAppRouter();
 installUnauthorizedHandler(router);
 app.use(router);
 app.mount('#app');
+installA11yMending();
