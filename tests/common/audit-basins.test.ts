@@ -198,7 +198,7 @@ describe('sizeJumpBasin: refusals and warnings', () => {
   it('US wording: the same caution quotes ft/s (65.6 ft/s = 20 m/s) against the limit as published, 60 ft/s [from memory: EM-25]', () => {
     const s = sizeJumpBasin('usbr-3', { width: 5, Q: 20, y1: 0.2 });
     const us = s.warnings.map((w) => studyWarningText(w, 'US')).join(' ');
-    expect(us).toMatch(/65\.6 ft\/s > 60 ft\/s:/);
+    expect(us).toMatch(/65\.6 ft\/s is above 60 ft\/s:/);
     expect(us).not.toMatch(/ m\/s/);
   });
 });
