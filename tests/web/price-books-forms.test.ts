@@ -106,6 +106,9 @@ describe('Price books — forms', () => {
     expect(under(wrapper, 'item-1-description')).toBe('Enter a description.');
     await type(wrapper, 'item-1-code', 'conc');
     await type(wrapper, 'item-1-description', 'Concrete again');
+    // every field of the row valid, so only the repeated code is left to refuse
+    await type(wrapper, 'item-1-unit', 'm3');
+    await type(wrapper, 'item-1-unitPrice', '480');
     await wrapper.find('[data-test="price-book-save"]').trigger('click');
     await flushPromises();
     // a busy machine may take a while to answer the click: wait for the message, not for time
