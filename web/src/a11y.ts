@@ -5,6 +5,7 @@
 // - a select takes its aria-label on its outer box, not on the combobox a screen reader reads;
 //   the page-size select of a table's pagination has no name at all;
 // - a table that scrolls sideways is a region a keyboard cannot reach without a Tab stop;
+// - a table's row-selection checkbox has no name: it takes the row's first figure ("Choose v2");
 // - a sortable column's caret icons carry aria-label on a span with no role (the header cell
 //   already says how it is sorted, with aria-sort).
 // Everything here only adds or drops ARIA/tabindex attributes; Vue still owns the elements.
@@ -26,6 +27,13 @@ function mendInput(input: HTMLElement): void {
     box?.getAttribute('aria-label') ??
     (input.closest('.ant-pagination-options') ? PAGE_SIZE_NAME : null);
   if (name) input.setAttribute('aria-label', name);
+}
+
+function mendRowCheckbox(input: HTMLElement): void {
+  if (input.hasAttribute('aria-label') || input.hasAttribute('aria-labelledby')) return;
+  const row = input.closest('tr');
+  const first = row?.querySelector('td:not(.ant-table-selection-column)')?.textContent?.trim();
+  input.setAttribute('aria-label', first ? `Choose ${first}` : 'Choose this row');
 }
 
 function mendScroller(el: HTMLElement): void {
@@ -51,6 +59,9 @@ function mend(root: ParentNode): void {
   root
     .querySelectorAll<HTMLElement>('input[role="combobox"], .ant-input-number input')
     .forEach((input) => mendInput(input));
+  root
+    .querySelectorAll<HTMLElement>('.ant-table-selection-column input.ant-checkbox-input')
+    .forEach((input) => mendRowCheckbox(input));
   root
     .querySelectorAll<HTMLElement>('.ant-table-content, .ant-table-body')
     .forEach((el) => mendScroller(el));
