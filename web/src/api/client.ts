@@ -1,4 +1,5 @@
 // The one fetch wrapper. Every request goes through `request`; components never call fetch.
+import { downloadBlob } from '@/download';
 
 export const API_BASE = '/api/v1';
 
@@ -220,14 +221,7 @@ export async function download(
   const name =
     /filename="([^"]+)"/.exec(response.headers.get('Content-Disposition') ?? '')?.[1] ??
     fallbackName;
-  const url = URL.createObjectURL(await response.blob());
-  const link = document.createElement('a');
-  link.href = url;
-  link.download = name;
-  document.body.append(link);
-  link.click();
-  link.remove();
-  URL.revokeObjectURL(url);
+  downloadBlob(name, await response.blob());
 }
 
 /** A message fit to show a person, for any thrown value. */

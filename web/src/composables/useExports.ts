@@ -11,6 +11,7 @@ import {
   type ExportTable,
   type SheetCell,
 } from '@basinwright/common';
+import { downloadBlob } from '@/download';
 
 export type SheetFormat = 'csv' | 'xlsx';
 
@@ -25,18 +26,6 @@ export function provideExportContext(ctx: ComputedRef<ExportContext>): void {
 export function useExportContext(units: () => ExportContext['units']): ComputedRef<ExportContext> {
   const ctx = inject(KEY, null);
   return ctx ?? computed(() => ({ project: 'Project', design: 'Design', units: units() }));
-}
-
-/** Offers `data` to the browser as a file download. */
-export function downloadBlob(fileName: string, data: Blob): void {
-  const url = URL.createObjectURL(data);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  URL.revokeObjectURL(url);
 }
 
 /** Rows of cells as CSV text (comma, CRLF; papaparse quotes what needs quoting). */

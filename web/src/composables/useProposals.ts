@@ -4,6 +4,7 @@
 import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { proposalsApi, type Proposal } from '@/api/proposals';
 import { useResource } from '@/composables/useResource';
+import { downloadBlob } from '@/download';
 
 /** How often a proposal being drawn is asked about, ms. */
 export const PROPOSAL_POLL_MS = 1500;
@@ -42,14 +43,7 @@ export function useProposals(projectId: Ref<string>) {
   /** Saves the PDF through the browser's download. */
   async function download(p: Proposal): Promise<void> {
     const { blob, filename } = await proposalsApi.pdf(p.projectId, p.id);
-    const url = URL.createObjectURL(blob);
-    const a = document.createElement('a');
-    a.href = url;
-    a.download = filename ?? 'proposal.pdf';
-    document.body.appendChild(a);
-    a.click();
-    a.remove();
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    downloadBlob(filename ?? 'proposal.pdf', blob);
   }
 
   return {
