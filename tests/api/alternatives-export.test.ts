@@ -101,6 +101,13 @@ describe('alternatives export: Firm plan only', () => {
     entries.forEach((e, i) =>
       expectRel(Number(body[i]![5]), e.design.length, 1e-3 / e.design.length),
     );
+    // floor below the bed = bed − floor, signed (a floor above the bed is not shown as 0)
+    entries.forEach((e, i) => {
+      const d = e.design;
+      if (d.family !== 'jump-basin' && d.family !== 'impact-basin') return;
+      const below = fenwickDesign.channelBedElevation - d.floorElevation;
+      expect(Math.abs(Number(body[i]![4]) - below)).toBeLessThanOrEqual(5e-4);
+    });
   });
 
   it('on Firm, US: an XLSX in feet and cubic yards [1 ft = 0.3048 m, NIST SP 811]', async () => {

@@ -753,7 +753,7 @@ export async function alternativesExport(
   const table: ExportTable<Row> = {
     title: 'Alternatives compared',
     notes: [
-      'Each type on its own floor; quantities by neat lines from the take-off of the saved design (concrete with its waste allowance).',
+      'Each type on its own floor (a floor above the channel bed shows as a negative depth below it); quantities by neat lines from the take-off of the saved design (concrete with its waste allowance).',
     ],
     columns: [
       { title: 'Type', kind: null, value: (r) => r.name },
@@ -764,7 +764,7 @@ export async function alternativesExport(
         title: 'Floor below the bed',
         kind: 'length',
         digits: 3,
-        value: (r) => (r.floorElevation === null ? null : Math.max(0, bed - r.floorElevation)),
+        value: (r) => (r.floorElevation === null ? null : bed - r.floorElevation),
       },
       { title: 'Length', kind: 'length', digits: 3, value: (r) => r.length },
       { title: 'Width', kind: 'length', digits: 3, value: (r) => r.width },
