@@ -1,6 +1,8 @@
+import { execFileSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { fileURLToPath, URL } from 'node:url';
 import { constants as zlibConstants } from 'node:zlib';
-import { defineConfig, defaultClientConditions } from 'vite';
+import { defineConfig, defaultClientConditions, type Plugin } from 'vite';
 import vue from '@vitejs/plugin-vue';
 import Components from 'unplugin-vue-components/vite';
 import { compression, defineAlgorithm } from 'vite-plugin-compression2';
@@ -8,9 +10,47 @@ import { AntDesignVueResolver } from 'unplugin-vue-components/resolvers';
 
 const apiPort = process.env.API_PORT ?? '8080';
 
+/**
+ * The ant-design-vue components' styles, worked out at build time (build/antd-static-style.ts)
+ * and linked from index.html ahead of the app's own CSS, where antd would inject them at run
+ * time. The first file carries the map by which antd knows to skip that work in the browser.
+ */
+function antdStaticStyle(): Plugin {
+  let files: string[] = [];
+  return {
+    name: 'basinwright:antd-static-style',
+    apply: 'build',
+    buildStart() {
+      const script = fileURLToPath(new URL('./build/antd-static-style.ts', import.meta.url));
+      // In a child process: antd fixes its class-name hash from NODE_ENV when first loaded.
+      const out = execFileSync(process.execPath, ['--import', 'tsx', script], {
+        env: { ...process.env, NODE_ENV: 'production' },
+        encoding: 'utf8',
+        maxBuffer: 64 * 1024 * 1024,
+      });
+      files = (JSON.parse(out) as string[]).map((source, i) => {
+        const hash = createHash('sha256').update(source).digest('base64url').slice(0, 8);
+        const fileName = `assets/antd-${i + 1}-${hash}.css`;
+        this.emitFile({ type: 'asset', fileName, source });
+        return fileName;
+      });
+    },
+    transformIndexHtml: {
+      order: 'post',
+      handler: () =>
+        files.map((f) => ({
+          tag: 'link',
+          attrs: { rel: 'stylesheet', href: `/${f}` },
+          injectTo: 'head-prepend' as const,
+        })),
+    },
+  };
+}
+
 export default defineConfig({
   plugins: [
     vue(),
+    antdStaticStyle(),
     // On-demand ant-design-vue components. importStyle: false because antd 4 styles are
     // CSS-in-JS; importing its CSS files breaks the build.
     Components({

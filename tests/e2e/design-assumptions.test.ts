@@ -22,11 +22,7 @@ async function shot(name: string): Promise<void> {
 }
 const freeboard = async (): Promise<number> =>
   numberIn(await page.locator('[data-test="sizing-freeboard"]').textContent());
-// ant-design-vue puts the data attribute on the <input> itself (or on its wrapper): take either.
-const numberBox = (key: string) =>
-  page
-    .locator(`input[data-test="assumption-${key}"], [data-test="assumption-${key}"] input`)
-    .first();
+const numberBox = (key: string) => page.locator(`input[data-test="assumption-${key}"]`);
 const coefficient = () => numberBox('freeboardCoefficient');
 
 describe('design workspace: the assumptions behind the sizing', () => {
@@ -49,7 +45,7 @@ describe('design workspace: the assumptions behind the sizing', () => {
     await page.locator('[data-test="sizing-freeboard"]').waitFor();
     await page.locator('[data-test="assumptions-table"]').waitFor();
     expect(
-      await page.locator('[data-test="assumptions-table"] tbody tr.ant-table-row').count(),
+      await page.locator('[data-test="assumptions-table"] tbody tr.assumption-row').count(),
     ).toBeGreaterThan(60);
     expect(await page.locator('[data-test="assumptions-table"]').textContent()).toContain(
       'From memory — verify',
@@ -72,7 +68,7 @@ describe('design workspace: the assumptions behind the sizing', () => {
     const sill = numberBox('type2SillHeightRatio');
     await sill.fill('-1');
     await sill.blur();
-    const item = page.locator('.ant-form-item', {
+    const item = page.locator('.assumption-cell', {
       has: page.locator('[data-test="assumption-type2SillHeightRatio"]'),
     });
     await expect.poll(() => item.textContent()).toMatch(/must be a number not below zero/);

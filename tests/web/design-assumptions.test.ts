@@ -220,11 +220,7 @@ describe('DesignAssumptionsPanel', () => {
         return () => h(DesignAssumptionsPanel, { result, units: values.units });
       },
     });
-    // The tooltips (one a row, shown on hover) are not under test here: plain spans make the
-    // mount cheaper.
-    const wrapper = mount(Host, {
-      global: { stubs: { 'a-tooltip': { template: '<span><slot /></span>' } } },
-    });
+    const wrapper = mount(Host);
     return { wrapper, form };
   }
 
@@ -232,7 +228,7 @@ describe('DesignAssumptionsPanel', () => {
   it('lists every default with its confidence in words, flags and resets an override, and shows the message of an out-of-bounds value on its field', async () => {
     const input = typeII({ defaults: { freeboardCoefficient: 0.15 } });
     const { wrapper, form } = mountPanel(input, run(input));
-    const rows = wrapper.findAll('[data-test="assumptions-table"] tbody tr.ant-table-row');
+    const rows = wrapper.findAll('[data-test="assumptions-table"] tbody tr.assumption-row');
     expect(rows.length).toBe(Object.keys(BASIN_DEFAULTS).length);
     const text = wrapper.text();
     for (const tag of ['Published', 'From memory — verify', 'Computed', 'Common practice'])
@@ -247,11 +243,26 @@ describe('DesignAssumptionsPanel', () => {
 
     form.values.dissipators = typeII({ defaults: { type2SillHeightRatio: -1 } }).dissipators;
     await nextTick();
-    const cell = wrapper
-      .find('[data-test="assumption-type2SillHeightRatio"]')
-      .element.closest('.ant-form-item')!;
+    const box = wrapper.find('[data-test="assumption-type2SillHeightRatio"]');
+    const cell = box.element.closest('.assumption-cell')!;
     expect(cell.textContent).toMatch(
       /Type II dentated sill height \/ y2 must be a number not below zero/,
     );
+    // The message is tied to its box for a screen reader.
+    expect(box.attributes('aria-invalid')).toBe('true');
+    expect(cell.querySelector(`#${box.attributes('aria-describedby')}`)?.textContent).toMatch(
+      /must be a number not below zero/,
+    );
+
+    // What is not a number yet stays in its box with a message, and the form keeps its value.
+    const before = JSON.parse(JSON.stringify(form.values.dissipators)) as unknown;
+    await box.setValue('0.1.2');
+    expect((box.element as HTMLInputElement).value).toBe('0.1.2');
+    expect(cell.textContent).toMatch(/Type a number/);
+    expect(form.values.dissipators).toEqual(before);
+    // A number goes to the form at once.
+    await box.setValue('0.25');
+    expect(form.values.dissipators?.defaults?.type2SillHeightRatio).toBe(0.25);
+    expect(cell.textContent).not.toMatch(/Type a number/);
   });
 });

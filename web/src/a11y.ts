@@ -52,30 +52,60 @@ function mendSorterIcon(icon: HTMLElement): void {
   icon.setAttribute('aria-hidden', 'true');
 }
 
-function mend(root: ParentNode): void {
-  root
-    .querySelectorAll<HTMLElement>('.ant-table-column-sorter .anticon[aria-label]')
-    .forEach((icon) => mendSorterIcon(icon));
-  root
-    .querySelectorAll<HTMLElement>('input[role="combobox"], .ant-input-number input')
-    .forEach((input) => mendInput(input));
-  root
-    .querySelectorAll<HTMLElement>('.ant-table-selection-column input.ant-checkbox-input')
-    .forEach((input) => mendRowCheckbox(input));
-  root
-    .querySelectorAll<HTMLElement>('.ant-table-content, .ant-table-body')
-    .forEach((el) => mendScroller(el));
+const SORTER_ICON = '.ant-table-column-sorter .anticon[aria-label]';
+const INPUT = 'input[role="combobox"], .ant-input-number input';
+const ROW_CHECKBOX = '.ant-table-selection-column input.ant-checkbox-input';
+const SCROLLER = '.ant-table-content, .ant-table-body';
+
+/** Elements matching `selector` at or under `root`. */
+function within(root: Element | Document, selector: string): HTMLElement[] {
+  const under = [...root.querySelectorAll<HTMLElement>(selector)];
+  return root instanceof Element && root.matches(selector)
+    ? [root as HTMLElement, ...under]
+    : under;
 }
 
-/** Watches the page and mends what antd renders, as it renders it. */
+function mend(root: Element | Document): void {
+  within(root, SORTER_ICON).forEach((icon) => mendSorterIcon(icon));
+  within(root, INPUT).forEach((input) => mendInput(input));
+  within(root, ROW_CHECKBOX).forEach((input) => mendRowCheckbox(input));
+  within(root, SCROLLER).forEach((el) => mendScroller(el));
+}
+
+/**
+ * Watches the page and mends what antd renders, as it renders it: only the parts that changed,
+ * once a frame (a whole-page pass on every change held the main thread on long pages).
+ */
 export function installA11yMending(doc: Document = document): () => void {
+  const changed = new Set<Element>(); // added, or an attribute changed: mended with what is under it
+  const grown = new Set<Element>(); // children added or removed: its table may now scroll sideways
   let queued = false;
+  const underAnother = (el: Element): boolean => {
+    for (let up = el.parentElement; up; up = up.parentElement) if (changed.has(up)) return true;
+    return false;
+  };
   const run = () => {
     queued = false;
-    mend(doc);
+    for (const root of changed) if (root.isConnected && !underAnother(root)) mend(root);
+    for (const el of grown) {
+      const scroller = el.isConnected ? el.closest<HTMLElement>(SCROLLER) : null;
+      if (scroller) mendScroller(scroller);
+    }
+    changed.clear();
+    grown.clear();
   };
-  const observer = new MutationObserver(() => {
-    if (queued) return;
+  const observer = new MutationObserver((records) => {
+    for (const r of records) {
+      if (r.type === 'attributes') {
+        if (r.target instanceof Element) changed.add(r.target);
+        continue;
+      }
+      r.addedNodes.forEach((n) => {
+        if (n instanceof Element) changed.add(n);
+      });
+      if (r.target instanceof Element) grown.add(r.target);
+    }
+    if (queued || changed.size + grown.size === 0) return;
     queued = true;
     requestAnimationFrame(run);
   });

@@ -154,6 +154,7 @@ const confidences: Record<Confidence, { label: string; color: string; help: stri
     help: 'A habit of the trade with no single source.',
   },
 };
+export const CONFIDENCES = Object.keys(confidences) as Confidence[];
 export const confidenceLabel = (c: Confidence): string => confidences[c].label;
 export const confidenceColor = (c: Confidence): string => confidences[c].color;
 export const confidenceHelp = (c: Confidence): string => confidences[c].help;

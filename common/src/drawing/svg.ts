@@ -135,32 +135,30 @@ export function boxesOverlap(a: Box, b: Box, gap = 0): boolean {
 
 /** True when any part of the segment p→q lies inside the box. */
 export function segmentHitsBox(p: Pt, q: Pt, b: Box): boolean {
+  // Both ends on one outer side of the box: no part of it can be inside (the common case while
+  // labels look for a place, so it is answered first, without the clipping below).
+  if ((p.x < b.x0 && q.x < b.x0) || (p.x > b.x1 && q.x > b.x1)) return false;
+  if ((p.y < b.y0 && q.y < b.y0) || (p.y > b.y1 && q.y > b.y1)) return false;
   // Liang–Barsky clipping: does any part of p→q lie inside b?
-  let t0 = 0,
-    t1 = 1;
   const dx = q.x - p.x,
     dy = q.y - p.y;
-  const tests: [number, number][] = [
-    [-dx, p.x - b.x0],
-    [dx, b.x1 - p.x],
-    [-dy, p.y - b.y0],
-    [dy, b.y1 - p.y],
-  ];
-  for (const [pp, qq] of tests) {
-    if (pp === 0) {
-      if (qq < 0) return false;
+  let t0 = 0,
+    t1 = 1;
+  const clip = (pp: number, qq: number): boolean => {
+    if (pp === 0) return qq >= 0;
+    const r = qq / pp;
+    if (pp < 0) {
+      if (r > t1) return false;
+      if (r > t0) t0 = r;
     } else {
-      const r = qq / pp;
-      if (pp < 0) {
-        if (r > t1) return false;
-        if (r > t0) t0 = r;
-      } else {
-        if (r < t0) return false;
-        if (r < t1) t1 = r;
-      }
+      if (r < t0) return false;
+      if (r < t1) t1 = r;
     }
-  }
-  return true;
+    return true;
+  };
+  return (
+    clip(-dx, p.x - b.x0) && clip(dx, b.x1 - p.x) && clip(-dy, p.y - b.y0) && clip(dy, b.y1 - p.y)
+  );
 }
 
 /** A label as placed: its text, baseline point, anchor, box and (when moved) leader. */
