@@ -24,6 +24,12 @@ export interface LiveResult<T> {
   computing: Ref<boolean>;
   runNow: () => void;
   schedule: () => void;
+  /**
+   * Shows a value already known for the current input (e.g. kept with the saved design), with
+   * nothing pending. With `same`, the input is then evaluated quietly: the answer replaces the
+   * value only when `same` says it differs (or when it fails).
+   */
+  adopt: (known: T, same?: (fresh: T, known: T) => boolean) => void;
 }
 
 /**
@@ -88,9 +94,24 @@ export function useLiveResult<T>(
     timer = setTimeout(runNow, debounceMs);
   }
 
+  function adopt(known: T, same?: (fresh: T, known: T) => boolean): void {
+    clearTimeout(timer);
+    if (computing.value) cancel();
+    const own = ++latest;
+    computing.value = false;
+    pending.value = false;
+    apply({ value: known, engineError: null, inputProblems: [] });
+    if (!same) return;
+    void Promise.resolve(evaluate()).then((answer) => {
+      if (own !== latest || !answer) return;
+      if (answer.value !== null && same(answer.value, known)) return;
+      apply(answer);
+    });
+  }
+
   onBeforeUnmount(() => {
     clearTimeout(timer);
     latest++;
   });
-  return { value, engineError, inputProblems, stale, pending, computing, runNow, schedule };
+  return { value, engineError, inputProblems, stale, pending, computing, runNow, schedule, adopt };
 }

@@ -121,8 +121,17 @@ export function useStudy(
   onBeforeUnmount(() => client.dispose());
   watch(source, state.schedule, { deep: true });
   watch(chosenType, state.runNow);
-  const { value: result, engineError, inputProblems, stale, pending, computing, runNow } = state;
-  return { result, engineError, inputProblems, stale, pending, computing, runNow };
+  const {
+    value: result,
+    engineError,
+    inputProblems,
+    stale,
+    pending,
+    computing,
+    runNow,
+    adopt,
+  } = state;
+  return { result, engineError, inputProblems, stale, pending, computing, runNow, adopt };
 }
 
 /** Numbers in the user's units, for tables, labels and the drawing (shared with the PDF). */
