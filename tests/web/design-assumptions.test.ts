@@ -228,6 +228,9 @@ describe('DesignAssumptionsPanel', () => {
   it('lists every default with its confidence in words, flags and resets an override, and shows the message of an out-of-bounds value on its field', async () => {
     const input = typeII({ defaults: { freeboardCoefficient: 0.15 } });
     const { wrapper, form } = mountPanel(input, run(input));
+    // The panel's parts draw in tasks of their own after a frame (AppDeferred).
+    while (!wrapper.find('[data-test="assumptions-table"]').exists())
+      await new Promise((resolve) => requestAnimationFrame(resolve));
     const rows = wrapper.findAll('[data-test="assumptions-table"] tbody tr.assumption-row');
     expect(rows.length).toBe(Object.keys(BASIN_DEFAULTS).length);
     const text = wrapper.text();
