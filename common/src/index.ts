@@ -197,6 +197,8 @@ export {
   SEARCH_LIMITS,
   type SeatChangeInput,
   seatChangeSchema,
+  seatCountSchema,
+  fewerSeatsText,
   type PlanChangeInput,
   planChangeSchema,
   seatLimit,

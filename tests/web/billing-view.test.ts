@@ -7,6 +7,7 @@ import type { BillingSummary } from '../../web/src/api/billing';
 import { createAppRouter } from '../../web/src/router';
 import { TOKEN_KEY } from '../../web/src/stores/auth';
 import { demoFirm, demoUser, stubApi, type Routes } from './fetch-stub';
+import { helpFor } from './form-help';
 
 afterEach(() => {
   vi.unstubAllGlobals();
@@ -124,6 +125,91 @@ describe('BillingView', () => {
     );
     const patch = api.calls.find((c) => c.method === 'PATCH');
     expect(JSON.parse(String(patch?.init.body))).toEqual({ seats: 7 });
+    wrapper.unmount();
+  });
+
+  it('keeps an out-of-range or fractional seat change as typed, says why and waits', async () => {
+    const { wrapper, api } = await mountAs('owner', {
+      'GET /billing': {
+        status: 200,
+        body: summary({
+          plan: 'professional',
+          planName: 'Professional',
+          seats: { paid: 6, used: 5 },
+          subscription: { cancelAtPeriodEnd: false, currentPeriodEnd: '2027-01-01T00:00:00.000Z' },
+        }),
+      },
+      'PATCH /billing/seats': { status: 202, body: { requested: 7 } },
+    });
+    const input = wrapper.find<HTMLInputElement>(
+      'input[data-test="billing-seats-input"], [data-test="billing-seats-input"] input',
+    );
+    const button = () => wrapper.find('[data-test="billing-change-seats"]');
+    // [typed, the shared schema's message (seatCountSchema, common/src/schemas/billing.ts)]
+    const cases: [string, string][] = [
+      [
+        '3',
+        '5 seats are in use (members and open invitations): buy at least 5, or free seats first.',
+      ],
+      ['6.5', 'Seats must be a whole number.'],
+      ['2000', 'At most 1000 seats.'],
+      ['', 'Give the number of seats.'],
+    ];
+    for (const [typed, said] of cases) {
+      await input.setValue(typed);
+      await input.trigger('blur');
+      await flushPromises();
+      expect(input.element.value, typed).toBe(typed); // kept as typed, never pulled to a bound
+      expect(helpFor(wrapper, 'Seats'), typed).toBe(said);
+      expect(button().attributes('disabled'), typed).toBeDefined();
+      await wrapper
+        .find('[data-test="billing-seats-input"]')
+        .element.closest('form')!
+        .dispatchEvent(new Event('submit', { cancelable: true }));
+      await flushPromises();
+      expect(
+        api.calls.some((c) => c.method === 'PATCH'),
+        typed,
+      ).toBe(false);
+    }
+    await input.setValue('7');
+    await input.trigger('blur');
+    await flushPromises();
+    expect(helpFor(wrapper, 'Seats')).toBeNull();
+    expect(button().attributes('disabled')).toBeUndefined();
+    wrapper.unmount();
+  });
+
+  it('says the Firm plan is bought with at least 3 seats, and offers no payment below it', async () => {
+    const { wrapper, api } = await mountAs('owner', {
+      'GET /billing': { status: 200, body: summary({ seats: { paid: 1, used: 1 } }) },
+      'POST /billing/checkout': { status: 200, body: { url: 'about:blank' } },
+    });
+    await wrapper.find('[data-test="billing-plan-choice"] input[value="firm"]').setValue(true);
+    await flushPromises();
+    const input = wrapper.find<HTMLInputElement>(
+      'input[data-test="billing-buy-seats"], [data-test="billing-buy-seats"] input',
+    );
+    await input.setValue('2');
+    await input.trigger('blur');
+    await flushPromises();
+    expect(input.element.value).toBe('2');
+    // the Firm plan's minimum is 3 seats (product brief's plan table)
+    expect(helpFor(wrapper, 'Seats')).toBe('The Firm plan is bought with at least 3 seats.');
+    expect(wrapper.find('[data-test="billing-checkout"]').attributes('disabled')).toBeDefined();
+    await wrapper.find('[data-test="billing-upgrade"] form').trigger('submit');
+    await flushPromises();
+    expect(api.calls.some((c) => c.path === '/billing/checkout')).toBe(false);
+    await input.setValue('4');
+    await input.trigger('blur');
+    await flushPromises();
+    expect(helpFor(wrapper, 'Seats')).toBeNull();
+    await wrapper.find('[data-test="billing-upgrade"] form').trigger('submit');
+    await vi.waitFor(() =>
+      expect(api.calls.some((c) => c.path === '/billing/checkout')).toBe(true),
+    );
+    const call = api.calls.find((c) => c.path === '/billing/checkout');
+    expect(JSON.parse(String(call?.init.body))).toEqual({ plan: 'firm', seats: 4 });
     wrapper.unmount();
   });
 

@@ -85,6 +85,8 @@ export {
   type PaidPlan,
   type SeatChangeInput,
   seatChangeSchema,
+  seatCountSchema,
+  fewerSeatsText,
   type PlanChangeInput,
   planChangeSchema,
 } from './billing';

@@ -1,4 +1,5 @@
 import {
+  fewerSeatsText,
   minimumSeats,
   planName,
   type CheckoutInput,
@@ -153,12 +154,7 @@ async function seatsTaken(firmId: string): Promise<number> {
 
 function refuseFewerSeats(plan: Plan, seats: number, used: number): void {
   const least = Math.max(minimumSeats(plan), used);
-  if (seats < least)
-    throw conflict(
-      used > minimumSeats(plan)
-        ? `${used} seats are in use (members and open invitations): buy at least ${used}, or free seats first.`
-        : `The ${planName(plan)} plan is bought with at least ${least} seat${least === 1 ? '' : 's'}.`,
-    );
+  if (seats < least) throw conflict(fewerSeatsText(plan, used));
 }
 
 /** Starts the payment service's Checkout for a paid plan; the webhook changes the firm. */
