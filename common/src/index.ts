@@ -224,9 +224,10 @@ export {
 } from './schemas';
 export { type Action, ACTIONS, can, POLICY } from './policy';
 
-// Units (mathjs, private instance with cfs): SI ⇄ US customary at the edges
+// Units: SI ⇄ US customary at the edges (by kind, from a table of mathjs's factors); convert
+// (any two unit strings) through a private mathjs instance with cfs
+export { convert } from './units/convert';
 export {
-  convert,
   convertByKinds,
   type DeepKindsOf,
   DIMENSIONLESS_DECIMALS,
@@ -341,10 +342,9 @@ export {
   type DesignJump,
   type PositionRow,
   runStudy,
-  STUDY_CAUTIONS,
-  studyCautions,
   type StudyResult,
 } from './study';
+export { STUDY_CAUTIONS, studyCautions } from './cautions';
 // The version of runStudy's answer, stored beside a saved result
 export { ENGINE_VERSION } from './version';
 // Issued versions, review and the audit trail: states, key figures, comparison

@@ -14,35 +14,16 @@ import {
   type FloorSolution,
   type StudyInput,
   type StudyRow,
-  type UnitSystem,
 } from './range';
 import { rangeWarnings } from './range/warnings';
 import { designDissipators, type DissipatorStudyResult } from './basins/study';
 import { isJumpBasinType } from './basins/catalogue';
 import { studyWarning, warningCause, type StudyWarning } from './warnings';
 import type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './result';
+import { STUDY_CAUTIONS } from './cautions';
 
 export type { ChosenFloorCheck, DesignJump, PositionRow, StudyResult } from './result';
-
-/** The cautions carried by every result (product.md; hydraulics.md §7), SI wording; the edge shows studyCautions(units). */
-export const STUDY_CAUTIONS: readonly string[] = [
-  'Concept level only: verify with detailed design before construction.',
-  'Large or high-hazard structures, inflow velocities above 15 m/s, Froude numbers outside the tested ranges and asymmetric approach flow call for physical or numerical model studies.',
-  'Check cavitation on blocks and piers where the inflow velocity is high.',
-  'Check sweep-out of the jump at partial flows and excess submergence.',
-  'Check uplift and flotation of the floor slab.',
-  'Check scour and undermining below the end sill; protect the channel downstream.',
-  'Consider debris and ice for the basin type chosen.',
-  'The design must be reviewed and sealed by a licensed professional engineer and follow local codes and dam-safety regulations.',
-];
-
-/** The cautions in the wording of a unit system (the 15 m/s threshold is about 50 ft/s). */
-export function studyCautions(units: UnitSystem = 'SI'): string[] {
-  if (units !== 'US') return [...STUDY_CAUTIONS];
-  return STUDY_CAUTIONS.map((c) =>
-    c.replace('inflow velocities above 15 m/s', 'inflow velocities above about 50 ft/s (15 m/s)'),
-  );
-}
+export { STUDY_CAUTIONS, studyCautions } from './cautions';
 
 /** The jump at the design discharge on floor z with factor C, and its diagrams. */
 function designJumpAt(range: DischargeRange, row: StudyRow, z: number): DesignJump {

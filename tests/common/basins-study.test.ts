@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { designDissipators, type JumpBasinDesign } from '../../common/src/basins';
 import type { StudyInput } from '../../common/src/range';
 import { DISSIPATOR_CATALOGUE } from '../../common/src/basins';
+import { DISSIPATOR_IDS, DISSIPATOR_NAMES } from '../../common/src/basins/names';
 import { expectRel } from '../support/tolerance';
 import { runStudy } from '../../common/src/study';
 import { studyWarningText } from '../../common/src/messages';
@@ -12,6 +13,13 @@ import { fenwickDesign } from '../../seed/designs';
 
 // the demo project's design input (invented demo data, seed/designs.ts)
 const DEMO: StudyInput = fenwickDesign;
+
+describe('the names of the types, apart from the catalogue (pages name a type without the engine)', () => {
+  it('list every catalogue type in its order, each with the name its module carries', () => {
+    expect(DISSIPATOR_IDS).toEqual(DISSIPATOR_CATALOGUE.map((m) => m.id));
+    for (const m of DISSIPATOR_CATALOGUE) expect(DISSIPATOR_NAMES[m.id]).toBe(m.name);
+  });
+});
 
 describe('demo project: Fenwick Mill Pond auxiliary spillway (invented)', () => {
   const r = designDissipators(DEMO);

@@ -10,6 +10,7 @@ export interface ManifestChunk {
   file: string;
   src?: string;
   isEntry?: boolean;
+  isDynamicEntry?: boolean;
   imports?: string[];
   dynamicImports?: string[];
 }
@@ -50,6 +51,17 @@ export function gzipBytes(content: Buffer | string): number {
 
 /**
  * Text that only the library's own code carries, kept by minification: mathjs's table of units
- * names the hogshead; an echarts chart instance has the method getZr.
+ * names the hogshead; an echarts chart instance has the method getZr; exceljs writes a
+ * workbook's sheets under xl/worksheets; dxf-writer names AcDbEntity in every entity; papaparse
+ * reports an UndetectableDelimiter. The engine (what useStudy's fallback runs in the page when
+ * the worker cannot be used): the USBR Type I module's source, which only the catalogue of
+ * designs carries (a page names a type from basins/names.ts, never the catalogue).
  */
-export const LIBRARY_MARKS = { mathjs: 'hogshead', echarts: 'getZr' } as const;
+export const LIBRARY_MARKS = {
+  mathjs: 'hogshead',
+  echarts: 'getZr',
+  exceljs: 'xl/worksheets',
+  dxfWriter: 'AcDbEntity',
+  papaparse: 'UndetectableDelimiter',
+  engine: 'jump length curve via Chow 1959',
+} as const;

@@ -13,7 +13,7 @@ import {
   type StudyResult,
 } from '@basinwright/common';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
-import { evaluateStudy } from '../../web/src/composables/useStudy';
+import { evaluateStudy } from '../../web/src/composables/studyInThread';
 import {
   assumptionRows,
   designFormValues,

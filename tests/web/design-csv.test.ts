@@ -5,7 +5,8 @@ import { defineComponent, h, reactive, ref } from 'vue';
 import { mount } from '@vue/test-utils';
 import type { StudyInput } from '@basinwright/common';
 import DesignRatingTable from '../../web/src/components/DesignRatingTable.vue';
-import { parseTailwaterCsv, provideDesignForm } from '../../web/src/composables/useDesign';
+import { provideDesignForm } from '../../web/src/composables/useDesign';
+import { parseTailwaterCsv } from '../../web/src/composables/csvTable';
 
 describe('parseTailwaterCsv', () => {
   it('reads a file with a header row', () => {

@@ -62,7 +62,17 @@ async function mountAs(
     global: { plugins: [router] },
     attachTo: document.body,
   });
-  await vi.waitFor(() => expect(wrapper.find('[data-test="summary-floor"]').exists()).toBe(true));
+  // Each step's form and the summary load when first shown, and the first study fetches the engine
+  // into the thread (no Worker in jsdom): wait for both, however long the imports take here.
+  const shown = { timeout: 20_000 };
+  await vi.waitFor(
+    () => expect(wrapper.find('[data-test="summary-floor"]').exists()).toBe(true),
+    shown,
+  );
+  await vi.waitFor(
+    () => expect(wrapper.find('[data-test="step-panel"] form input').exists()).toBe(true),
+    shown,
+  );
   await flushPromises();
   return { wrapper, api };
 }

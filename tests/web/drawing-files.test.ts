@@ -8,7 +8,7 @@ import DxfParser from 'dxf-parser';
 import ExcelJS from 'exceljs';
 import { drawingToSvg, formatSI, runStudy, toSI, type DrawingFormatter } from '@basinwright/common';
 import { DXF_LAYERS, drawingToDxf } from '../../web/src/composables/drawingFiles';
-import { tableFile } from '../../web/src/composables/useExports';
+import { tableFile } from '../../web/src/composables/exportFiles';
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import { expectRel } from '../support/tolerance';
 

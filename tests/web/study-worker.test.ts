@@ -1,7 +1,8 @@
 // The study off the main thread: the client of the study worker answers only the newest
 // request, ends a worker still busy with a superseded one (so long runs never queue), drops late
-// answers, and runs in the thread where there is no Worker or the worker itself failed. A fake
-// worker stands in for the browser's here (jsdom has none); the e2e test drives the real one.
+// answers, and runs in the thread where there is no Worker or the worker itself failed (the
+// engine then imported on first need, never with the page). A fake worker stands in for the
+// browser's here (jsdom has none); the e2e test drives the real one.
 import { describe, expect, it, vi } from 'vitest';
 import { defineComponent, h, nextTick, reactive, ref } from 'vue';
 import { mount } from '@vue/test-utils';
@@ -14,7 +15,8 @@ import {
   type StudyPort,
   type StudyRequest,
 } from '../../web/src/composables/studyWorker';
-import { evaluateStudy, useStudy, type StudyOutcome } from '../../web/src/composables/useStudy';
+import { evaluateInThread, useStudy, type StudyOutcome } from '../../web/src/composables/useStudy';
+import { evaluateStudy } from '../../web/src/composables/studyInThread';
 import { fenwickDesign } from '../../seed/designs';
 
 /** A stand-in for a Worker: records what it is sent, answers when the test says. */
@@ -218,6 +220,37 @@ describe('useStudy through a worker', () => {
     made[0]!.answerLast(); // too late: dropped
     await nextTick();
     expect(api.result.value?.input.basinWidth).toBe(12);
+    wrapper.unmount();
+  });
+});
+
+describe('the study in the thread, when the worker cannot be used', () => {
+  it('imports the engine on first need and answers with the study; later runs answer at once', async () => {
+    const first = evaluateInThread(fenwickDesign, null);
+    // the engine is not part of the page: the first fallback fetches it
+    expect(first).toBeInstanceOf(Promise);
+    const out = await first;
+    expect(out.failure).toBeNull();
+    expect(out.inputProblems).toEqual([]);
+    // the same answer as the worker's script gives (it runs evaluateStudy on the same values)
+    expect(out.result).toEqual(evaluateStudy(fenwickDesign, null).result);
+    const again = evaluateInThread({ ...fenwickDesign, basinWidth: 13 }, 'usbr-2');
+    expect(again).not.toBeInstanceOf(Promise);
+    const later = again as StudyOutcome;
+    expect(later.result?.input.basinWidth).toBe(13);
+    expect(later.result?.design?.type).toBe('usbr-2');
+  });
+
+  it('a worker that fails hands its run to the thread, and the page still gets the study', async () => {
+    const { made, spawn } = fakes();
+    const { api, wrapper } = mountStudy(spawn, 0);
+    api.runNow();
+    expect(api.computing.value).toBe(true);
+    made[0]!.fail();
+    await vi.waitFor(() => expect(api.result.value).not.toBeNull());
+    expect(api.result.value).toEqual(evaluateStudy(fenwickDesign, null).result);
+    expect(api.computing.value).toBe(false);
+    expect(made[0]!.terminated).toBe(true);
     wrapper.unmount();
   });
 });

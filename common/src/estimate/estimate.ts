@@ -2,7 +2,7 @@
 // overridden with a reason), a location factor, percentages, escalation to the construction
 // mid-point and the accuracy range of the estimate's class. No rounding: the edges round.
 import { InputError } from '../errors';
-import { convert } from '../units';
+import { convert } from '../units/convert';
 import { ESTIMATE_LIMITS } from '../schemas/limits';
 import type { TakeoffQuantityKind } from '../takeoff/takeoff';
 

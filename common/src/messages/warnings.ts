@@ -1,7 +1,7 @@
 // Sentences for the engine's coded warnings (common/src/warnings.ts) in SI or US customary: the
 // study's own, each type's sizing and design cautions, and the notes on the choice of a type. The
 // quantities arrive SI with their kinds; each is converted and rounded by one rule (quote.ts).
-import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
+import { DISSIPATOR_NAMES } from '../basins/names';
 import type { DissipatorTypeId } from '../basins/types';
 import type { RowNoteCode, UnitSystem } from '../range/types';
 import type { StudyWarning, StudyWarningCode } from '../warnings';
@@ -121,7 +121,7 @@ const SENTENCES: Record<StudyWarningCode, Sentence> = {
 
 /** The published name of a type (never its code id). */
 export function typeName(id: DissipatorTypeId | undefined): string {
-  return DISSIPATOR_CATALOGUE.find((m) => m.id === id)?.name ?? 'The chosen type';
+  return (id && DISSIPATOR_NAMES[id]) ?? 'The chosen type';
 }
 
 /** The refusal behind a warning, as a following sentence ('' when none). */

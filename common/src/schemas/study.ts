@@ -18,7 +18,7 @@ import type { Section } from '../hydraulics/sections';
 import type { JumpSituation } from '../hydraulics/profiles';
 import type { KnownToe, LossModel } from '../hydraulics/inflow';
 import type { TailwaterSpec } from '../hydraulics/tailwater';
-import { DISSIPATOR_CATALOGUE } from '../basins/catalogue';
+import { DISSIPATOR_IDS } from '../basins/names';
 import { BASIN_DEFAULTS, BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import type { DischargeSpec, HeadwaterSpec, StudyInflow, StudyInput } from '../range/types';
 import { CHUTE_SLOPE_RANGE, ENGINE_LIMITS } from './limits';
@@ -408,7 +408,6 @@ const dischargesSchema = byKind<DischargeSpec, 'kind'>('kind', 'the discharges t
   ),
 });
 
-const DISSIPATOR_IDS = DISSIPATOR_CATALOGUE.map((m) => m.id);
 const typeList = DISSIPATOR_IDS.join(', ');
 const DEFAULT_KEYS = new Set(Object.keys(BASIN_DEFAULTS));
 

@@ -1,7 +1,8 @@
 // The take-off in the project's units: m³ ⇄ yd³, kg ⇄ lb, m² ⇄ ft², m ⇄ ft (units/), and its
 // assumptions and overrides between SI and US customary. The totals are the same quantity
 // either way: only the unit changes.
-import { convert, fromSIValue, toSIValue, UNIT_LABELS } from '../units';
+import { fromSIValue, toSIValue, UNIT_LABELS } from '../units';
+import { convert } from '../units/convert';
 import type { UnitSystem } from '../range/types';
 import {
   TAKEOFF_ASSUMPTIONS,

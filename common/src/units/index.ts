@@ -1,15 +1,11 @@
-// Units at the edges of the engine: user input and results between SI and US customary.
-// A private mathjs instance holds the extra unit cfs, so the global mathjs stays untouched.
-// Factors: NIST SP 811 (1 ft = 0.3048 m exactly).
-// The instance is built through mathjs's custom-bundle API from the two factories the units
-// need (unit(), createUnit() and what their Unit class depends on), not create(all): the same
-// Unit class and definitions, so the same numbers, at about a third of the size in the browser
-// (no expression parser, matrices or statistics).
-import { create, createUnitDependencies, unitDependencies, type MathJsInstance } from 'mathjs';
+// Units at the edges of the engine: user input and results between SI and US customary, by kind
+// of quantity, with the factors of ./factors (mathjs's own numbers, NIST SP 811). Conversion
+// between arbitrary unit strings (mathjs) is ./convert, kept apart so that these never load it.
 import type { StudyInput, UnitSystem } from '../range/types';
 import type { StudyResult } from '../result';
 import { BASIN_DEFAULT_PROVENANCE } from '../basins/defaults';
 import { fieldKind } from './fields';
+import { US_TO_SI } from './factors';
 
 export { FOOT, G, MANNING_K_SI, MANNING_K_US, RHO_WATER } from './constants';
 export {
@@ -30,21 +26,6 @@ export {
   displayText,
   significant,
 } from './rounding';
-
-// Built on first use, not at import: creating the instance costs a long task in the browser
-// (hundreds of ms with the CPU slowed), and a page in SI may never convert a unit.
-let instance: MathJsInstance | null = null;
-function mathjs(): MathJsInstance {
-  if (instance) return instance;
-  // The dependency maps are typed optional only because of mathjs's lite builds; this one has them.
-  if (!unitDependencies || !createUnitDependencies)
-    throw new Error('mathjs: the unit factories are missing from this build');
-  const math = create({ unitDependencies, createUnitDependencies }, {});
-  // mathjs has no cfs; ft³/s is the trade's unit of discharge in US practice.
-  math.createUnit('cfs', '1 ft^3/s');
-  instance = math;
-  return math;
-}
 
 /** Kinds of quantity the app shows; each has an SI and a US customary unit. */
 export type QuantityKind =
@@ -102,30 +83,8 @@ export const UNIT_LABELS: Record<QuantityKind, Record<UnitSystem, string>> = {
   unitWeight: { SI: 'kN/m³', US: 'lb/ft³' },
 };
 
-/**
- * Converts a value between any two mathjs unit strings (with cfs added).
- * @example convert(1, 'cfs', 'm^3/s') // 0.028316846592
- */
-export function convert(value: number, from: string, to: string): number {
-  if (!Number.isFinite(value)) throw new RangeError(`value must be a finite number (got ${value})`);
-  try {
-    return mathjs().unit(value, from).toNumber(to);
-  } catch (e) {
-    throw new RangeError(
-      `cannot convert ${from} to ${to}: ${e instanceof Error ? e.message : String(e)}`,
-      { cause: e },
-    );
-  }
-}
-
-// SI value = US value × factor, computed once through mathjs (on the first US conversion).
-let factors: Record<QuantityKind, number> | null = null;
-function factor(kind: QuantityKind): number {
-  factors ??= Object.fromEntries(
-    (Object.keys(UNITS) as QuantityKind[]).map((k) => [k, convert(1, UNITS[k].US, UNITS[k].SI)]),
-  ) as Record<QuantityKind, number>;
-  return factors[kind];
-}
+/** SI value = US value × factor (1 US unit of the kind in SI). */
+const factor = (kind: QuantityKind): number => US_TO_SI[kind];
 
 /** A quantity from `system` into SI. @example toSIValue(1, 'length', 'US') // 0.3048 */
 export function toSIValue(value: number, kind: QuantityKind, system: UnitSystem): number {

@@ -2,7 +2,8 @@
 // that answers only the newest request. A request sent while the worker is still busy with an
 // older one supersedes it: the worker is ended and a fresh one started, so long runs never queue
 // behind each other and a late answer to an older input is never shown. Where there is no
-// Worker (jsdom in the unit tests) the study runs in the thread, synchronously.
+// Worker (jsdom in the unit tests) the study runs in the thread: at once, or with a promise while
+// the engine is fetched the first time (useStudy's evaluateInThread).
 import type {
   CheapestSearchResult,
   DissipatorTypeId,
@@ -42,8 +43,9 @@ export interface StudyClient {
   /** 'worker' while the study runs in a worker; 'thread' without one, or after it failed */
   readonly mode: 'worker' | 'thread';
   /**
-   * Runs the study on `request`. In the thread: the outcome, at once. With a worker: a promise
-   * of the outcome, or of null when a newer request (or dispose) superseded this one.
+   * Runs the study on `request`. In the thread: the outcome, at once (or a promise of it while
+   * the engine is first fetched). With a worker: a promise of the outcome, or of null when a
+   * newer request (or dispose) superseded this one.
    */
   run(request: StudyRequest): StudyOutcome | Promise<StudyOutcome | null>;
   /**
@@ -66,7 +68,7 @@ export function plainCopy(value: unknown): unknown {
 interface Job {
   id: number;
   request: StudyRequest;
-  resolve: (outcome: StudyOutcome | null) => void;
+  resolve: (outcome: StudyOutcome | null | PromiseLike<StudyOutcome>) => void;
 }
 
 /**
@@ -76,7 +78,7 @@ interface Job {
  */
 export function createStudyClient(options: {
   spawn: (() => StudyPort) | null;
-  evaluate: (request: StudyRequest) => StudyOutcome;
+  evaluate: (request: StudyRequest) => StudyOutcome | Promise<StudyOutcome>;
 }): StudyClient {
   const { spawn, evaluate } = options;
   let port: StudyPort | null = null;

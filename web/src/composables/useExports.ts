@@ -1,16 +1,9 @@
 // Results out of the workspace: every results table to CSV or XLSX, and the drawing to SVG,
-// PNG or DXF. One place for all of them. The header (project, design, units) and the cells come
-// from common (sheetRows); this file writes them: CSV with papaparse, XLSX with exceljs, which
-// is loaded only when a workbook is asked for, so no page pays for it before.
+// PNG or DXF. What every export is of (project, design, units) is provided here; the files are
+// written by exportFiles.ts (tables) and drawingFiles.ts (the drawing), each loaded only when a
+// download is asked for, so no page pays for papaparse, exceljs or dxf-writer before.
 import { computed, inject, provide, type ComputedRef, type InjectionKey } from 'vue';
-import Papa from 'papaparse';
-import {
-  exportFileName,
-  sheetRows,
-  type ExportContext,
-  type ExportTable,
-  type SheetCell,
-} from '@basinwright/common';
+import type { ExportContext, ExportTable } from '@basinwright/common';
 import { downloadBlob } from '@/download';
 
 export type SheetFormat = 'csv' | 'xlsx';
@@ -28,58 +21,13 @@ export function useExportContext(units: () => ExportContext['units']): ComputedR
   return ctx ?? computed(() => ({ project: 'Project', design: 'Design', units: units() }));
 }
 
-/** Rows of cells as CSV text (comma, CRLF; papaparse quotes what needs quoting). */
-export function cellsToCsv(rows: readonly SheetCell[][]): string {
-  return Papa.unparse(
-    rows.map((r) => r.map((c) => (c === null ? '' : c))),
-    { newline: '\r\n' },
-  );
-}
-
-/** Rows of cells as an XLSX workbook of one sheet; the column-heading row in bold. */
-export async function cellsToXlsx(
-  sheetName: string,
-  rows: readonly SheetCell[][],
-  headingRow: number,
-): Promise<ArrayBuffer> {
-  const { default: ExcelJS } = await import('exceljs');
-  const book = new ExcelJS.Workbook();
-  const sheet = book.addWorksheet(sheetName.replace(/[[\]*?:/\\]/g, ' ').slice(0, 31) || 'Sheet');
-  for (const r of rows) sheet.addRow(r.map((c) => (c === null ? undefined : c)));
-  sheet.getRow(headingRow + 1).font = { bold: true };
-  sheet.getColumn(1).width = 28;
-  return (await book.xlsx.writeBuffer()) as ArrayBuffer;
-}
-
-/** The table's file: CSV (UTF-8 with a byte-order mark so spreadsheets read ° and ³) or XLSX. */
-export async function tableFile<Row>(
-  table: ExportTable<Row>,
-  ctx: ExportContext,
-  format: SheetFormat,
-): Promise<{ name: string; blob: Blob }> {
-  const rows = sheetRows(table, ctx);
-  const name = exportFileName([ctx.project, table.title], format);
-  if (format === 'csv')
-    return {
-      name,
-      blob: new Blob(['\uFEFF', cellsToCsv(rows)], { type: 'text/csv;charset=utf-8' }),
-    };
-  const headingRow = rows.length - table.rows.length - 1;
-  const data = await cellsToXlsx(table.title, rows, headingRow);
-  return {
-    name,
-    blob: new Blob([data], {
-      type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
-    }),
-  };
-}
-
 /** Downloads a results table as CSV or XLSX. */
 export async function downloadTable<Row>(
   table: ExportTable<Row>,
   ctx: ExportContext,
   format: SheetFormat,
 ): Promise<void> {
+  const { tableFile } = await import('@/composables/exportFiles');
   const file = await tableFile(table, ctx, format);
   downloadBlob(file.name, file.blob);
 }

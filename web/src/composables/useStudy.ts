@@ -1,18 +1,13 @@
 // Live results: the engine runs in the browser on the form's input as the user types.
 import { onBeforeUnmount, ref, watch, type Ref } from 'vue';
-import { ValidationError } from 'yup';
 import {
   engineFailure,
   engineFailureText,
-  runStudy,
   type EngineFailure,
-  studyInputSchema,
   type DissipatorTypeId,
-  type StudyInput,
   type StudyResult,
   type UnitSystem,
 } from '@basinwright/common';
-import { inputForEngine } from '@/composables/useDesign';
 import { useLiveResult, type LiveOutcome } from '@/composables/useLive';
 import { createStudyClient, type StudyPort } from '@/composables/studyWorker';
 
@@ -43,30 +38,27 @@ export interface StudyOutcome {
   inputProblems: string[];
 }
 
+/** The in-thread study, once loaded: the first fallback fetches it, later ones run at once. */
+let inThread: typeof import('@/composables/studyInThread') | null = null;
+
 /**
- * One evaluation, without debounce: schema (in the user's units) → SI → runStudy. Never
- * throws: every failure becomes a message.
+ * The study in this thread, for when the worker cannot be used (no Worker, or it failed): the
+ * engine is imported on first need, so the page never loads it while the worker does the work.
+ * Answers at once when the engine is already here, else with a promise. Never rejects: an
+ * engine that cannot be fetched is a failure like any other.
  */
-export function evaluateStudy(raw: unknown, chosenType?: DissipatorTypeId | null): StudyOutcome {
-  let input: StudyInput;
-  try {
-    input = studyInputSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
-  } catch (e) {
-    if (e instanceof ValidationError)
-      return { result: null, failure: null, inputProblems: [...new Set(e.errors)] };
-    return { result: null, failure: engineFailure(e), inputProblems: [] };
-  }
-  try {
-    const si = inputForEngine(input);
-    // A choice passed beside the input wins over the one stored in it; the rest of the
-    // dissipator options (overrides, flotation, debris, culvert) always go with the input.
-    const result = runStudy(
-      chosenType ? { ...si, dissipators: { ...(si.dissipators ?? {}), chosenType } } : si,
-    );
-    return { result, failure: null, inputProblems: [] };
-  } catch (e) {
-    return { result: null, failure: engineFailure(e), inputProblems: [] };
-  }
+export function evaluateInThread(
+  raw: unknown,
+  chosenType?: DissipatorTypeId | null,
+): StudyOutcome | Promise<StudyOutcome> {
+  if (inThread) return inThread.evaluateStudy(raw, chosenType);
+  return import('@/composables/studyInThread').then(
+    (m) => {
+      inThread = m;
+      return m.evaluateStudy(raw, chosenType);
+    },
+    (e: unknown) => ({ result: null, failure: engineFailure(e), inputProblems: [] }),
+  );
 }
 
 /** The unit system a raw form value declares, SI unless it says US. */
@@ -94,7 +86,7 @@ const live = (out: StudyOutcome, units: UnitSystem): LiveOutcome<StudyResult> =>
 /**
  * Runs the study on `source` whenever it changes, after a pause in typing, in a Web Worker
  * where the browser has one (the page never freezes, whatever the discharge count) and in the
- * thread otherwise. Only the newest input's answer is shown; a run superseded while busy is
+ * thread otherwise (evaluateInThread: the engine fetched on first need). Only the newest input's answer is shown; a run superseded while busy is
  * ended. Keeps the last good result (marked stale) while the input is incomplete or refused, so
  * the page never blanks.
  */
@@ -106,7 +98,7 @@ export function useStudy(
 ) {
   const client = createStudyClient({
     spawn,
-    evaluate: (request) => evaluateStudy(request.raw, request.chosenType),
+    evaluate: (request) => evaluateInThread(request.raw, request.chosenType),
   });
   const state = useLiveResult<StudyResult>(
     () => {

@@ -5,7 +5,7 @@
 // script runs the cheapest-design search (a call carrying `search`; evaluateSearch) and the
 // Uncertainty panel's run (in a worker of its own): progress messages while it runs, then the
 // outcome (composables/useUncertainty.ts).
-import { evaluateStudy } from '@/composables/useStudy';
+import { evaluateStudy } from '@/composables/studyInThread';
 import { evaluateSearch } from '@/composables/cheapestSearch';
 import { evaluateUncertainty } from '@/composables/useUncertainty';
 import type {

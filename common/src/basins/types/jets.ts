@@ -5,6 +5,7 @@ import type { CriterionResult, DischargeRow, DissipatorModule } from '../types';
 import { BASIN_DEFAULTS, type BasinDefaults } from '../defaults';
 import type { ScreeningContext } from '../types';
 import { crit, designRow, dis, headOf, len, lim, published, vel } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 function energyCriteria(
   rows: readonly DischargeRow[],
@@ -29,7 +30,7 @@ function energyCriteria(
 
 export const flipBucket: DissipatorModule = {
   id: 'flip-bucket',
-  name: 'Flip bucket with plunge pool',
+  name: DISSIPATOR_NAMES['flip-bucket'],
   source: 'USBR EM-25 and Design of Small Dams (trajectory buckets); specialist design',
   family: 'jet',
   specialist: true,
@@ -59,7 +60,7 @@ export const flipBucket: DissipatorModule = {
 
 export const slottedBucket: DissipatorModule = {
   id: 'slotted-bucket',
-  name: 'Slotted (submerged) bucket',
+  name: DISSIPATOR_NAMES['slotted-bucket'],
   source: 'USBR EM-25 (Peterka 1958), Basin VII; specialist design',
   family: 'jet',
   specialist: true,

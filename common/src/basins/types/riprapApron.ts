@@ -3,13 +3,14 @@ import { culvertApronStoneSize, APRON_CLASSES } from '../riprap';
 import { BASIN_DEFAULTS } from '../defaults';
 import type { DissipatorModule } from '../types';
 import { crit, debrisCriterion, len } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: HEC-14 (2006) ch. 10]';
 const MAX_D50 = APRON_CLASSES[APRON_CLASSES.length - 1]!.d50;
 
 export const riprapApron: DissipatorModule = {
   id: 'riprap-apron',
-  name: 'Riprap apron (culvert outlet)',
+  name: DISSIPATOR_NAMES['riprap-apron'],
   source: 'FHWA HEC-14 (2006) ch. 10',
   family: 'riprap-apron',
   description:

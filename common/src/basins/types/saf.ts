@@ -16,6 +16,7 @@ import {
   udis,
   vel,
 } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: Blaisdell 1948]';
 
@@ -79,7 +80,7 @@ export function safLength(
 
 export const saf: DissipatorModule = {
   id: 'saf',
-  name: 'SAF basin',
+  name: DISSIPATOR_NAMES.saf,
   source: 'Blaisdell 1948, St. Anthony Falls Hydraulic Laboratory (via USDA SCS and USBR)',
   family: 'jump-basin',
   description:

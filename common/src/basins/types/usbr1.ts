@@ -2,12 +2,13 @@
 import { jumpLengthUSBR } from '../../hydraulics';
 import type { DissipatorModule } from '../types';
 import { crit, debrisCriterion, jumpTailwater, noDischargeLimit, udis, vel } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: USBR EM-25 via Chow 1959]';
 
 export const usbr1: DissipatorModule = {
   id: 'usbr-1',
-  name: 'USBR Type I basin (free jump on a plain apron)',
+  name: DISSIPATOR_NAMES['usbr-1'],
   source: 'USBR EM-25 (Peterka 1958); jump length curve via Chow 1959',
   family: 'jump-basin',
   description:

@@ -13,12 +13,13 @@ import {
   udis,
   vel,
 } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: USBR EM-25]';
 
 export const usbr2: DissipatorModule = {
   id: 'usbr-2',
-  name: 'USBR Type II basin',
+  name: DISSIPATOR_NAMES['usbr-2'],
   source: 'USBR EM-25 (Peterka 1958); Design of Small Dams',
   family: 'jump-basin',
   description:

@@ -14,6 +14,7 @@ import {
   udis,
   vel,
 } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: USBR EM-25]';
 
@@ -29,7 +30,7 @@ export function type3SillHeight(y1: number, fr1: number): number {
 
 export const usbr3: DissipatorModule = {
   id: 'usbr-3',
-  name: 'USBR Type III basin',
+  name: DISSIPATOR_NAMES['usbr-3'],
   source: 'USBR EM-25 (Peterka 1958); Design of Small Dams',
   family: 'jump-basin',
   description:

@@ -12,12 +12,13 @@ import {
   udis,
   vel,
 } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: USBR EM-25]';
 
 export const usbr4: DissipatorModule = {
   id: 'usbr-4',
-  name: 'USBR Type IV basin',
+  name: DISSIPATOR_NAMES['usbr-4'],
   source: 'USBR EM-25 (Peterka 1958)',
   family: 'jump-basin',
   description:

@@ -5,6 +5,7 @@ import { reqNonNegative, reqPositive, roundUp } from '../guards';
 import type { DissipatorModule } from '../types';
 import { warn, type StudyWarning } from '../../warnings';
 import { crit, debrisCriterion, designRow, dis, len, lim, published, vel } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: HEC-14 (2006) §9.4]';
 
@@ -99,7 +100,7 @@ export function sizeImpactBasin(
 
 export const usbr6: DissipatorModule = {
   id: 'usbr-6',
-  name: 'USBR Type VI impact basin',
+  name: DISSIPATOR_NAMES['usbr-6'],
   source: 'USBR (Beichley 1957, ASCE); FHWA HEC-14 (2006) §9.4',
   family: 'impact-basin',
   description:

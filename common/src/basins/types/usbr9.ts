@@ -8,6 +8,7 @@ import type { DissipatorModule } from '../types';
 import { warn, type StudyWarning } from '../../warnings';
 import { ENGINE_LIMITS } from '../../schemas/limits';
 import { crit, debrisCriterion, lim, published, udis } from './shared';
+import { DISSIPATOR_NAMES } from '../names';
 
 const TAG = '[src: USBR, Design of Small Dams / EM-25 Basin IX]';
 
@@ -115,7 +116,7 @@ export function sizeBaffledApron(
 
 export const usbr9: DissipatorModule = {
   id: 'usbr-9',
-  name: 'USBR Type IX baffled apron',
+  name: DISSIPATOR_NAMES['usbr-9'],
   source: 'USBR, Design of Small Dams; EM-25 (Peterka 1958) Basin IX',
   family: 'baffled-apron',
   description:
