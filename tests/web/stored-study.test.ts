@@ -11,7 +11,7 @@ import { ENGINE_VERSION, runStudy, toSI, type StudyInput } from '@basinwright/co
 import { caldwellDesign, fenwickDesign } from '../../seed/designs';
 import type { Design } from '../../web/src/api/designs';
 import { designFormValues } from '../../web/src/composables/useDesign';
-import { evaluateStudy } from '../../web/src/composables/useStudy';
+import { evaluateStudy } from '../../web/src/composables/studyInThread';
 import { sameJson, storedResultFor } from '../../web/src/composables/storedStudy';
 import { useLiveResult, type LiveOutcome } from '../../web/src/composables/useLive';
 
