@@ -50,6 +50,15 @@ export function gzipBytes(content: Buffer | string): number {
 
 /**
  * Text that only the library's own code carries, kept by minification: mathjs's table of units
- * names the hogshead; an echarts chart instance has the method getZr.
+ * names the hogshead; an echarts chart instance has the method getZr; ant-design-vue's form item
+ * flags itself __ANT_NEW_FORM_ITEM, its Input module names AInputPassword and its Button module
+ * AButtonGroup; vee-validate's form provides itself under the symbol vee-validate-form-context.
  */
-export const LIBRARY_MARKS = { mathjs: 'hogshead', echarts: 'getZr' } as const;
+export const LIBRARY_MARKS = {
+  mathjs: 'hogshead',
+  echarts: 'getZr',
+  antdForm: '__ANT_NEW_FORM_ITEM',
+  antdInput: 'AInputPassword',
+  antdButton: 'AButtonGroup',
+  veeValidate: 'vee-validate-form-context',
+} as const;
