@@ -1,9 +1,11 @@
 // The built app's first load (issue 13, item 3), read from Vite's manifest of the build that
 // `npm test` makes before this project runs: the sign-in page's scripts carry neither the unit
-// library (mathjs) nor the charts (echarts); the design workspace's own scripts carry no chart,
-// no mathjs (the conversions by kind need none), no engine (the study runs in its worker; the
-// page's fallback imports it when needed) and no export library (loaded on a download). Each
-// is still in the build, where it is needed. Sizes are measured in `npm run bench`.
+// library (mathjs) nor the charts (echarts), nor a form library (its form is plain markup: no
+// ant-design-vue Form, Input or Button, no vee-validate); the design workspace's own scripts
+// carry no chart, no mathjs (the conversions by kind need none), no engine (the study runs in
+// its worker; the page's fallback imports it when needed) and no export library (loaded on a
+// download). Each is still in the build, where it is needed. Sizes are measured in
+// `npm run bench` (firstLoad.signIn.jsGzipKB, firstLoad.workspace.jsGzipKB).
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -30,6 +32,21 @@ describe('what each page loads (the build manifest)', () => {
     expect(files.length).toBeGreaterThan(1);
     expect(carrying(files, LIBRARY_MARKS.mathjs)).toEqual([]);
     expect(carrying(files, LIBRARY_MARKS.echarts)).toEqual([]);
+  });
+
+  it('the sign-in page loads no form library: no antd Form, Input or Button, no vee-validate', () => {
+    const marks = [
+      LIBRARY_MARKS.antdForm,
+      LIBRARY_MARKS.antdInput,
+      LIBRARY_MARKS.antdButton,
+      LIBRARY_MARKS.veeValidate,
+    ];
+    const signIn = staticFiles(manifest, [entry, 'src/views/SignInView.vue']);
+    for (const mark of marks) expect(carrying(signIn, mark), mark).toEqual([]);
+    // The marks still find each library where it is used (the sign-up page's antd form with
+    // vee-validate), so the check above cannot pass by a mark that no longer matches anything.
+    const signUp = staticFiles(manifest, [entry, 'src/views/SignUpView.vue']);
+    for (const mark of marks) expect(carrying(signUp, mark), mark).not.toEqual([]);
   });
 
   it('the signed-in frame is its own chunk, not one the sign-in page loads', () => {

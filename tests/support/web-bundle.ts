@@ -56,6 +56,9 @@ export function gzipBytes(content: Buffer | string): number {
  * reports an UndetectableDelimiter. The engine (what useStudy's fallback runs in the page when
  * the worker cannot be used): the USBR Type I module's source, which only the catalogue of
  * designs carries (a page names a type from basins/names.ts, never the catalogue).
+ * ant-design-vue's form item flags itself __ANT_NEW_FORM_ITEM, its Input module names
+ * AInputPassword and its Button module AButtonGroup; vee-validate's form provides itself under
+ * the symbol vee-validate-form-context.
  */
 export const LIBRARY_MARKS = {
   mathjs: 'hogshead',
@@ -64,4 +67,8 @@ export const LIBRARY_MARKS = {
   dxfWriter: 'AcDbEntity',
   papaparse: 'UndetectableDelimiter',
   engine: 'jump length curve via Chow 1959',
+  antdForm: '__ANT_NEW_FORM_ITEM',
+  antdInput: 'AInputPassword',
+  antdButton: 'AButtonGroup',
+  veeValidate: 'vee-validate-form-context',
 } as const;

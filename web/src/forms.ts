@@ -116,3 +116,25 @@ export function sharedSchemaVia<TForm extends object, TShared>(
     },
   };
 }
+
+/**
+ * The first message of the shared schema for each of `fields` (absent when the field is right),
+ * for a form in plain markup with no form library (the sign-in page: see DEVELOPERS.md).
+ */
+export async function schemaErrors<F extends string>(
+  schema: Schema,
+  values: Record<F, unknown>,
+  fields: readonly F[],
+): Promise<Partial<Record<F, string>>> {
+  const found: Partial<Record<F, string>> = {};
+  try {
+    await schema.validate(values, { abortEarly: false });
+  } catch (e) {
+    if (!(e instanceof ValidationError)) throw e;
+    for (const one of e.inner.length > 0 ? e.inner : [e]) {
+      const field = fields.find((f) => f === one.path);
+      if (field !== undefined && found[field] === undefined) found[field] = one.errors[0];
+    }
+  }
+  return found;
+}
