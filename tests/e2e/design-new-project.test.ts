@@ -32,7 +32,7 @@ async function goToStep(title: string): Promise<void> {
     .first()
     .click();
   await expect
-    .poll(() => page.locator('[data-test="step-panel"] .ant-card-head-title').textContent())
+    .poll(() => page.locator('[data-test="step-panel"] .app-card-head').textContent())
     .toBe(title);
 }
 

@@ -72,7 +72,7 @@ export async function openAndSettle(page: Page, url: string): Promise<void> {
   await page.waitForFunction(
     () =>
       document.querySelector('#app > *') !== null &&
-      document.querySelector('.ant-spin-spinning, .ant-skeleton-active') === null &&
+      document.querySelector('.ant-spin-spinning, .ant-skeleton-active, .bw-skeleton') === null &&
       document.querySelector('[data-study="computing"], [data-study="waiting"]') === null,
   );
   // Lazy chunks of a step (charts, the drawing) may ask the network again once mounted.
