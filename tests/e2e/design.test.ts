@@ -154,7 +154,7 @@ describe('design workspace: the demo engineer checks, sizes and saves the demo d
     );
     expect(numberIn(await page.locator('[data-test="sizing-width"]').textContent())).toBe(12);
     // the chosen basin first, beside at least one other sized type
-    const alternatives = page.locator('[data-test="alternatives-table"] tbody tr.ant-table-row');
+    const alternatives = page.locator('[data-test="alternatives-table"] tbody tr.data-row');
     expect(await alternatives.count()).toBeGreaterThan(1);
     expect(await alternatives.first().textContent()).toContain('Sized above');
     await shot('6-sizing');

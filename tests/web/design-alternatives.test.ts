@@ -13,7 +13,7 @@ const result = runStudy(fenwickDesign);
 function tableRows(w: ReturnType<typeof mount>): Array<Record<string, string>> {
   const heads = w.findAll('thead th').map((th) => th.text());
   return w
-    .findAll('tbody tr.ant-table-row')
+    .findAll('tbody tr.data-row')
     .map((tr) => Object.fromEntries(tr.findAll('td').map((td, i) => [heads[i] ?? '', td.text()])));
 }
 

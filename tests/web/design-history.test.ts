@@ -133,8 +133,10 @@ describe('DesignHistoryPanel', () => {
     expect(wrapper.find('[data-test="approve-2"]').exists()).toBe(true);
     expect(wrapper.find('[data-test="approve-1"]').exists()).toBe(false);
     await wrapper.find('[data-test="approve-2"]').trigger('click');
-    await vi.waitFor(() =>
-      expect(document.querySelector('.ant-modal .ant-btn-primary')).not.toBeNull(),
+    // The dialog's code (antd's Modal) loads when a dialog is first opened.
+    await vi.waitFor(
+      () => expect(document.querySelector('.ant-modal .ant-btn-primary')).not.toBeNull(),
+      { timeout: 15_000 },
     );
     (document.querySelector('.ant-modal .ant-btn-primary') as HTMLButtonElement).click();
     await vi.waitFor(() =>
@@ -178,8 +180,9 @@ describe('DesignHistoryPanel', () => {
     await boxes[0]!.setValue(true);
     await boxes[1]!.setValue(true);
     await wrapper.find('[data-test="compare-versions"]').trigger('click');
-    await vi.waitFor(() =>
-      expect(document.querySelector('[data-test="inputs-changed"]')).not.toBeNull(),
+    await vi.waitFor(
+      () => expect(document.querySelector('[data-test="inputs-changed"]')).not.toBeNull(),
+      { timeout: 15_000 },
     );
     const rows = (sel: string) =>
       [...document.querySelectorAll(`[data-test="${sel}"] tr`)].map((r) =>
