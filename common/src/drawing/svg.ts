@@ -578,7 +578,7 @@ function placeLabel(
           Math.abs(oy) * against +
           (place === 'on' ? 0.5 : 2.2) * hits * 28 +
           leaderCrossings * 90 +
-          leaderThrough * 400 +
+          leaderThrough * 5000 +
           overflow * 3;
         if (!best || cost < best.cost) best = { box, cost, anchor, ...(leader ? { leader } : {}) };
       }
