@@ -8,10 +8,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { e2eBaseUrl, signIn, startBrowser, type E2eBrowser } from '../support/e2e';
+import { e2eBaseUrl, openDemoDesignStep, startBrowser, type E2eBrowser } from '../support/e2e';
 import { WEB_DIST } from '../support/web-bundle';
 
-const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
 /** Components on the Sizing step whose styles must come from the built files. */
 const BUILT = ['Button', 'Table', 'Select', 'InputNumber', 'Form', 'Steps', 'Alert'];
 
@@ -39,12 +38,7 @@ describe('antd styles built ahead of time', () => {
 
   it('the Sizing step draws with them and injects none of them at run time', async () => {
     const { page } = browser;
-    await signIn(page, e2eBaseUrl(), 'engineer@harrow-lune.example', 'basinwright-demo');
-    const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
-    await row.getByRole('link', { name: DEMO_PROJECT }).click();
-    await page.locator('[data-test="open-design"]').click();
-    await page.waitForURL(/\/projects\/[^/]+\/design/);
-    await page.goto(`${page.url().split('?')[0]!}?step=sizing`);
+    await openDemoDesignStep(page, e2eBaseUrl(), 'sizing');
     await page.locator('[data-study="idle"] [data-test="sizing-type"]').waitFor();
     await page
       .locator('[data-test="alternatives-table"], [data-test="assumptions-table"]')

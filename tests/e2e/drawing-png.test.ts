@@ -7,10 +7,9 @@ import { readFile } from 'node:fs/promises';
 import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startBrowser, type E2eBrowser, signIn, e2eBaseUrl } from '../support/e2e';
+import { startBrowser, type E2eBrowser, openDemoDesignStep, e2eBaseUrl } from '../support/e2e';
 import { expectRel } from '../support/tolerance';
 
-const DEMO_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
 /** The PNG signature [PNG spec, 5.2]. */
 const SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 
@@ -98,12 +97,7 @@ describe('the drawing in Chromium: zoom, and a PNG of the whole sheet', () => {
   });
 
   it('zooms the demo design drawing from the keyboard and moves it with an arrow', async () => {
-    await signIn(page, e2eBaseUrl(), 'engineer@harrow-lune.example', 'basinwright-demo');
-    const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
-    await row.getByRole('link', { name: DEMO_PROJECT }).click();
-    await page.locator('[data-test="open-design"]').click();
-    await page.waitForURL(/\/projects\/[^/]+\/design/);
-    await page.goto(`${page.url().split('?')[0]!}?step=sizing`);
+    await openDemoDesignStep(page, e2eBaseUrl(), 'sizing');
     const box = page.locator('[data-test="design-drawing"]');
     const svg = box.locator('svg');
     await svg.waitFor();

@@ -94,6 +94,23 @@ export async function signIn(
   await page.waitForURL(/\/projects$/);
 }
 
+/** The demo engineer's SI demo design, opened at a step of the workspace (its URL kept). */
+export const DEMO_SI_PROJECT = 'Fenwick Mill Pond — auxiliary spillway outlet';
+export async function openDemoDesignStep(
+  page: Page,
+  baseUrl: string,
+  step: string,
+): Promise<string> {
+  await signIn(page, baseUrl, 'engineer@harrow-lune.example', 'basinwright-demo');
+  const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_SI_PROJECT });
+  await row.getByRole('link', { name: DEMO_SI_PROJECT }).click();
+  await page.locator('[data-test="open-design"]').click();
+  await page.waitForURL(/\/projects\/[^/]+\/design/);
+  const designUrl = page.url().split('?')[0]!;
+  await page.goto(`${designUrl}?step=${step}`);
+  return designUrl;
+}
+
 /** A number shown with its unit, e.g. "87.64 m" → 87.64. */
 export function numberIn(text: string | null): number {
   const m = /-?[\d,]+(\.\d+)?/.exec(text ?? '');
