@@ -1,3 +1,4 @@
+import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
 import { fenwickDesign } from '../../seed/designs';
 import { addMember, bearer, setPlan, signUpFirm, apiForFile } from '../support/api-app';
@@ -223,10 +224,37 @@ describe('estimates', () => {
       .send({ mapping: { 'concrete.floorSlab': 'CON' } });
     const csv = await h.http().get(`${url}/export?format=csv`).set(auth);
     expect(csv.status).toBe(200);
-    expect(csv.text).toMatch(/\r\nTotal,,,,,,,[0-9.]+,\r\n/);
-    const xlsx = await h.http().get(`${url}/export?format=xlsx`).set(auth);
+    expect(csv.text).toMatch(/\r\nTotal,,,,,,,[0-9.]+,?\r\n/);
+    // Every export starts by naming the project, the design and the units (issue 13, item 6).
+    const lines = csv.text.split('\r\n');
+    expect(lines.slice(0, 4)).toEqual([
+      'Project,Fenwick estimate',
+      expect.stringMatching(/^Design,USBR Type II basin \(draft revision \d+\)$/),
+      'Units,SI (metric)',
+      'Table,Estimate revision 1 (draft)',
+    ]);
+    expect(lines.some((l) => l.startsWith('Take-off line,Code,Description,Quantity'))).toBe(true);
+    const xlsx = await h
+      .http()
+      .get(`${url}/export?format=xlsx`)
+      .set(auth)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(xlsx.status).toBe(200);
     expect(xlsx.headers['content-type']).toMatch(/spreadsheetml/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(xlsx.body as ArrayBuffer);
+    const values: unknown[][] = [];
+    wb.worksheets[0]!.eachRow({ includeEmpty: true }, (row) =>
+      values.push((row.values as unknown[]).slice(1)),
+    );
+    expect(values[0]).toEqual(['Project', 'Fenwick estimate']);
+    expect(values[2]).toEqual(['Units', 'SI (metric)']);
+    expect(values.some((r) => r[0] === 'Total' && typeof r[7] === 'number')).toBe(true);
 
     const other = await signUpFirm(h, 'est-other');
     const o = bearer(other.token);

@@ -6,12 +6,7 @@ import type {
   PriceExportQuery,
 } from '@basinwright/common';
 import { authOf } from '../../middlewares/auth';
-import {
-  writeCsv,
-  writeSheetCsv,
-  writeSheetXlsx,
-  writeXlsx,
-} from '../price-books/price-books.files';
+import { writeSheetCsv, writeSheetXlsx } from '../price-books/price-books.files';
 import { exportFileName } from '@basinwright/common';
 import * as estimates from './estimates.service';
 
@@ -54,21 +49,20 @@ export async function issue(req: IdReq, res: Response): Promise<void> {
 
 export async function exportEstimate(req: IdReq, res: Response): Promise<void> {
   const { format } = res.locals.query as PriceExportQuery;
-  const v = await estimates.readEstimate(authOf(req).firm.id, req.params.id);
-  const { header, rows } = estimates.exportTable(v);
-  const stem = `estimate-revision-${v.revision}`;
+  const firmId = authOf(req).firm.id;
+  const v = await estimates.readEstimate(firmId, req.params.id);
+  const out = await estimates.estimateExport(firmId, v);
+  res.setHeader('Content-Disposition', `attachment; filename="${out.stem}.${format}"`);
   if (format === 'xlsx') {
     res.setHeader(
       'Content-Type',
       'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     );
-    res.setHeader('Content-Disposition', `attachment; filename="${stem}.xlsx"`);
-    res.send(await writeXlsx(`Estimate rev ${v.revision}`, header, rows));
+    res.send(await writeSheetXlsx(out.title, out.cells, out.headingRow));
     return;
   }
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-  res.setHeader('Content-Disposition', `attachment; filename="${stem}.csv"`);
-  res.send(writeCsv(header, rows));
+  res.send(writeSheetCsv(out.cells));
 }
 
 /** GET /projects/:id/alternatives/export?format=csv|xlsx (Firm plan). */

@@ -1,5 +1,7 @@
 import {
   compareAlternatives,
+  exportHeader,
+  neutralise,
   sheetRows,
   type ExportTable,
   type SheetCell,
@@ -668,6 +670,38 @@ export function exportTable(v: EstimateView): { header: string[]; rows: (string 
       '',
     ]);
   return { header, rows };
+}
+
+/**
+ * The estimate as a sheet: the header every export starts with (project, design, units, the
+ * table, the caution), then the lines and totals of exportTable. The project's units name the
+ * design's; quantities and prices are in the price book's own units and currency, per line.
+ */
+export async function estimateExport(
+  firmId: string,
+  v: EstimateView,
+): Promise<{ title: string; cells: SheetCell[][]; headingRow: number; stem: string }> {
+  const project = await getProject(firmId, v.projectId);
+  const design = await designOf(firmId, v.projectId);
+  const basin = design?.result?.design?.design.name ?? 'no basin sized';
+  const { header, rows } = exportTable(v);
+  const title = `Estimate revision ${v.revision} (${v.status})`;
+  const top = exportHeader(
+    {
+      project: project.name,
+      design: `${basin} (draft revision ${design?.revision ?? 0})`,
+      units: project.units,
+    },
+    title,
+    ['Quantities and prices in the price book’s units and currency, line by line.'],
+  );
+  const cell = (x: string | number): SheetCell => (typeof x === 'string' ? neutralise(x) : x);
+  return {
+    title,
+    cells: [...top, header.map(cell), ...rows.map((r) => r.map(cell))],
+    headingRow: top.length,
+    stem: `estimate-revision-${v.revision}`,
+  };
 }
 
 /** What an issued design version was computed from (its draft, engine and time). */
