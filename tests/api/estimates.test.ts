@@ -226,7 +226,9 @@ describe('estimates', () => {
     expect(csv.status).toBe(200);
     expect(csv.text).toMatch(/\r\nTotal,,,,,,,[0-9.]+,?\r\n/);
     // Every export starts by naming the project, the design and the units (issue 13, item 6).
-    const lines = csv.text.split('\r\n');
+    // (after the byte-order mark by which a spreadsheet reads the file as UTF-8)
+    expect(csv.text.startsWith('\uFEFF')).toBe(true);
+    const lines = csv.text.slice(1).split('\r\n');
     expect(lines.slice(0, 4)).toEqual([
       'Project,Fenwick estimate',
       expect.stringMatching(/^Design,USBR Type II basin \(draft revision \d+\)$/),
