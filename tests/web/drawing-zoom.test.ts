@@ -41,9 +41,12 @@ afterEach(() => {
 });
 
 async function mountDrawing(drawing = fenwick) {
-  wrapper = mount(DesignDrawing, { props: { drawing, units: 'SI' }, attachTo: document.body });
+  const w = mount(DesignDrawing, { props: { drawing, units: 'SI' }, attachTo: document.body });
+  wrapper = w;
+  // The sheet is drawn in a task of its own after the box is mounted.
+  await vi.waitFor(() => expect(w.find('[data-test="design-drawing"] svg').exists()).toBe(true));
   await flushPromises();
-  return wrapper;
+  return w;
 }
 
 const svgOf = (w: VueWrapper) => w.find('[data-test="design-drawing"] svg').element;
