@@ -611,22 +611,25 @@ export function exportTable(v: EstimateView): { header: string[]; rows: (string 
     'Amount',
     'Quantity changed because',
   ];
+  // Quantities to 3 decimals and money to the cent, as an estimator reads them.
+  const r3 = (x: number): number => Number(x.toFixed(3));
+  const r2 = (x: number): number => Number(x.toFixed(2));
   const rows: (string | number)[][] = v.lines.map((l) => [
     l.key,
     l.code,
     l.description,
-    l.quantityUsed,
+    r3(l.quantityUsed),
     l.unit,
     l.unitPrice,
     l.currency,
-    l.amount,
+    r2(l.amount),
     l.override?.reason ?? '',
   ]);
   for (const u of v.unpriced) rows.push([u.key, '', u.reason, '', '', '', '', '', '']);
   const t = v.totals;
   if (t !== null) {
     const sum = (label: string, value: number) =>
-      rows.push([label, '', '', '', '', '', '', value, '']);
+      rows.push([label, '', '', '', '', '', '', r2(value), '']);
     rows.push([]);
     sum('Direct cost', t.direct);
     sum(`Located cost (× ${v.settings.locationFactor})`, t.located);
