@@ -88,6 +88,9 @@ export async function signIn(
   password: string,
 ): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
+  // The first page of a fresh browser: on a machine busy with the other test files its scripts
+  // and styles can take longer than one action's usual wait.
+  await page.getByLabel('E-mail').waitFor({ timeout: 60_000 });
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
