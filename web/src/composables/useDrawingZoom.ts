@@ -42,7 +42,7 @@ export function useDrawingZoom(size: Ref<{ w: number; h: number } | null>) {
   /** 'max' or 'min' when the last request asked past that limit; null otherwise. */
   const atLimit = ref<'max' | 'min' | null>(null);
 
-  function fit(): void {
+  function showWhole(): void {
     zoom.value = 1;
     cx.value = (size.value?.w ?? 0) / 2;
     cy.value = (size.value?.h ?? 0) / 2;
@@ -50,9 +50,9 @@ export function useDrawingZoom(size: Ref<{ w: number; h: number } | null>) {
   }
   // a new sheet size (another drawing, another box width) starts whole again
   watch(size, (s, old) => {
-    if (!old || !s || s.w !== old.w || s.h !== old.h) fit();
+    if (!old || !s || s.w !== old.w || s.h !== old.h) showWhole();
   });
-  fit();
+  showWhole();
 
   /** Keeps the centre where the view stays inside the sheet. */
   function keepInside(): void {
@@ -126,7 +126,7 @@ export function useDrawingZoom(size: Ref<{ w: number; h: number } | null>) {
     canZoomIn,
     canZoomOut,
     atLimit,
-    fit,
+    showWhole,
     zoomTo,
     step,
     panBy,
