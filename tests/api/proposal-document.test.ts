@@ -15,9 +15,11 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import {
+  haloFirst,
   proposalDocument,
   type ProposalSource,
 } from '../../api/src/modules/proposals/proposal.document';
+import { drawingToSvg } from '@basinwright/common';
 import { withUncertainty } from '../../api/src/modules/proposals/proposal.render';
 import { PROPOSAL_UNCERTAINTY } from '../../api/src/modules/proposals/proposal.uncertainty';
 import { fenwickDesign } from '../../seed/designs';
@@ -165,5 +167,27 @@ describe('the uncertainty of the floor in the proposal', () => {
   it('a stored run is printed as it is, not run again', () => {
     const first = withUncertainty(demoSource('SI'));
     expect(withUncertainty(first)).toBe(first);
+  });
+});
+
+// pdfmake's SVG renderer ignores paint-order: a label's white halo must come as its own element
+// under the text, or the label is painted white on the white sheet (seen in the demo proposal).
+describe('the drawing in the PDF: label halos under their text', () => {
+  it('every haloed label becomes an outline without fill, then the same text without stroke', () => {
+    const drawing = runStudy(fenwickDesign).design!.drawing;
+    const svg = drawingToSvg(drawing, { width: 960, fontFamily: 'Lato' });
+    const haloed = (svg.match(/paint-order="stroke"/g) ?? []).length;
+    expect(haloed).toBeGreaterThan(5);
+    const out = haloFirst(svg);
+    expect(out).not.toContain('paint-order');
+    const texts = [...out.matchAll(/<text ([^>]*)>([^<]*)<\/text>/g)];
+    const outlines = texts.filter((t) => t[1]!.includes('fill="none"'));
+    expect(outlines).toHaveLength(haloed);
+    for (const o of outlines) {
+      const next = texts[texts.indexOf(o) + 1]!;
+      expect(next[2]).toBe(o[2]); // the same words on top
+      expect(next[1]).toContain('fill="#0f172a"');
+      expect(next[1]).not.toContain('stroke=');
+    }
   });
 });
