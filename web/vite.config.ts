@@ -87,6 +87,14 @@ export default defineConfig({
     // dist/.vite/manifest.json: which chunks each view loads (the bundle test and `npm run bench`
     // read it; the server never serves a dot-folder).
     manifest: true,
+    // The page's own entry keeps its <link rel="modulepreload"> list, but a lazily loaded view
+    // does not: Vite's helper appended a link per dependency as the route resolved (dozens for
+    // the design workspace), and in Chromium those insertions alone held the main thread for
+    // 50-180 ms at 4x CPU throttling (npm run bench -- firstload). The browser still loads a
+    // view's imports in parallel as it reads the view's chunk; files are cached immutable.
+    modulePreload: {
+      resolveDependencies: (_file, deps, { hostType }) => (hostType === 'html' ? deps : []),
+    },
     emptyOutDir: true,
     rolldownOptions: {
       // common/src is pure (no work at import time except building its private mathjs

@@ -44,6 +44,14 @@ describe('storedResultFor', () => {
     });
   }
 
+  it('a form holding more than the schema keeps (a stray key) is checked by the schema and still matches', () => {
+    const design = saved(fenwickDesign);
+    const form = designFormValues(fenwickDesign, null, 'SI');
+    const stray = { ...form, strayKey: 1 };
+    expect(sameJson(stray, design.input)).toBe(false); // not the shortcut: the schema's path
+    expect(storedResultFor(stray, design)).toBe(design.result);
+  });
+
   it('another input, another engine version, an unsaved design or an input the form refuses: none', () => {
     const design = saved(fenwickDesign);
     const form = designFormValues(fenwickDesign, null, 'SI');

@@ -10,7 +10,8 @@ import { h } from 'vue';
 import { renderToString } from 'vue/server-renderer';
 import * as antd from 'ant-design-vue';
 import { createCache, extractStyle, StyleProvider } from 'ant-design-vue/lib/_util/cssinjs';
-import { theme } from '../src/theme';
+import { defaultConfig, globalDesignTokenApi } from 'ant-design-vue/lib/theme/internal';
+import { designTokenValue, theme } from '../src/theme';
 
 type Comp = Parameters<typeof h>[0];
 const A = antd as unknown as Record<string, Comp>;
@@ -64,6 +65,8 @@ function everything() {
  */
 export async function antdStaticStyle(pieces = 4): Promise<string[]> {
   const cache = createCache();
+  // As web/src/main.ts does before the app mounts: the cache paths must be the page's.
+  globalDesignTokenApi.value = designTokenValue(defaultConfig);
   await renderToString(
     h(StyleProvider as Comp, { cache }, () =>
       h(A.ConfigProvider!, { theme }, () => h('div', everything())),

@@ -1,4 +1,5 @@
 import type { ThemeConfig } from 'ant-design-vue/es/config-provider/context';
+import type { DesignTokenContext } from 'ant-design-vue/es/theme/internal';
 
 // Slate neutrals (cool greys) around a deep teal primary. All styling of antd goes through
 // these tokens; we never override its CSS. Every text colour here reads at 4.5:1 or more on
@@ -96,3 +97,26 @@ export const theme: ThemeConfig = {
     },
   },
 };
+
+/**
+ * What antd's ConfigProvider hands its design-token context for `theme` (it has no algorithm):
+ * antd's default config (seed token, hashed) with our theme over it, as its useTheme merges
+ * them. ConfigProvider publishes that value as the page's global theme only once it has
+ * rendered, but its own icon style is worked out before: first against antd's default theme and
+ * then, when the global value arrives, again against ours: two derivations of the whole token
+ * set and one style compiled in the browser, in the page's first mount. Set beforehand
+ * (web/src/main.ts; the build's style extraction does the same), it is worked out once, against
+ * ours, from the styles extracted at build time. `base` is antd's `defaultConfig` (from its ES
+ * or CommonJS build, as the caller uses).
+ */
+export function designTokenValue(base: DesignTokenContext): DesignTokenContext {
+  const { token, algorithm, components, ...rest } = theme;
+  if (algorithm) throw new Error('designTokenValue: a theme with an algorithm is not handled');
+  return {
+    ...base,
+    ...rest,
+    components: { ...base.components, ...components },
+    theme: undefined,
+    token: { ...base.token, ...token },
+  };
+}
