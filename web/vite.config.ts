@@ -92,6 +92,10 @@ export default defineConfig({
     // the design workspace), and in Chromium those insertions alone held the main thread for
     // 50-180 ms at 4x CPU throttling (npm run bench -- firstload). The browser still loads a
     // view's imports in parallel as it reads the view's chunk; files are cached immutable.
+    // One stylesheet for the whole app, linked from index.html (about 75 kB before compression).
+    // Split per view, each lazily loaded view's CSS was a <link> appended as the view loaded,
+    // again inside the main thread's longest tasks of opening the design workspace.
+    cssCodeSplit: false,
     modulePreload: {
       resolveDependencies: (_file, deps, { hostType }) => (hostType === 'html' ? deps : []),
     },

@@ -21,7 +21,8 @@ const links = [...html.matchAll(/href="\/(assets\/antd-\d+-[^"]+\.css)"/g)].map(
 describe('antd styles built ahead of time', () => {
   it('index.html links them before the app’s own styles, the first carrying the map', () => {
     expect(links.length).toBeGreaterThan(1);
-    const appCss = html.search(/href="\/assets\/index-[^"]+\.css"/);
+    // The app's own stylesheet (one for every view: vite.config.ts cssCodeSplit false).
+    const appCss = html.search(/href="\/assets\/style-[^"]+\.css"/);
     expect(appCss).toBeGreaterThan(html.indexOf(links.at(-1)!));
     const first = readFileSync(join(WEB_DIST, links[0]!), 'utf8');
     const map = /\.data-ant-cssinjs-cache-path\{content:"([^"]+)"/.exec(first)?.[1] ?? '';

@@ -25,6 +25,7 @@ import { provideNumberForm } from '@/forms';
 import { designsApi, type Design, type DesignOptions } from '@/api/designs';
 import { projectsApi } from '@/api/projects';
 import type { Project } from '@/api/types';
+import { takePrefetched } from '@/api/prefetch';
 import { useResource } from '@/composables/useResource';
 
 /**
@@ -115,9 +116,11 @@ export function inputForEngine(values: StudyInput): StudyInput {
 export function useDesign(projectId: Ref<string>) {
   const { data, busy, error, reload } = useResource<{ project: Project; design: Design } | null>(
     async (signal) => {
+      const id = projectId.value;
+      // The router started both reads while this view's code loaded (api/prefetch.ts).
       const [p, d] = await Promise.all([
-        projectsApi.get(projectId.value, signal),
-        designsApi.get(projectId.value, signal),
+        takePrefetched<Project>(`project:${id}`) ?? projectsApi.get(id, signal),
+        takePrefetched<Design>(`design:${id}`) ?? designsApi.get(id, signal),
       ]);
       return { project: p, design: d };
     },

@@ -8,6 +8,7 @@ import {
   type RouterHistory,
 } from 'vue-router';
 import { setUnauthorizedHandler } from '@/api/client';
+import { prefetchDesign } from '@/api/prefetch';
 import { useAuthStore } from '@/stores/auth';
 import type { Action } from '@/policy';
 
@@ -89,6 +90,11 @@ export const routes: RouteRecordRaw[] = [
     props: true,
     // Everyone signed in reads a design; the view shows it read-only to those who cannot edit.
     meta: { requiresAuth: true, can: 'projects.read', title: 'Design' },
+    // After the guard (signed in, allowed): ask for the project and its design while the
+    // workspace's code loads (api/prefetch.ts).
+    beforeEnter: (to) => {
+      prefetchDesign(String(to.params.id));
+    },
   },
   {
     path: '/tools/jump-position',
