@@ -64,6 +64,16 @@ async function checkPages(page: Page, urls: string[]): Promise<string> {
   const problems: string[] = [];
   for (const url of urls) {
     await openAndSettle(page, url);
+    // Folded parts (a closed <details>, such as the assumptions table) are opened so that what
+    // they hold is checked too; their content is made when they open.
+    await page.evaluate(() =>
+      document.querySelectorAll('details').forEach((d) => {
+        d.open = true;
+      }),
+    );
+    await page.waitForFunction(() =>
+      [...document.querySelectorAll('details')].every((d) => d.children.length > 1),
+    );
     const blocking = (await axeViolations(page)).filter(
       (v) => v.impact === 'critical' || v.impact === 'serious' || ALWAYS.has(v.id),
     );

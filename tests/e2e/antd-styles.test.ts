@@ -47,8 +47,11 @@ describe('antd styles built ahead of time', () => {
     await openDemoDesignStep(page, e2eBaseUrl(), 'sizing');
     await page.locator('[data-study="idle"] [data-test="sizing-type"]').waitFor();
     // The last parts to draw (each deferred to a task of its own).
-    for (const part of ['alternatives-table', 'assumptions-table', 'history-panel'])
+    for (const part of ['alternatives-table', 'assumptions-table-summary', 'history-panel'])
       await page.locator(`[data-test="${part}"]`).first().waitFor();
+    // The assumptions table (folded while nothing in it is changed) with its filter and buttons.
+    await page.locator('[data-test="assumptions-table-summary"]').click();
+    await page.locator('[data-test="assumptions-table"]').waitFor();
     const injected = await page.evaluate(() =>
       [...document.querySelectorAll('style[data-css-hash]')].map((s) => s.textContent ?? ''),
     );

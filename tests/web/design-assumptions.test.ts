@@ -268,4 +268,23 @@ describe('DesignAssumptionsPanel', () => {
     expect(form.values.dissipators?.defaults?.type2SillHeightRatio).toBe(0.25);
     expect(cell.textContent).not.toMatch(/Type a number/);
   });
+
+  it('with nothing changed the table is folded, its summary counting what it holds; opening it makes the rows', async () => {
+    const input = typeII();
+    const { wrapper } = mountPanel(input, run(input));
+    while (!wrapper.find('[data-test="assumptions-table-summary"]').exists())
+      await new Promise((resolve) => requestAnimationFrame(resolve));
+    const all = Object.keys(BASIN_DEFAULTS).length;
+    expect(wrapper.find('[data-test="assumptions-table-summary"]').text()).toMatch(
+      new RegExp(`${all} values, \\d+ from memory — verify`),
+    );
+    expect(wrapper.find('[data-test="assumptions-table"]').exists()).toBe(false);
+    const details = wrapper.find<HTMLDetailsElement>('[data-test="assumptions-table-panel"]');
+    details.element.open = true;
+    await details.trigger('toggle');
+    expect(wrapper.findAll('[data-test="assumptions-table"] tbody tr.assumption-row')).toHaveLength(
+      all,
+    );
+    wrapper.unmount();
+  });
 });

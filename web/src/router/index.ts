@@ -9,6 +9,7 @@ import {
 } from 'vue-router';
 import { setUnauthorizedHandler } from '@/api/client';
 import { prefetchDesign } from '@/api/prefetch';
+import { preloadStep } from '@/designSteps';
 import { useAuthStore } from '@/stores/auth';
 import type { Action } from '@/policy';
 
@@ -90,10 +91,11 @@ export const routes: RouteRecordRaw[] = [
     props: true,
     // Everyone signed in reads a design; the view shows it read-only to those who cannot edit.
     meta: { requiresAuth: true, can: 'projects.read', title: 'Design' },
-    // After the guard (signed in, allowed): ask for the project and its design while the
-    // workspace's code loads (api/prefetch.ts).
+    // After the guard (signed in, allowed): ask for the project and its design, and start the
+    // opened step's code, while the workspace's code loads (api/prefetch.ts, designSteps.ts).
     beforeEnter: (to) => {
       prefetchDesign(String(to.params.id));
+      preloadStep(to.query.step);
     },
   },
   {
