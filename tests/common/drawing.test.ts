@@ -390,8 +390,8 @@ describe('drawing layout at the rendered size', () => {
 
 // Issue 13 item 4: no label on a label and none on a dimension's lines, for every type the two
 // demo studies design (the chosen one and the alternatives) and for wide basins (the SI demo
-// at 60 m and the US demo at 80 ft, where the plan is far wider than the basin is long and the
-// section is drawn small). The boxes are each text's box
+// at 60 m and the US demo at 30, 40 and 80 ft, where the plan is far wider than the basin is
+// long and the section is drawn small). The boxes are each text's box
 // recomputed from its own text, size and anchor (label) or as laid out (dimension values and
 // arrows); the lines are every dimension's witness lines, dimension line and tail, and every
 // leader. Each box is checked against every other box and every line but its own.
@@ -407,6 +407,16 @@ describe('labels clear of each other and of the dimension lines', () => {
     { name: 'Fenwick (SI)', input: fenwickDesign, format: formatSI },
     { name: 'Caldwell (US)', input: toSI(caldwellDesign), format: feet },
     { name: 'Fenwick at 60 m wide', input: { ...fenwickDesign, basinWidth: 60 }, format: formatSI },
+    {
+      name: 'Caldwell at 30 ft wide',
+      input: toSI({ ...caldwellDesign, basinWidth: 30 }),
+      format: feet,
+    },
+    {
+      name: 'Caldwell at 40 ft wide',
+      input: toSI({ ...caldwellDesign, basinWidth: 40 }),
+      format: feet,
+    },
     {
       name: 'Caldwell at 80 ft wide',
       input: toSI({ ...caldwellDesign, basinWidth: 80 }),

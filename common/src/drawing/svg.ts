@@ -333,9 +333,12 @@ export function layoutView(
   }
 
   const labels: PlacedLabel[] = [];
-  for (const it of view.items) {
-    if (it.kind !== 'label') continue;
-    const pl = placeLabel(it, PX, format, taken, lines, dimLines, {
+  const labelItems = view.items.filter((it): it is LabelItem => it.kind === 'label');
+  for (const [k, it] of labelItems.entries()) {
+    // The points the labels still to come may need a leader to (their feature): text placed
+    // on one would leave that label only a leader through it.
+    const reserved = labelItems.slice(k + 1).map((o) => PX(o.target ?? o.at));
+    const pl = placeLabel(it, PX, format, taken, lines, dimLines, reserved, {
       x0: X(view.bounds.minX),
       y0: 0,
       x1: X(view.bounds.maxX),
@@ -489,6 +492,7 @@ function placeLabel(
   taken: Box[],
   lines: Seg[],
   dimLines: Seg[],
+  reserved: Pt[],
   frame: Box,
 ): PlacedLabel {
   const size = it.size === 'normal' ? DRAWING_FONT.labelNormal : DRAWING_FONT.label;
@@ -559,10 +563,14 @@ function placeLabel(
         if (taken.some((t) => boxesOverlap(t, box, 1.5))) continue;
         if (dimLines.some(([p, q]) => segmentHitsBox(p, q, box))) continue;
         const leader = leaderFor(box, n);
-        // a leader through other text is a last resort, taken only when nothing else is free
+        // a leader through other text (or grazing it) is a last resort, taken only when
+        // nothing else is free
         const leaderThrough = leader
-          ? taken.filter((t) => segmentHitsBox(leader.from, leader.to, t)).length
+          ? taken.filter((t) => segmentHitsBox(leader.from, leader.to, inflate(t, 0.5))).length
           : 0;
+        // text on the point a later label's leader must reach may leave that label only a
+        // leader through it: avoided when a place not far off is free
+        const onReserved = reserved.filter((r) => inBox(r, inflate(box, 3))).length;
         const hits = lines.reduce(
           (k, [p, q, heavy]) => (segmentHitsBox(p, q, box) ? k + (heavy ? 1.4 : 1) : k),
           0,
@@ -579,6 +587,7 @@ function placeLabel(
           (place === 'on' ? 0.5 : 2.2) * hits * 28 +
           leaderCrossings * 90 +
           leaderThrough * 5000 +
+          onReserved * RESERVED_COST +
           overflow * 3;
         if (!best || cost < best.cost) best = { box, cost, anchor, ...(leader ? { leader } : {}) };
       }
@@ -596,6 +605,17 @@ function placeLabel(
   const out: PlacedLabel = { role: it.role, text: s, size, x, y, anchor, box };
   if (pick.leader) out.leader = pick.leader;
   return out;
+}
+
+/** The cost of text over a later label's feature point (in the units of px moved). */
+const RESERVED_COST = 300;
+
+function inflate(b: Box, by: number): Box {
+  return { x0: b.x0 - by, y0: b.y0 - by, x1: b.x1 + by, y1: b.y1 + by };
+}
+
+function inBox(p: Pt, b: Box): boolean {
+  return p.x >= b.x0 && p.x <= b.x1 && p.y >= b.y0 && p.y <= b.y1;
 }
 
 /** How many of `segs` the segment crosses (proper crossings; touching ends do not count). */
