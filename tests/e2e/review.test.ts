@@ -44,8 +44,11 @@ describe('review: the demo engineer issues a version, the demo owner approves it
     await row.waitFor();
     issuedNumber = Number(/Version (\d+)/.exec((await row.textContent()) ?? '')?.[1]);
     expect(issuedNumber).toBeGreaterThan(0);
-    // its key figures: the chosen type and a cost not priced yet
-    expect(await row.textContent()).toContain('Not priced');
+    // its key figures: the chosen type, and the cost of the firm's saved estimate of the design
+    // at issue (another e2e file may have saved one), "Not priced" when there is none
+    expect(await row.textContent()).toContain('USBR Type II basin');
+    const cost = (await row.locator(`[data-test="version-cost-${issuedNumber}"]`).textContent())!;
+    expect(cost.trim()).toMatch(/^(Not priced|\d{1,3}(,\d{3})*)$/);
     await row.locator(`[data-test="send-${issuedNumber}"]`).click();
     await expect
       .poll(() => row.locator(`[data-test="review-state-${issuedNumber}"]`).textContent())

@@ -101,6 +101,9 @@ describe('useLiveResult: adopt', () => {
       false,
       false,
     ]);
+    // The quiet check starts a task later (after the known value is drawn).
+    expect(answers).toHaveLength(0);
+    await new Promise((resolve) => setTimeout(resolve, 0));
     expect(answers).toHaveLength(1);
     answers[0]!({ value: { n: 1 }, engineError: null, inputProblems: [] });
     await nextTick();
@@ -112,15 +115,29 @@ describe('useLiveResult: adopt', () => {
     const answers: Array<(v: LiveOutcome<{ n: number }> | null) => void> = [];
     const live = host(answers);
     live.adopt({ n: 1 }, same);
+    await new Promise((resolve) => setTimeout(resolve, 0));
     answers[0]!({ value: { n: 2 }, engineError: null, inputProblems: [] });
     await new Promise((resolve) => setTimeout(resolve, 0));
     expect(live.value.value).toEqual({ n: 2 });
+  });
+
+  it('a change before the check starts means no check at all', async () => {
+    const answers: Array<(v: LiveOutcome<{ n: number }> | null) => void> = [];
+    const live = host(answers);
+    live.adopt({ n: 1 }, same);
+    live.runNow();
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    expect(answers).toHaveLength(1); // the change's own evaluation only
+    answers[0]!({ value: { n: 4 }, engineError: null, inputProblems: [] });
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    expect(live.value.value).toEqual({ n: 4 });
   });
 
   it('a change while the check runs drops the check’s answer', async () => {
     const answers: Array<(v: LiveOutcome<{ n: number }> | null) => void> = [];
     const live = host(answers);
     live.adopt({ n: 1 }, same);
+    await new Promise((resolve) => setTimeout(resolve, 0)); // the check has started
     live.runNow();
     answers[0]!({ value: { n: 9 }, engineError: null, inputProblems: [] });
     answers[1]!({ value: { n: 3 }, engineError: null, inputProblems: [] });

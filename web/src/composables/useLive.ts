@@ -102,11 +102,16 @@ export function useLiveResult<T>(
     pending.value = false;
     apply({ value: known, engineError: null, inputProblems: [] });
     if (!same) return;
-    void Promise.resolve(evaluate()).then((answer) => {
-      if (own !== latest || !answer) return;
-      if (answer.value !== null && same(answer.value, known)) return;
-      apply(answer);
-    });
+    // The quiet check starts in a task of its own, after the known value is drawn: handing the
+    // input to the worker (a plain copy, the worker's start) was part of the page's longest task.
+    timer = setTimeout(() => {
+      if (own !== latest) return;
+      void Promise.resolve(evaluate()).then((answer) => {
+        if (own !== latest || !answer) return;
+        if (answer.value !== null && same(answer.value, known)) return;
+        apply(answer);
+      });
+    }, 0);
   }
 
   onBeforeUnmount(() => {
