@@ -87,15 +87,15 @@ export default defineConfig({
     // dist/.vite/manifest.json: which chunks each view loads (the bundle test and `npm run bench`
     // read it; the server never serves a dot-folder).
     manifest: true,
+    // One stylesheet for the whole app, linked from index.html (about 70 kB before compression).
+    // Split per view, each lazily loaded view's CSS was a <link> appended as the view loaded,
+    // inside the main thread's longest tasks of opening the design workspace.
+    cssCodeSplit: false,
     // The page's own entry keeps its <link rel="modulepreload"> list, but a lazily loaded view
     // does not: Vite's helper appended a link per dependency as the route resolved (dozens for
     // the design workspace), and in Chromium those insertions alone held the main thread for
     // 50-180 ms at 4x CPU throttling (npm run bench -- firstload). The browser still loads a
     // view's imports in parallel as it reads the view's chunk; files are cached immutable.
-    // One stylesheet for the whole app, linked from index.html (about 75 kB before compression).
-    // Split per view, each lazily loaded view's CSS was a <link> appended as the view loaded,
-    // again inside the main thread's longest tasks of opening the design workspace.
-    cssCodeSplit: false,
     modulePreload: {
       resolveDependencies: (_file, deps, { hostType }) => (hostType === 'html' ? deps : []),
     },

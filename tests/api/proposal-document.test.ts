@@ -15,7 +15,6 @@ import {
   type UnitSystem,
 } from '@basinwright/common';
 import {
-  haloFirst,
   proposalDocument,
   type ProposalSource,
 } from '../../api/src/modules/proposals/proposal.document';
@@ -172,13 +171,14 @@ describe('the uncertainty of the floor in the proposal', () => {
 
 // pdfmake's SVG renderer ignores paint-order: a label's white halo must come as its own element
 // under the text, or the label is painted white on the white sheet (seen in the demo proposal).
+// The proposal asks drawingToSvg for halos as underlays; the PDF made from the demo holds them.
 describe('the drawing in the PDF: label halos under their text', () => {
-  it('every haloed label becomes an outline without fill, then the same text without stroke', () => {
+  it('every label is an outline without fill, then the same text without stroke', () => {
     const drawing = runStudy(fenwickDesign).design!.drawing;
-    const svg = drawingToSvg(drawing, { width: 960, fontFamily: 'Lato' });
-    const haloed = (svg.match(/paint-order="stroke"/g) ?? []).length;
+    const browser = drawingToSvg(drawing, { width: 960, fontFamily: 'Lato' });
+    const haloed = (browser.match(/paint-order="stroke"/g) ?? []).length;
     expect(haloed).toBeGreaterThan(5);
-    const out = haloFirst(svg);
+    const out = drawingToSvg(drawing, { width: 960, fontFamily: 'Lato', halo: 'underlay' });
     expect(out).not.toContain('paint-order');
     const texts = [...out.matchAll(/<text ([^>]*)>([^<]*)<\/text>/g)];
     const outlines = texts.filter((t) => t[1]!.includes('fill="none"'));
@@ -189,5 +189,14 @@ describe('the drawing in the PDF: label halos under their text', () => {
       expect(next[1]).toContain('fill="#0f172a"');
       expect(next[1]).not.toContain('stroke=');
     }
+  });
+
+  it('the proposal’s drawing page carries the labels that way', () => {
+    const { definition } = proposalDocument(withUncertainty(demoSource('SI'), 0));
+    const svgs = JSON.stringify(definition.content).match(/<svg[^]*?<\/svg>/g) ?? [];
+    const drawing = svgs.find((x) => x.includes('data-role=\\"label-'));
+    expect(drawing).toBeDefined();
+    expect(drawing).not.toContain('paint-order');
+    expect(drawing).toContain('fill=\\"none\\" stroke=\\"#ffffff\\"');
   });
 });

@@ -7,6 +7,7 @@ import {
   displayDecimals,
   displayText,
   formatQuantity,
+  groupedNumber,
   significant,
   type QuantityKind,
 } from '../../common/src';
@@ -24,6 +25,23 @@ describe('one display-rounding rule', () => {
     expect(displayText(3.14159, 'length', 'SI', 3)).toBe('3.142');
     expect(displayText(null, 'discharge', 'US')).toBe('—');
     expect(displayText(Number.NaN, null, 'SI')).toBe('—');
+  });
+  it('table numbers with at most (and at least) so many decimals: the platform’s own per-call formatting', () => {
+    expect(groupedNumber(1234.5678, 2)).toBe('1,234.57');
+    expect(groupedNumber(1234.5, 2, 2)).toBe('1,234.50');
+    expect(groupedNumber(0.125, 4)).toBe('0.125');
+    expect(groupedNumber(-98765.4, 0)).toBe('-98,765');
+    // the cached formatter answers as toLocaleString with the same options does, call after call
+    for (const [v, max, min] of [
+      [1e7 / 3, 2, 0],
+      [2.5, 0, 0],
+      [1e-5, 4, 0],
+      [42, 2, 2],
+    ] as const)
+      for (let i = 0; i < 2; i++)
+        expect(groupedNumber(v, max, min)).toBe(
+          v.toLocaleString('en-GB', { minimumFractionDigits: min, maximumFractionDigits: max }),
+        );
   });
   it('sentences: three significant figures (lengths to the hundredth), in formatQuantity too', () => {
     expect(significant(49.2126)).toBe('49.2');

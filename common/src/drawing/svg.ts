@@ -35,6 +35,12 @@ export interface SvgOptions {
   accent?: string;
   /** unit of the scale bar (default metres); a US drawing passes { label: 'ft', metres: 0.3048 } */
   scaleUnit?: ScaleUnit;
+  /**
+   * how a label's white halo goes under its text: one element painted stroke first
+   * (paint-order, as browsers draw it; the default), or the outline as an element of its own
+   * under the text, for renderers that ignore paint-order (pdfmake's, in the proposal PDF)
+   */
+  halo?: 'paint-order' | 'underlay';
 }
 
 /** Default formatter: SI, lengths and elevations to 2 decimals. */
@@ -739,7 +745,7 @@ export function drawingToSvg(drawing: Drawing, opts: SvgOptions = {}): string {
       else if (it.kind === 'arrow') out.push(arrow(it, X, Y, font));
     }
     for (const d of l.dimensions) out.push(dimension(d, font));
-    for (const p of l.labels) out.push(labelSvg(p, font));
+    for (const p of l.labels) out.push(labelSvg(p, font, opts.halo ?? 'paint-order'));
     out.push('</g>');
   }
   // Scale bar: a round length in the user's unit, near a fifth of the width.
@@ -863,12 +869,19 @@ function dimension(d: PlacedDimension, font: string): string {
   );
 }
 
-function labelSvg(p: PlacedLabel, font: string): string {
+function labelSvg(p: PlacedLabel, font: string, halo: 'paint-order' | 'underlay'): string {
   const leader = p.leader
     ? `<line x1="${f(p.leader.from.x)}" y1="${f(p.leader.from.y)}" x2="${f(p.leader.to.x)}" y2="${f(p.leader.to.y)}" stroke="#475569" stroke-width="0.6"/><circle cx="${f(p.leader.to.x)}" cy="${f(p.leader.to.y)}" r="1.6" fill="#475569"/>`
     : '';
   // a white halo keeps text readable where it has to sit on a line
-  return `<g data-role="label-${esc(p.role)}">${leader}<text data-role="${esc(p.role)}" x="${f(p.x)}" y="${f(p.y)}" font-family="${font}" font-size="${p.size}" text-anchor="${p.anchor}" fill="#0f172a" stroke="#ffffff" stroke-width="3" stroke-linejoin="round" paint-order="stroke">${esc(p.text)}</text></g>`;
+  const at = `x="${f(p.x)}" y="${f(p.y)}" font-family="${font}" font-size="${p.size}" text-anchor="${p.anchor}"`;
+  const outline = `stroke="#ffffff" stroke-width="3" stroke-linejoin="round"`;
+  const body = esc(p.text);
+  const text =
+    halo === 'underlay'
+      ? `<text ${at} fill="none" ${outline}>${body}</text><text data-role="${esc(p.role)}" ${at} fill="#0f172a">${body}</text>`
+      : `<text data-role="${esc(p.role)}" ${at} fill="#0f172a" ${outline} paint-order="stroke">${body}</text>`;
+  return `<g data-role="label-${esc(p.role)}">${leader}${text}</g>`;
 }
 
 function arrow(

@@ -6,6 +6,7 @@ export {
   exportHeader,
   neutralise,
   sheetRows,
+  toDecimals,
   unitSystemName,
   unneutralise,
   type ExportColumn,

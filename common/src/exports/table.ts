@@ -93,10 +93,15 @@ export function sheetRows<Row>(table: ExportTable<Row>, ctx: ExportContext): She
       if (v === null) return null;
       if (typeof v === 'string') return neutralise(v);
       const x = c.kind ? fromSIValue(v, c.kind, ctx.units) : v;
-      return Number.isFinite(x) ? Number(x.toFixed(c.digits ?? 3)) : null;
+      return Number.isFinite(x) ? toDecimals(x, c.digits ?? 3) : null;
     }),
   );
   return [...exportHeader(ctx, table.title, table.notes), heads, ...body];
+}
+
+/** A number rounded to `digits` decimals as an export writes it (a number, not text). */
+export function toDecimals(x: number, digits: number): number {
+  return Number(x.toFixed(digits));
 }
 
 /** A file name from its parts: lower case, words joined by hyphens, nothing a file system minds. */

@@ -24,6 +24,7 @@ export {
   DIMENSIONLESS_DECIMALS,
   displayDecimals,
   displayText,
+  groupedNumber,
   significant,
 } from './rounding';
 

@@ -44,22 +44,28 @@ export function displayText(
   digits = displayDecimals(kind, system),
 ): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return fixedFormat(digits).format(value);
+  return groupedNumber(value, digits, digits);
 }
 
-// One formatter per number of decimals: toLocaleString with options builds a new formatter on
-// every call, which cost a table of seventy rows tens of milliseconds on a slow machine.
-const FIXED_FORMATS = new Map<number, Intl.NumberFormat>();
-function fixedFormat(digits: number): Intl.NumberFormat {
-  let f = FIXED_FORMATS.get(digits);
+// One formatter per pair of decimal limits: toLocaleString with options builds a new formatter
+// on every call, which cost a table of seventy rows tens of milliseconds on a slow machine.
+const NUMBER_FORMATS = new Map<string, Intl.NumberFormat>();
+
+/**
+ * A number with grouped thousands and at most `maxDigits` decimals (at least `minDigits`), as
+ * every table of the app writes one: groupedNumber(1234.5678, 2) // '1,234.57'
+ */
+export function groupedNumber(value: number, maxDigits: number, minDigits = 0): string {
+  const key = `${minDigits}:${maxDigits}`;
+  let f = NUMBER_FORMATS.get(key);
   if (!f) {
     f = new Intl.NumberFormat('en-GB', {
-      minimumFractionDigits: digits,
-      maximumFractionDigits: digits,
+      minimumFractionDigits: minDigits,
+      maximumFractionDigits: maxDigits,
     });
-    FIXED_FORMATS.set(digits, f);
+    NUMBER_FORMATS.set(key, f);
   }
-  return f;
+  return f.format(value);
 }
 
 /**

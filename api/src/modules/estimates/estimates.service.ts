@@ -3,6 +3,7 @@ import {
   exportHeader,
   neutralise,
   sheetRows,
+  toDecimals,
   type ExportTable,
   type SheetCell,
   type TypeMeasures,
@@ -612,8 +613,8 @@ export function exportTable(v: EstimateView): { header: string[]; rows: (string 
     'Quantity changed because',
   ];
   // Quantities to 3 decimals and money to the cent, as an estimator reads them.
-  const r3 = (x: number): number => Number(x.toFixed(3));
-  const r2 = (x: number): number => Number(x.toFixed(2));
+  const r3 = (x: number): number => toDecimals(x, 3);
+  const r2 = (x: number): number => toDecimals(x, 2);
   const rows: (string | number)[][] = v.lines.map((l) => [
     l.key,
     l.code,

@@ -35,21 +35,6 @@ import type { EstimateView } from '../estimates/estimates.service';
 import type { ProposalUncertainty } from './proposal.uncertainty';
 
 /** The firm's branding on a paid plan (null on Concept: the watermark instead). */
-/**
- * The drawing's labels carry a white halo drawn under the text (paint-order="stroke"). pdfmake's
- * SVG renderer ignores paint-order and paints the halo over the text, which left the labels white
- * on the white sheet. Each haloed text is written twice for it instead: the white outline alone,
- * then the text alone on top.
- */
-export function haloFirst(svg: string): string {
-  return svg.replace(
-    /<text ([^>]*?) stroke="([^"]+)" stroke-width="([^"]+)" stroke-linejoin="round" paint-order="stroke">([^<]*)<\/text>/g,
-    (_m, attrs: string, stroke: string, width: string, body: string) =>
-      `<text ${attrs.replace(/ fill="[^"]*"/, ' fill="none"')} stroke="${stroke}" stroke-width="${width}" stroke-linejoin="round">${body}</text>` +
-      `<text ${attrs}>${body}</text>`,
-  );
-}
-
 export interface ProposalBrand {
   color: string | null;
   logo: { type: string; data: Buffer } | null;
@@ -827,14 +812,15 @@ export function proposalDocument(source: ProposalSource): {
       pageOrientation: 'landscape',
     });
     content.push({
-      svg: haloFirst(
-        drawingToSvg(entry.drawing, {
-          format,
-          width: 960,
-          fontFamily: 'Lato',
-          scaleUnit: { label: L, metres: toSIValue(1, 'length', units) },
-        }),
-      ),
+      svg: drawingToSvg(entry.drawing, {
+        format,
+        width: 960,
+        fontFamily: 'Lato',
+        scaleUnit: { label: L, metres: toSIValue(1, 'length', units) },
+        // pdfmake's SVG renderer ignores paint-order: a halo painted over its text left every
+        // label white on the white sheet
+        halo: 'underlay',
+      }),
       fit: [760, 440],
     });
   }
