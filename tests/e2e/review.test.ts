@@ -21,7 +21,9 @@ afterAll(async () => {
 async function openDesign(page: Page): Promise<void> {
   const row = page.locator('[data-test="project-table"] tbody tr', { hasText: DEMO_PROJECT });
   await row.getByRole('link', { name: DEMO_PROJECT }).click();
-  await expect.poll(() => page.locator('h1').textContent()).toContain(DEMO_PROJECT);
+  // The project page's heading: a locator wait (the action timeout), not expect.poll's one
+  // second, which a fresh browser on a busy machine once overran.
+  await page.locator('h1', { hasText: DEMO_PROJECT }).waitFor();
   projectUrl = page.url().split('?')[0]!;
   await page.locator('[data-test="open-design"]').click();
   await page.waitForURL(/\/projects\/[^/]+\/design/);
